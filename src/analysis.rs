@@ -1,0 +1,1 @@
+//! The whole analysis chain in one call (in progress).

@@ -1,0 +1,4 @@
+//! One module per subcommand: argument struct and the glue from arguments to library calls.
+
+pub mod check;
+pub mod section;

@@ -1,0 +1,1 @@
+//! Airfoil coordinate files (in progress).

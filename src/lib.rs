@@ -1,0 +1,20 @@
+//! trimline: balance, trim and stall estimates for gliders and model aircraft.
+//!
+//! Data flows one way through the modules:
+//! aircraft file ([`input`]) -> [`model`] -> [`section`] -> [`planform`] and
+//! [`lifting_line`] -> [`balance`], [`stability`] -> [`analysis`] -> [`output`].
+//!
+//! Everything between `input` and `output` is the numerical core: it does no I/O,
+//! prints nothing and works in SI units with angles in radians.
+#![deny(clippy::print_stdout, clippy::print_stderr)]
+
+pub mod analysis;
+pub mod atmosphere;
+pub mod balance;
+pub mod caution;
+pub mod input;
+pub mod model;
+pub mod output;
+pub mod planform;
+pub mod section;
+pub mod stability;

@@ -1,0 +1,41 @@
+//! The `trimline` command line: parse arguments, load, analyse, render, map errors to exit codes.
+#![allow(clippy::print_stdout, clippy::print_stderr)]
+
+mod commands;
+
+use clap::{Parser, Subcommand};
+use std::process::ExitCode;
+
+/// Balance, trim and stall estimates for gliders and model aircraft.
+#[derive(Debug, Parser)]
+#[command(name = "trimline", version, about, long_about = None)]
+struct Cli {
+    #[command(subcommand)]
+    command: Command,
+}
+
+#[derive(Debug, Subcommand)]
+enum Command {
+    /// Analyse one aircraft file (or the built-in demo): geometry, masses, balance, trim, stall.
+    Check(commands::check::CheckArgs),
+    /// Look at one airfoil: zero-lift angle, lift slope, moments, a table over angle of attack.
+    Section(commands::section::SectionArgs),
+}
+
+fn main() -> ExitCode {
+    let cli = Cli::parse();
+    let result = match cli.command {
+        Command::Check(args) => commands::check::run(&args),
+        Command::Section(args) => commands::section::run(&args),
+    };
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(err) => {
+            eprintln!("error: {err}");
+            for cause in err.chain().skip(1) {
+                eprintln!("  caused by: {cause}");
+            }
+            ExitCode::from(1)
+        }
+    }
+}

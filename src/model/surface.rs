@@ -1,0 +1,94 @@
+//! Lifting surfaces: wing, tail or canard, described by panels or as an ellipse.
+
+use super::AirfoilId;
+
+/// One trapezoidal panel of a half-span, from its root (inboard) end to its tip (outboard) end.
+///
+/// The panel's root leading edge sits at the previous panel's tip leading edge (or at the
+/// surface's root leading edge for the first panel).
+#[derive(Debug, Clone, PartialEq)]
+pub struct Panel {
+    /// Spanwise length of the panel, measured in the surface's plane (along the dihedral), m.
+    pub span_m: f64,
+    /// Chord at the panel's inboard end, m.
+    pub root_chord_m: f64,
+    /// Chord at the panel's outboard end, m.
+    pub tip_chord_m: f64,
+    /// Leading-edge sweep, rad, positive swept back.
+    pub sweep_le_rad: f64,
+    /// Dihedral, rad, positive tip up.
+    pub dihedral_rad: f64,
+    /// Geometric twist of the outboard end relative to the surface's root chord, rad
+    /// (negative is washout). The inboard end has the previous panel's tip twist (0 for the first).
+    pub tip_twist_rad: f64,
+    /// Airfoil at the inboard end.
+    pub root_airfoil: AirfoilId,
+    /// Airfoil at the outboard end.
+    pub tip_airfoil: AirfoilId,
+}
+
+/// An elliptic planform: chord c(y) = c_root sqrt(1 - (y/s)^2) with a straight, unswept
+/// quarter-chord line.
+#[derive(Debug, Clone, PartialEq)]
+pub struct EllipticShape {
+    /// Semispan s, m.
+    pub semispan_m: f64,
+    /// Root chord, m.
+    pub root_chord_m: f64,
+    /// Dihedral, rad.
+    pub dihedral_rad: f64,
+    /// Geometric twist at the tip relative to the root, varying linearly with y, rad.
+    pub tip_twist_rad: f64,
+    /// Airfoil at the root.
+    pub root_airfoil: AirfoilId,
+    /// Airfoil at the tip.
+    pub tip_airfoil: AirfoilId,
+}
+
+/// The planform of a half-span.
+#[derive(Debug, Clone, PartialEq)]
+pub enum SurfaceShape {
+    /// One or more trapezoidal panels, root to tip.
+    Panels(Vec<Panel>),
+    /// An elliptic planform.
+    Elliptic(EllipticShape),
+}
+
+/// A symmetric lifting surface (wing, tail or canard).
+#[derive(Debug, Clone, PartialEq)]
+pub struct Surface {
+    /// Name ("wing", "tail").
+    pub name: String,
+    /// x of the root leading edge, m aft of the datum.
+    pub root_le_x_m: f64,
+    /// z of the root leading edge, m above the datum line.
+    pub root_le_z_m: f64,
+    /// Incidence of the root chord to the fuselage datum line, rad (leading edge up positive).
+    pub incidence_rad: f64,
+    /// The half-span planform.
+    pub shape: SurfaceShape,
+}
+
+/// Whether the horizontal stabiliser is behind or ahead of the wing.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum StabiliserRole {
+    /// A conventional tailplane aft of the wing.
+    Tail,
+    /// A foreplane ahead of the wing.
+    Canard,
+}
+
+/// Horizontal tail or canard.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Stabiliser {
+    /// Tail or canard.
+    pub role: StabiliserRole,
+    /// Its geometry.
+    pub surface: Surface,
+    /// Elevator chord / local chord (0 for an all-moving surface, 0 < F < 1 otherwise).
+    pub elevator_chord_fraction: f64,
+    /// Greatest trailing-edge-up elevator deflection, rad (positive number).
+    pub elevator_max_up_rad: f64,
+    /// Greatest trailing-edge-down elevator deflection, rad (positive number).
+    pub elevator_max_down_rad: f64,
+}
