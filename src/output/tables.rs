@@ -108,18 +108,19 @@ fn geometry_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         row(name, eq);
     }
     right_align_from(&mut t, 1);
-    if let (Some(tv), Some(st)) = (&a.tail_volume, &aircraft.stabiliser) {
-        t.add_row(vec![format!(
-            "arm {} mm, volume coefficient {}, decalage {} deg",
+    t
+}
+
+fn geometry_footer(aircraft: &Aircraft, a: &Analysis) -> String {
+    match (&a.tail_volume, &aircraft.stabiliser) {
+        (Some(tv), Some(st)) => format!(
+            "\nStabiliser arm {} mm (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
             num(tv.arm_m * 1000.0, 0),
             num(tv.coefficient, 3),
-            num(
-                (aircraft.wing.incidence_rad - st.surface.incidence_rad).to_degrees(),
-                2
-            )
-        )]);
+            num((aircraft.wing.incidence_rad - st.surface.incidence_rad).to_degrees(), 2)
+        ),
+        _ => "\nNo stabiliser: tailless.".to_string(),
     }
-    t
 }
 
 fn sections_table(aircraft: &Aircraft, a: &Analysis) -> Table {
