@@ -200,11 +200,13 @@ impl Ctx<'_> {
         };
         let message = e.message().trim().to_string();
         // Name the offending key where toml quotes it (`unknown field `spna``).
-        let field = message
-            .split('`')
-            .nth(1)
-            .map(str::to_string)
-            .unwrap_or_else(|| "syntax".to_string());
+        let names_a_field =
+            message.starts_with("unknown field") || message.starts_with("missing field");
+        let field = if names_a_field {
+            message.split('`').nth(1).unwrap_or("syntax").to_string()
+        } else {
+            "syntax".to_string()
+        };
         let accepted = message.find("expected").map(|i| message[i..].to_string());
         let problem = match message.find(", expected") {
             Some(i) => message[..i].to_string(),

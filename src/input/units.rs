@@ -193,7 +193,7 @@ mod tests {
         );
         assert_relative_eq!(
             parse_quantity("12.5 oz", Dimension::Mass).unwrap(),
-            0.354_368_726_562_5,
+            0.354_369_039_062_5,
             epsilon = 1e-12
         );
         assert_relative_eq!(

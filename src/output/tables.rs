@@ -12,7 +12,7 @@ use std::fmt::Write as _;
 fn table(header: &[&str]) -> Table {
     let mut t = Table::new();
     t.load_style(presets::UTF8_FULL_CONDENSED);
-    t.set_header(header.iter().map(|h| Cell::new(h)));
+    t.set_header(header.iter().map(Cell::new));
     t
 }
 
