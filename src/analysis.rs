@@ -232,7 +232,7 @@ fn balance_cautions(
                 (mass.cg_x_m - est.neutral_point_x_m) * 1000.0
             ),
         ));
-    } else if est.static_margin < LOW_STATIC_MARGIN {
+    } else if est.static_margin < LOW_STATIC_MARGIN.min(aircraft.margin_limits.min_static_margin) {
         cautions.push(Caution::new(
             Level::Warning,
             "static-margin-low",

@@ -35,7 +35,11 @@ const REQUIRED: &[&str] = &[
 #[test]
 fn demo_json_has_every_documented_path() {
     let out = trimline(&["check", "--json"]);
-    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
     let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("valid JSON");
     for path in REQUIRED {
         let field = v.pointer(path).unwrap_or_else(|| panic!("missing {path}"));
@@ -62,15 +66,25 @@ fn every_example_aircraft_checks_cleanly() {
         n += 1;
         let p = path.to_str().unwrap();
         let out = trimline(&["check", p]);
-        assert!(out.status.success(), "{p}: {}", String::from_utf8_lossy(&out.stderr));
+        assert!(
+            out.status.success(),
+            "{p}: {}",
+            String::from_utf8_lossy(&out.stderr)
+        );
         let text = String::from_utf8_lossy(&out.stdout);
-        assert!(!text.contains("NaN") && !text.contains("inf"), "{p}: non-finite output");
+        assert!(
+            !text.contains("NaN") && !text.contains("inf"),
+            "{p}: non-finite output"
+        );
         let out = trimline(&["check", "--json", p]);
         assert!(out.status.success());
         let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
         assert!(v.pointer("/wing/mac_m").unwrap().as_f64().unwrap() > 0.0);
     }
-    assert!(n >= 3, "expected at least three example aircraft, found {n}");
+    assert!(
+        n >= 3,
+        "expected at least three example aircraft, found {n}"
+    );
 }
 
 #[test]

@@ -139,8 +139,8 @@ fn fmt_num(v: f64) -> String {
 // Accepted ranges, in the default units (mm, g, deg, percent). Chosen to cover models and
 // small full-size aircraft while catching slips such as metres typed for millimetres.
 const POSITION_MM: Bounds = Bounds::closed(-50_000.0, 50_000.0);
-const SPAN_MM: Bounds = Bounds::positive(30_000.0);
-const CHORD_MM: Bounds = Bounds::positive(10_000.0);
+const SPAN_MM: Bounds = Bounds::closed(5.0, 30_000.0);
+const CHORD_MM: Bounds = Bounds::closed(5.0, 10_000.0);
 const TIP_CHORD_MM: Bounds = Bounds::closed(0.0, 10_000.0);
 const SWEEP_DEG: Bounds = Bounds::closed(-60.0, 60.0);
 const DIHEDRAL_DEG: Bounds = Bounds::closed(-45.0, 45.0);
@@ -238,7 +238,11 @@ impl Ctx<'_> {
             let units = if matches!(dim, Dimension::Plain) {
                 String::new()
             } else {
-                format!("; other units as a string, e.g. \"{}\"", example_for(dim))
+                format!(
+                    "; or a string with a unit ({}), e.g. \"{}\"",
+                    dim.accepted_units(),
+                    example_for(dim)
+                )
             };
             Some(format!("{}{units}", bounds.describe(dim)))
         };
@@ -418,8 +422,7 @@ impl Ctx<'_> {
                     Dimension::Altitude,
                     ALTITUDE_M,
                 )?
-                .unwrap_or(0.0)
-                .max(0.0),
+                .unwrap_or(0.0),
             temperature_offset_k: self
                 .opt_quantity(
                     a.temperature_offset.as_ref(),
@@ -731,19 +734,7 @@ impl Ctx<'_> {
                     airfoil = panel.tip_airfoil;
                     panels.push(panel);
                 }
-                if let Some(last) = f.panels.last() {
-                    if panels.last().map(|p| p.tip_chord_m) == Some(0.0)
-                        && panels.len() == 1
-                        && panels[0].root_chord_m == 0.0
-                    {
-                        return Err(self.err(
-                            &last.span(),
-                            &format!("{path}.panel"),
-                            "zero area",
-                            None,
-                        ));
-                    }
-                }
+
                 SurfaceShape::Panels(panels)
             }
         };
@@ -1043,16 +1034,31 @@ impl Ctx<'_> {
             from_defaults: min.is_none() && max.is_none(),
         };
         if out.max_static_margin <= out.min_static_margin {
-            let q = l
-                .max_static_margin
-                .as_ref()
-                .or(l.min_static_margin.as_ref());
-            let span = q.map(|q| q.span()).unwrap_or(0..0);
+            // Both absent means the defaults, which are ordered, so one of them is given here.
+            let (field, span, accepted) = match (&l.max_static_margin, &l.min_static_margin) {
+                (Some(q), _) => (
+                    "limits.max_static_margin",
+                    q.span(),
+                    format!(
+                        "more than the minimum, {:.1} %",
+                        100.0 * out.min_static_margin
+                    ),
+                ),
+                (None, Some(q)) => (
+                    "limits.min_static_margin",
+                    q.span(),
+                    format!(
+                        "less than the maximum, {:.1} %",
+                        100.0 * out.max_static_margin
+                    ),
+                ),
+                (None, None) => ("limits", 0..0, String::new()),
+            };
             return Err(self.err(
                 &span,
-                "limits.max_static_margin",
-                "must be larger than limits.min_static_margin",
-                Some(format!("more than {:.1} %", 100.0 * out.min_static_margin)),
+                field,
+                "the smallest static margin must be less than the largest",
+                Some(accepted),
             ));
         }
         Ok(out)

@@ -75,7 +75,12 @@ impl Dimension {
         let u = unit.trim().to_ascii_lowercase();
         let u = u.as_str();
         match self {
-            Dimension::Length | Dimension::Altitude => match u {
+            Dimension::Altitude => match u {
+                "m" => Some(1.0),
+                "ft" | "feet" | "foot" => Some(0.3048),
+                _ => None,
+            },
+            Dimension::Length => match u {
                 "mm" => Some(1e-3),
                 "cm" => Some(1e-2),
                 "m" => Some(1.0),
@@ -161,10 +166,7 @@ pub fn parse_quantity(text: &str, dim: Dimension) -> Result<f64, String> {
     }
     match dim.unit_factor(unit) {
         Some(f) => Ok(value * f),
-        None => Err(format!(
-            "unit `{unit}` is not accepted here (units: {})",
-            dim.accepted_units()
-        )),
+        None => Err(format!("unit `{unit}` is not accepted here")),
     }
 }
 

@@ -159,7 +159,7 @@ pub struct SurfaceJson {
     pub mac_le_x_m: f64,
     /// m
     pub mac_y_m: f64,
-    /// rad
+    /// deg, root chord to the fuselage datum
     pub incidence_deg: f64,
     /// per rad
     pub cl_alpha_per_rad: f64,
