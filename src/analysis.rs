@@ -290,3 +290,81 @@ fn balance_cautions(
         ));
     }
 }
+
+/// The handful of figures a builder compares between setups and reads first on a report.
+#[derive(Debug, Clone, PartialEq)]
+pub struct KeyFigures {
+    /// Name of the configuration.
+    pub name: String,
+    /// Total mass, kg.
+    pub mass_kg: f64,
+    /// Wing loading, kg/m^2.
+    pub wing_loading_kg_m2: f64,
+    /// CG, m aft of the datum.
+    pub cg_x_m: f64,
+    /// CG aft of the wing root leading edge, m (the number measured on the model).
+    pub cg_from_wing_root_le_m: f64,
+    /// CG in percent of MAC.
+    pub cg_percent_mac: f64,
+    /// Neutral point, m aft of the datum.
+    pub neutral_point_x_m: f64,
+    /// Static margin, fraction of MAC.
+    pub static_margin: f64,
+    /// Recommended CG band, m aft of the datum.
+    pub band: CgBand,
+    /// Decalage (wing incidence minus stabiliser incidence), rad, when there is a stabiliser.
+    pub decalage_rad: Option<f64>,
+    /// Trim CL, when trimmed.
+    pub trim_cl: Option<f64>,
+    /// Trim speed, m/s, when trimmed.
+    pub trim_speed_m_s: Option<f64>,
+    /// Stall speed, m/s.
+    pub stall_speed_m_s: f64,
+    /// Ballast needed for the target static margin in the first bay that can reach it, kg.
+    pub ballast_kg: Option<(String, f64)>,
+    /// Number of warnings.
+    pub warnings: usize,
+    /// Number of dangers.
+    pub dangers: usize,
+}
+
+impl KeyFigures {
+    /// Collect the key figures of an analysed aircraft.
+    pub fn of(aircraft: &Aircraft, a: &Analysis) -> KeyFigures {
+        let g = &a.wing_geometry;
+        let est = &a.classical;
+        KeyFigures {
+            name: aircraft.name.clone(),
+            mass_kg: a.mass.total_kg,
+            wing_loading_kg_m2: a.wing_loading_kg_m2,
+            cg_x_m: a.mass.cg_x_m,
+            cg_from_wing_root_le_m: a.mass.cg_x_m - aircraft.wing.root_le_x_m,
+            cg_percent_mac: g.percent_mac(a.mass.cg_x_m),
+            neutral_point_x_m: est.neutral_point_x_m,
+            static_margin: est.static_margin,
+            band: a.band,
+            decalage_rad: aircraft
+                .stabiliser
+                .as_ref()
+                .map(|s| aircraft.wing.incidence_rad - s.surface.incidence_rad),
+            trim_cl: est.trim.map(|t| t.cl),
+            trim_speed_m_s: est.trim.map(|t| t.speed_m_s),
+            stall_speed_m_s: est.stall_speed_m_s,
+            ballast_kg: a.ballast.iter().find_map(|b| match b.outcome {
+                BallastOutcome::Reachable { mass_kg } => Some((b.bay.clone(), mass_kg)),
+                BallastOutcome::NotNeeded => Some((b.bay.clone(), 0.0)),
+                _ => None,
+            }),
+            warnings: a
+                .cautions
+                .iter()
+                .filter(|c| c.level == Level::Warning)
+                .count(),
+            dangers: a
+                .cautions
+                .iter()
+                .filter(|c| c.level == Level::Danger)
+                .count(),
+        }
+    }
+}

@@ -75,7 +75,7 @@ pub fn with_added_mass(m: &MassSummary, mass_kg: f64, x_m: f64, z_m: Option<f64>
 /// What a ballast bay can do for a target CG.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum BallastOutcome {
-    /// The CG is already at the target (within 0.1 mm): nothing to add.
+    /// The CG is already at the target (within 0.5 mm): nothing to add.
     NotNeeded,
     /// This much ballast puts the CG on the target, within the bay's limit.
     Reachable {
@@ -96,7 +96,7 @@ pub enum BallastOutcome {
 /// Ballast in `bay` that moves the CG of `m` to `target_x_m`.
 pub fn ballast_for_target(m: &MassSummary, bay: &BallastBay, target_x_m: f64) -> BallastOutcome {
     let shift = target_x_m - m.cg_x_m;
-    if shift.abs() < 1e-4 {
+    if shift.abs() < 5e-4 {
         return BallastOutcome::NotNeeded;
     }
     let lever = bay.x_m - target_x_m;

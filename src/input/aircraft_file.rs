@@ -6,8 +6,8 @@ use super::error::{InputError, Location};
 use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel};
 use super::units::{parse_quantity, Dimension};
 use crate::model::{
-    Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, EllipticShape, Fuselage,
-    MarginLimits, MassItem, Panel, SectionMethod, Stabiliser, StabiliserRole, Surface,
+    Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fuselage,
+    MarginLimits, MassItem, Panel, SectionMethod, Setup, Stabiliser, StabiliserRole, Surface,
     SurfaceShape, Targets,
 };
 use std::collections::BTreeMap;
@@ -203,10 +203,15 @@ impl Ctx<'_> {
         let names_a_field =
             message.starts_with("unknown field") || message.starts_with("missing field");
         let field = if names_a_field {
-            message.split('`').nth(1).unwrap_or("syntax").to_string()
+            let key = message.split('`').nth(1).unwrap_or("syntax");
+            match e.span().and_then(|span| self.enclosing_table(span.start)) {
+                Some(table) if message.starts_with("unknown field") => format!("{table}.{key}"),
+                _ => key.to_string(),
+            }
         } else {
             "syntax".to_string()
         };
+
         let accepted = message.find("expected").map(|i| message[i..].to_string());
         let problem = match message.find(", expected") {
             Some(i) => message[..i].to_string(),
@@ -215,9 +220,23 @@ impl Ctx<'_> {
         InputError::new(location, field, problem, accepted)
     }
 
+    /// The name of the `[table]` or `[[array]]` header above byte `offset`, if any.
+    fn enclosing_table(&self, offset: usize) -> Option<String> {
+        let before = &self.text[..offset.min(self.text.len())];
+        before.lines().rev().find_map(|line| {
+            let t = line.trim();
+            let inner = t
+                .strip_prefix("[[")
+                .and_then(|r| r.split("]]").next())
+                .or_else(|| t.strip_prefix('[').and_then(|r| r.split(']').next()))?;
+            Some(inner.trim().to_string())
+        })
+    }
+
     fn err(
         &self,
         span: &Range<usize>,
+
         field: &str,
         problem: impl Into<String>,
         accepted: Option<String>,
@@ -379,6 +398,12 @@ impl Ctx<'_> {
             },
         };
         let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref())?;
+        let setups = raw
+            .setup
+            .iter()
+            .enumerate()
+            .map(|(i, s)| self.setup(i, s, &masses, &ballast_bays, &ids, stabiliser.is_some()))
+            .collect::<Result<Vec<_>, _>>()?;
         Ok(Aircraft {
             name,
             notes: raw.notes.unwrap_or_default(),
@@ -392,6 +417,7 @@ impl Ctx<'_> {
             ballast_bays,
             targets,
             margin_limits,
+            setups,
         })
     }
 
@@ -930,6 +956,141 @@ impl Ctx<'_> {
                 )?
                 .unwrap_or(throw),
         })
+    }
+
+    fn setup(
+        &self,
+        i: usize,
+        s: &Spanned<raw::RawSetup>,
+        masses: &[MassItem],
+        bays: &[BallastBay],
+        ids: &BTreeMap<String, AirfoilId>,
+        has_stabiliser: bool,
+    ) -> Result<Setup, InputError> {
+        let path = format!("setup[{i}]");
+        let span = s.span();
+        let s = s.get_ref();
+        let name = s.name.get_ref().trim().to_string();
+        if name.is_empty() {
+            return Err(self.err(
+                &s.name.span(),
+                &format!("{path}.name"),
+                "must not be empty",
+                Some("any text".into()),
+            ));
+        }
+        let find_item = |key: &str, table: &str, q: &Quantity| {
+            masses.iter().position(|m| m.name == key).ok_or_else(|| {
+                let names: Vec<&str> = masses.iter().map(|m| m.name.as_str()).collect();
+                self.err(
+                    &q.span(),
+                    &format!("{path}.{table}"),
+                    format!("no mass item named `{key}`"),
+                    Some(format!("one of: {}", names.join(", "))),
+                )
+            })
+        };
+        let mut changes = Vec::new();
+        for (bay_name, q) in &s.ballast {
+            let bay = bays
+                .iter()
+                .position(|b| &b.name == bay_name)
+                .ok_or_else(|| {
+                    let names: Vec<&str> = bays.iter().map(|b| b.name.as_str()).collect();
+                    self.err(
+                        &q.span(),
+                        &format!("{path}.ballast"),
+                        format!("no ballast bay named `{bay_name}`"),
+                        Some(if names.is_empty() {
+                            "define a [[ballast]] bay first".into()
+                        } else {
+                            format!("one of: {}", names.join(", "))
+                        }),
+                    )
+                })?;
+            let max_g = bays[bay].max_mass_kg * 1000.0;
+            let mass_kg = self.quantity(
+                q,
+                &format!("{path}.ballast.{bay_name}"),
+                Dimension::Mass,
+                Bounds::closed(0.0, max_g),
+            )?;
+            changes.push(Change::Ballast { bay, mass_kg });
+        }
+        for (item_name, q) in &s.mass_x {
+            let item = find_item(item_name, "mass_x", q)?;
+            let x_m = self.quantity(
+                q,
+                &format!("{path}.mass_x.{item_name}"),
+                Dimension::Length,
+                POSITION_MM,
+            )?;
+            changes.push(Change::MoveItem { item, x_m });
+        }
+        for (item_name, q) in &s.mass {
+            let item = find_item(item_name, "mass", q)?;
+            let mass_kg = self.quantity(
+                q,
+                &format!("{path}.mass.{item_name}"),
+                Dimension::Mass,
+                MASS_G,
+            )?;
+            changes.push(Change::ItemMass { item, mass_kg });
+        }
+        if let Some(q) = &s.wing_incidence {
+            changes.push(Change::WingIncidence(self.quantity(
+                q,
+                &format!("{path}.wing_incidence"),
+                Dimension::Angle,
+                INCIDENCE_DEG,
+            )?));
+        }
+        if let Some(q) = &s.stabiliser_incidence {
+            if !has_stabiliser {
+                return Err(self.err(
+                    &q.span(),
+                    &format!("{path}.stabiliser_incidence"),
+                    "this aircraft has no stabiliser",
+                    None,
+                ));
+            }
+            changes.push(Change::StabiliserIncidence(self.quantity(
+                q,
+                &format!("{path}.stabiliser_incidence"),
+                Dimension::Angle,
+                INCIDENCE_DEG,
+            )?));
+        }
+        for (from, to) in &s.airfoils {
+            let known = || {
+                let names: Vec<&str> = ids.keys().map(String::as_str).collect();
+                Some(format!("one of: {}", names.join(", ")))
+            };
+            let from_id = *ids.get(from).ok_or_else(|| {
+                self.err(
+                    &to.span(),
+                    &format!("{path}.airfoils"),
+                    format!("no airfoil named `{from}`"),
+                    known(),
+                )
+            })?;
+            let to_id = *ids.get(to.get_ref().trim()).ok_or_else(|| {
+                self.err(
+                    &to.span(),
+                    &format!("{path}.airfoils.{from}"),
+                    format!("no airfoil named `{}`", to.get_ref()),
+                    known(),
+                )
+            })?;
+            changes.push(Change::SwapAirfoil {
+                from: from_id,
+                to: to_id,
+            });
+        }
+        if changes.is_empty() {
+            return Err(self.err(&span, &path, "the setup changes nothing", Some("one or more of ballast, mass_x, mass, wing_incidence, stabiliser_incidence, airfoils".into())));
+        }
+        Ok(Setup { name, changes })
     }
 
     fn fuselage(&self, f: &raw::RawFuselage) -> Result<Fuselage, InputError> {

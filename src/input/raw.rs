@@ -34,6 +34,8 @@ pub struct RawAircraft {
     pub targets: Option<RawTargets>,
     #[serde(default)]
     pub limits: Option<RawLimits>,
+    #[serde(default)]
+    pub setup: Vec<Spanned<RawSetup>>,
 }
 
 /// `[air]`
@@ -174,4 +176,25 @@ pub struct RawTargets {
 pub struct RawLimits {
     pub min_static_margin: Option<Quantity>,
     pub max_static_margin: Option<Quantity>,
+}
+
+/// `[[setup]]`: a named variation of the aircraft for comparisons.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawSetup {
+    pub name: Spanned<String>,
+    /// Ballast bay name -> mass added there.
+    #[serde(default)]
+    pub ballast: BTreeMap<String, Quantity>,
+    /// Mass item name -> new x.
+    #[serde(default)]
+    pub mass_x: BTreeMap<String, Quantity>,
+    /// Mass item name -> new mass.
+    #[serde(default)]
+    pub mass: BTreeMap<String, Quantity>,
+    pub wing_incidence: Option<Quantity>,
+    pub stabiliser_incidence: Option<Quantity>,
+    /// Airfoil name -> airfoil name to use instead, everywhere it appears.
+    #[serde(default)]
+    pub airfoils: BTreeMap<String, Spanned<String>>,
 }

@@ -11,9 +11,11 @@
 //! hold no serde derive, so the file format can change without touching the core.
 
 mod airfoil;
+mod setup;
 mod surface;
 
 pub use airfoil::{Airfoil, AirfoilId, AirfoilShape, SectionMethod};
+pub use setup::{Change, Setup};
 pub use surface::{EllipticShape, Panel, Stabiliser, StabiliserRole, Surface, SurfaceShape};
 
 /// The air the aircraft flies in.
@@ -117,6 +119,8 @@ pub struct Aircraft {
     pub targets: Targets,
     /// Static-margin limits for the recommended CG band.
     pub margin_limits: MarginLimits,
+    /// Named setups for comparison (may be empty).
+    pub setups: Vec<Setup>,
 }
 
 impl Aircraft {

@@ -2,5 +2,6 @@
 //! (serde mirror types). The core types carry no serde; this module copies them into output
 //! shapes with units in every field name.
 
+pub mod compare;
 pub mod json;
 pub mod tables;
