@@ -21,6 +21,12 @@ pub const LOW_STATIC_MARGIN: f64 = 0.05;
 pub const LOW_REYNOLDS_WARNING: f64 = 50_000.0;
 /// Reynolds number below which a note is raised (common practice: 100 000).
 pub const LOW_REYNOLDS_NOTE: f64 = 100_000.0;
+/// Difference between weighed and listed CG above which the builder is warned, m
+/// (common practice: 5 mm, about what a kitchen-scale weighing resolves on a model).
+pub const WEIGHING_CG_TOLERANCE_M: f64 = 0.005;
+/// Relative difference between weighed and listed mass above which the builder is warned
+/// (common practice: 5 %).
+pub const WEIGHING_MASS_TOLERANCE: f64 = 0.05;
 
 /// Options of an analysis.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -98,6 +104,8 @@ pub struct Analysis {
     pub ballast: Vec<BallastAdvice>,
     /// Reynolds number on the wing MAC at trim speed (or stall speed when no trim).
     pub reynolds_mac: f64,
+    /// Mass and CG measured by the weighing in the file, if any.
+    pub weighed: Option<MassSummary>,
     /// Everything the builder should read.
     pub cautions: Vec<Caution>,
 }
@@ -168,6 +176,32 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
             return Err(AnalysisError::NonFinite { quantity: name });
         }
     }
+    let weighed = if aircraft.weighing.is_empty() {
+        None
+    } else {
+        Some(balance::weighing(&aircraft.weighing)?)
+    };
+    if let Some(w) = &weighed {
+        let dx_mm = (w.cg_x_m - mass.cg_x_m) * 1000.0;
+        let dm_pct = 100.0 * (w.total_kg - mass.total_kg) / mass.total_kg;
+        if dx_mm.abs() > WEIGHING_CG_TOLERANCE_M * 1000.0
+            || dm_pct.abs() > 100.0 * WEIGHING_MASS_TOLERANCE
+        {
+            cautions.push(Caution::new(
+                Level::Warning,
+                "weighing-differs",
+                format!(
+                    "The weighing puts the CG at {:.0} mm and the mass at {:.0} g; the mass list gives {:.0} mm \
+                     and {:.0} g ({dx_mm:+.0} mm, {dm_pct:+.1} %). Trust the scales: correct the mass list \
+                     (a forgotten item, a wrong position) before relying on the figures here.",
+                    w.cg_x_m * 1000.0,
+                    w.total_kg * 1000.0,
+                    mass.cg_x_m * 1000.0,
+                    mass.total_kg * 1000.0
+                ),
+            ));
+        }
+    }
     let tail_volume = stabiliser
         .as_ref()
         .map(|s| planform::tail_volume(&wing.geometry, &s.geometry));
@@ -208,6 +242,7 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         band,
         ballast,
         reynolds_mac,
+        weighed,
         cautions,
     })
 }

@@ -116,14 +116,7 @@ pub fn ballast_for_target(m: &MassSummary, bay: &BallastBay, target_x_m: f64) ->
     }
 }
 
-/// One support of a weighing: where it touches the aircraft and what its scale reads.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub struct Support {
-    /// x of the support's contact point, m aft of the datum.
-    pub x_m: f64,
-    /// Scale reading, kg (tare already subtracted).
-    pub reading_kg: f64,
-}
+pub use crate::model::WeighingSupport as Support;
 
 /// Mass and CG from a weighing on two or three supports.
 pub fn weighing(supports: &[Support]) -> Result<MassSummary, BalanceError> {

@@ -8,7 +8,7 @@ use super::units::{parse_quantity, Dimension};
 use crate::model::{
     Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fuselage,
     MarginLimits, MassItem, Panel, SectionMethod, Setup, Stabiliser, StabiliserRole, Surface,
-    SurfaceShape, Targets,
+    SurfaceShape, Targets, WeighingSupport,
 };
 use std::collections::BTreeMap;
 use std::ops::Range;
@@ -398,6 +398,46 @@ impl Ctx<'_> {
             },
         };
         let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref())?;
+        let weighing = raw
+            .weighing
+            .iter()
+            .enumerate()
+            .map(|(i, s)| {
+                let s = s.get_ref();
+                Ok(WeighingSupport {
+                    x_m: self.quantity(
+                        &s.x,
+                        &format!("weighing[{i}].x"),
+                        Dimension::Length,
+                        POSITION_MM,
+                    )?,
+                    reading_kg: self.quantity(
+                        &s.reading,
+                        &format!("weighing[{i}].reading"),
+                        Dimension::Mass,
+                        MASS_G,
+                    )?,
+                })
+            })
+            .collect::<Result<Vec<_>, InputError>>()?;
+        if weighing.len() == 1 || weighing.len() > 3 {
+            let span = raw.weighing[weighing.len() - 1].span();
+            return Err(self.err(
+                &span,
+                "weighing",
+                format!("{} supports given", weighing.len()),
+                Some("2 or 3 [[weighing]] supports".into()),
+            ));
+        }
+        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
+            return Err(self.err(
+                &raw.weighing[0].span(),
+                "weighing",
+                "the readings add up to zero",
+                Some("readings above 0 g".into()),
+            ));
+        }
+
         let setups = raw
             .setup
             .iter()
@@ -418,6 +458,7 @@ impl Ctx<'_> {
             targets,
             margin_limits,
             setups,
+            weighing,
         })
     }
 

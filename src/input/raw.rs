@@ -36,6 +36,16 @@ pub struct RawAircraft {
     pub limits: Option<RawLimits>,
     #[serde(default)]
     pub setup: Vec<Spanned<RawSetup>>,
+    #[serde(default)]
+    pub weighing: Vec<Spanned<RawSupport>>,
+}
+
+/// `[[weighing]]`: one support of a weighing.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawSupport {
+    pub x: Quantity,
+    pub reading: Quantity,
 }
 
 /// `[air]`

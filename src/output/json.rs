@@ -100,6 +100,23 @@ pub struct BalanceJson {
     pub band: BandJson,
     /// Ballast advice.
     pub ballast: Vec<BallastJson>,
+    /// The weighing, or null.
+    pub weighed: Option<WeighedJson>,
+}
+
+/// `/balance/weighed`
+#[derive(Debug, Serialize)]
+pub struct WeighedJson {
+    /// kg on the scales
+    pub total_kg: f64,
+    /// m
+    pub cg_x_m: f64,
+    /// percent MAC
+    pub cg_percent_mac: f64,
+    /// m, weighed minus listed
+    pub cg_difference_m: f64,
+    /// kg, weighed minus listed
+    pub mass_difference_kg: f64,
 }
 
 /// `/balance/band`
@@ -384,8 +401,16 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
                     }
                 })
                 .collect(),
+            weighed: a.weighed.map(|w| WeighedJson {
+                total_kg: r(w.total_kg, 5),
+                cg_x_m: r(w.cg_x_m, 5),
+                cg_percent_mac: r(g.percent_mac(w.cg_x_m), 2),
+                cg_difference_m: r(w.cg_x_m - a.mass.cg_x_m, 5),
+                mass_difference_kg: r(w.total_kg - a.mass.total_kg, 5),
+            }),
         },
         wing: surface_json(&a.wing),
+
         stabiliser: aircraft
             .stabiliser
             .as_ref()

@@ -65,7 +65,10 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
     );
     out.push_str("\n\nBalance and stability\n");
     out.push_str(&balance_table(aircraft, a).to_string());
-    out.push_str("\n\nTrim and stall\n");
+    out.push('\n');
+    out.push_str(&cg_gauge(a, 60));
+
+    out.push_str("\nTrim and stall\n");
     out.push_str(&trim_table(a).to_string());
     out.push_str("\n\nCautions\n");
     out.push_str(&cautions_table(a).to_string());
@@ -190,6 +193,18 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         pct(a.mass.cg_x_m),
         "from the mass list".to_string(),
     ]);
+    if let Some(w) = &a.weighed {
+        t.add_row(vec![
+            "CG by weighing".to_string(),
+            num(w.cg_x_m * 1000.0, 1),
+            pct(w.cg_x_m),
+            format!(
+                "{} g on the scales; static margin {} %",
+                num(w.total_kg * 1000.0, 0),
+                num(100.0 * (est.neutral_point_x_m - w.cg_x_m) / g.mac_m, 1)
+            ),
+        ]);
+    }
     t.add_row(vec![
         "neutral point".to_string(),
         num(est.neutral_point_x_m * 1000.0, 1),
@@ -235,7 +250,10 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
                 num(needed_kg * 1000.0, 1),
                 num(max_kg * 1000.0, 1)
             ),
-            BallastOutcome::WrongSide => "wrong side of the target: cannot help".to_string(),
+            BallastOutcome::WrongSide => {
+                "target is on the other side of the CG: ballast here moves it the wrong way"
+                    .to_string()
+            }
         };
         t.add_row(vec![
             format!("ballast in {}", b.bay),
@@ -337,4 +355,37 @@ pub fn wrap(text: &str, width: usize) -> String {
         line_len += w;
     }
     out
+}
+
+/// A one-line picture of the CG against the recommended band and the neutral point, nose to
+/// the left, followed by a legend line:
+/// `  61 mm [=====G=====]   N  99 mm`.
+pub fn cg_gauge(a: &Analysis, width: usize) -> String {
+    let cg = a.mass.cg_x_m;
+    let np = a.classical.neutral_point_x_m;
+    let (fwd, aft) = (a.band.forward_x_m, a.band.aft_x_m);
+    let lo_raw = fwd.min(cg).min(np);
+    let hi_raw = aft.max(cg).max(np);
+    let pad = 0.1 * (hi_raw - lo_raw).max(1e-3);
+    let (lo, hi) = (lo_raw - pad, hi_raw + pad);
+    let width = width.max(20);
+    let col = |x: f64| -> usize {
+        let f = ((x - lo) / (hi - lo)).clamp(0.0, 1.0);
+        ((f * (width - 1) as f64).round() as usize).min(width - 1)
+    };
+    let mut line: Vec<char> = vec!['.'; width];
+    let (cf, ca) = (col(fwd), col(aft));
+    for c in line.iter_mut().take(ca + 1).skip(cf) {
+        *c = '=';
+    }
+    line[cf] = '[';
+    line[ca] = ']';
+    line[col(np)] = 'N';
+    line[col(cg)] = 'G';
+    let gauge: String = line.into_iter().collect();
+    format!(
+        "{} mm {gauge} {} mm\nnose left; [ ] recommended CG band, G centre of gravity, N neutral point\n",
+        num(lo * 1000.0, 0),
+        num(hi * 1000.0, 0)
+    )
 }
