@@ -137,7 +137,9 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         mass_kg: mass.total_kg,
         cg_x_m: mass.cg_x_m,
         density_kg_m3: air.density_kg_m3,
+        fuselage_cm_alpha_per_rad: fuselage_cm_alpha(aircraft, &wing),
     });
+
     let mac = wing.geometry.mac_m;
     let np = estimate.neutral_point_x_m;
     let band = CgBand {
@@ -402,4 +404,16 @@ impl KeyFigures {
                 .count(),
         }
     }
+}
+
+/// The fuselage's contribution to dCm/dalpha (per rad), or 0 without a fuselage.
+pub fn fuselage_cm_alpha(aircraft: &Aircraft, wing: &EquivalentSurface) -> f64 {
+    aircraft.fuselage.as_ref().map_or(0.0, |f| {
+        crate::stability::fuselage::cm_alpha_per_rad(
+            f,
+            aircraft.wing.root_le_x_m + 0.25 * wing.geometry.root_chord_m,
+            wing.geometry.mac_m,
+            wing.geometry.area_m2,
+        )
+    })
 }

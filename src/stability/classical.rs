@@ -142,6 +142,9 @@ pub struct EstimateInput<'a> {
     pub cg_x_m: f64,
     /// Air density, kg/m^3.
     pub density_kg_m3: f64,
+    /// Fuselage contribution to dCm/dalpha, per rad (0 without a fuselage); see
+    /// [`crate::stability::fuselage`].
+    pub fuselage_cm_alpha_per_rad: f64,
 }
 
 /// Trim state from the closed-form estimate.
@@ -244,7 +247,13 @@ pub fn estimate(input: &EstimateInput<'_>) -> ClassicalEstimate {
             (a_w * w.x_ac_m + k * t.x_ac_m) / (a_w + k)
         }
     };
-    let lin = linear_model(input, input.cg_x_m, downwash_gradient);
+    let mut lin = linear_model(input, input.cg_x_m, downwash_gradient);
+    // The fuselage adds pitch-up stiffness: Cm_alpha grows by dCm_f, which moves the neutral
+    // point forward by c dCm_f / CL_alpha.
+    lin.cm_a += input.fuselage_cm_alpha_per_rad;
+    let neutral_point_x_m =
+        neutral_point_x_m - w.geometry.mac_m * input.fuselage_cm_alpha_per_rad / lin.cl_a;
+
     let static_margin = (neutral_point_x_m - input.cg_x_m) / w.geometry.mac_m;
     let weight_n = input.mass_kg * G0;
     let q_s = |cl: f64| (2.0 * weight_n / (input.density_kg_m3 * w.geometry.area_m2 * cl)).sqrt();

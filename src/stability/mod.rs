@@ -5,3 +5,4 @@
 //! cross-check beside the lifting-line model.
 
 pub mod classical;
+pub mod fuselage;
