@@ -15,6 +15,7 @@ pub mod caution;
 pub mod input;
 pub mod model;
 pub mod output;
+pub mod performance;
 pub mod planform;
 pub mod section;
 pub mod stability;

@@ -20,6 +20,29 @@ pub struct CheckArgs {
     /// Print one JSON object (SI units) instead of tables.
     #[arg(long)]
     pub json: bool,
+    /// Analyse the named [[setup]] of the file instead of its base configuration.
+    #[arg(long, value_name = "NAME")]
+    pub setup: Option<String>,
+}
+
+/// The aircraft with the named setup applied, or an error listing the setups there are.
+pub fn with_setup(aircraft: Aircraft, setup: Option<&str>) -> anyhow::Result<Aircraft> {
+    let Some(name) = setup else {
+        return Ok(aircraft);
+    };
+    match aircraft.setups.iter().find(|s| s.name == name) {
+        Some(s) => Ok(s.apply(&aircraft)),
+        None => {
+            let names: Vec<&str> = aircraft.setups.iter().map(|s| s.name.as_str()).collect();
+            if names.is_empty() {
+                anyhow::bail!("--setup {name}: the file has no [[setup]] tables")
+            }
+            anyhow::bail!(
+                "--setup {name}: no such setup (the file has: {})",
+                names.join(", ")
+            )
+        }
+    }
 }
 
 /// Load the aircraft named by `file`, or the demo; returns it with the name to show.
@@ -39,6 +62,8 @@ pub fn load(file: Option<&PathBuf>) -> anyhow::Result<(Aircraft, String)> {
 /// Run `check`.
 pub fn run(args: &CheckArgs) -> anyhow::Result<()> {
     let (aircraft, source) = load(args.file.as_ref())?;
+    let aircraft = with_setup(aircraft, args.setup.as_deref())?;
+
     let analysis = analyse(&aircraft, &AnalysisOptions::default())
         .with_context(|| format!("analysing {source}"))?;
     if args.json {
