@@ -466,6 +466,32 @@ pub fn model_from_solution(
     })
 }
 
+/// One angle of attack of a sweep.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SweepPoint {
+    /// Angle of attack from the chord line, rad.
+    pub alpha_rad: f64,
+    /// Lift coefficient of the method (no stall).
+    pub cl: f64,
+    /// Moment coefficient about the quarter chord, positive nose up.
+    pub cm_quarter_chord: f64,
+    /// Lift coefficient of the section model (linear, flat-top stall limits).
+    pub cl_model: f64,
+}
+
+/// cl and cm of `analysis` at each angle of `alphas_rad`.
+pub fn sweep(analysis: &SectionAnalysis, alphas_rad: &[f64]) -> Vec<SweepPoint> {
+    alphas_rad
+        .iter()
+        .map(|&alpha_rad| SweepPoint {
+            alpha_rad,
+            cl: analysis.solution.cl(alpha_rad),
+            cm_quarter_chord: analysis.solution.cm_quarter_chord(alpha_rad),
+            cl_model: analysis.outcome.model.cl(alpha_rad),
+        })
+        .collect()
+}
+
 /// Glauert's plain-flap derivatives for an elevator or flap of chord fraction
 /// `chord_fraction` (flap chord / section chord, 0 < F <= 1); see [`flap`].
 pub fn flap_effectiveness(chord_fraction: f64) -> Result<FlapEffect, SectionError> {
