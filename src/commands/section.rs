@@ -245,7 +245,7 @@ fn parse_alpha_list(text: &str) -> anyhow::Result<Vec<f64>> {
         match parts.as_slice() {
             [a] => out.push(*a),
             [start, stop, step] => {
-                if !(*step > 0.0) || stop < start {
+                if *step <= 0.0 || stop < start {
                     bail!("range '{item}' needs start <= stop and a positive step (accepted: {accepted})");
                 }
                 let n = ((stop - start) / step + 1e-9).floor() as usize;

@@ -139,7 +139,8 @@ mod tests {
         let (title, pts) = parse_coordinates(text, "f.dat").unwrap();
         assert_eq!(title.as_deref(), Some("My foil"));
         assert_eq!(pts.len(), 5);
-        assert_eq!(pts[3], [0.5, -0.04]);
+        approx::assert_relative_eq!(pts[3][0], 0.5, epsilon = 1e-15);
+        approx::assert_relative_eq!(pts[3][1], -0.04, epsilon = 1e-15);
     }
 
     #[test]
