@@ -8,7 +8,9 @@
 //! closes the system. It is solved once for a unit free stream along x and once along y; a
 //! stream at angle of attack alpha is their combination `cos(alpha), sin(alpha)`, so every
 //! angle costs nothing more. Lift comes from the circulation (Kutta-Joukowski), `cl = 2 Gamma
-//! / (U c)`; Cp from the tangential velocity at the panel midpoints, `Cp = 1 - (Qt / U)^2`;
+//! / (U c)`; Cp at the panel midpoints from the local sheet strength, which is the surface speed
+//! when the flow inside the contour is at rest, `Cp = 1 - (gamma / U)^2` (this is much more
+//! accurate near the leading edge than summing the induced velocities at the flat panel);
 //! cm about the quarter chord by integrating Cp over the panels. Blunt trailing edges are left
 //! open (the gap carries no panel); sharp ones close.
 //!
@@ -57,8 +59,8 @@ pub struct PanelSolution {
     midpoints: Vec<[f64; 2]>,
     /// Outward normal times panel length, contour order.
     normal_lengths: Vec<[f64; 2]>,
-    /// Tangential speed at the midpoints for unit free streams along x and y, contour order
-    /// (sign irrelevant: only its square enters Cp).
+    /// Surface speed at the midpoints for unit free streams along x and y, contour order: the
+    /// mean vortex strength of the panel (sign irrelevant: only its square enters Cp).
     qt_x: Vec<f64>,
     qt_y: Vec<f64>,
     /// Circulation for unit free streams along x and along y.
@@ -114,7 +116,6 @@ impl PanelSolution {
             len.push(l);
         }
         let mut a = DMatrix::<f64>::zeros(n + 1, n + 1);
-        let mut bt = DMatrix::<f64>::zeros(n, n + 1);
         let inv2pi = 0.5 / PI;
         for i in 0..n {
             for j in 0..n {
@@ -142,8 +143,6 @@ impl PanelSolution {
                 let gb = to_global(ub, wb);
                 a[(i, j)] += ga[0] * nor[i][0] + ga[1] * nor[i][1];
                 a[(i, j + 1)] += gb[0] * nor[i][0] + gb[1] * nor[i][1];
-                bt[(i, j)] += ga[0] * tan[i][0] + ga[1] * tan[i][1];
-                bt[(i, j + 1)] += gb[0] * tan[i][0] + gb[1] * tan[i][1];
             }
         }
         a[(n, 0)] = 1.0;
@@ -164,8 +163,6 @@ impl PanelSolution {
         }
         let gx: DVector<f64> = sol.column(0).into_owned();
         let gy: DVector<f64> = sol.column(1).into_owned();
-        let vx = &bt * &gx;
-        let vy = &bt * &gy;
         let circulation =
             |g: &DVector<f64>| -> f64 { (0..n).map(|j| 0.5 * (g[j] + g[j + 1]) * len[j]).sum() };
         // Back to contour order (reverse the clockwise panels).
@@ -176,8 +173,8 @@ impl PanelSolution {
         for j in (0..n).rev() {
             midpoints.push(mid[j]);
             normal_lengths.push([nor[j][0] * len[j], nor[j][1] * len[j]]);
-            qt_x.push(tan[j][0] + vx[j]);
-            qt_y.push(tan[j][1] + vy[j]);
+            qt_x.push(0.5 * (gx[j] + gx[j + 1]));
+            qt_y.push(0.5 * (gy[j] + gy[j + 1]));
         }
         let s = PanelSolution {
             midpoints,
