@@ -138,7 +138,10 @@ impl Contour {
         }
         let (first, last) = (pts[0], pts[pts.len() - 1]);
         let te = [0.5 * (first[0] + last[0]), 0.5 * (first[1] + last[1])];
-        let le = farthest_from(&pts, te);
+        let mut le = farthest_from(&pts, te);
+        if le > 0 && le + 1 < pts.len() {
+            le = refine_leading_edge(&mut pts, le, te, tol);
+        }
         let chord = dist(te, pts[le]);
         if chord <= tol {
             return Err(GeometryError::Degenerate);
@@ -330,6 +333,48 @@ impl Contour {
             .into_iter()
             .map(|si| [sx.eval(si), sy.eval(si)])
             .collect())
+    }
+}
+
+/// Moves the leading edge from the data point `le` to the point of the spline through the
+/// data that is farthest from `te` (golden-section search between the neighbours of `le`),
+/// replacing the data point when the two nearly coincide and inserting it otherwise. Returns
+/// the new index of the leading edge.
+fn refine_leading_edge(pts: &mut Vec<[f64; 2]>, le: usize, te: [f64; 2], tol: f64) -> usize {
+    let mut s = vec![0.0; pts.len()];
+    for i in 1..pts.len() {
+        s[i] = s[i - 1] + dist(pts[i - 1], pts[i]);
+    }
+    let xs: Vec<f64> = pts.iter().map(|p| p[0]).collect();
+    let ys: Vec<f64> = pts.iter().map(|p| p[1]).collect();
+    let (sx, sy) = (Spline::new(&s, &xs), Spline::new(&s, &ys));
+    let at = |t: f64| [sx.eval(t), sy.eval(t)];
+    let (mut lo, mut hi) = (s[le - 1], s[le + 1]);
+    let g = 0.5 * (5f64.sqrt() - 1.0);
+    for _ in 0..100 {
+        let m1 = hi - g * (hi - lo);
+        let m2 = lo + g * (hi - lo);
+        if dist(at(m1), te) > dist(at(m2), te) {
+            hi = m2;
+        } else {
+            lo = m1;
+        }
+    }
+    let t = 0.5 * (lo + hi);
+    let p = at(t);
+    if !(p[0].is_finite() && p[1].is_finite()) || dist(p, te) <= dist(pts[le], te) {
+        return le;
+    }
+    let spacing = (s[le + 1] - s[le]).min(s[le] - s[le - 1]);
+    if (t - s[le]).abs() < 0.05 * spacing || dist(p, pts[le]) <= tol {
+        pts[le] = p;
+        le
+    } else if t < s[le] {
+        pts.insert(le, p);
+        le
+    } else {
+        pts.insert(le + 1, p);
+        le + 1
     }
 }
 
