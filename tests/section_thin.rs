@@ -130,10 +130,13 @@ fn parabolic_mean_line_closed_form() {
 #[test]
 fn mean_line_from_a_coordinates_file() {
     // The NACA 2412 coordinates of tests/data/naca2412.dat (written from the NACA Report 824
-    // formulas by an independent script, 81 stations per surface): the mean line taken from
-    // the surfaces must give Anderson's -2.077 deg within 0.05 deg and -0.053 within 1.5e-3;
-    // the tolerance covers the linear interpolation of the 81-point surfaces and the thickness
-    // being laid normal to the mean line in the formulas.
+    // formulas by an independent script, 81 stations per surface): the mean line taken from the
+    // surfaces must give Anderson's -2.077 deg within 0.1 deg and -0.053 within 1.5e-3. A file
+    // marks no leading edge, so its chord runs from the point farthest from the trailing edge;
+    // on this section that point lies about 0.0016 c above the mean line's origin (nose radius
+    // 1.1019 t^2 centred along the mean-line slope 2m/p = 0.1 at the nose, Abbott & von
+    // Doenhoff sec. 6.4), which turns the chord line by up to 0.09 deg; the rest of the
+    // tolerance covers the linear interpolation of the 81-point surfaces.
     let text = std::fs::read_to_string("tests/data/naca2412.dat").unwrap();
     let (title, points) = trimline::input::coordinates::parse_coordinates(&text, "naca2412.dat")
         .expect("test file parses");
@@ -150,7 +153,7 @@ fn mean_line_from_a_coordinates_file() {
         .unwrap()
         .model;
     assert_eq!(m.method, SectionMethod::Thin);
-    assert_relative_eq!(m.alpha_zero_lift_rad.to_degrees(), -2.077, epsilon = 0.05);
+    assert_relative_eq!(m.alpha_zero_lift_rad.to_degrees(), -2.077, epsilon = 0.1);
     assert_relative_eq!(m.cm_ac, -0.053, epsilon = 1.5e-3);
     assert_relative_eq!(m.cl_alpha_per_rad, 2.0 * PI, epsilon = 1e-12);
 }

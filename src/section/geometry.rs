@@ -83,8 +83,20 @@ pub struct Contour {
 }
 
 impl Contour {
-    /// Checks and normalises a loop of points (any units, any order direction).
+    /// Checks and normalises a loop of points (any units, any order direction); the leading
+    /// edge is the point of the contour farthest from the trailing edge.
     pub fn new(raw: &[[f64; 2]]) -> Result<Contour, GeometryError> {
+        Self::build(raw, None)
+    }
+
+    /// As [`Contour::new`], but with the leading edge at the given point (index into `raw`),
+    /// for shapes whose published chord line starts at a known point (the NACA sections,
+    /// whose chord runs from the origin of the mean line).
+    pub fn with_leading_edge(raw: &[[f64; 2]], le_index: usize) -> Result<Contour, GeometryError> {
+        Self::build(raw, Some(le_index))
+    }
+
+    fn build(raw: &[[f64; 2]], le_hint: Option<usize>) -> Result<Contour, GeometryError> {
         if let Some(i) = raw
             .iter()
             .position(|p| !p[0].is_finite() || !p[1].is_finite())
@@ -120,6 +132,8 @@ impl Contour {
         // (trailing-edge point given once), or the midpoint of a blunt gap.
         let first = pts[0];
         let last = pts[pts.len() - 1];
+        // Points put in front of the raw ones (moves the indices of `le_hint`).
+        let mut shift = 0;
         if !closed {
             let mid = [0.5 * (first[0] + last[0]), 0.5 * (first[1] + last[1])];
             let le = farthest_from(&pts, mid);
@@ -133,15 +147,24 @@ impl Contour {
                     pts.push(first);
                 } else {
                     pts.insert(0, last);
+                    shift = 1;
                 }
             }
         }
         let (first, last) = (pts[0], pts[pts.len() - 1]);
         let te = [0.5 * (first[0] + last[0]), 0.5 * (first[1] + last[1])];
-        let mut le = farthest_from(&pts, te);
-        if le > 0 && le + 1 < pts.len() {
-            le = refine_leading_edge(&mut pts, le, te, tol);
-        }
+        let le = match le_hint {
+            Some(i) if i + shift < pts.len() => i + shift,
+            Some(i) => return Err(GeometryError::Unordered(i)),
+            None => {
+                let le = farthest_from(&pts, te);
+                if le > 0 && le + 1 < pts.len() {
+                    refine_leading_edge(&mut pts, le, te, tol)
+                } else {
+                    le
+                }
+            }
+        };
         let chord = dist(te, pts[le]);
         if chord <= tol {
             return Err(GeometryError::Degenerate);

@@ -367,7 +367,12 @@ pub fn solve_section(
         // Every shape is exact, NACA or coordinates; kept as an error rather than a panic.
         _ => return Err(geometry_err(GeometryError::Degenerate)),
     };
-    let contour = Contour::new(&raw).map_err(geometry_err)?;
+    let contour = match naca {
+        // NACA coordinates have the leading edge of their chord line at the middle point.
+        Some(_) => Contour::with_leading_edge(&raw, raw.len() / 2),
+        None => Contour::new(&raw),
+    }
+    .map_err(geometry_err)?;
     match method {
         SectionMethod::Thin => {
             let line =
