@@ -10,7 +10,7 @@ use trimline::input::coordinates::read_coordinates_file;
 use trimline::model::{Airfoil, AirfoilShape, SectionMethod};
 use trimline::output::section::{render_tables, surface_csv, to_json, SectionReport};
 use trimline::section::naca::NacaProfile;
-use trimline::section::{analyse_section, sweep, SectionOptions};
+use trimline::section::{analyse_section, sweep, SectionOptions, SectionSolution};
 
 /// Method choice on the command line.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
@@ -37,7 +37,7 @@ pub struct SectionArgs {
     /// Method; the default is exact for Joukowski and Karman-Trefftz sections, panel otherwise.
     #[arg(long, value_enum)]
     pub method: Option<MethodArg>,
-    /// Number of panels for the panel method (16 to 4000).
+    /// Number of panels for the panel method (16 to 4000; an odd number is raised by one).
     #[arg(long, default_value_t = SectionOptions::default().panels)]
     pub panels: usize,
     /// Section cl_max to use for the stall limit (a conservative default otherwise).
@@ -68,7 +68,10 @@ pub fn run(args: &SectionArgs) -> anyhow::Result<()> {
         .with_context(|| format!("analysing section '{}'", args.spec))?;
     let alphas_rad: Vec<f64> = alphas_deg.iter().map(|a| a.to_radians()).collect();
     let points = sweep(&analysis, &alphas_rad);
-    let panels = (analysis.outcome.model.method == SectionMethod::Panel).then_some(args.panels);
+    let panels = match &analysis.solution {
+        SectionSolution::Panel(p) => Some(p.panels()),
+        _ => None,
+    };
     let report = SectionReport::new(
         &airfoil.name,
         &shape_text,

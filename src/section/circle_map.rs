@@ -67,7 +67,7 @@ pub enum CircleMapError {
         range: &'static str,
     },
     /// Trailing-edge angle outside the accepted range.
-    #[error("trailing-edge angle {0} rad is outside the accepted range 0 <= angle < 1.0 rad (about 57 deg)")]
+    #[error("trailing-edge angle {:.2} deg is outside the accepted range 0 <= angle < 57.3 deg (1 rad)", .0.to_degrees())]
     TrailingEdgeAngle(f64),
     /// The circle that gives the requested shape was not found.
     #[error("no circle found for thickness {thickness_ratio} and camber {camber_ratio} (residual {residual:e})")]

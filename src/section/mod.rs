@@ -57,44 +57,44 @@ impl Default for SectionOptions {
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum SectionError {
     /// Bad NACA designation.
-    #[error("airfoil '{airfoil}': {source}")]
+    #[error("airfoil '{airfoil}': {error}")]
     Naca {
         /// Airfoil name.
         airfoil: String,
         /// Cause.
-        source: NacaError,
+        error: NacaError,
     },
     /// Joukowski or Karman-Trefftz parameters not accepted.
-    #[error("airfoil '{airfoil}': {source}")]
+    #[error("airfoil '{airfoil}': {error}")]
     CircleMap {
         /// Airfoil name.
         airfoil: String,
         /// Cause.
-        source: CircleMapError,
+        error: CircleMapError,
     },
     /// Bad coordinates.
-    #[error("airfoil '{airfoil}': {source}")]
+    #[error("airfoil '{airfoil}': {error}")]
     Geometry {
         /// Airfoil name.
         airfoil: String,
         /// Cause.
-        source: GeometryError,
+        error: GeometryError,
     },
     /// Panel solution failed.
-    #[error("airfoil '{airfoil}': {source}")]
+    #[error("airfoil '{airfoil}': {error}")]
     Panel {
         /// Airfoil name.
         airfoil: String,
         /// Cause.
-        source: PanelError,
+        error: PanelError,
     },
     /// Mean line not usable.
-    #[error("airfoil '{airfoil}': {source}")]
+    #[error("airfoil '{airfoil}': {error}")]
     MeanLine {
         /// Airfoil name.
         airfoil: String,
         /// Cause.
-        source: ThinAirfoilError,
+        error: ThinAirfoilError,
     },
     /// The method cannot treat this shape.
     #[error("airfoil '{airfoil}': the {method} method is only available for Joukowski and Karman-Trefftz sections (use panel or thin)")]
@@ -309,13 +309,13 @@ pub fn solve_section(
     options: &SectionOptions,
 ) -> Result<SectionSolution, SectionError> {
     let name = || airfoil.name.clone();
-    let geometry_err = |source| SectionError::Geometry {
+    let geometry_err = |error| SectionError::Geometry {
         airfoil: name(),
-        source,
+        error,
     };
-    let circle_err = |source| SectionError::CircleMap {
+    let circle_err = |error| SectionError::CircleMap {
         airfoil: name(),
-        source,
+        error,
     };
     let exact = match &airfoil.shape {
         AirfoilShape::Joukowski {
@@ -340,9 +340,9 @@ pub fn solve_section(
     };
     let naca = match &airfoil.shape {
         AirfoilShape::Naca(d) => {
-            Some(NacaProfile::parse(d).map_err(|source| SectionError::Naca {
+            Some(NacaProfile::parse(d).map_err(|error| SectionError::Naca {
                 airfoil: name(),
-                source,
+                error,
             })?)
         }
         _ => None,
@@ -376,19 +376,19 @@ pub fn solve_section(
     match method {
         SectionMethod::Thin => {
             let line =
-                SampledMeanLine::new(contour.mean_line(MEAN_LINE_STATIONS)).map_err(|source| {
+                SampledMeanLine::new(contour.mean_line(MEAN_LINE_STATIONS)).map_err(|error| {
                     SectionError::MeanLine {
                         airfoil: name(),
-                        source,
+                        error,
                     }
                 })?;
             Ok(SectionSolution::Thin(ThinAirfoil::solve(&line)))
         }
         _ => Ok(SectionSolution::Panel(
-            PanelSolution::solve(&contour, options.panels).map_err(|source| {
+            PanelSolution::solve(&contour, options.panels).map_err(|error| {
                 SectionError::Panel {
                     airfoil: name(),
-                    source,
+                    error,
                 }
             })?,
         )),
