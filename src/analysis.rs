@@ -47,6 +47,9 @@ pub enum AnalysisError {
     /// The mass list is unusable.
     #[error(transparent)]
     Balance(#[from] balance::BalanceError),
+    /// An airfoil could not be analysed.
+    #[error(transparent)]
+    Section(#[from] crate::section::SectionError),
     /// A result came out non-finite: the input is outside what the models can handle.
     #[error("the analysis produced a non-finite {quantity}; check the geometry and masses for extreme values")]
     NonFinite {
@@ -112,14 +115,18 @@ pub struct Analysis {
 
 /// Run the whole chain on `aircraft`.
 pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysis, AnalysisError> {
-    let _ = options;
     let mut cautions = Vec::new();
     let air = atmosphere::air_state(&aircraft.air);
     let mut sections = Vec::with_capacity(aircraft.airfoils.len());
     for airfoil in &aircraft.airfoils {
-        let (model, found) = crate::section::pending::section_model(airfoil);
-        sections.push(model);
-        cautions.extend(found);
+        let outcome = crate::section::section_model(
+            airfoil,
+            &crate::section::SectionOptions {
+                panels: options.panels,
+            },
+        )?;
+        sections.push(outcome.model);
+        cautions.extend(outcome.cautions);
     }
     let wing = classical::equivalent_surface(&aircraft.wing, &sections);
     let stabiliser = aircraft
