@@ -21,7 +21,6 @@ use thiserror::Error;
 /// the margin a pilot keeps in turbulence).
 pub const NEAR_STALL_FACTOR: f64 = 1.2;
 /// Static margin below which the builder is warned, fraction of MAC (common practice: 5 %).
-
 pub const LOW_STATIC_MARGIN: f64 = 0.05;
 /// Reynolds number (on the wing MAC at trim speed) below which sections lose lift and gain
 /// drag sharply; a warning is raised (common practice for model airfoils: 50 000).

@@ -503,6 +503,26 @@ pub fn flap_effectiveness(chord_fraction: f64) -> Result<FlapEffect, SectionErro
     Ok(flap::plain_flap(chord_fraction)?)
 }
 
+/// Greatest thickness / chord of an airfoil's shape (used by the drag build-up).
+///
+/// NACA and Joukowski-type sections give it by definition; coordinates are measured. A
+/// coordinate loop that cannot be read as a contour (input validation prevents this) gives
+/// 0.12, a typical model section, rather than failing the whole analysis.
+pub fn thickness_ratio(airfoil: &Airfoil) -> f64 {
+    match &airfoil.shape {
+        AirfoilShape::Naca(d) => NacaProfile::parse(d).map_or(0.12, |p| p.thickness_ratio()),
+        AirfoilShape::Joukowski {
+            thickness_ratio, ..
+        }
+        | AirfoilShape::KarmanTrefftz {
+            thickness_ratio, ..
+        } => *thickness_ratio,
+        AirfoilShape::Coordinates { points, .. } => {
+            Contour::new(points).map_or(0.12, |c| c.thickness_ratio())
+        }
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -573,25 +593,5 @@ mod tests {
         let f = flap_effectiveness(0.3).unwrap();
         assert!(f.tau > 0.0 && f.tau < 1.0);
         assert!(flap_effectiveness(0.0).is_err());
-    }
-}
-
-/// Greatest thickness / chord of an airfoil's shape (used by the drag build-up).
-///
-/// NACA and Joukowski-type sections give it by definition; coordinates are measured. A
-/// coordinate loop that cannot be read as a contour (input validation prevents this) gives
-/// 0.12, a typical model section, rather than failing the whole analysis.
-pub fn thickness_ratio(airfoil: &Airfoil) -> f64 {
-    match &airfoil.shape {
-        AirfoilShape::Naca(d) => NacaProfile::parse(d).map_or(0.12, |p| p.thickness_ratio()),
-        AirfoilShape::Joukowski {
-            thickness_ratio, ..
-        }
-        | AirfoilShape::KarmanTrefftz {
-            thickness_ratio, ..
-        } => *thickness_ratio,
-        AirfoilShape::Coordinates { points, .. } => {
-            Contour::new(points).map_or(0.12, |c| c.thickness_ratio())
-        }
     }
 }

@@ -41,7 +41,6 @@ pub const G0: f64 = crate::atmosphere::G0;
 pub const MIN_TRIM_CL: f64 = 0.02;
 
 /// Number of strips used for the spanwise averages (midpoint rule).
-
 const STRIPS: usize = 400;
 
 /// A surface reduced to an equivalent straight wing.
