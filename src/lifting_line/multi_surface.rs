@@ -1,0 +1,1089 @@
+//! Numerical lifting line for several lifting surfaces together (wing with tail or canard),
+//! after Phillips and Snyder.
+//!
+//! Each surface is cut spanwise, over both halves, into segments along its quarter-chord line.
+//! Every segment carries a horseshoe vortex: a bound vortex on the segment and two trailing
+//! legs that leave its ends parallel to the free stream and run to infinity. Stations are
+//! clustered toward the tips and panel joins by cosine spacing (and toward the root where the
+//! quarter-chord line is kinked by sweep or dihedral); each control point sits on its bound
+//! segment at the cosine-parameter midpoint. Sweep, dihedral, twist, panel joins and the
+//! longitudinal and vertical offset of each surface are all part of the geometry, so the
+//! wing's trailing vorticity induces the downwash at the tail and the tail's bound vortex the
+//! upwash at the wing.
+//!
+//! # Equations
+//! With circulations divided by the free-stream speed (metres), station i satisfies the
+//! section relation Gamma_i = (1/2) c_i cl_i(alpha_i) (Phillips and Snyder's 2 |v x zeta| G =
+//! cl with the small-angle free stream; c is the streamwise chord), where
+//!
+//! alpha_i = theta_i + alpha n_z,i + sum_j A_ij Gamma_j,
+//!
+//! theta_i is the surface incidence plus twist, n_z,i the vertical component of the station's
+//! normal (cos of the dihedral) and A_ij the normal velocity at control point i induced by a
+//! unit horseshoe j. Angles are small in the kinematics (Prandtl's assumption); the forces use
+//! the exact free-stream direction.
+//!
+//! In the linear range cl = a (alpha - alpha_L0) and the system (I - D A) Gamma = D (theta +
+//! alpha n_z - alpha_L0), D = diag(c a / 2), has a matrix that depends only on the geometry. It
+//! is factored once (nalgebra LU with a pivot and residual check) and solved for unit right-hand
+//! sides: the constant geometry, angle of attack, elevator deflection and each surface's
+//! incidence change. Any flight condition is a superposition of those unit solutions, so a
+//! trim solve costs a few multiplications.
+//!
+//! Past a section's cl_max (or below cl_min) the flat-top section model holds cl at its limit,
+//! which makes the system piecewise linear; it is then solved by Newton's method, whose
+//! Jacobian has the zero section slope on stalled rows. Below the limits the linear solution is
+//! exact for the flat-top model, so Newton is used only once a station passes a limit; it
+//! reports non-convergence as an error.
+//!
+//! The trailing legs follow a fixed wake direction (the body x axis rotated by
+//! [`LiftingLineOptions::wake_angle_rad`], default zero): that fixes the geometry and therefore
+//! the factored matrix. Build a new system with another wake angle to move the wake.
+//!
+//! # Vortex cores
+//! Between stations of the same surface the core radius is a tiny fraction of the segment
+//! width (it only removes the 0/0 of a bound vortex at its own control point). Seen from another
+//! surface a wake of discrete lines should look like the continuous sheet it stands for, so
+//! there the core is the source segment's width (a row of algebraic-core lines spaced d apart
+//! with core d has a ripple of order exp(-2 pi) of the sheet's local velocity).
+//!
+//! # References
+//! - W. F. Phillips and D. O. Snyder, "Modern adaptation of Prandtl's classic lifting-line
+//!   theory", *Journal of Aircraft* 37(4), 662-670, 2000 (horseshoe system, control points,
+//!   nonlinear section relation and Newton's method, cosine clustering).
+//! - L. Prandtl, "Tragflügeltheorie", 1918 (small-angle lifting-line kinematics).
+//! - H. Glauert, *The Elements of Aerofoil and Airscrew Theory*, 1926, ch. X (flap: the
+//!   elevator enters as a change of zero-lift angle and moment, computed by the caller).
+
+use std::ops::Range;
+
+use nalgebra::{DMatrix, DVector};
+
+use super::classical::{check_pivots, check_residual, check_vector_residual};
+use super::results::{self, LiftingLineResult};
+use super::vortex::{horseshoe_velocity, trefftz_pair_velocity, Vec3};
+use super::LiftingLineError;
+use crate::model::{Aircraft, Surface, SurfaceShape};
+use crate::planform::{self, break_points_m, half_span_length_m, station_at};
+use crate::section::SectionModel;
+
+/// Effect of elevator deflection on each stabiliser section (Glauert flap theory values
+/// computed by the caller). Deflection is positive trailing edge down; it is applied over the
+/// whole span of the surface that carries it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ElevatorEffect {
+    /// d alpha_L0 / d delta (negative: trailing edge down lowers the zero-lift angle), rad/rad.
+    pub dalpha0_per_rad_deflection: f64,
+    /// d cm_ac / d delta, per rad (negative: trailing edge down pitches the section nose down).
+    pub dcm_ac_per_rad_deflection: f64,
+}
+
+/// One surface handed to the builder.
+#[derive(Debug, Clone, Copy)]
+pub struct SurfaceInput<'a> {
+    /// Its geometry.
+    pub surface: &'a Surface,
+    /// Section models indexed by `AirfoilId.0`.
+    pub sections: &'a [SectionModel],
+    /// Elevator effect when this surface carries the elevator.
+    pub elevator: Option<ElevatorEffect>,
+}
+
+/// Reference quantities for the coefficients (normally the wing's).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Reference {
+    /// Reference area, m^2.
+    pub area_m2: f64,
+    /// Reference chord for moments (mean aerodynamic chord), m.
+    pub mac_m: f64,
+    /// Reference span for the span efficiency, m.
+    pub span_m: f64,
+}
+
+impl Reference {
+    /// The area, MAC and span of `surface`.
+    pub fn of_surface(surface: &Surface) -> Self {
+        let g = planform::geometry(surface);
+        Reference {
+            area_m2: g.area_m2,
+            mac_m: g.mac_m,
+            span_m: g.span_m,
+        }
+    }
+
+    /// Aspect ratio b^2 / S.
+    pub fn aspect_ratio(&self) -> f64 {
+        self.span_m * self.span_m / self.area_m2
+    }
+}
+
+/// Discretisation and solver settings.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct LiftingLineOptions {
+    /// Horseshoe vortices per half-span of each surface (2 to 500; default 40).
+    pub stations_per_half_span: usize,
+    /// Direction of the trailing legs: the body x axis rotated nose-up by this angle, rad
+    /// (default 0; |angle| < 1.5).
+    pub wake_angle_rad: f64,
+    /// Core radius between stations of one surface, as a fraction of the source segment width
+    /// (default 1e-6).
+    pub self_core_fraction: f64,
+    /// Core radius seen from another surface, as a fraction of the source segment width
+    /// (default 1.0).
+    pub wake_core_fraction: f64,
+    /// Largest number of Newton iterations for the stalled system (default 50).
+    pub max_newton_iterations: usize,
+    /// Newton convergence: largest residual relative to the largest circulation (default 1e-10).
+    pub newton_relative_tolerance: f64,
+}
+
+impl Default for LiftingLineOptions {
+    fn default() -> Self {
+        LiftingLineOptions {
+            stations_per_half_span: 40,
+            wake_angle_rad: 0.0,
+            self_core_fraction: 1e-6,
+            wake_core_fraction: 1.0,
+            max_newton_iterations: 50,
+            newton_relative_tolerance: 1e-10,
+        }
+    }
+}
+
+/// One station (horseshoe vortex) of the discretised aircraft.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Station {
+    /// Index of its surface in the system (0 is the first surface given, normally the wing).
+    pub surface: usize,
+    /// Signed in-plane distance of the control point from the root, m (negative to port).
+    pub s_m: f64,
+    /// y of the control point, m (starboard positive).
+    pub y_m: f64,
+    /// x of the control point (on the quarter-chord line), m aft of the datum.
+    pub x_m: f64,
+    /// z of the control point, m.
+    pub z_m: f64,
+    /// Chord at the control point (streamwise), m.
+    pub chord_m: f64,
+    /// Projected spanwise width of the segment (y extent), m.
+    pub dy_m: f64,
+    /// Width of the segment normal to the x axis (in the y-z plane), m.
+    pub width_m: f64,
+    /// Surface incidence plus twist, rad (leading edge up positive).
+    pub geometric_angle_rad: f64,
+    /// Vertical component of the station's unit normal (cos of the local dihedral).
+    pub normal_z: f64,
+    /// Spanwise position in percent of the surface's semispan (0 root, 100 tip).
+    pub percent_semispan: f64,
+    /// Section model at the control point (blend of the panel's end airfoils).
+    pub section: SectionModel,
+    pub(crate) node_a: Vec3,
+    pub(crate) node_b: Vec3,
+    pub(crate) control: Vec3,
+    pub(crate) normal: Vec3,
+}
+
+/// What the system knows about one surface.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct SurfaceInfo {
+    pub name: String,
+    pub range: Range<usize>,
+    pub area_m2: f64,
+    pub aspect_ratio: f64,
+    pub elevator: Option<ElevatorEffect>,
+}
+
+/// Angle of attack and controls for one solve.
+#[derive(Debug, Clone, PartialEq)]
+pub struct FlightCondition {
+    /// Angle of attack of the body x axis to the free stream, rad (nose up positive).
+    pub alpha_rad: f64,
+    /// Elevator deflection, rad (trailing edge down positive).
+    pub elevator_rad: f64,
+    /// Change of each surface's incidence from its geometry, rad (one entry per surface).
+    pub incidence_change_rad: Vec<f64>,
+}
+
+impl FlightCondition {
+    /// Angle of attack `alpha_rad` with no elevator and no incidence change, for a system of
+    /// `surface_count` surfaces.
+    pub fn new(alpha_rad: f64, surface_count: usize) -> Self {
+        FlightCondition {
+            alpha_rad,
+            elevator_rad: 0.0,
+            incidence_change_rad: vec![0.0; surface_count],
+        }
+    }
+}
+
+/// How a solution was obtained.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum SolveStatus {
+    /// Every station inside its cl limits: the superposed linear solution is exact.
+    Linear,
+    /// Some station at a cl limit: Newton's method converged.
+    Converged {
+        /// Newton iterations taken.
+        iterations: usize,
+        /// Largest absolute residual at the end, m (circulation / speed).
+        residual_m: f64,
+    },
+}
+
+/// Index of the unit solutions (columns of the unit matrix).
+const UNIT_CONSTANT: usize = 0;
+const UNIT_ALPHA: usize = 1;
+const UNIT_ELEVATOR: usize = 2;
+const UNIT_FIRST_INCIDENCE: usize = 3;
+
+/// Per surface and unit solution: lift and moment building blocks (on the reference area).
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub(crate) struct UnitSums {
+    /// C_L contribution.
+    pub cl: f64,
+    /// -sum 2 Gamma dy x / (S c): lift moment about x = 0, times cos(alpha).
+    pub mx: f64,
+    /// -sum 2 Gamma dy z / (S c): lift moment about z = 0, times sin(alpha).
+    pub mz: f64,
+    /// Section moments about the quarter chord (cm_ac and the ac offset).
+    pub sec: f64,
+}
+
+impl UnitSums {
+    pub(crate) fn cm(&self, alpha_rad: f64, x_ref_m: f64, z_ref_m: f64, mac_m: f64) -> f64 {
+        alpha_rad.cos() * (self.mx + x_ref_m * self.cl / mac_m)
+            + alpha_rad.sin() * (self.mz + z_ref_m * self.cl / mac_m)
+            + self.sec
+    }
+
+    fn dcm_dalpha_partial(&self, alpha_rad: f64, x_ref_m: f64, z_ref_m: f64, mac_m: f64) -> f64 {
+        -alpha_rad.sin() * (self.mx + x_ref_m * self.cl / mac_m)
+            + alpha_rad.cos() * (self.mz + z_ref_m * self.cl / mac_m)
+    }
+
+    fn add_scaled(&mut self, other: &UnitSums, k: f64) {
+        self.cl += k * other.cl;
+        self.mx += k * other.mx;
+        self.mz += k * other.mz;
+        self.sec += k * other.sec;
+    }
+}
+
+/// Which control a trim solve moves together with the angle of attack.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum TrimControl {
+    /// The elevator deflection.
+    Elevator,
+    /// The incidence of the surface with this index (decalage).
+    Incidence(usize),
+}
+
+/// A trimmed state of the linear model.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct TrimPoint {
+    /// Angle of attack, rad.
+    pub alpha_rad: f64,
+    /// Total lift coefficient on the reference area.
+    pub cl: f64,
+    /// Setting of the trim control (elevator or incidence change), rad; zero when none moved.
+    pub control_rad: f64,
+}
+
+/// Linear-range coefficients of the whole aircraft at one condition.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct LinearCoefficients {
+    /// Total lift coefficient.
+    pub cl: f64,
+    /// Total pitching-moment coefficient about the given point (nose up positive).
+    pub cm: f64,
+    /// dC_L / d alpha, per rad.
+    pub cl_alpha_per_rad: f64,
+    /// dC_m / d alpha, per rad.
+    pub cm_alpha_per_rad: f64,
+}
+
+/// The discretised aircraft with its factored influence system and unit solutions.
+#[derive(Debug, Clone)]
+pub struct MultiSurfaceSystem {
+    stations: Vec<Station>,
+    surfaces: Vec<SurfaceInfo>,
+    reference: Reference,
+    options: LiftingLineOptions,
+    /// A_ij: normal velocity at control point i per unit circulation of horseshoe j.
+    induced: DMatrix<f64>,
+    /// Trefftz-plane normal-wash at station i per unit circulation of horseshoe j.
+    trefftz: DMatrix<f64>,
+    /// Circulation per unit input: columns constant, alpha, elevator, incidence of each surface.
+    units: DMatrix<f64>,
+    /// unit_sums[surface][unit].
+    unit_sums: Vec<Vec<UnitSums>>,
+}
+
+impl MultiSurfaceSystem {
+    /// The wing and, if present, the stabiliser of `aircraft`, on the wing's reference area,
+    /// MAC and span. `sections` is indexed by `AirfoilId.0` (parallel to `aircraft.airfoils`);
+    /// `elevator` applies to the stabiliser.
+    pub fn from_aircraft(
+        aircraft: &Aircraft,
+        sections: &[SectionModel],
+        elevator: Option<ElevatorEffect>,
+        options: LiftingLineOptions,
+    ) -> Result<Self, LiftingLineError> {
+        let mut inputs = vec![SurfaceInput {
+            surface: &aircraft.wing,
+            sections,
+            elevator: None,
+        }];
+        if let Some(stab) = &aircraft.stabiliser {
+            inputs.push(SurfaceInput {
+                surface: &stab.surface,
+                sections,
+                elevator,
+            });
+        }
+        Self::new(&inputs, Reference::of_surface(&aircraft.wing), options)
+    }
+
+    /// Build and factor the system for `inputs` (the first is normally the wing).
+    pub fn new(
+        inputs: &[SurfaceInput<'_>],
+        reference: Reference,
+        options: LiftingLineOptions,
+    ) -> Result<Self, LiftingLineError> {
+        check_options(&options, &reference, inputs.len())?;
+        let mut stations = Vec::new();
+        let mut surfaces = Vec::with_capacity(inputs.len());
+        for (index, input) in inputs.iter().enumerate() {
+            let start = stations.len();
+            discretise(input, index, options.stations_per_half_span, &mut stations)?;
+            let g = planform::geometry(input.surface);
+            surfaces.push(SurfaceInfo {
+                name: input.surface.name.clone(),
+                range: start..stations.len(),
+                area_m2: g.area_m2,
+                aspect_ratio: g.aspect_ratio,
+                elevator: input.elevator,
+            });
+        }
+        let n = stations.len();
+        let wake = Vec3::new(
+            options.wake_angle_rad.cos(),
+            0.0,
+            options.wake_angle_rad.sin(),
+        );
+        let mut induced = DMatrix::<f64>::zeros(n, n);
+        let mut trefftz = DMatrix::<f64>::zeros(n, n);
+        for (j, sj) in stations.iter().enumerate() {
+            let self_core = options.self_core_fraction * sj.width_m;
+            let wake_core = options.wake_core_fraction * sj.width_m;
+            for (i, si) in stations.iter().enumerate() {
+                let core = if si.surface == sj.surface {
+                    self_core
+                } else {
+                    wake_core
+                };
+                let v = horseshoe_velocity(&si.control, &sj.node_a, &sj.node_b, &wake, core, core);
+                induced[(i, j)] = v.dot(&si.normal);
+                let vt = trefftz_pair_velocity(&si.control, &sj.node_a, &sj.node_b, &wake, core);
+                trefftz[(i, j)] = vt.dot(&trefftz_normal(si, &wake));
+            }
+        }
+        if induced.iter().any(|v| !v.is_finite()) {
+            return Err(LiftingLineError::NonFinite {
+                quantity: "influence matrix",
+            });
+        }
+        let d = DVector::from_iterator(
+            n,
+            stations
+                .iter()
+                .map(|s| 0.5 * s.chord_m * s.section.cl_alpha_per_rad),
+        );
+        let matrix = system_matrix(&induced, &d, &vec![true; n]);
+        let unit_count = UNIT_FIRST_INCIDENCE + surfaces.len();
+        let mut rhs = DMatrix::<f64>::zeros(n, unit_count);
+        for (i, st) in stations.iter().enumerate() {
+            rhs[(i, UNIT_CONSTANT)] =
+                d[i] * (st.geometric_angle_rad - st.section.alpha_zero_lift_rad);
+            rhs[(i, UNIT_ALPHA)] = d[i] * st.normal_z;
+            if let Some(e) = surfaces[st.surface].elevator {
+                rhs[(i, UNIT_ELEVATOR)] = -d[i] * e.dalpha0_per_rad_deflection;
+            }
+            rhs[(i, UNIT_FIRST_INCIDENCE + st.surface)] = d[i];
+        }
+        let lu = matrix.clone().lu();
+        check_pivots(lu.u().diagonal().as_slice())?;
+        let units = lu
+            .solve(&rhs)
+            .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
+        check_residual(&matrix, &units, &rhs)?;
+        let mut system = MultiSurfaceSystem {
+            stations,
+            surfaces,
+            reference,
+            options,
+            induced,
+            trefftz,
+            units,
+            unit_sums: Vec::new(),
+        };
+        system.unit_sums = system.compute_unit_sums();
+        Ok(system)
+    }
+
+    fn compute_unit_sums(&self) -> Vec<Vec<UnitSums>> {
+        let s_ref = self.reference.area_m2;
+        let c_ref = self.reference.mac_m;
+        self.surfaces
+            .iter()
+            .map(|info| {
+                (0..self.units.ncols())
+                    .map(|k| {
+                        let mut sums = UnitSums::default();
+                        for i in info.range.clone() {
+                            let st = &self.stations[i];
+                            let g = self.units[(i, k)];
+                            let lift = 2.0 * g * st.dy_m / s_ref;
+                            sums.cl += lift;
+                            sums.mx -= lift * st.x_m / c_ref;
+                            sums.mz -= lift * st.z_m / c_ref;
+                            sums.sec += 2.0 * g * st.chord_m * (0.25 - st.section.x_ac_c) * st.dy_m
+                                / (s_ref * c_ref);
+                            let c2 = st.chord_m * st.chord_m * st.dy_m / (s_ref * c_ref);
+                            if k == UNIT_CONSTANT {
+                                sums.sec += c2 * st.section.cm_ac;
+                            }
+                            if k == UNIT_ELEVATOR {
+                                if let Some(e) = info.elevator {
+                                    sums.sec += c2 * e.dcm_ac_per_rad_deflection;
+                                }
+                            }
+                        }
+                        sums
+                    })
+                    .collect()
+            })
+            .collect()
+    }
+
+    /// The stations, surface by surface, each from port tip to starboard tip.
+    pub fn stations(&self) -> &[Station] {
+        &self.stations
+    }
+
+    /// Number of surfaces.
+    pub fn surface_count(&self) -> usize {
+        self.surfaces.len()
+    }
+
+    /// Name of surface `index` (as in the model), or `None`.
+    pub fn surface_name(&self, index: usize) -> Option<&str> {
+        self.surfaces.get(index).map(|s| s.name.as_str())
+    }
+
+    /// The reference area, chord and span.
+    pub fn reference(&self) -> Reference {
+        self.reference
+    }
+
+    /// The options the system was built with.
+    pub fn options(&self) -> LiftingLineOptions {
+        self.options
+    }
+
+    /// A condition at `alpha_rad` with neutral controls for this system.
+    pub fn condition(&self, alpha_rad: f64) -> FlightCondition {
+        FlightCondition::new(alpha_rad, self.surfaces.len())
+    }
+
+    pub(crate) fn surfaces(&self) -> &[SurfaceInfo] {
+        &self.surfaces
+    }
+
+    pub(crate) fn induced(&self) -> &DMatrix<f64> {
+        &self.induced
+    }
+
+    pub(crate) fn trefftz(&self) -> &DMatrix<f64> {
+        &self.trefftz
+    }
+
+    /// Weights of the unit solutions for `cond`.
+    fn weights(&self, cond: &FlightCondition) -> Result<Vec<f64>, LiftingLineError> {
+        if cond.incidence_change_rad.len() != self.surfaces.len() {
+            return Err(LiftingLineError::SurfaceCount {
+                what: "incidence_change_rad entries",
+                got: cond.incidence_change_rad.len(),
+                expected: self.surfaces.len(),
+            });
+        }
+        let mut q = Vec::with_capacity(self.units.ncols());
+        q.extend([1.0, cond.alpha_rad, cond.elevator_rad]);
+        q.extend(cond.incidence_change_rad.iter().copied());
+        for (parameter, v) in [
+            ("alpha_rad", cond.alpha_rad),
+            ("elevator_rad", cond.elevator_rad),
+        ]
+        .into_iter()
+        .chain(
+            cond.incidence_change_rad
+                .iter()
+                .map(|v| ("incidence_change_rad", *v)),
+        ) {
+            if !(v.is_finite() && v.abs() < 1.5) {
+                return Err(LiftingLineError::InvalidInput {
+                    parameter,
+                    value: v,
+                    range: "finite, |value| < 1.5 rad",
+                });
+            }
+        }
+        Ok(q)
+    }
+
+    /// Unit-solution sums of one surface combined with weights `q`.
+    fn combined(&self, surface: usize, q: &[f64]) -> UnitSums {
+        let mut out = UnitSums::default();
+        for (k, w) in q.iter().enumerate() {
+            out.add_scaled(&self.unit_sums[surface][k], *w);
+        }
+        out
+    }
+
+    /// Linear-range C_L, C_m about (x_ref_m, z_ref_m) and their alpha derivatives at `cond`,
+    /// from the unit solutions alone (no stall limits; microseconds).
+    pub fn linear_coefficients(
+        &self,
+        cond: &FlightCondition,
+        x_ref_m: f64,
+        z_ref_m: f64,
+    ) -> Result<LinearCoefficients, LiftingLineError> {
+        let q = self.weights(cond)?;
+        let c = self.reference.mac_m;
+        let a = cond.alpha_rad;
+        let (mut cl, mut cm, mut cl_a, mut cm_a) = (0.0, 0.0, 0.0, 0.0);
+        for s in 0..self.surfaces.len() {
+            let sums = self.combined(s, &q);
+            let unit_alpha = &self.unit_sums[s][UNIT_ALPHA];
+            cl += sums.cl;
+            cm += sums.cm(a, x_ref_m, z_ref_m, c);
+            cl_a += unit_alpha.cl;
+            cm_a += unit_alpha.cm(a, x_ref_m, z_ref_m, c)
+                + sums.dcm_dalpha_partial(a, x_ref_m, z_ref_m, c);
+        }
+        Ok(LinearCoefficients {
+            cl,
+            cm,
+            cl_alpha_per_rad: cl_a,
+            cm_alpha_per_rad: cm_a,
+        })
+    }
+
+    /// dC_m/dC_L about (x_ref_m, z_ref_m) at `cond`, linear range.
+    pub fn dcm_dcl(
+        &self,
+        cond: &FlightCondition,
+        x_ref_m: f64,
+        z_ref_m: f64,
+    ) -> Result<f64, LiftingLineError> {
+        let k = self.linear_coefficients(cond, x_ref_m, z_ref_m)?;
+        Ok(k.cm_alpha_per_rad / k.cl_alpha_per_rad)
+    }
+
+    /// The neutral point: the x (m) about which dC_m/dC_L = 0 at `cond`, for a reference
+    /// height `z_ref_m` (dC_m/d alpha is linear in x, so this is exact for the linear model).
+    pub fn neutral_point_x_m(
+        &self,
+        cond: &FlightCondition,
+        z_ref_m: f64,
+    ) -> Result<f64, LiftingLineError> {
+        let at0 = self
+            .linear_coefficients(cond, 0.0, z_ref_m)?
+            .cm_alpha_per_rad;
+        let at1 = self
+            .linear_coefficients(cond, 1.0, z_ref_m)?
+            .cm_alpha_per_rad;
+        let slope = at1 - at0;
+        let x = -at0 / slope;
+        if !x.is_finite() {
+            return Err(LiftingLineError::NonFinite {
+                quantity: "neutral point",
+            });
+        }
+        Ok(x)
+    }
+
+    /// The angle of attack at which C_m about (x_ref_m, z_ref_m) is zero with the controls of
+    /// `cond` held (linear model, closed form: C_m = A cos alpha + B sin alpha + C).
+    pub fn alpha_for_zero_moment(
+        &self,
+        cond: &FlightCondition,
+        x_ref_m: f64,
+        z_ref_m: f64,
+    ) -> Result<TrimPoint, LiftingLineError> {
+        let mut q = self.weights(cond)?;
+        let c = self.reference.mac_m;
+        // C_m(alpha) = sum over units of q_k [cos a (mx + x cl/c) + sin a (mz + z cl/c) + sec],
+        // with q_alpha = alpha: collect the parts independent of alpha and proportional to it.
+        q[UNIT_ALPHA] = 0.0;
+        let (mut fixed, mut per_alpha) = (UnitSums::default(), UnitSums::default());
+        for s in 0..self.surfaces.len() {
+            fixed.add_scaled(&self.combined(s, &q), 1.0);
+            per_alpha.add_scaled(&self.unit_sums[s][UNIT_ALPHA], 1.0);
+        }
+        let g =
+            |a: f64| fixed.cm(a, x_ref_m, z_ref_m, c) + a * per_alpha.cm(a, x_ref_m, z_ref_m, c);
+        let dg = |a: f64| {
+            fixed.dcm_dalpha_partial(a, x_ref_m, z_ref_m, c)
+                + per_alpha.cm(a, x_ref_m, z_ref_m, c)
+                + a * per_alpha.dcm_dalpha_partial(a, x_ref_m, z_ref_m, c)
+        };
+        // Newton from the small-angle root.
+        let mut a = {
+            let slope = dg(0.0);
+            if slope.abs() > 0.0 {
+                -g(0.0) / slope
+            } else {
+                0.0
+            }
+        };
+        for _ in 0..30 {
+            let step = g(a) / dg(a);
+            if !step.is_finite() {
+                break;
+            }
+            a -= step;
+            if step.abs() < 1e-14 {
+                break;
+            }
+        }
+        if !(a.is_finite() && a.abs() < 1.5 && g(a).abs() < 1e-10) {
+            return Err(LiftingLineError::NoTrim { x_ref_m });
+        }
+        let cl = fixed.cl + a * per_alpha.cl;
+        Ok(TrimPoint {
+            alpha_rad: a,
+            cl,
+            control_rad: 0.0,
+        })
+    }
+
+    /// The angle of attack and the setting of `control` (elevator, or a surface's incidence
+    /// change) that give total lift `cl_target` with zero C_m about (x_ref_m, z_ref_m); the
+    /// other controls are taken from `base`. Linear model; Newton on two unknowns.
+    pub fn trim_for_cl(
+        &self,
+        base: &FlightCondition,
+        control: TrimControl,
+        cl_target: f64,
+        x_ref_m: f64,
+        z_ref_m: f64,
+    ) -> Result<TrimPoint, LiftingLineError> {
+        let unit = match control {
+            TrimControl::Elevator => UNIT_ELEVATOR,
+            TrimControl::Incidence(s) if s < self.surfaces.len() => UNIT_FIRST_INCIDENCE + s,
+            TrimControl::Incidence(s) => {
+                return Err(LiftingLineError::SurfaceCount {
+                    what: "trim surface index",
+                    got: s,
+                    expected: self.surfaces.len(),
+                })
+            }
+        };
+        let mut cond = base.clone();
+        let set = |cond: &mut FlightCondition, v: f64| match control {
+            TrimControl::Elevator => cond.elevator_rad = v,
+            TrimControl::Incidence(s) => cond.incidence_change_rad[s] = v,
+        };
+        let get = |cond: &FlightCondition| match control {
+            TrimControl::Elevator => cond.elevator_rad,
+            TrimControl::Incidence(s) => cond.incidence_change_rad[s],
+        };
+        let c = self.reference.mac_m;
+        for _ in 0..30 {
+            let k = self.linear_coefficients(&cond, x_ref_m, z_ref_m)?;
+            let q = self.weights(&cond)?;
+            let (mut cl_u, mut cm_u) = (0.0, 0.0);
+            for s in 0..self.surfaces.len() {
+                cl_u += self.unit_sums[s][unit].cl;
+                cm_u += self.unit_sums[s][unit].cm(cond.alpha_rad, x_ref_m, z_ref_m, c);
+            }
+            let _ = q;
+            let (r1, r2) = (k.cl - cl_target, k.cm);
+            let det = k.cl_alpha_per_rad * cm_u - cl_u * k.cm_alpha_per_rad;
+            if det.abs() <= 1e-14 || !det.is_finite() {
+                return Err(LiftingLineError::NoTrim { x_ref_m });
+            }
+            let da = -(r1 * cm_u - cl_u * r2) / det;
+            let du = -(k.cl_alpha_per_rad * r2 - k.cm_alpha_per_rad * r1) / det;
+            cond.alpha_rad += da;
+            let v = get(&cond) + du;
+            set(&mut cond, v);
+            if !(cond.alpha_rad.abs() < 1.5 && v.abs() < 1.5) {
+                return Err(LiftingLineError::NoTrim { x_ref_m });
+            }
+            if da.abs() < 1e-14 && du.abs() < 1e-14 {
+                break;
+            }
+        }
+        let k = self.linear_coefficients(&cond, x_ref_m, z_ref_m)?;
+        if (k.cl - cl_target).abs() > 1e-9 || k.cm.abs() > 1e-9 {
+            return Err(LiftingLineError::NoTrim { x_ref_m });
+        }
+        Ok(TrimPoint {
+            alpha_rad: cond.alpha_rad,
+            cl: k.cl,
+            control_rad: get(&cond),
+        })
+    }
+
+    /// Circulations (divided by speed, m) of the linear model at `cond`, and their derivative
+    /// with respect to alpha.
+    fn linear_circulation(&self, q: &[f64]) -> (DVector<f64>, DVector<f64>) {
+        let mut g = DVector::<f64>::zeros(self.stations.len());
+        for (k, w) in q.iter().enumerate() {
+            g.axpy(*w, &self.units.column(k), 1.0);
+        }
+        (g, self.units.column(UNIT_ALPHA).into_owned())
+    }
+
+    /// Per-station geometric angle and zero-lift angle at the condition's controls.
+    fn station_angles(&self, cond: &FlightCondition) -> (DVector<f64>, DVector<f64>) {
+        let n = self.stations.len();
+        let mut geo = DVector::zeros(n);
+        let mut zero = DVector::zeros(n);
+        for (i, st) in self.stations.iter().enumerate() {
+            geo[i] = st.geometric_angle_rad
+                + cond.incidence_change_rad[st.surface]
+                + cond.alpha_rad * st.normal_z;
+            let de = self.surfaces[st.surface]
+                .elevator
+                .map_or(0.0, |e| e.dalpha0_per_rad_deflection * cond.elevator_rad);
+            zero[i] = st.section.alpha_zero_lift_rad + de;
+        }
+        (geo, zero)
+    }
+
+    /// Solve at `cond`: the superposed linear solution when every station is inside its cl
+    /// limits, Newton's method on the flat-top section model otherwise.
+    pub fn solve(&self, cond: &FlightCondition) -> Result<LiftingLineResult, LiftingLineError> {
+        let q = self.weights(cond)?;
+        let (gamma, tangent) = self.linear_circulation(&q);
+        let (geo, zero) = self.station_angles(cond);
+        let beyond = self.stations.iter().zip(gamma.iter()).any(|(st, g)| {
+            let cl = 2.0 * g / st.chord_m;
+            cl > st.section.cl_max || cl < st.section.cl_min
+        });
+        let (gamma, tangent, status) = if beyond {
+            self.newton(gamma, &geo, &zero)?
+        } else {
+            (gamma, tangent, SolveStatus::Linear)
+        };
+        results::assemble(self, cond, &q, &gamma, &tangent, &geo, &zero, status)
+    }
+
+    /// Newton's method on R(Gamma) = Gamma - (c/2) cl(alpha(Gamma)) with the flat-top cl.
+    fn newton(
+        &self,
+        mut gamma: DVector<f64>,
+        geo: &DVector<f64>,
+        zero: &DVector<f64>,
+    ) -> Result<(DVector<f64>, DVector<f64>, SolveStatus), LiftingLineError> {
+        let n = self.stations.len();
+        let eval = |g: &DVector<f64>| -> (DVector<f64>, Vec<bool>) {
+            let alpha = geo + &self.induced * g;
+            let mut r = DVector::zeros(n);
+            let mut active = vec![true; n];
+            for (i, st) in self.stations.iter().enumerate() {
+                let cl_lin = st.section.cl_alpha_per_rad * (alpha[i] - zero[i]);
+                let cl = cl_lin.clamp(st.section.cl_min, st.section.cl_max);
+                active[i] = cl_lin <= st.section.cl_max && cl_lin >= st.section.cl_min;
+                r[i] = g[i] - 0.5 * st.chord_m * cl;
+            }
+            (r, active)
+        };
+        let scale = gamma.amax().max(1e-9);
+        let tol = self.options.newton_relative_tolerance * scale;
+        let d_full: DVector<f64> = DVector::from_iterator(
+            n,
+            self.stations
+                .iter()
+                .map(|s| 0.5 * s.chord_m * s.section.cl_alpha_per_rad),
+        );
+        let (mut r, mut active) = eval(&gamma);
+        let mut res = r.amax();
+        let mut iterations = 0;
+        while res > tol {
+            if iterations >= self.options.max_newton_iterations {
+                return Err(LiftingLineError::NotConverged {
+                    iterations,
+                    residual: res,
+                });
+            }
+            iterations += 1;
+            let j = system_matrix(&self.induced, &d_full, &active);
+            let lu = j.clone().lu();
+            check_pivots(lu.u().diagonal().as_slice())?;
+            let rhs = -&r;
+            let step = lu
+                .solve(&rhs)
+                .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
+            check_vector_residual(&j, &step, &rhs)?;
+            // Backtracking: the residual is piecewise linear, a full step is normally exact.
+            let mut lambda = 1.0;
+            loop {
+                let trial = &gamma + &step * lambda;
+                let (r_t, a_t) = eval(&trial);
+                let res_t = r_t.amax();
+                if res_t < res || lambda < 1e-3 {
+                    gamma = trial;
+                    r = r_t;
+                    active = a_t;
+                    res = res_t;
+                    break;
+                }
+                lambda *= 0.5;
+            }
+            if !res.is_finite() {
+                return Err(LiftingLineError::NonFinite {
+                    quantity: "Newton residual",
+                });
+            }
+        }
+        // Tangent d Gamma / d alpha at the solution: J t = d n_z on active rows.
+        let j = system_matrix(&self.induced, &d_full, &active);
+        let rhs = DVector::from_iterator(
+            n,
+            self.stations.iter().zip(&active).map(|(s, a)| {
+                if *a {
+                    0.5 * s.chord_m * s.section.cl_alpha_per_rad * s.normal_z
+                } else {
+                    0.0
+                }
+            }),
+        );
+        let lu = j.clone().lu();
+        check_pivots(lu.u().diagonal().as_slice())?;
+        let tangent = lu
+            .solve(&rhs)
+            .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
+        check_vector_residual(&j, &tangent, &rhs)?;
+        Ok((
+            gamma,
+            tangent,
+            SolveStatus::Converged {
+                iterations,
+                residual_m: res,
+            },
+        ))
+    }
+}
+
+/// J = I - diag(d_active) A, with d zero on inactive (stalled) rows.
+fn system_matrix(induced: &DMatrix<f64>, d: &DVector<f64>, active: &[bool]) -> DMatrix<f64> {
+    let n = induced.nrows();
+    let mut m = DMatrix::<f64>::identity(n, n);
+    for i in 0..n {
+        if active[i] {
+            let di = d[i];
+            for j in 0..n {
+                m[(i, j)] -= di * induced[(i, j)];
+            }
+        }
+    }
+    m
+}
+
+/// Unit normal of a station's bound segment in the Trefftz plane (normal to the wake).
+fn trefftz_normal(st: &Station, wake: &Vec3) -> Vec3 {
+    let dl = st.node_b - st.node_a;
+    let proj = dl - wake * wake.dot(&dl);
+    let n = wake.cross(&proj);
+    let len = n.norm();
+    if len > 0.0 {
+        n / len
+    } else {
+        st.normal
+    }
+}
+
+/// Length of a station's bound segment projected on the Trefftz plane, m.
+pub(crate) fn trefftz_width_m(st: &Station, wake: &Vec3) -> f64 {
+    let dl = st.node_b - st.node_a;
+    (dl - wake * wake.dot(&dl)).norm()
+}
+
+fn check_options(
+    o: &LiftingLineOptions,
+    r: &Reference,
+    surface_count: usize,
+) -> Result<(), LiftingLineError> {
+    let invalid = |parameter, value, range| {
+        Err(LiftingLineError::InvalidInput {
+            parameter,
+            value,
+            range,
+        })
+    };
+    if !(2..=500).contains(&o.stations_per_half_span) {
+        return invalid(
+            "stations_per_half_span",
+            o.stations_per_half_span as f64,
+            "2 to 500",
+        );
+    }
+    if !(o.wake_angle_rad.is_finite() && o.wake_angle_rad.abs() < 1.5) {
+        return invalid("wake_angle_rad", o.wake_angle_rad, "|angle| < 1.5 rad");
+    }
+    if !(o.self_core_fraction.is_finite() && o.self_core_fraction > 0.0) {
+        return invalid("self_core_fraction", o.self_core_fraction, "finite and > 0");
+    }
+    if !(o.wake_core_fraction.is_finite() && o.wake_core_fraction > 0.0) {
+        return invalid("wake_core_fraction", o.wake_core_fraction, "finite and > 0");
+    }
+    if !(o.newton_relative_tolerance.is_finite() && o.newton_relative_tolerance > 0.0) {
+        return invalid(
+            "newton_relative_tolerance",
+            o.newton_relative_tolerance,
+            "finite and > 0",
+        );
+    }
+    for (parameter, value) in [
+        ("reference area_m2", r.area_m2),
+        ("reference mac_m", r.mac_m),
+        ("reference span_m", r.span_m),
+    ] {
+        if !(value.is_finite() && value > 0.0) {
+            return invalid(parameter, value, "finite and > 0");
+        }
+    }
+    if surface_count == 0 {
+        return Err(LiftingLineError::SurfaceCount {
+            what: "surfaces given",
+            got: 0,
+            expected: 1,
+        });
+    }
+    Ok(())
+}
+
+/// Quarter-chord point at signed in-plane distance `s` (negative to port).
+fn quarter_chord_point(surface: &Surface, s: f64) -> Vec3 {
+    let st = station_at(surface, s.abs());
+    let sign = if s < 0.0 { -1.0 } else { 1.0 };
+    Vec3::new(st.x_le_m + 0.25 * st.chord_m, sign * st.y_m, st.z_m)
+}
+
+/// True when the quarter-chord line has a kink at the root (sweep or dihedral there).
+fn root_is_kinked(surface: &Surface) -> bool {
+    let total = half_span_length_m(surface);
+    let eps = 1e-6 * total;
+    let d = quarter_chord_point(surface, eps) - quarter_chord_point(surface, 0.0);
+    let len = d.norm();
+    len > 0.0 && (d.x.abs() + d.z.abs()) / len > 1e-9
+}
+
+/// Append the stations of one surface, port tip to starboard tip.
+fn discretise(
+    input: &SurfaceInput<'_>,
+    surface_index: usize,
+    per_half: usize,
+    out: &mut Vec<Station>,
+) -> Result<(), LiftingLineError> {
+    let surface = input.surface;
+    let total = half_span_length_m(surface);
+    if !(total.is_finite() && total > 0.0) {
+        return Err(LiftingLineError::InvalidInput {
+            parameter: "half-span length_m",
+            value: total,
+            range: "finite and > 0",
+        });
+    }
+    let check_id = |index: usize| {
+        if index < input.sections.len() {
+            Ok(())
+        } else {
+            Err(LiftingLineError::MissingSection {
+                surface: surface.name.clone(),
+                index,
+                available: input.sections.len(),
+            })
+        }
+    };
+    match &surface.shape {
+        SurfaceShape::Panels(panels) => {
+            for p in panels {
+                check_id(p.root_airfoil.0)?;
+                check_id(p.tip_airfoil.0)?;
+            }
+        }
+        SurfaceShape::Elliptic(e) => {
+            check_id(e.root_airfoil.0)?;
+            check_id(e.tip_airfoil.0)?;
+        }
+    }
+    // Signed break points, port tip to starboard tip.
+    let half_breaks: Vec<f64> = break_points_m(surface)
+        .into_iter()
+        .filter(|b| *b > 1e-12 * total)
+        .collect();
+    let mut breaks: Vec<f64> = half_breaks.iter().rev().map(|b| -b).collect();
+    if root_is_kinked(surface) {
+        breaks.push(0.0);
+    }
+    breaks.extend(half_breaks.iter().copied());
+    let semispan_y = station_at(surface, total).y_m;
+    let segments_total = 2 * per_half;
+    for w in breaks.windows(2) {
+        let (sa, sb) = (w[0], w[1]);
+        let m = ((segments_total as f64 * (sb - sa) / (2.0 * total)).round() as usize).max(2);
+        let at = |t: f64| sa + (sb - sa) * 0.5 * (1.0 - (std::f64::consts::PI * t).cos());
+        for k in 0..m {
+            let (s0, s1) = (at(k as f64 / m as f64), at((k + 1) as f64 / m as f64));
+            let s_cp = at((k as f64 + 0.5) / m as f64);
+            let a = quarter_chord_point(surface, s0);
+            let b = quarter_chord_point(surface, s1);
+            let t = (s_cp - s0) / (s1 - s0);
+            let control = a + (b - a) * t;
+            let st = station_at(surface, s_cp.abs());
+            let dl = b - a;
+            let width_m = (dl.y * dl.y + dl.z * dl.z).sqrt();
+            if !(width_m > 0.0 && st.chord_m > 0.0 && dl.y > 0.0) {
+                return Err(LiftingLineError::InvalidInput {
+                    parameter: "station chord_m or width_m",
+                    value: st.chord_m.min(width_m),
+                    range: "> 0 at every control point (surface must have area and span)",
+                });
+            }
+            let normal = Vec3::new(0.0, -dl.z, dl.y) / width_m;
+            let section = input.sections[st.airfoil_inboard.0]
+                .blend(&input.sections[st.airfoil_outboard.0], st.airfoil_weight);
+            if !(section.cl_alpha_per_rad.is_finite() && section.cl_alpha_per_rad > 0.0) {
+                return Err(LiftingLineError::InvalidInput {
+                    parameter: "section cl_alpha_per_rad",
+                    value: section.cl_alpha_per_rad,
+                    range: "finite and > 0",
+                });
+            }
+            out.push(Station {
+                surface: surface_index,
+                s_m: s_cp,
+                y_m: control.y,
+                x_m: control.x,
+                z_m: control.z,
+                chord_m: st.chord_m,
+                dy_m: dl.y,
+                width_m,
+                geometric_angle_rad: surface.incidence_rad + st.twist_rad,
+                normal_z: normal.z,
+                percent_semispan: 100.0 * control.y.abs() / semispan_y,
+                section,
+                node_a: a,
+                node_b: b,
+                control,
+                normal,
+            });
+        }
+    }
+    Ok(())
+}
