@@ -8,12 +8,15 @@
 //!
 //! # Core radius
 //! The Biot-Savart kernel is singular on the filament. Each function takes a core radius
-//! `core_m` and replaces 1/h^2 by 1/(h^2 + core^2), where h is the perpendicular distance from
-//! the filament (an algebraic core of the kind used for vortex lattices). Outside a few core
-//! radii the result is the ideal line vortex; on the filament it is zero instead of infinite, so
-//! no NaN or infinity can leave these functions for finite inputs.
+//! `core_m` and multiplies the ideal line-vortex field by 1 - exp(-h^2/core^2), where h is the
+//! perpendicular distance from the filament (the Gaussian, Lamb-Oseen, core). A few core radii
+//! away the result is the ideal line vortex to within exp(-h^2/core^2); on the filament it is
+//! zero instead of infinite, so no NaN or infinity can leave these functions for finite inputs.
+//! A zero core gives the ideal kernel (and zero exactly on the filament).
 //!
 //! # References
+//! - Gaussian (Lamb-Oseen) vortex core: the viscous line vortex of Oseen (1912) and Lamb,
+//!   *Hydrodynamics*, 6th ed., art. 334a (from memory), used here only as a regularisation.
 //! - Biot-Savart law for a straight vortex segment of finite length, written with the two
 //!   end vectors r1, r2: V = Gamma/(4 pi) (r1 x r2)/|r1 x r2|^2 r0.(r1/|r1| - r2/|r2|);
 //!   J. Katz and A. Plotkin, *Low-Speed Aerodynamics*, 2nd ed., Cambridge, 2001, sec. 2.13
@@ -29,8 +32,26 @@ pub type Vec3 = Vector3<f64>;
 
 const FOUR_PI: f64 = 4.0 * std::f64::consts::PI;
 
+/// The ideal kernel's 1/h^2 with a Gaussian (Lamb-Oseen) core: (1 - exp(-h^2/core^2)) / h^2,
+/// which tends to 1/core^2 on the filament (where the caller's numerator vanishes) and to
+/// 1/h^2 a few core radii away.
+fn core_factor(h2: f64, core_m: f64) -> f64 {
+    let c2 = core_m * core_m;
+    if c2 <= 0.0 {
+        if h2 > 0.0 {
+            1.0 / h2
+        } else {
+            0.0
+        }
+    } else if h2 > 1e-12 * c2 {
+        -(-h2 / c2).exp_m1() / h2
+    } else {
+        1.0 / c2
+    }
+}
+
 /// Velocity per unit circulation at `p` from a straight segment from `a` to `b` (vorticity
-/// along b - a), with algebraic core radius `core_m`.
+/// along b - a), with Gaussian core radius `core_m`.
 pub fn segment_velocity(p: &Vec3, a: &Vec3, b: &Vec3, core_m: f64) -> Vec3 {
     let r0 = b - a;
     let r1 = p - a;
@@ -42,13 +63,10 @@ pub fn segment_velocity(p: &Vec3, a: &Vec3, b: &Vec3, core_m: f64) -> Vec3 {
         return Vec3::zeros();
     }
     let cross = r1.cross(&r2);
-    // |r1 x r2|^2 = h^2 |r0|^2, so adding core^2 |r0|^2 replaces h^2 by h^2 + core^2.
-    let denom = cross.norm_squared() + core_m * core_m * len2;
-    if denom <= 0.0 {
-        return Vec3::zeros();
-    }
+    // |r1 x r2|^2 = h^2 |r0|^2.
+    let h2 = cross.norm_squared() / len2;
     let k = r0.dot(&(r1 / n1 - r2 / n2));
-    cross * (k / (FOUR_PI * denom))
+    cross * (k * core_factor(h2, core_m) / (FOUR_PI * len2))
 }
 
 /// Velocity per unit circulation at `p` from a semi-infinite filament that starts at `a` and
@@ -61,12 +79,8 @@ pub fn semi_infinite_velocity(p: &Vec3, a: &Vec3, u: &Vec3, core_m: f64) -> Vec3
     }
     let ucr = u.cross(&r);
     // u x r / (|r| (|r| - u.r)) rewritten as (u x r)(1 + u.r/|r|) / |u x r|^2, which is
-    // regular upstream of the start and takes the core directly.
-    let denom = ucr.norm_squared() + core_m * core_m;
-    if denom <= 0.0 {
-        return Vec3::zeros();
-    }
-    ucr * ((1.0 + u.dot(&r) / nr) / (FOUR_PI * denom))
+    // regular upstream of the start and takes the core directly (|u x r| = h).
+    ucr * ((1.0 + u.dot(&r) / nr) * core_factor(ucr.norm_squared(), core_m) / FOUR_PI)
 }
 
 /// Velocity per unit circulation at `p` from a horseshoe vortex: a trailing leg from infinity
@@ -94,12 +108,8 @@ pub fn trefftz_pair_velocity(p: &Vec3, a: &Vec3, b: &Vec3, u: &Vec3, core_m: f64
     let line = |q: &Vec3| {
         let r = p - q;
         let r_perp = r - u * u.dot(&r);
-        let denom = r_perp.norm_squared() + core_m * core_m;
-        if denom <= 0.0 {
-            Vec3::zeros()
-        } else {
-            u.cross(&r_perp) / (2.0 * std::f64::consts::PI * denom)
-        }
+        u.cross(&r_perp)
+            * (core_factor(r_perp.norm_squared(), core_m) / (2.0 * std::f64::consts::PI))
     };
     line(b) - line(a)
 }
