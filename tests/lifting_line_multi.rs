@@ -97,3 +97,222 @@ fn lift_slope_converges_when_stations_double() {
         assert_relative_eq!(coarse, fine, max_relative = 2e-3);
     }
 }
+
+/// A wing with two panels (sweep, dihedral, washout) and a tail above and behind it.
+fn general_aircraft() -> (Surface, Surface) {
+    use trimline::model::AirfoilId;
+    let mut inner = panel(0.6, 0.25, 0.2, 3.0);
+    inner.dihedral_rad = 3f64.to_radians();
+    inner.tip_twist_rad = -1f64.to_radians();
+    let mut outer = panel(0.5, 0.2, 0.12, 8.0);
+    outer.dihedral_rad = 8f64.to_radians();
+    outer.tip_twist_rad = -3f64.to_radians();
+    outer.tip_airfoil = AirfoilId(1);
+    let mut wing = surface("wing", 0.0, 0.0, vec![inner, outer]);
+    wing.incidence_rad = 2f64.to_radians();
+    let mut tail = surface("tail", 0.9, 0.12, vec![panel(0.3, 0.14, 0.09, 12.0)]);
+    tail.incidence_rad = -1f64.to_radians();
+    (wing, tail)
+}
+
+#[test]
+fn symmetric_aircraft_gives_symmetric_loading() {
+    // Source: mirror symmetry of the geometry and of the flow in symmetric flight; both halves
+    // are modelled separately, so the solution must come out symmetric. Tolerance 1e-9 of the
+    // largest circulation (round-off in the LU solve).
+    let sections = [section(2.0 * PI, -0.03, 1.3), section(6.0, -0.01, 1.1)];
+    let (wing, tail) = general_aircraft();
+    let inputs = [
+        SurfaceInput {
+            surface: &wing,
+            sections: &sections,
+            elevator: None,
+        },
+        SurfaceInput {
+            surface: &tail,
+            sections: &sections,
+            elevator: None,
+        },
+    ];
+    let sys = MultiSurfaceSystem::new(&inputs, Reference::of_surface(&wing), options(30)).unwrap();
+    for alpha_deg in [2.0, 13.0] {
+        let r = sys
+            .solve(&sys.condition(f64::to_radians(alpha_deg)))
+            .unwrap();
+        let scale = r
+            .stations
+            .iter()
+            .fold(0.0_f64, |m, s| m.max(s.circulation_per_speed_m.abs()));
+        for surface in 0..2 {
+            let idx: Vec<usize> = (0..r.stations.len())
+                .filter(|i| r.stations[*i].surface == surface)
+                .collect();
+            for (k, &i) in idx.iter().enumerate() {
+                let j = idx[idx.len() - 1 - k];
+                assert_relative_eq!(r.stations[i].y_m, -r.stations[j].y_m, epsilon = 1e-12);
+                assert_relative_eq!(
+                    r.stations[i].circulation_per_speed_m,
+                    r.stations[j].circulation_per_speed_m,
+                    epsilon = 1e-9 * scale
+                );
+            }
+        }
+    }
+}
+
+#[test]
+fn zero_lift_at_the_zero_lift_angle() {
+    // Source: Prandtl's lifting line is linear in (alpha - alpha_L0); an untwisted, planar wing
+    // with one section has no lift at that angle (J. D. Anderson, Fundamentals of Aerodynamics,
+    // sec. 5.3). Tolerance: round-off.
+    let alpha0 = (-3.0_f64).to_radians();
+    let sections = [section(6.0, alpha0, 1.2)];
+    let wing = tapered_wing(7.0, 0.6, 1.8);
+    let sys = wing_only(&wing, &sections, 40);
+    let r = sys.solve(&sys.condition(alpha0)).unwrap();
+    assert_relative_eq!(r.cl, 0.0, epsilon = 1e-12);
+    for st in &r.stations {
+        assert_relative_eq!(st.cl, 0.0, epsilon = 1e-12);
+    }
+}
+
+#[test]
+fn elevator_acts_as_tau_times_an_incidence_change() {
+    // Source: Glauert's flap theory as used here (the elevator changes the zero-lift angle by
+    // -tau delta; H. Glauert, The Elements of Aerofoil and Airscrew Theory, ch. X; values from
+    // REFERENCES.md for F = 0.25: tau 0.6090, dcm_c/4/d delta -0.6495 per rad). Lift per rad of
+    // elevator must be tau times lift per rad of stabiliser incidence. Tolerance: round-off.
+    use trimline::lifting_line::ElevatorEffect;
+    let sections = [flat_plate()];
+    let wing = tapered_wing(8.0, 0.5, 2.0);
+    let tail = surface("tail", 0.8, 0.1, vec![panel(0.3, 0.12, 0.08, 5.0)]);
+    let elevator = ElevatorEffect {
+        dalpha0_per_rad_deflection: -0.6090,
+        dcm_ac_per_rad_deflection: -0.6495,
+    };
+    let inputs = [
+        SurfaceInput {
+            surface: &wing,
+            sections: &sections,
+            elevator: None,
+        },
+        SurfaceInput {
+            surface: &tail,
+            sections: &sections,
+            elevator: Some(elevator),
+        },
+    ];
+    let sys = MultiSurfaceSystem::new(&inputs, Reference::of_surface(&wing), options(40)).unwrap();
+    let base = sys
+        .linear_coefficients(&sys.condition(0.05), 0.0, 0.0)
+        .unwrap();
+    let mut with_elevator = sys.condition(0.05);
+    with_elevator.elevator_rad = 0.01;
+    let mut with_incidence = sys.condition(0.05);
+    with_incidence.incidence_change_rad[1] = 0.01;
+    let de = sys.linear_coefficients(&with_elevator, 0.0, 0.0).unwrap();
+    let di = sys.linear_coefficients(&with_incidence, 0.0, 0.0).unwrap();
+    assert_relative_eq!(
+        de.cl - base.cl,
+        0.6090 * (di.cl - base.cl),
+        max_relative = 1e-9
+    );
+    // The full solve agrees with the superposition.
+    let full = sys.solve(&with_elevator).unwrap();
+    assert_relative_eq!(full.cl, de.cl, max_relative = 1e-10);
+    assert_relative_eq!(full.cm(0.0, 0.0), de.cm, epsilon = 1e-10);
+}
+
+#[test]
+fn section_moment_gives_the_wing_moment_on_the_mac() {
+    // Source: definition of the mean aerodynamic chord, c_bar = (2/S) integral c^2 dy (D. P.
+    // Raymer, Aircraft Design, sec. 7.3): a wing of one section with constant cm_ac and no
+    // lift has C_m = cm_ac on its area and MAC. Tolerance 0.2 %: the chord is sampled at the
+    // control points.
+    let mut s = section(2.0 * PI, -0.04, 1.2);
+    s.cm_ac = -0.08;
+    let sections = [s];
+    let wing = tapered_wing(8.0, 0.4, 2.0);
+    let sys = wing_only(&wing, &sections, 40);
+    let r = sys.solve(&sys.condition(-0.04)).unwrap();
+    assert_relative_eq!(r.cl, 0.0, epsilon = 1e-12);
+    assert_relative_eq!(r.cm(0.3, 0.0), -0.08, max_relative = 2e-3);
+}
+
+#[test]
+fn straight_wing_neutral_point_is_on_the_quarter_chord_line() {
+    // Source: lifting-line theory places each section's lift on the quarter-chord line; a wing
+    // whose quarter-chord line is straight and unswept has its aerodynamic centre there
+    // (Anderson, Fundamentals of Aerodynamics, sec. 5.3; Raymer sec. 7.3 puts it at the MAC
+    // quarter chord). Tolerance 1e-9 m: round-off.
+    let sections = [section(2.0 * PI, -0.03, 1.2)];
+    let mut wing = tapered_wing(8.0, 0.5, 2.0);
+    wing.root_le_x_m = 0.2;
+    let g = trimline::planform::geometry(&wing);
+    let sys = wing_only(&wing, &sections, 40);
+    let cond = sys.condition(0.0);
+    let x_np = sys.neutral_point_x_m(&cond, 0.0).unwrap();
+    assert_relative_eq!(x_np, g.mac_quarter_x_m(), epsilon = 1e-9);
+    // Law: dC_m/dC_L about the neutral point is zero.
+    assert_relative_eq!(sys.dcm_dcl(&cond, x_np, 0.0).unwrap(), 0.0, epsilon = 1e-12);
+}
+
+#[test]
+fn trim_solves_agree_with_the_full_solve() {
+    // Source: internal law: the fast superposition and the full solve are the same linear
+    // model, so the trimmed state must give C_m = 0 (and the target C_L) in a full solve.
+    // Tolerance: round-off.
+    use trimline::lifting_line::multi_surface::TrimControl;
+    let mut s = section(2.0 * PI, -0.04, 1.4);
+    s.cm_ac = -0.07;
+    let sections = [s, flat_plate()];
+    let wing = tapered_wing(8.0, 0.5, 2.0);
+    let mut tail = surface("tail", 0.85, 0.1, vec![panel(0.3, 0.12, 0.08, 5.0)]);
+    tail.shape = match tail.shape {
+        trimline::model::SurfaceShape::Panels(mut p) => {
+            p[0].root_airfoil = trimline::model::AirfoilId(1);
+            p[0].tip_airfoil = trimline::model::AirfoilId(1);
+            trimline::model::SurfaceShape::Panels(p)
+        }
+        other => other,
+    };
+    tail.incidence_rad = -2f64.to_radians();
+    let elevator = trimline::lifting_line::ElevatorEffect {
+        dalpha0_per_rad_deflection: -0.6090,
+        dcm_ac_per_rad_deflection: -0.6495,
+    };
+    let inputs = [
+        SurfaceInput {
+            surface: &wing,
+            sections: &sections,
+            elevator: None,
+        },
+        SurfaceInput {
+            surface: &tail,
+            sections: &sections,
+            elevator: Some(elevator),
+        },
+    ];
+    let sys = MultiSurfaceSystem::new(&inputs, Reference::of_surface(&wing), options(40)).unwrap();
+    let x_cg = 0.07;
+    let z_cg = -0.02;
+    let t = sys
+        .alpha_for_zero_moment(&sys.condition(0.0), x_cg, z_cg)
+        .unwrap();
+    let r = sys.solve(&sys.condition(t.alpha_rad)).unwrap();
+    assert_relative_eq!(r.cm(x_cg, z_cg), 0.0, epsilon = 1e-10);
+    assert_relative_eq!(r.cl, t.cl, epsilon = 1e-10);
+    for control in [TrimControl::Elevator, TrimControl::Incidence(1)] {
+        let t = sys
+            .trim_for_cl(&sys.condition(0.0), control, 0.6, x_cg, z_cg)
+            .unwrap();
+        let mut cond = sys.condition(t.alpha_rad);
+        match control {
+            TrimControl::Elevator => cond.elevator_rad = t.control_rad,
+            TrimControl::Incidence(s) => cond.incidence_change_rad[s] = t.control_rad,
+        }
+        let r = sys.solve(&cond).unwrap();
+        assert_relative_eq!(r.cm(x_cg, z_cg), 0.0, epsilon = 1e-9);
+        assert_relative_eq!(r.cl, 0.6, epsilon = 1e-9);
+    }
+}

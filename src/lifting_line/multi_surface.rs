@@ -52,8 +52,9 @@
 //!
 //! # Vortex cores
 //! The kernels use a Gaussian core (see [`super::vortex`]). Between stations of the same
-//! surface its radius is a tiny fraction of the segment width: it only removes the 0/0 of a
-//! bound vortex at its own control point. Seen from another surface, a wake of discrete lines
+//! surface its radius is 1 % of the segment width (a Gaussian core leaves neighbours half a
+//! width away untouched): it only removes the 0/0 of a bound vortex at its own control point.
+//! Seen from another surface, a wake of discrete lines
 //! stands for a continuous sheet, and a control point of the tail can fall on or next to one
 //! line; there the radius is a fraction ([`LiftingLineOptions::wake_core_fraction`], default
 //! 0.25) of the source segment's width. Any smoothing shifts the downwash inside the sheet by
@@ -141,7 +142,7 @@ pub struct LiftingLineOptions {
     /// (default 0; |angle| < 1.5).
     pub wake_angle_rad: f64,
     /// Core radius between stations of one surface, as a fraction of the source segment width
-    /// (default 1e-6).
+    /// (default 0.01: with the Gaussian core its effect half a width away is exp(-2500)).
     pub self_core_fraction: f64,
     /// Core radius seen from another surface, as a fraction of the source segment width
     /// (default 0.25).
@@ -162,7 +163,7 @@ impl Default for LiftingLineOptions {
         LiftingLineOptions {
             stations_per_half_span: 40,
             wake_angle_rad: 0.0,
-            self_core_fraction: 1e-6,
+            self_core_fraction: 1e-2,
             wake_core_fraction: 0.25,
             cluster_at_kinked_root: false,
             max_newton_iterations: 50,

@@ -32,6 +32,9 @@ pub type Vec3 = Vector3<f64>;
 
 const FOUR_PI: f64 = 4.0 * std::f64::consts::PI;
 
+/// A point closer to a segment's line than this fraction of the segment length is on it.
+const ON_LINE_RELATIVE: f64 = 1e-10;
+
 /// The ideal kernel's 1/h^2 with a Gaussian (Lamb-Oseen) core: (1 - exp(-h^2/core^2)) / h^2,
 /// which tends to 1/core^2 on the filament (where the caller's numerator vanishes) and to
 /// 1/h^2 a few core radii away.
@@ -65,6 +68,11 @@ pub fn segment_velocity(p: &Vec3, a: &Vec3, b: &Vec3, core_m: f64) -> Vec3 {
     let cross = r1.cross(&r2);
     // |r1 x r2|^2 = h^2 |r0|^2.
     let h2 = cross.norm_squared() / len2;
+    if h2 <= ON_LINE_RELATIVE * ON_LINE_RELATIVE * len2 {
+        // On the filament's line (within round-off): the field along the line is zero, and the
+        // round-off direction of r1 x r2 must not be amplified by the core.
+        return Vec3::zeros();
+    }
     let k = r0.dot(&(r1 / n1 - r2 / n2));
     cross * (k * core_factor(h2, core_m) / (FOUR_PI * len2))
 }
