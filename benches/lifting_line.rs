@@ -101,7 +101,10 @@ fn bench(c: &mut Criterion) {
         })
     });
     c.bench_function("neutral point", |b| {
-        b.iter(|| sys.neutral_point_x_m(&sys.condition(black_box(0.05)), 0.0).unwrap())
+        b.iter(|| {
+            sys.neutral_point_x_m(&sys.condition(black_box(0.05)), 0.0)
+                .unwrap()
+        })
     });
     c.bench_function("full solve with spanwise table (same geometry)", |b| {
         b.iter(|| sys.solve(&sys.condition(black_box(0.05))).unwrap().cl)

@@ -316,3 +316,74 @@ fn trim_solves_agree_with_the_full_solve() {
         assert_relative_eq!(r.cl, 0.6, epsilon = 1e-9);
     }
 }
+
+#[test]
+fn aircraft_builder_uses_wing_and_stabiliser() {
+    // Source: internal consistency: the builder from an Aircraft must give the same system as
+    // the plain-surface builder with the wing's reference values. Tolerance: round-off.
+    use trimline::model::{
+        Air, Aircraft, Airfoil, AirfoilShape, MarginLimits, MassItem, Stabiliser, StabiliserRole,
+        Targets,
+    };
+    let sections = [flat_plate()];
+    let wing = tapered_wing(8.0, 0.5, 2.0);
+    let tail = surface("tail", 0.85, 0.1, vec![panel(0.3, 0.12, 0.08, 5.0)]);
+    let aircraft = Aircraft {
+        name: "test".into(),
+        notes: String::new(),
+        datum: "wing root leading edge".into(),
+        air: Air::Density {
+            density_kg_m3: 1.225,
+        },
+        airfoils: vec![Airfoil {
+            name: "plate".into(),
+            shape: AirfoilShape::Naca("0006".into()),
+            cl_max: None,
+            method: None,
+        }],
+        wing: wing.clone(),
+        stabiliser: Some(Stabiliser {
+            role: StabiliserRole::Tail,
+            surface: tail.clone(),
+            elevator_chord_fraction: 0.25,
+            elevator_max_up_rad: 0.3,
+            elevator_max_down_rad: 0.3,
+        }),
+        fuselage: None,
+        masses: vec![MassItem {
+            name: "all".into(),
+            mass_kg: 1.0,
+            x_m: 0.05,
+            z_m: None,
+        }],
+        ballast_bays: vec![],
+        targets: Targets::default(),
+        margin_limits: MarginLimits {
+            min_static_margin: 0.05,
+            max_static_margin: 0.15,
+            from_defaults: true,
+        },
+    };
+    let from_aircraft =
+        MultiSurfaceSystem::from_aircraft(&aircraft, &sections, None, options(20)).unwrap();
+    let inputs = [
+        SurfaceInput {
+            surface: &wing,
+            sections: &sections,
+            elevator: None,
+        },
+        SurfaceInput {
+            surface: &tail,
+            sections: &sections,
+            elevator: None,
+        },
+    ];
+    let plain =
+        MultiSurfaceSystem::new(&inputs, Reference::of_surface(&wing), options(20)).unwrap();
+    assert_eq!(from_aircraft.surface_count(), 2);
+    assert_eq!(from_aircraft.surface_name(1), Some("tail"));
+    let a = from_aircraft.solve(&from_aircraft.condition(0.07)).unwrap();
+    let b = plain.solve(&plain.condition(0.07)).unwrap();
+    assert_relative_eq!(a.cl, b.cl, epsilon = 1e-14);
+    assert_relative_eq!(a.cm(0.1, 0.0), b.cm(0.1, 0.0), epsilon = 1e-14);
+}

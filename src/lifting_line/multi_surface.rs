@@ -724,13 +724,11 @@ impl MultiSurfaceSystem {
         let c = self.reference.mac_m;
         for _ in 0..30 {
             let k = self.linear_coefficients(&cond, x_ref_m, z_ref_m)?;
-            let q = self.weights(&cond)?;
             let (mut cl_u, mut cm_u) = (0.0, 0.0);
             for s in 0..self.surfaces.len() {
                 cl_u += self.unit_sums[s][unit].cl;
                 cm_u += self.unit_sums[s][unit].cm(cond.alpha_rad, x_ref_m, z_ref_m, c);
             }
-            let _ = q;
             let (r1, r2) = (k.cl - cl_target, k.cm);
             let det = k.cl_alpha_per_rad * cm_u - cl_u * k.cm_alpha_per_rad;
             if det.abs() <= 1e-14 || !det.is_finite() {
@@ -811,8 +809,8 @@ impl MultiSurfaceSystem {
         Ok(best)
     }
 
-    /// Circulations (divided by speed, m) of the linear model at `cond`, and their derivative
-    /// with respect to alpha.
+    /// Circulations (divided by speed, m) of the linear model for unit weights `q`, and their
+    /// derivative with respect to alpha.
     fn linear_circulation(&self, q: &[f64]) -> (DVector<f64>, DVector<f64>) {
         let mut g = DVector::<f64>::zeros(self.stations.len());
         for (k, w) in q.iter().enumerate() {
@@ -853,7 +851,7 @@ impl MultiSurfaceSystem {
         } else {
             (gamma, tangent, SolveStatus::Linear)
         };
-        results::assemble(self, cond, &q, &gamma, &tangent, &geo, &zero, status)
+        results::assemble(self, cond, &gamma, &tangent, &geo, status)
     }
 
     /// Newton's method on R(Gamma) = Gamma - (c/2) cl(alpha(Gamma)) with the flat-top cl.
@@ -1161,4 +1159,131 @@ fn discretise(
         }
     }
     Ok(())
+}
+
+#[cfg(test)]
+pub(crate) mod tests {
+    use super::*;
+    use crate::model::{AirfoilId, Panel, SectionMethod};
+    use crate::section::ClMaxSource;
+    use approx::assert_relative_eq;
+
+    pub(crate) fn plate(cl_max: f64) -> SectionModel {
+        SectionModel {
+            method: SectionMethod::Thin,
+            alpha_zero_lift_rad: -0.03,
+            cl_alpha_per_rad: 2.0 * std::f64::consts::PI,
+            cm_ac: -0.05,
+            x_ac_c: 0.25,
+            cl_max,
+            cl_min: -cl_max,
+            cl_max_source: ClMaxSource::Given,
+        }
+    }
+
+    pub(crate) fn trapezoid(name: &str, x: f64, z: f64, span: f64, cr: f64, ct: f64) -> Surface {
+        Surface {
+            name: name.into(),
+            root_le_x_m: x,
+            root_le_z_m: z,
+            incidence_rad: 0.0,
+            shape: SurfaceShape::Panels(vec![Panel {
+                span_m: span,
+                root_chord_m: cr,
+                tip_chord_m: ct,
+                sweep_le_rad: 0.05,
+                dihedral_rad: 0.04,
+                tip_twist_rad: -0.03,
+                root_airfoil: AirfoilId(0),
+                tip_airfoil: AirfoilId(0),
+            }]),
+        }
+    }
+
+    pub(crate) fn wing_and_tail(sections: &[SectionModel]) -> MultiSurfaceSystem {
+        let wing = trapezoid("wing", 0.0, 0.0, 1.0, 0.25, 0.15);
+        let tail = trapezoid("tail", 0.8, 0.1, 0.3, 0.12, 0.08);
+        let elevator = ElevatorEffect {
+            dalpha0_per_rad_deflection: -0.6,
+            dcm_ac_per_rad_deflection: -0.6,
+        };
+        let inputs = [
+            SurfaceInput {
+                surface: &wing,
+                sections,
+                elevator: None,
+            },
+            SurfaceInput {
+                surface: &tail,
+                sections,
+                elevator: Some(elevator),
+            },
+        ];
+        let options = LiftingLineOptions {
+            stations_per_half_span: 12,
+            ..LiftingLineOptions::default()
+        };
+        MultiSurfaceSystem::new(&inputs, Reference::of_surface(&wing), options).unwrap()
+    }
+
+    #[test]
+    fn bad_inputs_are_typed_errors() {
+        let sections = [plate(1.2)];
+        let wing = trapezoid("wing", 0.0, 0.0, 1.0, 0.25, 0.15);
+        let input = [SurfaceInput {
+            surface: &wing,
+            sections: &[],
+            elevator: None,
+        }];
+        let reference = Reference::of_surface(&wing);
+        let err = MultiSurfaceSystem::new(&input, reference, LiftingLineOptions::default());
+        assert!(matches!(
+            err,
+            Err(LiftingLineError::MissingSection { index: 0, .. })
+        ));
+        let input = [SurfaceInput {
+            surface: &wing,
+            sections: &sections,
+            elevator: None,
+        }];
+        let options = LiftingLineOptions {
+            stations_per_half_span: 1,
+            ..LiftingLineOptions::default()
+        };
+        let err = MultiSurfaceSystem::new(&input, reference, options);
+        assert!(matches!(err, Err(LiftingLineError::InvalidInput { .. })));
+        let sys =
+            MultiSurfaceSystem::new(&input, reference, LiftingLineOptions::default()).unwrap();
+        let err = sys.solve(&FlightCondition::new(0.1, 2));
+        assert!(matches!(err, Err(LiftingLineError::SurfaceCount { .. })));
+    }
+
+    // Analytic dC_m/d alpha against a central finite difference (STYLE.md: analytic
+    // derivatives against finite differences). Tolerance 1e-7: the difference step.
+    #[test]
+    fn moment_slope_matches_finite_difference() {
+        let sections = [plate(2.0)];
+        let sys = wing_and_tail(&sections);
+        let (x, z, h) = (0.1, 0.05, 1e-5);
+        let at = |a: f64| sys.linear_coefficients(&sys.condition(a), x, z).unwrap();
+        let k = at(0.1);
+        let fd_cm = (at(0.1 + h).cm - at(0.1 - h).cm) / (2.0 * h);
+        let fd_cl = (at(0.1 + h).cl - at(0.1 - h).cl) / (2.0 * h);
+        assert_relative_eq!(k.cm_alpha_per_rad, fd_cm, epsilon = 1e-7);
+        assert_relative_eq!(k.cl_alpha_per_rad, fd_cl, epsilon = 1e-7);
+    }
+
+    // Law: at the first-stall angle the most loaded station is exactly at cl_max.
+    #[test]
+    fn first_stall_angle_puts_one_station_on_cl_max() {
+        let sections = [plate(1.1)];
+        let sys = wing_and_tail(&sections);
+        let (alpha, index) = sys
+            .first_stall_alpha_rad(&sys.condition(0.0))
+            .unwrap()
+            .unwrap();
+        let r = sys.solve(&sys.condition(alpha)).unwrap();
+        assert_relative_eq!(r.stall.cl_ratio, 1.0, epsilon = 1e-9);
+        assert_eq!(r.stall.station, index);
+    }
 }

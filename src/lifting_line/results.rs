@@ -148,26 +148,22 @@ fn stall_of(stations: &[StationResult], indices: impl Iterator<Item = usize>) ->
     }
 }
 
-/// Build the result of a solved state.
-#[allow(clippy::too_many_arguments)]
+/// Build the result of a solved state: `gamma` the circulations / speed (m), `tangent` their
+/// derivative with alpha, `geo` each station's geometric angle at this condition (rad).
 pub(crate) fn assemble(
     system: &MultiSurfaceSystem,
     cond: &FlightCondition,
-    _weights: &[f64],
     gamma: &DVector<f64>,
     tangent: &DVector<f64>,
     geo: &DVector<f64>,
-    zero: &DVector<f64>,
     status: SolveStatus,
 ) -> Result<LiftingLineResult, LiftingLineError> {
     let reference = system.reference();
     let (s_ref, c_ref) = (reference.area_m2, reference.mac_m);
-    let wake_angle = system.options().wake_angle_rad;
-    let wake = super::vortex::Vec3::new(wake_angle.cos(), 0.0, wake_angle.sin());
+    let wake = system.wake_direction();
     let stations = system.stations();
     let induced = system.induced() * gamma;
     let trefftz = system.trefftz() * gamma;
-    let _ = zero;
 
     let table: Vec<StationResult> = stations
         .iter()
@@ -278,5 +274,54 @@ fn efficiency(cl: f64, cdi: f64, aspect_ratio: f64) -> Option<f64> {
         e.is_finite().then_some(e)
     } else {
         None
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use crate::lifting_line::multi_surface::tests::{plate, wing_and_tail};
+    use approx::assert_relative_eq;
+
+    // The reported lift slope (from the tangent solve) against a finite difference of C_L,
+    // in the linear range and with stalled stations. Tolerance: difference step.
+    #[test]
+    fn lift_slope_matches_finite_difference() {
+        let sections = [plate(1.0)];
+        let sys = wing_and_tail(&sections);
+        for alpha in [0.02, 0.2] {
+            let h = 1e-6;
+            let r = sys.solve(&sys.condition(alpha)).unwrap();
+            let up = sys.solve(&sys.condition(alpha + h)).unwrap().cl;
+            let down = sys.solve(&sys.condition(alpha - h)).unwrap().cl;
+            assert_relative_eq!(
+                r.lift_slope_per_rad,
+                (up - down) / (2.0 * h),
+                epsilon = 1e-5
+            );
+            let up = sys.solve(&sys.condition(alpha + h)).unwrap().surfaces[1].downwash_rad;
+            let down = sys.solve(&sys.condition(alpha - h)).unwrap().surfaces[1].downwash_rad;
+            assert_relative_eq!(
+                r.surfaces[1].downwash_gradient,
+                (up - down) / (2.0 * h),
+                epsilon = 1e-5
+            );
+        }
+    }
+
+    // The total moment is the sum of the surfaces' and moves with the reference point by
+    // C_L dx / c (moment transfer).
+    #[test]
+    fn moment_transfer_law() {
+        let sections = [plate(2.0)];
+        let sys = wing_and_tail(&sections);
+        let r = sys.solve(&sys.condition(0.08)).unwrap();
+        let c = sys.reference().mac_m;
+        let a = r.condition.alpha_rad;
+        let dx = 0.1;
+        assert_relative_eq!(
+            r.cm(0.2 + dx, 0.0) - r.cm(0.2, 0.0),
+            r.cl * dx * a.cos() / c,
+            epsilon = 1e-12
+        );
     }
 }

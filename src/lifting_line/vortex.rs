@@ -46,6 +46,9 @@ fn core_factor(h2: f64, core_m: f64) -> f64 {
         } else {
             0.0
         }
+    } else if h2 > 40.0 * c2 {
+        // exp(-40) = 4e-18: below double-precision resolution of the factor; skip the exp.
+        1.0 / h2
     } else if h2 > 1e-12 * c2 {
         -(-h2 / c2).exp_m1() / h2
     } else {
