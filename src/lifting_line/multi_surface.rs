@@ -395,19 +395,38 @@ impl MultiSurfaceSystem {
         );
         let mut induced = DMatrix::<f64>::zeros(n, n);
         let mut trefftz = DMatrix::<f64>::zeros(n, n);
-        for (j, sj) in stations.iter().enumerate() {
-            let self_core = options.self_core_fraction * sj.width_m;
-            let wake_core = options.wake_core_fraction * sj.width_m;
-            for (i, si) in stations.iter().enumerate() {
-                let core = if si.surface == sj.surface {
-                    self_core
+        // Every surface is the mirror image of itself about y = 0 and its stations run from port
+        // tip to starboard tip, so the mirror of station i is start + end - 1 - i, and the
+        // influence of horseshoe j at control point i equals that of mirror(j) at mirror(i).
+        // Rows of the starboard half (and a centre station) are computed, the others copied:
+        // half the kernel evaluations, which dominate the build.
+        let mirror: Vec<usize> = stations
+            .iter()
+            .enumerate()
+            .map(|(i, st)| {
+                let r = &surfaces[st.surface].range;
+                r.start + r.end - 1 - i
+            })
+            .collect();
+        for (i, si) in stations.iter().enumerate() {
+            if mirror[i] < i {
+                continue;
+            }
+            let normal_t = trefftz_normal(si, &wake);
+            for (j, sj) in stations.iter().enumerate() {
+                let fraction = if si.surface == sj.surface {
+                    options.self_core_fraction
                 } else {
-                    wake_core
+                    options.wake_core_fraction
                 };
+                let core = fraction * sj.width_m;
                 let v = horseshoe_velocity(&si.control, &sj.node_a, &sj.node_b, &wake, core, core);
-                induced[(i, j)] = v.dot(&si.normal);
                 let vt = trefftz_pair_velocity(&si.control, &sj.node_a, &sj.node_b, &wake, core);
-                trefftz[(i, j)] = vt.dot(&trefftz_normal(si, &wake));
+                let (a, t) = (v.dot(&si.normal), vt.dot(&normal_t));
+                induced[(i, j)] = a;
+                trefftz[(i, j)] = t;
+                induced[(mirror[i], mirror[j])] = a;
+                trefftz[(mirror[i], mirror[j])] = t;
             }
         }
         if induced.iter().any(|v| !v.is_finite()) {

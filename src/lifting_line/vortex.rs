@@ -30,7 +30,8 @@ use nalgebra::Vector3;
 /// A 3-vector in the aircraft axes (x aft, y starboard, z up), m or m/s.
 pub type Vec3 = Vector3<f64>;
 
-const FOUR_PI: f64 = 4.0 * std::f64::consts::PI;
+const INV_FOUR_PI: f64 = 0.25 / std::f64::consts::PI;
+const INV_TWO_PI: f64 = 0.5 / std::f64::consts::PI;
 
 /// A point closer to a segment's line than this fraction of the segment length is on it.
 const ON_LINE_RELATIVE: f64 = 1e-10;
@@ -76,8 +77,9 @@ pub fn segment_velocity(p: &Vec3, a: &Vec3, b: &Vec3, core_m: f64) -> Vec3 {
         // round-off direction of r1 x r2 must not be amplified by the core.
         return Vec3::zeros();
     }
-    let k = r0.dot(&(r1 / n1 - r2 / n2));
-    cross * (k * core_factor(h2, core_m) / (FOUR_PI * len2))
+    // Reciprocals once: divisions dominate the cost of this kernel.
+    let k = r0.dot(&(r1 * n1.recip() - r2 * n2.recip()));
+    cross * (k * core_factor(h2, core_m) * INV_FOUR_PI * len2.recip())
 }
 
 /// Velocity per unit circulation at `p` from a semi-infinite filament that starts at `a` and
@@ -91,7 +93,7 @@ pub fn semi_infinite_velocity(p: &Vec3, a: &Vec3, u: &Vec3, core_m: f64) -> Vec3
     let ucr = u.cross(&r);
     // u x r / (|r| (|r| - u.r)) rewritten as (u x r)(1 + u.r/|r|) / |u x r|^2, which is
     // regular upstream of the start and takes the core directly (|u x r| = h).
-    ucr * ((1.0 + u.dot(&r) / nr) * core_factor(ucr.norm_squared(), core_m) / FOUR_PI)
+    ucr * ((1.0 + u.dot(&r) * nr.recip()) * core_factor(ucr.norm_squared(), core_m) * INV_FOUR_PI)
 }
 
 /// Velocity per unit circulation at `p` from a horseshoe vortex: a trailing leg from infinity
@@ -119,8 +121,7 @@ pub fn trefftz_pair_velocity(p: &Vec3, a: &Vec3, b: &Vec3, u: &Vec3, core_m: f64
     let line = |q: &Vec3| {
         let r = p - q;
         let r_perp = r - u * u.dot(&r);
-        u.cross(&r_perp)
-            * (core_factor(r_perp.norm_squared(), core_m) / (2.0 * std::f64::consts::PI))
+        u.cross(&r_perp) * (core_factor(r_perp.norm_squared(), core_m) * INV_TWO_PI)
     };
     line(b) - line(a)
 }
