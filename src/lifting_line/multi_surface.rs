@@ -57,7 +57,8 @@
 //! Seen from another surface, a wake of discrete lines
 //! stands for a continuous sheet, and a control point of the tail can fall on or next to one
 //! line; there the radius is a fraction ([`LiftingLineOptions::wake_core_fraction`], default
-//! 0.25) of the source segment's width. Any smoothing shifts the downwash inside the sheet by
+//! 0.25) of the source segment's width (for a trailing leg, shared by two neighbouring
+//! horseshoes, the mean of their widths). Any smoothing shifts the downwash inside the sheet by
 //! an amount of first order in the core radius (it samples the field slightly off the sheet);
 //! with the default, a tail lying in the far wake of an elliptic wing sees 2 C_L/(pi A) within
 //! about 3 % (tests/lifting_line_downwash.rs), and the error falls as stations are added.
@@ -77,7 +78,9 @@ use nalgebra::{DMatrix, DVector};
 
 use super::classical::{check_pivots, check_residual, check_vector_residual};
 use super::results::{self, LiftingLineResult};
-use super::vortex::{horseshoe_velocity, trefftz_pair_velocity, Vec3};
+use super::vortex::{
+    horseshoe_velocity, segment_velocity, semi_infinite_velocity, trefftz_line_velocity, Vec3,
+};
 use super::LiftingLineError;
 use crate::model::{Aircraft, Surface, SurfaceShape};
 use crate::planform::{self, break_points_m, half_span_length_m, station_at};
@@ -408,20 +411,35 @@ impl MultiSurfaceSystem {
                 r.start + r.end - 1 - i
             })
             .collect();
+        // Trailing legs are shared: the outboard leg of one horseshoe is the inboard leg of the
+        // next (with opposite sign), so each node's leg is evaluated once per control point. A
+        // leg's core uses the mean width of the segments that share it.
+        let nodes = trailing_nodes(&stations, &surfaces);
+        let mut legs = vec![Vec3::zeros(); nodes.len()];
+        let mut lines = vec![Vec3::zeros(); nodes.len()];
         for (i, si) in stations.iter().enumerate() {
             if mirror[i] < i {
                 continue;
             }
-            let normal_t = trefftz_normal(si, &wake);
-            for (j, sj) in stations.iter().enumerate() {
-                let fraction = if si.surface == sj.surface {
+            let fraction = |surface: usize| {
+                if surface == si.surface {
                     options.self_core_fraction
                 } else {
                     options.wake_core_fraction
-                };
-                let core = fraction * sj.width_m;
-                let v = horseshoe_velocity(&si.control, &sj.node_a, &sj.node_b, &wake, core, core);
-                let vt = trefftz_pair_velocity(&si.control, &sj.node_a, &sj.node_b, &wake, core);
+                }
+            };
+            for (k, node) in nodes.iter().enumerate() {
+                let core = fraction(node.surface) * node.width_m;
+                legs[k] = semi_infinite_velocity(&si.control, &node.point, &wake, core);
+                lines[k] = trefftz_line_velocity(&si.control, &node.point, &wake, core);
+            }
+            let normal_t = trefftz_normal(si, &wake);
+            for (j, sj) in stations.iter().enumerate() {
+                let core = fraction(sj.surface) * sj.width_m;
+                let (ka, kb) = (j + sj.surface, j + sj.surface + 1);
+                let v = segment_velocity(&si.control, &sj.node_a, &sj.node_b, core) + legs[kb]
+                    - legs[ka];
+                let vt = lines[kb] - lines[ka];
                 let (a, t) = (v.dot(&si.normal), vt.dot(&normal_t));
                 induced[(i, j)] = a;
                 trefftz[(i, j)] = t;
@@ -968,6 +986,43 @@ impl MultiSurfaceSystem {
             },
         ))
     }
+}
+
+/// The start point of one trailing leg (a node of the discretisation).
+struct TrailingNode {
+    point: Vec3,
+    surface: usize,
+    /// Mean width of the segments that share the node, m.
+    width_m: f64,
+}
+
+/// The nodes of every surface, port tip to starboard tip: surface s has its stations' nodes
+/// at indices range.start + s ..= range.end + s, so station j has nodes j + s and j + s + 1.
+fn trailing_nodes(stations: &[Station], surfaces: &[SurfaceInfo]) -> Vec<TrailingNode> {
+    let mut nodes = Vec::with_capacity(stations.len() + surfaces.len());
+    for (s, info) in surfaces.iter().enumerate() {
+        for j in info.range.clone() {
+            let st = &stations[j];
+            let width_m = if j > info.range.start {
+                0.5 * (st.width_m + stations[j - 1].width_m)
+            } else {
+                st.width_m
+            };
+            nodes.push(TrailingNode {
+                point: st.node_a,
+                surface: s,
+                width_m,
+            });
+        }
+        if let Some(last) = info.range.clone().last() {
+            nodes.push(TrailingNode {
+                point: stations[last].node_b,
+                surface: s,
+                width_m: stations[last].width_m,
+            });
+        }
+    }
+    nodes
 }
 
 /// J = I - diag(d_active) A, with d zero on inactive (stalled) rows.

@@ -118,12 +118,16 @@ pub fn horseshoe_velocity(
 /// of a horseshoe (through `a` with vorticity -u and through `b` with vorticity +u), seen in a
 /// plane normal to `u` far downstream (the Trefftz plane). Points are projected on that plane.
 pub fn trefftz_pair_velocity(p: &Vec3, a: &Vec3, b: &Vec3, u: &Vec3, core_m: f64) -> Vec3 {
-    let line = |q: &Vec3| {
-        let r = p - q;
-        let r_perp = r - u * u.dot(&r);
-        u.cross(&r_perp) * (core_factor(r_perp.norm_squared(), core_m) * INV_TWO_PI)
-    };
-    line(b) - line(a)
+    trefftz_line_velocity(p, b, u, core_m) - trefftz_line_velocity(p, a, u, core_m)
+}
+
+/// Two-dimensional velocity per unit circulation at `p` from an infinite straight line through
+/// `q` along the unit vector `u` (vorticity along `u`), the field of one trailing line in the
+/// Trefftz plane.
+pub fn trefftz_line_velocity(p: &Vec3, q: &Vec3, u: &Vec3, core_m: f64) -> Vec3 {
+    let r = p - q;
+    let r_perp = r - u * u.dot(&r);
+    u.cross(&r_perp) * (core_factor(r_perp.norm_squared(), core_m) * INV_TWO_PI)
 }
 
 #[cfg(test)]
