@@ -62,10 +62,13 @@ pub fn sutherland_viscosity(t_k: f64) -> f64 {
     SUTHERLAND_BETA * t_k.powf(1.5) / (t_k + SUTHERLAND_S_K)
 }
 
-/// ISA state at geopotential altitude `altitude_m` (clamped to 0..=11 000 m) with a temperature
+/// Lowest altitude accepted, m (the troposphere law holds below sea level too).
+pub const MIN_ALTITUDE_M: f64 = -500.0;
+
+/// ISA state at geopotential altitude `altitude_m` (clamped to -500..=11 000 m) with a temperature
 /// offset `temperature_offset_k` from the standard day.
 pub fn isa(altitude_m: f64, temperature_offset_k: f64) -> AirState {
-    let h = altitude_m.clamp(0.0, MAX_ALTITUDE_M);
+    let h = altitude_m.clamp(MIN_ALTITUDE_M, MAX_ALTITUDE_M);
     let t_std = T0_K - LAPSE_K_PER_M * h;
     let exponent = G0 / (R_AIR * LAPSE_K_PER_M);
     let pressure_pa = P0_PA * (t_std / T0_K).powf(exponent);

@@ -1,6 +1,6 @@
 //! Cautions: findings that travel with a result as data, so a table or report can show them.
 //!
-//! Each caution has a stable machine code (documented in `docs/json.md`), a level and a
+//! Each caution has a stable machine code (documented in `docs/cautions.md`), a level and a
 //! plain-language message for the builder.
 
 use std::fmt;

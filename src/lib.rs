@@ -16,6 +16,7 @@ pub mod input;
 pub mod lifting_line;
 pub mod model;
 pub mod output;
+pub mod performance;
 pub mod planform;
 pub mod section;
 pub mod stability;

@@ -369,6 +369,8 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
             max_static_margin: 0.15,
             from_defaults: true,
         },
+        setups: vec![],
+        weighing: vec![],
     };
     let from_aircraft =
         MultiSurfaceSystem::from_aircraft(&aircraft, &sections, None, options(20)).unwrap();

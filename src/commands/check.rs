@@ -1,15 +1,79 @@
-//! `trimline check` (in progress).
+//! `trimline check`: analyse one aircraft file (or the built-in demo) and print tables or JSON.
+
+use anyhow::Context;
 use clap::Args;
+use std::path::PathBuf;
+use trimline::analysis::{analyse, AnalysisOptions};
+use trimline::input;
+use trimline::model::Aircraft;
+
+/// The built-in demo aircraft, analysed when no file is given.
+pub const DEMO_TEXT: &str = include_str!("../../aircraft/larkspire-2000.toml");
+/// How the demo is named in output.
+pub const DEMO_NAME: &str = "<built-in demo: aircraft/larkspire-2000.toml>";
+
 /// Arguments of `check`.
 #[derive(Debug, Args)]
 pub struct CheckArgs {
-    /// Aircraft file; the built-in demo when omitted.
-    pub file: Option<std::path::PathBuf>,
-    /// Print one JSON object instead of tables.
+    /// Aircraft file (TOML); the built-in demo sailplane when omitted.
+    pub file: Option<PathBuf>,
+    /// Print one JSON object (SI units) instead of tables.
     #[arg(long)]
     pub json: bool,
+    /// Analyse the named [[setup]] of the file instead of its base configuration.
+    #[arg(long, value_name = "NAME")]
+    pub setup: Option<String>,
 }
+
+/// The aircraft with the named setup applied, or an error listing the setups there are.
+pub fn with_setup(aircraft: Aircraft, setup: Option<&str>) -> anyhow::Result<Aircraft> {
+    let Some(name) = setup else {
+        return Ok(aircraft);
+    };
+    match aircraft.setups.iter().find(|s| s.name == name) {
+        Some(s) => Ok(s.apply(&aircraft)),
+        None => {
+            let names: Vec<&str> = aircraft.setups.iter().map(|s| s.name.as_str()).collect();
+            if names.is_empty() {
+                anyhow::bail!("--setup {name}: the file has no [[setup]] tables")
+            }
+            anyhow::bail!(
+                "--setup {name}: no such setup (the file has: {})",
+                names.join(", ")
+            )
+        }
+    }
+}
+
+/// Load the aircraft named by `file`, or the demo; returns it with the name to show.
+pub fn load(file: Option<&PathBuf>) -> anyhow::Result<(Aircraft, String)> {
+    match file {
+        Some(path) => {
+            let aircraft = input::load_aircraft_file(path)?;
+            Ok((aircraft, path.display().to_string()))
+        }
+        None => {
+            let aircraft = input::parse_aircraft(DEMO_TEXT, DEMO_NAME, None)?;
+            Ok((aircraft, DEMO_NAME.to_string()))
+        }
+    }
+}
+
 /// Run `check`.
-pub fn run(_args: &CheckArgs) -> anyhow::Result<()> {
-    anyhow::bail!("not yet")
+pub fn run(args: &CheckArgs) -> anyhow::Result<()> {
+    let (aircraft, source) = load(args.file.as_ref())?;
+    let aircraft = with_setup(aircraft, args.setup.as_deref())?;
+
+    let analysis = analyse(&aircraft, &AnalysisOptions::default())
+        .with_context(|| format!("analysing {source}"))?;
+    if args.json {
+        let doc = trimline::output::json::check_document(&aircraft, &analysis, &source);
+        println!("{}", serde_json::to_string_pretty(&doc)?);
+    } else {
+        print!(
+            "{}",
+            trimline::output::tables::check_report(&aircraft, &analysis, &source)
+        );
+    }
+    Ok(())
 }

@@ -11,9 +11,11 @@
 //! hold no serde derive, so the file format can change without touching the core.
 
 mod airfoil;
+mod setup;
 mod surface;
 
 pub use airfoil::{Airfoil, AirfoilId, AirfoilShape, SectionMethod};
+pub use setup::{Change, Setup};
 pub use surface::{EllipticShape, Panel, Stabiliser, StabiliserRole, Surface, SurfaceShape};
 
 /// The air the aircraft flies in.
@@ -70,6 +72,15 @@ pub struct BallastBay {
     pub max_mass_kg: f64,
 }
 
+/// One support of a weighing: where it touches the aircraft and what its scale reads.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct WeighingSupport {
+    /// x of the support's contact point, m aft of the datum.
+    pub x_m: f64,
+    /// Scale reading, kg (tare already subtracted).
+    pub reading_kg: f64,
+}
+
 /// What the builder wants the aircraft to do, where they have a wish.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct Targets {
@@ -117,6 +128,10 @@ pub struct Aircraft {
     pub targets: Targets,
     /// Static-margin limits for the recommended CG band.
     pub margin_limits: MarginLimits,
+    /// Named setups for comparison (may be empty).
+    pub setups: Vec<Setup>,
+    /// Supports of a weighing of the finished model (empty, or two or three supports).
+    pub weighing: Vec<WeighingSupport>,
 }
 
 impl Aircraft {

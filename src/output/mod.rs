@@ -1,1 +1,7 @@
-//! (in progress)
+//! The edge where results meet people and programs: terminal tables (comfy-table) and JSON
+//! (serde mirror types). The core types carry no serde; this module copies them into output
+//! shapes with units in every field name.
+
+pub mod compare;
+pub mod json;
+pub mod tables;

@@ -4,3 +4,4 @@
 pub mod model;
 
 pub use model::{ClMaxSource, SectionModel, DEFAULT_CL_MAX};
+pub mod pending;

@@ -1,0 +1,71 @@
+//! `trimline compare`: key results of several aircraft files, or of the named setups inside
+//! them, side by side.
+
+use anyhow::Context;
+use clap::Args;
+use std::path::PathBuf;
+use trimline::analysis::{analyse, AnalysisOptions, KeyFigures};
+
+/// Arguments of `compare`.
+#[derive(Debug, Args)]
+pub struct CompareArgs {
+    /// Aircraft files; each contributes its base configuration and every [[setup]] in it.
+    /// With no file, the built-in demo and its setups.
+    pub files: Vec<PathBuf>,
+    /// Leave out the named setups: compare the files' base configurations only.
+    #[arg(long)]
+    pub base_only: bool,
+    /// Print JSON instead of a table.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Every configuration to compare, analysed: key figures and source name.
+pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, String)>> {
+    let mut loaded = Vec::new();
+    if args.files.is_empty() {
+        loaded.push(super::check::load(None)?);
+    }
+    for f in &args.files {
+        loaded.push(super::check::load(Some(f))?);
+    }
+    let mut out = Vec::new();
+    for (aircraft, source) in loaded {
+        let mut variants = vec![(aircraft.clone(), aircraft.name.clone())];
+        if !args.base_only {
+            variants.extend(
+                aircraft
+                    .setups
+                    .iter()
+                    .map(|s| (s.apply(&aircraft), s.name.clone())),
+            );
+        }
+        for (v, column) in variants {
+            let a = analyse(&v, &AnalysisOptions::default())
+                .with_context(|| format!("analysing {} ({source})", v.name))?;
+            let mut k = KeyFigures::of(&v, &a);
+            k.name = column;
+            out.push((k, source.clone()));
+        }
+    }
+    Ok(out)
+}
+
+/// Run `compare`.
+pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
+    let columns = configurations(args)?;
+    if columns.len() < 2 {
+        anyhow::bail!(
+            "nothing to compare: give two or more aircraft files, or a file with [[setup]] tables"
+        );
+    }
+    if args.json {
+        let doc = trimline::output::compare::compare_json(&columns);
+        println!("{}", serde_json::to_string_pretty(&doc)?);
+    } else {
+        let figures: Vec<KeyFigures> = columns.into_iter().map(|c| c.0).collect();
+        println!("{}", trimline::output::compare::compare_table(&figures));
+        println!("Values in brackets are differences from the first column; (=) means no change.");
+    }
+    Ok(())
+}

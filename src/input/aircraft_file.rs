@@ -1,0 +1,1305 @@
+//! Second stage of reading an aircraft file: check every value and build the
+//! [`crate::model::Aircraft`], or return an [`InputError`] naming file, line, column, key and
+//! the accepted range.
+
+use super::error::{InputError, Location};
+use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel};
+use super::units::{parse_quantity, Dimension};
+use crate::model::{
+    Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fuselage,
+    MarginLimits, MassItem, Panel, SectionMethod, Setup, Stabiliser, StabiliserRole, Surface,
+    SurfaceShape, Targets, WeighingSupport,
+};
+use std::collections::BTreeMap;
+use std::ops::Range;
+use std::path::{Path, PathBuf};
+use toml::Spanned;
+
+/// Smallest recommended static margin when the file gives none, fraction of MAC
+/// (common practice for models with a tail: 5 %).
+pub const DEFAULT_MIN_STATIC_MARGIN_TAIL: f64 = 0.05;
+/// Largest recommended static margin with a tail, fraction of MAC (common practice: 20 %).
+pub const DEFAULT_MAX_STATIC_MARGIN_TAIL: f64 = 0.20;
+/// Smallest recommended static margin for tailless aircraft (common practice: 3 %).
+pub const DEFAULT_MIN_STATIC_MARGIN_TAILLESS: f64 = 0.03;
+/// Largest recommended static margin for tailless aircraft (common practice: 10 %).
+pub const DEFAULT_MAX_STATIC_MARGIN_TAILLESS: f64 = 0.10;
+/// Smallest recommended static margin for canards (common practice: 5 %).
+pub const DEFAULT_MIN_STATIC_MARGIN_CANARD: f64 = 0.05;
+/// Largest recommended static margin for canards (common practice: 15 %).
+pub const DEFAULT_MAX_STATIC_MARGIN_CANARD: f64 = 0.15;
+/// Default greatest elevator deflection each way, deg (common practice for models).
+pub const DEFAULT_ELEVATOR_THROW_DEG: f64 = 15.0;
+
+/// Read an aircraft file from disk. Coordinate files named in it are read relative to its folder.
+pub fn load_aircraft_file(path: &Path) -> Result<Aircraft, InputError> {
+    let file = path.display().to_string();
+    let text = std::fs::read_to_string(path).map_err(|e| {
+        InputError::new(
+            Location {
+                file: file.clone(),
+                line: 0,
+                column: 0,
+            },
+            "file",
+            format!("cannot be read: {e}"),
+            None,
+        )
+    })?;
+    let base = path.parent().map(Path::to_path_buf).unwrap_or_default();
+    parse_aircraft(&text, &file, Some(&base))
+}
+
+/// Parse aircraft-file text. `file` names it in errors; `base_dir` is where relative coordinate
+/// file paths are resolved (`None`: coordinate files are refused, as for the built-in demo).
+pub fn parse_aircraft(
+    text: &str,
+    file: &str,
+    base_dir: Option<&Path>,
+) -> Result<Aircraft, InputError> {
+    let ctx = Ctx {
+        file,
+        text,
+        base_dir,
+    };
+    let raw: RawAircraft = toml::from_str(text).map_err(|e| ctx.toml_error(&e))?;
+    ctx.aircraft(raw)
+}
+
+struct Ctx<'a> {
+    file: &'a str,
+    text: &'a str,
+    base_dir: Option<&'a Path>,
+}
+
+/// An accepted interval, in the field's default unit (mm, g, deg, ...).
+#[derive(Clone, Copy)]
+struct Bounds {
+    min: f64,
+    min_inclusive: bool,
+    max: f64,
+    max_inclusive: bool,
+}
+
+impl Bounds {
+    const fn closed(min: f64, max: f64) -> Self {
+        Bounds {
+            min,
+            min_inclusive: true,
+            max,
+            max_inclusive: true,
+        }
+    }
+    const fn positive(max: f64) -> Self {
+        Bounds {
+            min: 0.0,
+            min_inclusive: false,
+            max,
+            max_inclusive: true,
+        }
+    }
+    fn contains(&self, v: f64) -> bool {
+        let lo = if self.min_inclusive {
+            v >= self.min
+        } else {
+            v > self.min
+        };
+        let hi = if self.max_inclusive {
+            v <= self.max
+        } else {
+            v < self.max
+        };
+        lo && hi
+    }
+    fn describe(&self, dim: Dimension) -> String {
+        let unit = dim.default_unit();
+        let sep = if unit.is_empty() || unit == "%" {
+            ""
+        } else {
+            " "
+        };
+        let lo = if self.min_inclusive { "" } else { "more than " };
+        let hi = if self.max_inclusive { "" } else { "less than " };
+        format!(
+            "{lo}{}{sep}{unit} to {hi}{}{sep}{unit}",
+            fmt_num(self.min),
+            fmt_num(self.max)
+        )
+    }
+}
+
+fn fmt_num(v: f64) -> String {
+    if v.fract().abs() < 1e-12 && v.abs() < 1e15 {
+        format!("{}", v as i64)
+    } else {
+        format!("{v}")
+    }
+}
+
+// Accepted ranges, in the default units (mm, g, deg, percent). Chosen to cover models and
+// small full-size aircraft while catching slips such as metres typed for millimetres.
+const POSITION_MM: Bounds = Bounds::closed(-50_000.0, 50_000.0);
+const SPAN_MM: Bounds = Bounds::closed(5.0, 30_000.0);
+const CHORD_MM: Bounds = Bounds::closed(5.0, 10_000.0);
+const TIP_CHORD_MM: Bounds = Bounds::closed(0.0, 10_000.0);
+const SWEEP_DEG: Bounds = Bounds::closed(-60.0, 60.0);
+const DIHEDRAL_DEG: Bounds = Bounds::closed(-45.0, 45.0);
+const TWIST_DEG: Bounds = Bounds::closed(-15.0, 15.0);
+const INCIDENCE_DEG: Bounds = Bounds::closed(-15.0, 15.0);
+const MASS_G: Bounds = Bounds::closed(0.0, 1_000_000.0);
+const BALLAST_MAX_G: Bounds = Bounds::positive(1_000_000.0);
+const CL_MAX: Bounds = Bounds::closed(0.3, 3.0);
+const THICKNESS_PCT: Bounds = Bounds {
+    min: 0.0,
+    min_inclusive: false,
+    max: 40.0,
+    max_inclusive: true,
+};
+const CAMBER_PCT: Bounds = Bounds::closed(0.0, 15.0);
+const TE_ANGLE_DEG: Bounds = Bounds::closed(0.0, 30.0);
+const ELEVATOR_PCT: Bounds = Bounds {
+    min: 0.0,
+    min_inclusive: true,
+    max: 100.0,
+    max_inclusive: false,
+};
+const ELEVATOR_THROW_DEG: Bounds = Bounds::closed(0.0, 45.0);
+const MARGIN_PCT: Bounds = Bounds::closed(-50.0, 80.0);
+const SPEED_M_S: Bounds = Bounds::positive(150.0);
+const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
+const TEMP_OFFSET_K: Bounds = Bounds::closed(-60.0, 60.0);
+const DENSITY: Bounds = Bounds::closed(0.3, 1.5);
+const FUSELAGE_MM: Bounds = Bounds::positive(30_000.0);
+
+impl Ctx<'_> {
+    fn location(&self, span: &Range<usize>) -> Location {
+        let offset = span.start.min(self.text.len());
+        let before = &self.text[..offset];
+        let line = before.matches('\n').count() + 1;
+        let line_start = before.rfind('\n').map(|i| i + 1).unwrap_or(0);
+        let column = self.text[line_start..offset].chars().count() + 1;
+        Location {
+            file: self.file.to_string(),
+            line,
+            column,
+        }
+    }
+
+    fn whole_file(&self) -> Location {
+        Location {
+            file: self.file.to_string(),
+            line: 0,
+            column: 0,
+        }
+    }
+
+    fn toml_error(&self, e: &toml::de::Error) -> InputError {
+        let location = match e.span() {
+            Some(span) => self.location(&span),
+            None => self.whole_file(),
+        };
+        let message = e.message().trim().to_string();
+        // Name the offending key where toml quotes it (`unknown field `spna``).
+        let names_a_field =
+            message.starts_with("unknown field") || message.starts_with("missing field");
+        let field = if names_a_field {
+            let key = message.split('`').nth(1).unwrap_or("syntax");
+            match e.span().and_then(|span| self.enclosing_table(span.start)) {
+                Some(table) if message.starts_with("unknown field") => format!("{table}.{key}"),
+                _ => key.to_string(),
+            }
+        } else {
+            "syntax".to_string()
+        };
+
+        let accepted = message.find("expected").map(|i| message[i..].to_string());
+        let problem = match message.find(", expected") {
+            Some(i) => message[..i].to_string(),
+            None => message.clone(),
+        };
+        InputError::new(location, field, problem, accepted)
+    }
+
+    /// The name of the `[table]` or `[[array]]` header above byte `offset`, if any.
+    fn enclosing_table(&self, offset: usize) -> Option<String> {
+        let before = &self.text[..offset.min(self.text.len())];
+        before.lines().rev().find_map(|line| {
+            let t = line.trim();
+            let inner = t
+                .strip_prefix("[[")
+                .and_then(|r| r.split("]]").next())
+                .or_else(|| t.strip_prefix('[').and_then(|r| r.split(']').next()))?;
+            Some(inner.trim().to_string())
+        })
+    }
+
+    fn err(
+        &self,
+        span: &Range<usize>,
+
+        field: &str,
+        problem: impl Into<String>,
+        accepted: Option<String>,
+    ) -> InputError {
+        InputError::new(self.location(span), field, problem, accepted)
+    }
+
+    /// A quantity in SI, checked against `bounds` (given in the default unit).
+    fn quantity(
+        &self,
+        q: &Quantity,
+        field: &str,
+        dim: Dimension,
+        bounds: Bounds,
+    ) -> Result<f64, InputError> {
+        let span = q.span();
+        let accepted = || {
+            let units = if matches!(dim, Dimension::Plain) {
+                String::new()
+            } else {
+                format!(
+                    "; or a string with a unit ({}), e.g. \"{}\"",
+                    dim.accepted_units(),
+                    example_for(dim)
+                )
+            };
+            Some(format!("{}{units}", bounds.describe(dim)))
+        };
+        let si = match q.get_ref() {
+            toml::Value::Integer(i) => super::units::from_default_unit(*i as f64, dim),
+            toml::Value::Float(f) => {
+                if !f.is_finite() {
+                    return Err(self.err(&span, field, "must be a finite number", accepted()));
+                }
+                super::units::from_default_unit(*f, dim)
+            }
+            toml::Value::String(s) if !matches!(dim, Dimension::Plain) => {
+                parse_quantity(s, dim).map_err(|p| self.err(&span, field, p, accepted()))?
+            }
+            other => {
+                return Err(self.err(
+                    &span,
+                    field,
+                    format!("expected a number, found {}", other.type_str()),
+                    accepted(),
+                ))
+            }
+        };
+        let in_default = si / super::units::from_default_unit(1.0, dim);
+        if !bounds.contains(in_default) {
+            return Err(self.err(
+                &span,
+                field,
+                format!(
+                    "{} {} is out of range",
+                    fmt_num_short(in_default),
+                    dim.default_unit()
+                ),
+                accepted(),
+            ));
+        }
+        Ok(si)
+    }
+
+    fn opt_quantity(
+        &self,
+        q: Option<&Quantity>,
+        field: &str,
+        dim: Dimension,
+        bounds: Bounds,
+    ) -> Result<Option<f64>, InputError> {
+        q.map(|q| self.quantity(q, field, dim, bounds)).transpose()
+    }
+
+    fn aircraft(&self, raw: RawAircraft) -> Result<Aircraft, InputError> {
+        let name = raw.name.get_ref().trim().to_string();
+        if name.is_empty() {
+            return Err(self.err(
+                &raw.name.span(),
+                "name",
+                "must not be empty",
+                Some("any text".into()),
+            ));
+        }
+        let air = self.air(raw.air.as_ref())?;
+        let (airfoils, ids) = self.airfoils(&raw.airfoils)?;
+        let wing_span = raw.wing.span();
+        let w = raw.wing.into_inner();
+        let wing = self.surface(
+            "wing",
+            SurfaceFields {
+                span: wing_span,
+                x: w.x.as_ref(),
+                z: w.z.as_ref(),
+                incidence: w.incidence.as_ref(),
+                root_chord: w.root_chord.as_ref(),
+                airfoil: w.airfoil.as_ref(),
+                panels: &w.panel,
+                ellipse: w.ellipse.as_ref(),
+            },
+            &ids,
+        )?;
+        let stabiliser = match raw.stabiliser {
+            None => None,
+            Some(s) => {
+                let span = s.span();
+                Some(self.stabiliser(span, s.into_inner(), &ids)?)
+            }
+        };
+        let fuselage = raw
+            .fuselage
+            .as_ref()
+            .map(|f| self.fuselage(f))
+            .transpose()?;
+        if raw.mass.is_empty() {
+            return Err(InputError::new(
+                self.whole_file(),
+                "mass",
+                "no mass items: the CG needs at least one [[mass]] entry",
+                Some("one or more [[mass]] tables with name, mass, x".into()),
+            ));
+        }
+        let masses = raw
+            .mass
+            .iter()
+            .enumerate()
+            .map(|(i, m)| self.mass_item(i, m.get_ref()))
+            .collect::<Result<Vec<_>, _>>()?;
+        let total: f64 = masses.iter().map(|m| m.mass_kg).sum();
+        if total <= 0.0 {
+            return Err(self.err(
+                &raw.mass[0].span(),
+                "mass",
+                "the masses add up to zero",
+                Some("a total mass above 0 g".into()),
+            ));
+        }
+        let ballast_bays = raw
+            .ballast
+            .iter()
+            .enumerate()
+            .map(|(i, b)| self.ballast(i, b.get_ref()))
+            .collect::<Result<Vec<_>, _>>()?;
+        let targets = match &raw.targets {
+            None => Targets::default(),
+            Some(t) => Targets {
+                static_margin: self.opt_quantity(
+                    t.static_margin.as_ref(),
+                    "targets.static_margin",
+                    Dimension::Percent,
+                    MARGIN_PCT,
+                )?,
+                trim_speed_m_s: self.opt_quantity(
+                    t.trim_speed.as_ref(),
+                    "targets.trim_speed",
+                    Dimension::Speed,
+                    SPEED_M_S,
+                )?,
+            },
+        };
+        let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref())?;
+        let weighing = raw
+            .weighing
+            .iter()
+            .enumerate()
+            .map(|(i, s)| {
+                let s = s.get_ref();
+                Ok(WeighingSupport {
+                    x_m: self.quantity(
+                        &s.x,
+                        &format!("weighing[{i}].x"),
+                        Dimension::Length,
+                        POSITION_MM,
+                    )?,
+                    reading_kg: self.quantity(
+                        &s.reading,
+                        &format!("weighing[{i}].reading"),
+                        Dimension::Mass,
+                        MASS_G,
+                    )?,
+                })
+            })
+            .collect::<Result<Vec<_>, InputError>>()?;
+        if weighing.len() == 1 || weighing.len() > 3 {
+            let span = raw.weighing[weighing.len() - 1].span();
+            return Err(self.err(
+                &span,
+                "weighing",
+                format!("{} supports given", weighing.len()),
+                Some("2 or 3 [[weighing]] supports".into()),
+            ));
+        }
+        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
+            return Err(self.err(
+                &raw.weighing[0].span(),
+                "weighing",
+                "the readings add up to zero",
+                Some("readings above 0 g".into()),
+            ));
+        }
+
+        let setups = raw
+            .setup
+            .iter()
+            .enumerate()
+            .map(|(i, s)| self.setup(i, s, &masses, &ballast_bays, &ids, stabiliser.is_some()))
+            .collect::<Result<Vec<_>, _>>()?;
+        Ok(Aircraft {
+            name,
+            notes: raw.notes.unwrap_or_default(),
+            datum: raw.datum.unwrap_or_else(|| "wing root leading edge".into()),
+            air,
+            airfoils,
+            wing,
+            stabiliser,
+            fuselage,
+            masses,
+            ballast_bays,
+            targets,
+            margin_limits,
+            setups,
+            weighing,
+        })
+    }
+
+    fn air(&self, raw: Option<&raw::RawAir>) -> Result<Air, InputError> {
+        let Some(a) = raw else {
+            return Ok(Air::Standard {
+                altitude_m: 0.0,
+                temperature_offset_k: 0.0,
+            });
+        };
+        if let Some(d) = &a.density {
+            if a.altitude.is_some() || a.temperature_offset.is_some() {
+                return Err(self.err(
+                    &d.span(),
+                    "air.density",
+                    "give either a density or an altitude and temperature offset, not both",
+                    None,
+                ));
+            }
+            let rho = self.quantity(d, "air.density", Dimension::Density, DENSITY)?;
+            return Ok(Air::Density { density_kg_m3: rho });
+        }
+        Ok(Air::Standard {
+            altitude_m: self
+                .opt_quantity(
+                    a.altitude.as_ref(),
+                    "air.altitude",
+                    Dimension::Altitude,
+                    ALTITUDE_M,
+                )?
+                .unwrap_or(0.0),
+            temperature_offset_k: self
+                .opt_quantity(
+                    a.temperature_offset.as_ref(),
+                    "air.temperature_offset",
+                    Dimension::TemperatureDifference,
+                    TEMP_OFFSET_K,
+                )?
+                .unwrap_or(0.0),
+        })
+    }
+
+    fn airfoils(
+        &self,
+        raw: &BTreeMap<String, Spanned<raw::RawAirfoil>>,
+    ) -> Result<(Vec<Airfoil>, BTreeMap<String, AirfoilId>), InputError> {
+        let mut list = Vec::new();
+        let mut ids = BTreeMap::new();
+        for (name, spanned) in raw {
+            let field = format!("airfoils.{name}");
+            let a = spanned.get_ref();
+            let span = spanned.span();
+            let count = [
+                a.naca.is_some(),
+                a.joukowski.is_some(),
+                a.karman_trefftz.is_some(),
+                a.coordinates.is_some(),
+            ]
+            .iter()
+            .filter(|b| **b)
+            .count();
+            if count != 1 {
+                return Err(self.err(
+                    &span,
+                    &field,
+                    if count == 0 {
+                        "no shape given"
+                    } else {
+                        "more than one shape given"
+                    },
+                    Some("exactly one of naca, joukowski, karman_trefftz, coordinates".into()),
+                ));
+            }
+            let shape = if let Some(n) = &a.naca {
+                let text = match n.get_ref() {
+                    toml::Value::String(s) => s.clone(),
+                    toml::Value::Integer(i) => format!("{i:04}"),
+                    other => {
+                        return Err(self.err(
+                            &n.span(),
+                            &format!("{field}.naca"),
+                            format!("expected a designation, found {}", other.type_str()),
+                            Some(
+                                "a 4- or 5-digit designation such as \"2412\" or \"23012\"".into(),
+                            ),
+                        ));
+                    }
+                };
+                let designation: String = text
+                    .trim()
+                    .trim_start_matches(|c: char| {
+                        c.eq_ignore_ascii_case(&'n')
+                            || c.eq_ignore_ascii_case(&'a')
+                            || c.eq_ignore_ascii_case(&'c')
+                    })
+                    .trim()
+                    .to_string();
+                super::pending::naca_parse(&designation).map_err(|e| {
+                    self.err(
+                        &n.span(),
+                        &format!("{field}.naca"),
+                        e.to_string(),
+                        Some(
+                            "a 4-digit (\"2412\") or 5-digit 2x0 series (\"23012\") designation"
+                                .into(),
+                        ),
+                    )
+                })?;
+                AirfoilShape::Naca(designation)
+            } else if let Some(j) = &a.joukowski {
+                let j = j.get_ref();
+                AirfoilShape::Joukowski {
+                    thickness_ratio: self.quantity(
+                        &j.thickness,
+                        &format!("{field}.joukowski.thickness"),
+                        Dimension::Percent,
+                        THICKNESS_PCT,
+                    )?,
+                    camber_ratio: self
+                        .opt_quantity(
+                            j.camber.as_ref(),
+                            &format!("{field}.joukowski.camber"),
+                            Dimension::Percent,
+                            CAMBER_PCT,
+                        )?
+                        .unwrap_or(0.0),
+                }
+            } else if let Some(k) = &a.karman_trefftz {
+                let k = k.get_ref();
+                AirfoilShape::KarmanTrefftz {
+                    thickness_ratio: self.quantity(
+                        &k.thickness,
+                        &format!("{field}.karman_trefftz.thickness"),
+                        Dimension::Percent,
+                        THICKNESS_PCT,
+                    )?,
+                    camber_ratio: self
+                        .opt_quantity(
+                            k.camber.as_ref(),
+                            &format!("{field}.karman_trefftz.camber"),
+                            Dimension::Percent,
+                            CAMBER_PCT,
+                        )?
+                        .unwrap_or(0.0),
+                    trailing_edge_angle_rad: self.quantity(
+                        &k.trailing_edge_angle,
+                        &format!("{field}.karman_trefftz.trailing_edge_angle"),
+                        Dimension::Angle,
+                        TE_ANGLE_DEG,
+                    )?,
+                }
+            } else if let Some(c) = &a.coordinates {
+                self.coordinates_shape(c, &format!("{field}.coordinates"))?
+            } else {
+                unreachable_shape()
+            };
+            let cl_max = self.opt_quantity(
+                a.cl_max.as_ref(),
+                &format!("{field}.cl_max"),
+                Dimension::Plain,
+                CL_MAX,
+            )?;
+            let method = match &a.method {
+                None => None,
+                Some(m) => Some(match m.get_ref().trim().to_ascii_lowercase().as_str() {
+                    "exact" => {
+                        if !matches!(
+                            shape,
+                            AirfoilShape::Joukowski { .. } | AirfoilShape::KarmanTrefftz { .. }
+                        ) {
+                            return Err(self.err(
+                                &m.span(),
+                                &format!("{field}.method"),
+                                "the exact method needs a joukowski or karman_trefftz airfoil",
+                                Some("thin, panel".into()),
+                            ));
+                        }
+                        SectionMethod::Exact
+                    }
+                    "thin" => SectionMethod::Thin,
+                    "panel" => SectionMethod::Panel,
+                    other => {
+                        return Err(self.err(
+                            &m.span(),
+                            &format!("{field}.method"),
+                            format!("unknown method `{other}`"),
+                            Some("exact, thin, panel".into()),
+                        ))
+                    }
+                }),
+            };
+            ids.insert(name.clone(), AirfoilId(list.len()));
+            list.push(Airfoil {
+                name: name.clone(),
+                shape,
+                cl_max,
+                method,
+            });
+        }
+        Ok((list, ids))
+    }
+
+    fn coordinates_shape(
+        &self,
+        c: &Spanned<String>,
+        field: &str,
+    ) -> Result<AirfoilShape, InputError> {
+        let span = c.span();
+        let Some(base) = self.base_dir else {
+            return Err(self.err(
+                &span,
+                field,
+                "coordinate files cannot be used from built-in text",
+                Some("naca, joukowski or karman_trefftz".into()),
+            ));
+        };
+        let path: PathBuf = base.join(c.get_ref());
+        let text = std::fs::read_to_string(&path).map_err(|e| {
+            self.err(
+                &span,
+                field,
+                format!("cannot read `{}`: {e}", path.display()),
+                Some("a path relative to the aircraft file".into()),
+            )
+        })?;
+        let (title, points) =
+            super::pending::coordinates_parse(&text, &path.display().to_string())?;
+        let title = if title.is_empty() {
+            path.file_stem()
+                .map(|s| s.to_string_lossy().into_owned())
+                .unwrap_or_default()
+        } else {
+            title
+        };
+        Ok(AirfoilShape::Coordinates { title, points })
+    }
+
+    fn airfoil_ref(
+        &self,
+        name: Option<&Spanned<String>>,
+        fallback: Option<AirfoilId>,
+        field: &str,
+        ids: &BTreeMap<String, AirfoilId>,
+        table_span: &Range<usize>,
+    ) -> Result<AirfoilId, InputError> {
+        match name {
+            Some(n) => ids.get(n.get_ref().trim()).copied().ok_or_else(|| {
+                let known: Vec<&str> = ids.keys().map(String::as_str).collect();
+                self.err(
+                    &n.span(),
+                    field,
+                    format!("no airfoil named `{}`", n.get_ref()),
+                    Some(if known.is_empty() {
+                        "define it in an [airfoils.NAME] table".to_string()
+                    } else {
+                        format!("one of: {}", known.join(", "))
+                    }),
+                )
+            }),
+            None => fallback.ok_or_else(|| {
+                self.err(
+                    table_span,
+                    field,
+                    "missing airfoil",
+                    Some("the name of an [airfoils.NAME] table".into()),
+                )
+            }),
+        }
+    }
+
+    fn surface(
+        &self,
+        path: &str,
+        f: SurfaceFields<'_>,
+        ids: &BTreeMap<String, AirfoilId>,
+    ) -> Result<Surface, InputError> {
+        let x = self
+            .opt_quantity(f.x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?
+            .unwrap_or(0.0);
+        let z = self
+            .opt_quantity(f.z, &format!("{path}.z"), Dimension::Length, POSITION_MM)?
+            .unwrap_or(0.0);
+        let incidence = self
+            .opt_quantity(
+                f.incidence,
+                &format!("{path}.incidence"),
+                Dimension::Angle,
+                INCIDENCE_DEG,
+            )?
+            .unwrap_or(0.0);
+        let root_chord_q = f.root_chord.ok_or_else(|| {
+            self.err(
+                &f.span,
+                &format!("{path}.root_chord"),
+                "missing",
+                Some(CHORD_MM.describe(Dimension::Length)),
+            )
+        })?;
+        let root_chord = self.quantity(
+            root_chord_q,
+            &format!("{path}.root_chord"),
+            Dimension::Length,
+            CHORD_MM,
+        )?;
+        let root_airfoil =
+            self.airfoil_ref(f.airfoil, None, &format!("{path}.airfoil"), ids, &f.span)?;
+        let shape = match (f.panels.is_empty(), f.ellipse) {
+            (false, Some(e)) => {
+                return Err(self.err(
+                    &e.span(),
+                    &format!("{path}.ellipse"),
+                    "a surface is either panels or an ellipse, not both",
+                    None,
+                ))
+            }
+            (true, None) => {
+                return Err(self.err(
+                    &f.span,
+                    &format!("{path}.panel"),
+                    "no planform given",
+                    Some(
+                        "one or more [[{path}.panel]] tables, or one [{path}.ellipse] table"
+                            .replace("{path}", path),
+                    ),
+                ))
+            }
+            (true, Some(e)) => {
+                SurfaceShape::Elliptic(self.ellipse(path, e, root_chord, root_airfoil, ids)?)
+            }
+            (false, None) => {
+                let mut panels = Vec::with_capacity(f.panels.len());
+                let mut chord = root_chord;
+                let mut twist = 0.0;
+                let mut airfoil = root_airfoil;
+                for (i, p) in f.panels.iter().enumerate() {
+                    let panel =
+                        self.panel(&format!("{path}.panel[{i}]"), p, chord, twist, airfoil, ids)?;
+                    chord = panel.tip_chord_m;
+                    twist = panel.tip_twist_rad;
+                    airfoil = panel.tip_airfoil;
+                    panels.push(panel);
+                }
+
+                SurfaceShape::Panels(panels)
+            }
+        };
+        Ok(Surface {
+            name: path.to_string(),
+            root_le_x_m: x,
+            root_le_z_m: z,
+            incidence_rad: incidence,
+            shape,
+        })
+    }
+
+    fn panel(
+        &self,
+        path: &str,
+        p: &Spanned<RawPanel>,
+        prev_chord: f64,
+        prev_twist: f64,
+        prev_airfoil: AirfoilId,
+        ids: &BTreeMap<String, AirfoilId>,
+    ) -> Result<Panel, InputError> {
+        let span = p.span();
+        let p = p.get_ref();
+        let root_chord = self
+            .opt_quantity(
+                p.root_chord.as_ref(),
+                &format!("{path}.root_chord"),
+                Dimension::Length,
+                CHORD_MM,
+            )?
+            .unwrap_or(prev_chord);
+        let tip_chord = self
+            .opt_quantity(
+                p.tip_chord.as_ref(),
+                &format!("{path}.tip_chord"),
+                Dimension::Length,
+                TIP_CHORD_MM,
+            )?
+            .unwrap_or(root_chord);
+        Ok(Panel {
+            span_m: self.quantity(&p.span, &format!("{path}.span"), Dimension::Length, SPAN_MM)?,
+            root_chord_m: root_chord,
+            tip_chord_m: tip_chord,
+            sweep_le_rad: self
+                .opt_quantity(
+                    p.sweep.as_ref(),
+                    &format!("{path}.sweep"),
+                    Dimension::Angle,
+                    SWEEP_DEG,
+                )?
+                .unwrap_or(0.0),
+            dihedral_rad: self
+                .opt_quantity(
+                    p.dihedral.as_ref(),
+                    &format!("{path}.dihedral"),
+                    Dimension::Angle,
+                    DIHEDRAL_DEG,
+                )?
+                .unwrap_or(0.0),
+            tip_twist_rad: self
+                .opt_quantity(
+                    p.twist.as_ref(),
+                    &format!("{path}.twist"),
+                    Dimension::Angle,
+                    TWIST_DEG,
+                )?
+                .unwrap_or(prev_twist),
+            root_airfoil: prev_airfoil,
+            tip_airfoil: self.airfoil_ref(
+                p.tip_airfoil.as_ref(),
+                Some(prev_airfoil),
+                &format!("{path}.tip_airfoil"),
+                ids,
+                &span,
+            )?,
+        })
+    }
+
+    fn ellipse(
+        &self,
+        path: &str,
+        e: &Spanned<RawEllipse>,
+        root_chord: f64,
+        root_airfoil: AirfoilId,
+        ids: &BTreeMap<String, AirfoilId>,
+    ) -> Result<EllipticShape, InputError> {
+        let span = e.span();
+        let e = e.get_ref();
+        Ok(EllipticShape {
+            semispan_m: self.quantity(
+                &e.span,
+                &format!("{path}.ellipse.span"),
+                Dimension::Length,
+                SPAN_MM,
+            )?,
+            root_chord_m: root_chord,
+            dihedral_rad: self
+                .opt_quantity(
+                    e.dihedral.as_ref(),
+                    &format!("{path}.ellipse.dihedral"),
+                    Dimension::Angle,
+                    DIHEDRAL_DEG,
+                )?
+                .unwrap_or(0.0),
+            tip_twist_rad: self
+                .opt_quantity(
+                    e.twist.as_ref(),
+                    &format!("{path}.ellipse.twist"),
+                    Dimension::Angle,
+                    TWIST_DEG,
+                )?
+                .unwrap_or(0.0),
+            root_airfoil,
+            tip_airfoil: self.airfoil_ref(
+                e.tip_airfoil.as_ref(),
+                Some(root_airfoil),
+                &format!("{path}.ellipse.tip_airfoil"),
+                ids,
+                &span,
+            )?,
+        })
+    }
+
+    fn stabiliser(
+        &self,
+        span: Range<usize>,
+        s: raw::RawStabiliser,
+        ids: &BTreeMap<String, AirfoilId>,
+    ) -> Result<Stabiliser, InputError> {
+        let role = match &s.role {
+            None => StabiliserRole::Tail,
+            Some(r) => match r.get_ref().trim().to_ascii_lowercase().as_str() {
+                "tail" => StabiliserRole::Tail,
+                "canard" => StabiliserRole::Canard,
+                other => {
+                    return Err(self.err(
+                        &r.span(),
+                        "stabiliser.role",
+                        format!("unknown role `{other}`"),
+                        Some("tail, canard".into()),
+                    ))
+                }
+            },
+        };
+        let surface = self.surface(
+            "stabiliser",
+            SurfaceFields {
+                span: span.clone(),
+                x: s.x.as_ref(),
+                z: s.z.as_ref(),
+                incidence: s.incidence.as_ref(),
+                root_chord: s.root_chord.as_ref(),
+                airfoil: s.airfoil.as_ref(),
+                panels: &s.panel,
+                ellipse: s.ellipse.as_ref(),
+            },
+            ids,
+        )?;
+        if s.x.is_none() {
+            return Err(self.err(
+                &span,
+                "stabiliser.x",
+                "missing: where is the stabiliser's root leading edge?",
+                Some(POSITION_MM.describe(Dimension::Length)),
+            ));
+        }
+        let throw = DEFAULT_ELEVATOR_THROW_DEG.to_radians();
+        Ok(Stabiliser {
+            role,
+            surface,
+            elevator_chord_fraction: self
+                .opt_quantity(
+                    s.elevator_chord.as_ref(),
+                    "stabiliser.elevator_chord",
+                    Dimension::Percent,
+                    ELEVATOR_PCT,
+                )?
+                .unwrap_or(0.3),
+            elevator_max_up_rad: self
+                .opt_quantity(
+                    s.elevator_up.as_ref(),
+                    "stabiliser.elevator_up",
+                    Dimension::Angle,
+                    ELEVATOR_THROW_DEG,
+                )?
+                .unwrap_or(throw),
+            elevator_max_down_rad: self
+                .opt_quantity(
+                    s.elevator_down.as_ref(),
+                    "stabiliser.elevator_down",
+                    Dimension::Angle,
+                    ELEVATOR_THROW_DEG,
+                )?
+                .unwrap_or(throw),
+        })
+    }
+
+    fn setup(
+        &self,
+        i: usize,
+        s: &Spanned<raw::RawSetup>,
+        masses: &[MassItem],
+        bays: &[BallastBay],
+        ids: &BTreeMap<String, AirfoilId>,
+        has_stabiliser: bool,
+    ) -> Result<Setup, InputError> {
+        let path = format!("setup[{i}]");
+        let span = s.span();
+        let s = s.get_ref();
+        let name = s.name.get_ref().trim().to_string();
+        if name.is_empty() {
+            return Err(self.err(
+                &s.name.span(),
+                &format!("{path}.name"),
+                "must not be empty",
+                Some("any text".into()),
+            ));
+        }
+        let find_item = |key: &str, table: &str, q: &Quantity| {
+            masses.iter().position(|m| m.name == key).ok_or_else(|| {
+                let names: Vec<&str> = masses.iter().map(|m| m.name.as_str()).collect();
+                self.err(
+                    &q.span(),
+                    &format!("{path}.{table}"),
+                    format!("no mass item named `{key}`"),
+                    Some(format!("one of: {}", names.join(", "))),
+                )
+            })
+        };
+        let mut changes = Vec::new();
+        for (bay_name, q) in &s.ballast {
+            let bay = bays
+                .iter()
+                .position(|b| &b.name == bay_name)
+                .ok_or_else(|| {
+                    let names: Vec<&str> = bays.iter().map(|b| b.name.as_str()).collect();
+                    self.err(
+                        &q.span(),
+                        &format!("{path}.ballast"),
+                        format!("no ballast bay named `{bay_name}`"),
+                        Some(if names.is_empty() {
+                            "define a [[ballast]] bay first".into()
+                        } else {
+                            format!("one of: {}", names.join(", "))
+                        }),
+                    )
+                })?;
+            let max_g = bays[bay].max_mass_kg * 1000.0;
+            let mass_kg = self.quantity(
+                q,
+                &format!("{path}.ballast.{bay_name}"),
+                Dimension::Mass,
+                Bounds::closed(0.0, max_g),
+            )?;
+            changes.push(Change::Ballast { bay, mass_kg });
+        }
+        for (item_name, q) in &s.mass_x {
+            let item = find_item(item_name, "mass_x", q)?;
+            let x_m = self.quantity(
+                q,
+                &format!("{path}.mass_x.{item_name}"),
+                Dimension::Length,
+                POSITION_MM,
+            )?;
+            changes.push(Change::MoveItem { item, x_m });
+        }
+        for (item_name, q) in &s.mass {
+            let item = find_item(item_name, "mass", q)?;
+            let mass_kg = self.quantity(
+                q,
+                &format!("{path}.mass.{item_name}"),
+                Dimension::Mass,
+                MASS_G,
+            )?;
+            changes.push(Change::ItemMass { item, mass_kg });
+        }
+        if let Some(q) = &s.wing_incidence {
+            changes.push(Change::WingIncidence(self.quantity(
+                q,
+                &format!("{path}.wing_incidence"),
+                Dimension::Angle,
+                INCIDENCE_DEG,
+            )?));
+        }
+        if let Some(q) = &s.stabiliser_incidence {
+            if !has_stabiliser {
+                return Err(self.err(
+                    &q.span(),
+                    &format!("{path}.stabiliser_incidence"),
+                    "this aircraft has no stabiliser",
+                    None,
+                ));
+            }
+            changes.push(Change::StabiliserIncidence(self.quantity(
+                q,
+                &format!("{path}.stabiliser_incidence"),
+                Dimension::Angle,
+                INCIDENCE_DEG,
+            )?));
+        }
+        for (from, to) in &s.airfoils {
+            let known = || {
+                let names: Vec<&str> = ids.keys().map(String::as_str).collect();
+                Some(format!("one of: {}", names.join(", ")))
+            };
+            let from_id = *ids.get(from).ok_or_else(|| {
+                self.err(
+                    &to.span(),
+                    &format!("{path}.airfoils"),
+                    format!("no airfoil named `{from}`"),
+                    known(),
+                )
+            })?;
+            let to_id = *ids.get(to.get_ref().trim()).ok_or_else(|| {
+                self.err(
+                    &to.span(),
+                    &format!("{path}.airfoils.{from}"),
+                    format!("no airfoil named `{}`", to.get_ref()),
+                    known(),
+                )
+            })?;
+            changes.push(Change::SwapAirfoil {
+                from: from_id,
+                to: to_id,
+            });
+        }
+        if changes.is_empty() {
+            return Err(self.err(&span, &path, "the setup changes nothing", Some("one or more of ballast, mass_x, mass, wing_incidence, stabiliser_incidence, airfoils".into())));
+        }
+        Ok(Setup { name, changes })
+    }
+
+    fn fuselage(&self, f: &raw::RawFuselage) -> Result<Fuselage, InputError> {
+        Ok(Fuselage {
+            nose_x_m: self.quantity(
+                &f.nose_x,
+                "fuselage.nose_x",
+                Dimension::Length,
+                POSITION_MM,
+            )?,
+            length_m: self.quantity(
+                &f.length,
+                "fuselage.length",
+                Dimension::Length,
+                FUSELAGE_MM,
+            )?,
+            max_width_m: self.quantity(
+                &f.width,
+                "fuselage.width",
+                Dimension::Length,
+                FUSELAGE_MM,
+            )?,
+        })
+    }
+
+    fn mass_item(&self, i: usize, m: &raw::RawMass) -> Result<MassItem, InputError> {
+        let path = format!("mass[{i}]");
+        Ok(MassItem {
+            name: m.name.get_ref().trim().to_string(),
+            mass_kg: self.quantity(&m.mass, &format!("{path}.mass"), Dimension::Mass, MASS_G)?,
+            x_m: self.quantity(&m.x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
+            z_m: self.opt_quantity(
+                m.z.as_ref(),
+                &format!("{path}.z"),
+                Dimension::Length,
+                POSITION_MM,
+            )?,
+        })
+    }
+
+    fn ballast(&self, i: usize, b: &raw::RawBallast) -> Result<BallastBay, InputError> {
+        let path = format!("ballast[{i}]");
+        Ok(BallastBay {
+            name: b.name.get_ref().trim().to_string(),
+            x_m: self.quantity(&b.x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
+            z_m: self.opt_quantity(
+                b.z.as_ref(),
+                &format!("{path}.z"),
+                Dimension::Length,
+                POSITION_MM,
+            )?,
+            max_mass_kg: self.quantity(
+                &b.max,
+                &format!("{path}.max"),
+                Dimension::Mass,
+                BALLAST_MAX_G,
+            )?,
+        })
+    }
+
+    fn limits(
+        &self,
+        raw: Option<&raw::RawLimits>,
+        stab: Option<&Stabiliser>,
+    ) -> Result<MarginLimits, InputError> {
+        let (dmin, dmax) = match stab.map(|s| s.role) {
+            Some(StabiliserRole::Tail) => (
+                DEFAULT_MIN_STATIC_MARGIN_TAIL,
+                DEFAULT_MAX_STATIC_MARGIN_TAIL,
+            ),
+            Some(StabiliserRole::Canard) => (
+                DEFAULT_MIN_STATIC_MARGIN_CANARD,
+                DEFAULT_MAX_STATIC_MARGIN_CANARD,
+            ),
+            None => (
+                DEFAULT_MIN_STATIC_MARGIN_TAILLESS,
+                DEFAULT_MAX_STATIC_MARGIN_TAILLESS,
+            ),
+        };
+        let Some(l) = raw else {
+            return Ok(MarginLimits {
+                min_static_margin: dmin,
+                max_static_margin: dmax,
+                from_defaults: true,
+            });
+        };
+        let min = self.opt_quantity(
+            l.min_static_margin.as_ref(),
+            "limits.min_static_margin",
+            Dimension::Percent,
+            MARGIN_PCT,
+        )?;
+        let max = self.opt_quantity(
+            l.max_static_margin.as_ref(),
+            "limits.max_static_margin",
+            Dimension::Percent,
+            MARGIN_PCT,
+        )?;
+        let out = MarginLimits {
+            min_static_margin: min.unwrap_or(dmin),
+            max_static_margin: max.unwrap_or(dmax),
+            from_defaults: min.is_none() && max.is_none(),
+        };
+        if out.max_static_margin <= out.min_static_margin {
+            // Both absent means the defaults, which are ordered, so one of them is given here.
+            let (field, span, accepted) = match (&l.max_static_margin, &l.min_static_margin) {
+                (Some(q), _) => (
+                    "limits.max_static_margin",
+                    q.span(),
+                    format!(
+                        "more than the minimum, {:.1} %",
+                        100.0 * out.min_static_margin
+                    ),
+                ),
+                (None, Some(q)) => (
+                    "limits.min_static_margin",
+                    q.span(),
+                    format!(
+                        "less than the maximum, {:.1} %",
+                        100.0 * out.max_static_margin
+                    ),
+                ),
+                (None, None) => ("limits", 0..0, String::new()),
+            };
+            return Err(self.err(
+                &span,
+                field,
+                "the smallest static margin must be less than the largest",
+                Some(accepted),
+            ));
+        }
+        Ok(out)
+    }
+}
+
+/// The fields common to `[wing]` and `[stabiliser]`.
+struct SurfaceFields<'a> {
+    span: Range<usize>,
+    x: Option<&'a Quantity>,
+    z: Option<&'a Quantity>,
+    incidence: Option<&'a Quantity>,
+    root_chord: Option<&'a Quantity>,
+    airfoil: Option<&'a Spanned<String>>,
+    panels: &'a [Spanned<RawPanel>],
+    ellipse: Option<&'a Spanned<RawEllipse>>,
+}
+
+fn example_for(dim: Dimension) -> &'static str {
+    match dim {
+        Dimension::Length => "48 in",
+        Dimension::Altitude => "1500 ft",
+        Dimension::Mass => "12.5 oz",
+        Dimension::Angle => "0.05 rad",
+        Dimension::Speed => "36 km/h",
+        Dimension::Percent => "10 %",
+        Dimension::TemperatureDifference => "5 K",
+        Dimension::Density => "1.1 kg/m^3",
+        Dimension::Plain => "",
+    }
+}
+
+fn fmt_num_short(v: f64) -> String {
+    let s = format!("{v:.4}");
+    let s = s.trim_end_matches('0').trim_end_matches('.');
+    s.to_string()
+}
+
+/// Exactly one shape is checked above; this keeps the match total without a panic.
+fn unreachable_shape() -> AirfoilShape {
+    AirfoilShape::Naca("0012".into())
+}

@@ -1,0 +1,210 @@
+//! First stage of reading an aircraft file: a mirror of the TOML text, with every value's
+//! position kept so that validation errors can point at it. Unknown keys are refused here.
+
+use serde::Deserialize;
+use std::collections::BTreeMap;
+use toml::Spanned;
+
+/// A value that may be a bare number (in the field's default unit) or a string with a unit.
+pub type Quantity = Spanned<toml::Value>;
+
+/// The whole file.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawAircraft {
+    pub name: Spanned<String>,
+    #[serde(default)]
+    pub notes: Option<String>,
+    #[serde(default)]
+    pub datum: Option<String>,
+    #[serde(default)]
+    pub air: Option<RawAir>,
+    #[serde(default)]
+    pub airfoils: BTreeMap<String, Spanned<RawAirfoil>>,
+    pub wing: Spanned<RawSurface>,
+    #[serde(default)]
+    pub stabiliser: Option<Spanned<RawStabiliser>>,
+    #[serde(default)]
+    pub fuselage: Option<RawFuselage>,
+    #[serde(default)]
+    pub mass: Vec<Spanned<RawMass>>,
+    #[serde(default)]
+    pub ballast: Vec<Spanned<RawBallast>>,
+    #[serde(default)]
+    pub targets: Option<RawTargets>,
+    #[serde(default)]
+    pub limits: Option<RawLimits>,
+    #[serde(default)]
+    pub setup: Vec<Spanned<RawSetup>>,
+    #[serde(default)]
+    pub weighing: Vec<Spanned<RawSupport>>,
+}
+
+/// `[[weighing]]`: one support of a weighing.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawSupport {
+    pub x: Quantity,
+    pub reading: Quantity,
+}
+
+/// `[air]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawAir {
+    pub altitude: Option<Quantity>,
+    pub temperature_offset: Option<Quantity>,
+    pub density: Option<Quantity>,
+}
+
+/// `[airfoils.NAME]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawAirfoil {
+    pub naca: Option<Spanned<toml::Value>>,
+    pub joukowski: Option<Spanned<RawJoukowski>>,
+    pub karman_trefftz: Option<Spanned<RawKarmanTrefftz>>,
+    pub coordinates: Option<Spanned<String>>,
+    pub cl_max: Option<Quantity>,
+    pub method: Option<Spanned<String>>,
+}
+
+/// `joukowski = { thickness = 12, camber = 3 }` (percent of chord)
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawJoukowski {
+    pub thickness: Quantity,
+    #[serde(default)]
+    pub camber: Option<Quantity>,
+}
+
+/// `karman_trefftz = { thickness = 12, camber = 3, trailing_edge_angle = 8 }`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawKarmanTrefftz {
+    pub thickness: Quantity,
+    #[serde(default)]
+    pub camber: Option<Quantity>,
+    pub trailing_edge_angle: Quantity,
+}
+
+/// `[wing]` and the surface part of `[stabiliser]`.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawSurface {
+    pub x: Option<Quantity>,
+    pub z: Option<Quantity>,
+    pub incidence: Option<Quantity>,
+    pub root_chord: Option<Quantity>,
+    pub airfoil: Option<Spanned<String>>,
+    #[serde(default)]
+    pub panel: Vec<Spanned<RawPanel>>,
+    pub ellipse: Option<Spanned<RawEllipse>>,
+}
+
+/// `[[wing.panel]]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawPanel {
+    pub span: Quantity,
+    pub root_chord: Option<Quantity>,
+    pub tip_chord: Option<Quantity>,
+    pub sweep: Option<Quantity>,
+    pub dihedral: Option<Quantity>,
+    pub twist: Option<Quantity>,
+    pub tip_airfoil: Option<Spanned<String>>,
+}
+
+/// `[wing.ellipse]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawEllipse {
+    pub span: Quantity,
+    pub dihedral: Option<Quantity>,
+    pub twist: Option<Quantity>,
+    pub tip_airfoil: Option<Spanned<String>>,
+}
+
+/// `[stabiliser]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawStabiliser {
+    pub role: Option<Spanned<String>>,
+    pub x: Option<Quantity>,
+    pub z: Option<Quantity>,
+    pub incidence: Option<Quantity>,
+    pub root_chord: Option<Quantity>,
+    pub airfoil: Option<Spanned<String>>,
+    #[serde(default)]
+    pub panel: Vec<Spanned<RawPanel>>,
+    pub ellipse: Option<Spanned<RawEllipse>>,
+    pub elevator_chord: Option<Quantity>,
+    pub elevator_up: Option<Quantity>,
+    pub elevator_down: Option<Quantity>,
+}
+
+/// `[fuselage]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawFuselage {
+    pub nose_x: Quantity,
+    pub length: Quantity,
+    pub width: Quantity,
+}
+
+/// `[[mass]]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawMass {
+    pub name: Spanned<String>,
+    pub mass: Quantity,
+    pub x: Quantity,
+    pub z: Option<Quantity>,
+}
+
+/// `[[ballast]]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawBallast {
+    pub name: Spanned<String>,
+    pub x: Quantity,
+    pub z: Option<Quantity>,
+    pub max: Quantity,
+}
+
+/// `[targets]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawTargets {
+    pub static_margin: Option<Quantity>,
+    pub trim_speed: Option<Quantity>,
+}
+
+/// `[limits]`
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawLimits {
+    pub min_static_margin: Option<Quantity>,
+    pub max_static_margin: Option<Quantity>,
+}
+
+/// `[[setup]]`: a named variation of the aircraft for comparisons.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawSetup {
+    pub name: Spanned<String>,
+    /// Ballast bay name -> mass added there.
+    #[serde(default)]
+    pub ballast: BTreeMap<String, Quantity>,
+    /// Mass item name -> new x.
+    #[serde(default)]
+    pub mass_x: BTreeMap<String, Quantity>,
+    /// Mass item name -> new mass.
+    #[serde(default)]
+    pub mass: BTreeMap<String, Quantity>,
+    pub wing_incidence: Option<Quantity>,
+    pub stabiliser_incidence: Option<Quantity>,
+    /// Airfoil name -> airfoil name to use instead, everywhere it appears.
+    #[serde(default)]
+    pub airfoils: BTreeMap<String, Spanned<String>>,
+}

@@ -1,0 +1,197 @@
+//! Side-by-side comparison of several configurations: a table with the differences against the
+//! first column, and a JSON form.
+
+use crate::analysis::KeyFigures;
+use crate::output::tables::num;
+use comfy_table::{presets, Cell, CellAlignment, Table};
+use serde::Serialize;
+
+/// One row of the comparison: a label, a unit and how to read a value from the figures.
+struct Row {
+    label: &'static str,
+    decimals: usize,
+    value: fn(&KeyFigures) -> Option<f64>,
+}
+
+const ROWS: &[Row] = &[
+    Row {
+        label: "mass g",
+        decimals: 0,
+        value: |k| Some(k.mass_kg * 1000.0),
+    },
+    Row {
+        label: "wing loading g/dm^2",
+        decimals: 1,
+        value: |k| Some(k.wing_loading_kg_m2 * 10.0),
+    },
+    Row {
+        label: "CG mm from datum",
+        decimals: 1,
+        value: |k| Some(k.cg_x_m * 1000.0),
+    },
+    Row {
+        label: "CG mm aft of wing root LE",
+        decimals: 1,
+        value: |k| Some(k.cg_from_wing_root_le_m * 1000.0),
+    },
+    Row {
+        label: "CG % MAC",
+        decimals: 1,
+        value: |k| Some(k.cg_percent_mac),
+    },
+    Row {
+        label: "neutral point mm from datum",
+        decimals: 1,
+        value: |k| Some(k.neutral_point_x_m * 1000.0),
+    },
+    Row {
+        label: "static margin %",
+        decimals: 1,
+        value: |k| Some(k.static_margin * 100.0),
+    },
+    Row {
+        label: "CG band forward mm",
+        decimals: 1,
+        value: |k| Some(k.band.forward_x_m * 1000.0),
+    },
+    Row {
+        label: "CG band aft mm",
+        decimals: 1,
+        value: |k| Some(k.band.aft_x_m * 1000.0),
+    },
+    Row {
+        label: "decalage deg",
+        decimals: 2,
+        value: |k| k.decalage_rad.map(f64::to_degrees),
+    },
+    Row {
+        label: "trim CL",
+        decimals: 3,
+        value: |k| k.trim_cl,
+    },
+    Row {
+        label: "trim speed m/s",
+        decimals: 2,
+        value: |k| k.trim_speed_m_s,
+    },
+    Row {
+        label: "stall speed m/s",
+        decimals: 2,
+        value: |k| Some(k.stall_speed_m_s),
+    },
+    Row {
+        label: "ballast for target margin g",
+        decimals: 1,
+        value: |k| k.ballast_kg.as_ref().map(|b| b.1 * 1000.0),
+    },
+    Row {
+        label: "warnings",
+        decimals: 0,
+        value: |k| Some(k.warnings as f64),
+    },
+    Row {
+        label: "dangers",
+        decimals: 0,
+        value: |k| Some(k.dangers as f64),
+    },
+];
+
+/// The comparison table: one column per configuration; later columns show their difference
+/// from the first in brackets.
+pub fn compare_table(columns: &[KeyFigures]) -> Table {
+    let mut t = Table::new();
+    t.load_style(presets::UTF8_FULL_CONDENSED);
+    let mut header = vec![Cell::new("")];
+    header.extend(columns.iter().map(|k| Cell::new(&k.name)));
+    t.set_header(header);
+    for row in ROWS {
+        let base = columns.first().and_then(|k| (row.value)(k));
+        let mut cells = vec![row.label.to_string()];
+        for (i, k) in columns.iter().enumerate() {
+            let cell = match ((row.value)(k), base) {
+                (None, _) => "n/a".to_string(),
+                (Some(v), _) if i == 0 => num(v, row.decimals),
+                (Some(v), Some(b)) => {
+                    let d = v - b;
+                    let shown = num(d, row.decimals);
+                    if shown
+                        .trim_start_matches('-')
+                        .chars()
+                        .all(|c| c == '0' || c == '.')
+                    {
+                        format!("{} (=)", num(v, row.decimals))
+                    } else {
+                        let sign = if d > 0.0 { "+" } else { "" };
+                        format!("{} ({sign}{shown})", num(v, row.decimals))
+                    }
+                }
+                (Some(v), None) => num(v, row.decimals),
+            };
+            cells.push(cell);
+        }
+        t.add_row(cells);
+    }
+    for i in 1..=columns.len() {
+        if let Some(c) = t.column_mut(i) {
+            c.set_cell_alignment(CellAlignment::Right);
+        }
+    }
+    t
+}
+
+/// One configuration in `compare --json`.
+#[derive(Debug, Serialize)]
+pub struct CompareColumnJson {
+    /// Configuration name.
+    pub name: String,
+    /// Source file.
+    pub source: String,
+    /// Figures by key; null where a value does not exist.
+    pub figures: serde_json::Map<String, serde_json::Value>,
+    /// Differences from the first configuration, same keys.
+    pub difference_from_first: serde_json::Map<String, serde_json::Value>,
+}
+
+fn json_key(label: &str) -> String {
+    label
+        .replace("% MAC", "percent_mac")
+        .replace('%', "percent")
+        .replace("g/dm^2", "g_dm2")
+        .replace("m/s", "m_s")
+        .replace(' ', "_")
+        .to_lowercase()
+}
+
+/// The JSON form of a comparison (builder's units, as in the table; each key names its unit).
+pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> {
+    let first = columns.first().map(|c| &c.0);
+    columns
+        .iter()
+        .map(|(k, source)| {
+            let mut figures = serde_json::Map::new();
+            let mut diff = serde_json::Map::new();
+            for row in ROWS {
+                let key = json_key(row.label);
+                let v = (row.value)(k).filter(|v| v.is_finite());
+                let b = first.and_then(|f| (row.value)(f)).filter(|v| v.is_finite());
+                figures.insert(
+                    key.clone(),
+                    v.map(serde_json::Value::from)
+                        .unwrap_or(serde_json::Value::Null),
+                );
+                diff.insert(
+                    key,
+                    v.zip(b)
+                        .map(|(v, b)| serde_json::Value::from(v - b))
+                        .unwrap_or(serde_json::Value::Null),
+                );
+            }
+            CompareColumnJson {
+                name: k.name.clone(),
+                source: source.clone(),
+                figures,
+                difference_from_first: diff,
+            }
+        })
+        .collect()
+}

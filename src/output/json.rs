@@ -1,0 +1,475 @@
+//! JSON output of `check`: one object, SI units, x aft of the file's datum, percent of MAC
+//! aft of the MAC leading edge. Every field is documented in `docs/json.md`.
+
+use crate::analysis::Analysis;
+use crate::balance::BallastOutcome;
+use crate::caution::Caution;
+use crate::model::{Aircraft, StabiliserRole};
+use crate::section::ClMaxSource;
+use serde::Serialize;
+
+/// The whole `check --json` document.
+#[derive(Debug, Serialize)]
+pub struct CheckDocument {
+    /// Tool and format version.
+    pub trimline_version: &'static str,
+    /// Aircraft identity.
+    pub aircraft: AircraftJson,
+    /// The air.
+    pub air: AirJson,
+    /// Masses.
+    pub mass: MassJson,
+    /// Balance.
+    pub balance: BalanceJson,
+    /// Wing.
+    pub wing: SurfaceJson,
+    /// Stabiliser, or null.
+    pub stabiliser: Option<StabiliserJson>,
+    /// Airfoil sections.
+    pub sections: Vec<SectionJson>,
+    /// Stability.
+    pub stability: StabilityJson,
+    /// Trim.
+    pub trim: TrimJson,
+    /// Stall.
+    pub stall: StallJson,
+    /// Cautions.
+    pub cautions: Vec<CautionJson>,
+}
+
+/// `/aircraft`
+#[derive(Debug, Serialize)]
+pub struct AircraftJson {
+    /// Name.
+    pub name: String,
+    /// Notes.
+    pub notes: String,
+    /// What x = 0 is.
+    pub datum: String,
+    /// Input file, or `<built-in demo>`.
+    pub source: String,
+}
+
+/// `/air`
+#[derive(Debug, Serialize)]
+pub struct AirJson {
+    /// kg/m^3
+    pub density_kg_m3: f64,
+    /// K
+    pub temperature_k: f64,
+    /// Pa
+    pub pressure_pa: f64,
+    /// Pa s
+    pub viscosity_pa_s: f64,
+}
+
+/// `/mass`
+#[derive(Debug, Serialize)]
+pub struct MassJson {
+    /// kg
+    pub total_kg: f64,
+    /// kg/m^2
+    pub wing_loading_kg_m2: f64,
+    /// Items.
+    pub items: Vec<MassItemJson>,
+}
+
+/// `/mass/items/N`
+#[derive(Debug, Serialize)]
+pub struct MassItemJson {
+    /// Name.
+    pub name: String,
+    /// kg
+    pub mass_kg: f64,
+    /// m
+    pub x_m: f64,
+    /// m or null
+    pub z_m: Option<f64>,
+}
+
+/// `/balance`
+#[derive(Debug, Serialize)]
+pub struct BalanceJson {
+    /// m
+    pub cg_x_m: f64,
+    /// m or null
+    pub cg_z_m: Option<f64>,
+    /// Percent of MAC aft of the MAC leading edge.
+    pub cg_percent_mac: f64,
+    /// Recommended band.
+    pub band: BandJson,
+    /// Ballast advice.
+    pub ballast: Vec<BallastJson>,
+    /// The weighing, or null.
+    pub weighed: Option<WeighedJson>,
+}
+
+/// `/balance/weighed`
+#[derive(Debug, Serialize)]
+pub struct WeighedJson {
+    /// kg on the scales
+    pub total_kg: f64,
+    /// m
+    pub cg_x_m: f64,
+    /// percent MAC
+    pub cg_percent_mac: f64,
+    /// m, weighed minus listed
+    pub cg_difference_m: f64,
+    /// kg, weighed minus listed
+    pub mass_difference_kg: f64,
+}
+
+/// `/balance/band`
+#[derive(Debug, Serialize)]
+pub struct BandJson {
+    /// m
+    pub forward_x_m: f64,
+    /// m
+    pub aft_x_m: f64,
+    /// percent MAC
+    pub forward_percent_mac: f64,
+    /// percent MAC
+    pub aft_percent_mac: f64,
+    /// percent
+    pub min_static_margin_percent: f64,
+    /// percent
+    pub max_static_margin_percent: f64,
+    /// True when common-practice defaults were used.
+    pub from_defaults: bool,
+    /// Where the CG sits: `forward`, `inside`, `aft`.
+    pub cg_position: &'static str,
+}
+
+/// `/balance/ballast/N`
+#[derive(Debug, Serialize)]
+pub struct BallastJson {
+    /// Bay name.
+    pub bay: String,
+    /// m
+    pub target_cg_x_m: f64,
+    /// `not-needed`, `reachable`, `exceeds-bay`, `wrong-side`.
+    pub status: &'static str,
+    /// kg to add, or null.
+    pub mass_kg: Option<f64>,
+    /// kg the target would need when it exceeds the bay, or null.
+    pub needed_kg: Option<f64>,
+    /// kg the bay holds.
+    pub max_kg: f64,
+}
+
+/// `/wing`
+#[derive(Debug, Serialize)]
+pub struct SurfaceJson {
+    /// m^2
+    pub area_m2: f64,
+    /// m
+    pub span_m: f64,
+    /// b^2/S
+    pub aspect_ratio: f64,
+    /// tip/root chord
+    pub taper: f64,
+    /// m
+    pub root_chord_m: f64,
+    /// m
+    pub mac_m: f64,
+    /// m
+    pub mac_le_x_m: f64,
+    /// m
+    pub mac_y_m: f64,
+    /// deg, root chord to the fuselage datum
+    pub incidence_deg: f64,
+    /// per rad
+    pub cl_alpha_per_rad: f64,
+    /// deg, relative to the root chord
+    pub alpha_zero_lift_deg: f64,
+    /// about the aerodynamic centre
+    pub cm_ac: f64,
+}
+
+/// `/stabiliser`
+#[derive(Debug, Serialize)]
+pub struct StabiliserJson {
+    /// `tail` or `canard`
+    pub role: &'static str,
+    /// Geometry and aerodynamics.
+    #[serde(flatten)]
+    pub surface: SurfaceJson,
+    /// m, wing MAC quarter chord to stabiliser MAC quarter chord
+    pub arm_m: f64,
+    /// S_h l_h / (S c)
+    pub volume_coefficient: f64,
+    /// deg, wing incidence minus stabiliser incidence
+    pub decalage_deg: f64,
+}
+
+/// `/sections/N`
+#[derive(Debug, Serialize)]
+pub struct SectionJson {
+    /// Airfoil name in the file.
+    pub name: String,
+    /// `exact`, `thin`, `panel`.
+    pub method: &'static str,
+    /// deg
+    pub alpha_zero_lift_deg: f64,
+    /// per rad
+    pub cl_alpha_per_rad: f64,
+    /// about the aerodynamic centre
+    pub cm_ac: f64,
+    /// fraction of chord
+    pub aerodynamic_center_x_c: f64,
+    /// section cl_max
+    pub cl_max: f64,
+    /// `given` or `default`
+    pub cl_max_source: &'static str,
+}
+
+/// `/stability`
+#[derive(Debug, Serialize)]
+pub struct StabilityJson {
+    /// Method of the figures below.
+    pub method: &'static str,
+    /// m
+    pub neutral_point_x_m: f64,
+    /// percent MAC
+    pub neutral_point_percent_mac: f64,
+    /// percent MAC
+    pub static_margin_percent: f64,
+    /// d eps / d alpha at the tail
+    pub downwash_gradient: f64,
+    /// per rad, aircraft lift slope on the wing area
+    pub aircraft_cl_alpha_per_rad: f64,
+    /// per rad, about the CG
+    pub cm_alpha_per_rad: f64,
+}
+
+/// `/trim`
+#[derive(Debug, Serialize)]
+pub struct TrimJson {
+    /// True when a trimmed state at positive lift exists.
+    pub found: bool,
+    /// Total CL, or null.
+    pub cl: Option<f64>,
+    /// Fuselage-datum angle of attack, deg, or null.
+    pub alpha_deg: Option<f64>,
+    /// m/s, or null.
+    pub speed_m_s: Option<f64>,
+    /// Stabiliser CL on its own area, or null.
+    pub stabiliser_cl: Option<f64>,
+    /// On the wing MAC at the trim (or stall) speed.
+    pub reynolds_mac: f64,
+}
+
+/// `/stall`
+#[derive(Debug, Serialize)]
+pub struct StallJson {
+    /// Aircraft CL_max.
+    pub cl_max: f64,
+    /// m/s
+    pub speed_m_s: f64,
+}
+
+/// `/cautions/N`
+#[derive(Debug, Serialize)]
+pub struct CautionJson {
+    /// `note`, `warning`, `danger`.
+    pub level: &'static str,
+    /// Stable code.
+    pub code: &'static str,
+    /// Text.
+    pub message: String,
+}
+
+impl From<&Caution> for CautionJson {
+    fn from(c: &Caution) -> Self {
+        CautionJson {
+            level: c.level.as_str(),
+            code: c.code,
+            message: c.message.clone(),
+        }
+    }
+}
+
+/// Round to `digits` significant decimals for stable, readable output.
+fn r(v: f64, decimals: i32) -> f64 {
+    let f = 10f64.powi(decimals);
+    let out = (v * f).round() / f;
+    if out == 0.0 {
+        0.0
+    } else {
+        out
+    }
+}
+
+fn surface_json(s: &crate::stability::classical::EquivalentSurface) -> SurfaceJson {
+    let g = &s.geometry;
+    SurfaceJson {
+        area_m2: r(g.area_m2, 6),
+        span_m: r(g.span_m, 5),
+        aspect_ratio: r(g.aspect_ratio, 4),
+        taper: r(g.taper, 4),
+        root_chord_m: r(g.root_chord_m, 5),
+        mac_m: r(g.mac_m, 5),
+        mac_le_x_m: r(g.mac_le_x_m, 5),
+        mac_y_m: r(g.mac_y_m, 5),
+        incidence_deg: r(s.incidence_rad.to_degrees(), 3),
+        cl_alpha_per_rad: r(s.lift_slope_per_rad, 4),
+        alpha_zero_lift_deg: r(s.alpha_zero_lift_rad.to_degrees(), 3),
+        cm_ac: r(s.cm_ac, 4),
+    }
+}
+
+/// Build the JSON document for an analysed aircraft.
+pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckDocument {
+    let g = &a.wing_geometry;
+    let est = &a.classical;
+    let band_pos = if a.mass.cg_x_m < a.band.forward_x_m - 5e-4 {
+        "forward"
+    } else if a.mass.cg_x_m > a.band.aft_x_m + 5e-4 {
+        "aft"
+    } else {
+        "inside"
+    };
+    CheckDocument {
+        trimline_version: env!("CARGO_PKG_VERSION"),
+        aircraft: AircraftJson {
+            name: aircraft.name.clone(),
+            notes: aircraft.notes.clone(),
+            datum: aircraft.datum.clone(),
+            source: source.to_string(),
+        },
+        air: AirJson {
+            density_kg_m3: r(a.air.density_kg_m3, 5),
+            temperature_k: r(a.air.temperature_k, 2),
+            pressure_pa: r(a.air.pressure_pa, 1),
+            viscosity_pa_s: a.air.viscosity_pa_s,
+        },
+        mass: MassJson {
+            total_kg: r(a.mass.total_kg, 5),
+            wing_loading_kg_m2: r(a.wing_loading_kg_m2, 4),
+            items: aircraft
+                .masses
+                .iter()
+                .map(|m| MassItemJson {
+                    name: m.name.clone(),
+                    mass_kg: r(m.mass_kg, 5),
+                    x_m: r(m.x_m, 5),
+                    z_m: m.z_m.map(|z| r(z, 5)),
+                })
+                .collect(),
+        },
+        balance: BalanceJson {
+            cg_x_m: r(a.mass.cg_x_m, 5),
+            cg_z_m: a.mass.cg_z_m.map(|z| r(z, 5)),
+            cg_percent_mac: r(g.percent_mac(a.mass.cg_x_m), 2),
+            band: BandJson {
+                forward_x_m: r(a.band.forward_x_m, 5),
+                aft_x_m: r(a.band.aft_x_m, 5),
+                forward_percent_mac: r(g.percent_mac(a.band.forward_x_m), 2),
+                aft_percent_mac: r(g.percent_mac(a.band.aft_x_m), 2),
+                min_static_margin_percent: r(100.0 * aircraft.margin_limits.min_static_margin, 2),
+                max_static_margin_percent: r(100.0 * aircraft.margin_limits.max_static_margin, 2),
+                from_defaults: aircraft.margin_limits.from_defaults,
+                cg_position: band_pos,
+            },
+            ballast: a
+                .ballast
+                .iter()
+                .map(|b| {
+                    let max_kg = aircraft
+                        .ballast_bays
+                        .iter()
+                        .find(|bay| bay.name == b.bay)
+                        .map(|bay| bay.max_mass_kg)
+                        .unwrap_or(0.0);
+                    let (status, mass_kg, needed_kg) = match b.outcome {
+                        BallastOutcome::NotNeeded => ("not-needed", Some(0.0), None),
+                        BallastOutcome::Reachable { mass_kg } => {
+                            ("reachable", Some(r(mass_kg, 5)), None)
+                        }
+                        BallastOutcome::ExceedsBay { needed_kg, .. } => {
+                            ("exceeds-bay", None, Some(r(needed_kg, 5)))
+                        }
+                        BallastOutcome::WrongSide => ("wrong-side", None, None),
+                    };
+                    BallastJson {
+                        bay: b.bay.clone(),
+                        target_cg_x_m: r(b.target_x_m, 5),
+                        status,
+                        mass_kg,
+                        needed_kg,
+                        max_kg: r(max_kg, 5),
+                    }
+                })
+                .collect(),
+            weighed: a.weighed.map(|w| WeighedJson {
+                total_kg: r(w.total_kg, 5),
+                cg_x_m: r(w.cg_x_m, 5),
+                cg_percent_mac: r(g.percent_mac(w.cg_x_m), 2),
+                cg_difference_m: r(w.cg_x_m - a.mass.cg_x_m, 5),
+                mass_difference_kg: r(w.total_kg - a.mass.total_kg, 5),
+            }),
+        },
+        wing: surface_json(&a.wing),
+
+        stabiliser: aircraft
+            .stabiliser
+            .as_ref()
+            .zip(a.stabiliser.as_ref())
+            .map(|(s, eq)| {
+                let tv = a.tail_volume;
+                StabiliserJson {
+                    role: match s.role {
+                        StabiliserRole::Tail => "tail",
+                        StabiliserRole::Canard => "canard",
+                    },
+                    surface: surface_json(eq),
+                    arm_m: r(tv.map(|t| t.arm_m).unwrap_or(0.0), 5),
+                    volume_coefficient: r(tv.map(|t| t.coefficient).unwrap_or(0.0), 4),
+                    decalage_deg: r(
+                        (aircraft.wing.incidence_rad - s.surface.incidence_rad).to_degrees(),
+                        3,
+                    ),
+                }
+            }),
+        sections: aircraft
+            .airfoils
+            .iter()
+            .zip(&a.sections)
+            .map(|(af, s)| SectionJson {
+                name: af.name.clone(),
+                method: s.method.as_str(),
+                alpha_zero_lift_deg: r(s.alpha_zero_lift_rad.to_degrees(), 4),
+                cl_alpha_per_rad: r(s.cl_alpha_per_rad, 4),
+                cm_ac: r(s.cm_ac, 5),
+                aerodynamic_center_x_c: r(s.x_ac_c, 4),
+                cl_max: r(s.cl_max, 3),
+                cl_max_source: match s.cl_max_source {
+                    ClMaxSource::Given => "given",
+                    ClMaxSource::Default => "default",
+                },
+            })
+            .collect(),
+        stability: StabilityJson {
+            method: "classical",
+            neutral_point_x_m: r(est.neutral_point_x_m, 5),
+            neutral_point_percent_mac: r(g.percent_mac(est.neutral_point_x_m), 2),
+            static_margin_percent: r(100.0 * est.static_margin, 2),
+            downwash_gradient: r(est.downwash_gradient, 4),
+            aircraft_cl_alpha_per_rad: r(est.aircraft_lift_slope_per_rad, 4),
+            cm_alpha_per_rad: r(est.cm_alpha_per_rad, 4),
+        },
+        trim: TrimJson {
+            found: est.trim.is_some(),
+            cl: est.trim.map(|t| r(t.cl, 4)),
+            alpha_deg: est.trim.map(|t| r(t.alpha_body_rad.to_degrees(), 3)),
+            speed_m_s: est.trim.map(|t| r(t.speed_m_s, 3)),
+            stabiliser_cl: est.trim.map(|t| r(t.stabiliser_cl, 4)),
+            reynolds_mac: r(a.reynolds_mac, 0),
+        },
+        stall: StallJson {
+            cl_max: r(est.cl_max, 4),
+            speed_m_s: r(est.stall_speed_m_s, 3),
+        },
+        cautions: a.cautions.iter().map(CautionJson::from).collect(),
+    }
+}

@@ -1,0 +1,391 @@
+//! Terminal tables for `check`, in the builder's units (mm, g, g/dm^2, deg, m/s and km/h), with
+//! the unit in every header.
+
+use crate::analysis::Analysis;
+use crate::balance::BallastOutcome;
+use crate::caution::Level;
+use crate::model::{Aircraft, StabiliserRole};
+use crate::section::ClMaxSource;
+use comfy_table::{presets, Cell, CellAlignment, Table};
+use std::fmt::Write as _;
+
+fn table(header: &[&str]) -> Table {
+    let mut t = Table::new();
+    t.load_style(presets::UTF8_FULL_CONDENSED);
+    t.set_header(header.iter().map(Cell::new));
+    t
+}
+
+fn right_align_from(t: &mut Table, first: usize) {
+    let n = t.column_count();
+    for i in first..n {
+        if let Some(c) = t.column_mut(i) {
+            c.set_cell_alignment(CellAlignment::Right);
+        }
+    }
+}
+
+/// Format a number with `d` decimals, never printing `-0`.
+pub fn num(v: f64, d: usize) -> String {
+    let s = format!("{v:.d$}");
+    if s.trim_start_matches('-')
+        .chars()
+        .all(|c| c == '0' || c == '.')
+    {
+        s.trim_start_matches('-').to_string()
+    } else {
+        s
+    }
+}
+
+/// The whole human-readable `check` report.
+pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
+    let mut out = String::new();
+    let _ = writeln!(out, "{}  ({source})", aircraft.name);
+    if !aircraft.notes.trim().is_empty() {
+        let _ = writeln!(out, "{}", aircraft.notes.trim());
+    }
+    let _ = writeln!(
+        out,
+        "x is measured aft from the datum: {}. Air density {} kg/m^3.\n",
+        aircraft.datum,
+        num(a.air.density_kg_m3, 3)
+    );
+    out.push_str("Geometry\n");
+    out.push_str(&geometry_table(aircraft, a).to_string());
+    out.push_str(&geometry_footer(aircraft, a));
+    out.push_str("\n\nAirfoil sections\n");
+    out.push_str(&sections_table(aircraft, a).to_string());
+    out.push_str("\n\nMasses\n");
+    out.push_str(&mass_table(aircraft, a).to_string());
+    let _ = write!(
+        out,
+        "\nWing loading {} g/dm^2.",
+        num(a.wing_loading_kg_m2 * 10.0, 1)
+    );
+    out.push_str("\n\nBalance and stability\n");
+    out.push_str(&balance_table(aircraft, a).to_string());
+    out.push('\n');
+    out.push_str(&cg_gauge(a, 60));
+
+    out.push_str("\nTrim and stall\n");
+    out.push_str(&trim_table(a).to_string());
+    out.push_str("\n\nCautions\n");
+    out.push_str(&cautions_table(a).to_string());
+    out.push('\n');
+    out
+}
+
+fn geometry_table(aircraft: &Aircraft, a: &Analysis) -> Table {
+    let mut t = table(&[
+        "surface",
+        "area dm^2",
+        "span mm",
+        "aspect ratio",
+        "taper",
+        "MAC mm",
+        "MAC LE x mm",
+        "incidence deg",
+        "lift slope /rad",
+    ]);
+    let mut row = |name: &str, s: &crate::stability::classical::EquivalentSurface| {
+        let g = &s.geometry;
+        t.add_row(vec![
+            name.to_string(),
+            num(g.area_m2 * 100.0, 2),
+            num(g.span_m * 1000.0, 0),
+            num(g.aspect_ratio, 2),
+            num(g.taper, 2),
+            num(g.mac_m * 1000.0, 1),
+            num(g.mac_le_x_m * 1000.0, 1),
+            num(s.incidence_rad.to_degrees(), 2),
+            num(s.lift_slope_per_rad, 3),
+        ]);
+    };
+    row("wing", &a.wing);
+    if let (Some(st), Some(eq)) = (&aircraft.stabiliser, &a.stabiliser) {
+        let name = match st.role {
+            StabiliserRole::Tail => "tail",
+            StabiliserRole::Canard => "canard",
+        };
+        row(name, eq);
+    }
+    right_align_from(&mut t, 1);
+    t
+}
+
+fn geometry_footer(aircraft: &Aircraft, a: &Analysis) -> String {
+    match (&a.tail_volume, &aircraft.stabiliser) {
+        (Some(tv), Some(st)) => format!(
+            "\nStabiliser arm {} mm (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
+            num(tv.arm_m * 1000.0, 0),
+            num(tv.coefficient, 3),
+            num((aircraft.wing.incidence_rad - st.surface.incidence_rad).to_degrees(), 2)
+        ),
+        _ => "\nNo stabiliser: tailless.".to_string(),
+    }
+}
+
+fn sections_table(aircraft: &Aircraft, a: &Analysis) -> Table {
+    let mut t = table(&[
+        "airfoil",
+        "method",
+        "zero-lift deg",
+        "lift slope /rad",
+        "cm ac",
+        "ac x/c",
+        "cl max",
+    ]);
+    for (af, s) in aircraft.airfoils.iter().zip(&a.sections) {
+        let clmax = match s.cl_max_source {
+            ClMaxSource::Given => num(s.cl_max, 2),
+            ClMaxSource::Default => format!("{} (default)", num(s.cl_max, 2)),
+        };
+        t.add_row(vec![
+            af.name.clone(),
+            s.method.as_str().to_string(),
+            num(s.alpha_zero_lift_rad.to_degrees(), 2),
+            num(s.cl_alpha_per_rad, 3),
+            num(s.cm_ac, 4),
+            num(s.x_ac_c, 3),
+            clmax,
+        ]);
+    }
+    right_align_from(&mut t, 2);
+    t
+}
+
+fn mass_table(aircraft: &Aircraft, a: &Analysis) -> Table {
+    let mut t = table(&["item", "mass g", "x mm", "z mm", "moment g*m"]);
+    for m in &aircraft.masses {
+        t.add_row(vec![
+            m.name.clone(),
+            num(m.mass_kg * 1000.0, 1),
+            num(m.x_m * 1000.0, 1),
+            m.z_m
+                .map(|z| num(z * 1000.0, 1))
+                .unwrap_or_else(|| "-".into()),
+            num(m.mass_kg * 1000.0 * m.x_m, 2),
+        ]);
+    }
+    t.add_row(vec![
+        "total / CG".to_string(),
+        num(a.mass.total_kg * 1000.0, 1),
+        num(a.mass.cg_x_m * 1000.0, 1),
+        a.mass
+            .cg_z_m
+            .map(|z| num(z * 1000.0, 1))
+            .unwrap_or_else(|| "-".into()),
+        num(a.mass.total_kg * 1000.0 * a.mass.cg_x_m, 2),
+    ]);
+    right_align_from(&mut t, 1);
+    t
+}
+
+fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
+    let g = &a.wing_geometry;
+    let est = &a.classical;
+    let mut t = table(&["quantity", "mm from datum", "% MAC", "note"]);
+    let pct = |x: f64| num(g.percent_mac(x), 1);
+    t.add_row(vec![
+        "CG".to_string(),
+        num(a.mass.cg_x_m * 1000.0, 1),
+        pct(a.mass.cg_x_m),
+        "from the mass list".to_string(),
+    ]);
+    if let Some(w) = &a.weighed {
+        t.add_row(vec![
+            "CG by weighing".to_string(),
+            num(w.cg_x_m * 1000.0, 1),
+            pct(w.cg_x_m),
+            format!(
+                "{} g on the scales; static margin {} %",
+                num(w.total_kg * 1000.0, 0),
+                num(100.0 * (est.neutral_point_x_m - w.cg_x_m) / g.mac_m, 1)
+            ),
+        ]);
+    }
+    t.add_row(vec![
+        "neutral point".to_string(),
+        num(est.neutral_point_x_m * 1000.0, 1),
+        pct(est.neutral_point_x_m),
+        "closed-form estimate".to_string(),
+    ]);
+    t.add_row(vec![
+        "recommended CG, forward".to_string(),
+        num(a.band.forward_x_m * 1000.0, 1),
+        pct(a.band.forward_x_m),
+        format!(
+            "static margin {} %",
+            num(100.0 * aircraft.margin_limits.max_static_margin, 0)
+        ),
+    ]);
+    t.add_row(vec![
+        "recommended CG, aft".to_string(),
+        num(a.band.aft_x_m * 1000.0, 1),
+        pct(a.band.aft_x_m),
+        format!(
+            "static margin {} %",
+            num(100.0 * aircraft.margin_limits.min_static_margin, 0)
+        ),
+    ]);
+    t.add_row(vec![
+        "MAC leading edge".to_string(),
+        num(g.mac_le_x_m * 1000.0, 1),
+        "0.0".to_string(),
+        format!("MAC {} mm", num(g.mac_m * 1000.0, 1)),
+    ]);
+    t.add_row(vec![
+        "static margin".to_string(),
+        String::new(),
+        num(100.0 * est.static_margin, 1),
+        "neutral point minus CG".to_string(),
+    ]);
+    for b in &a.ballast {
+        let text = match b.outcome {
+            BallastOutcome::NotNeeded => "none needed".to_string(),
+            BallastOutcome::Reachable { mass_kg } => format!("add {} g", num(mass_kg * 1000.0, 1)),
+            BallastOutcome::ExceedsBay { needed_kg, max_kg } => format!(
+                "needs {} g, bay holds {} g: cannot reach the target",
+                num(needed_kg * 1000.0, 1),
+                num(max_kg * 1000.0, 1)
+            ),
+            BallastOutcome::WrongSide => {
+                "target is on the other side of the CG: ballast here moves it the wrong way"
+                    .to_string()
+            }
+        };
+        t.add_row(vec![
+            format!("ballast in {}", b.bay),
+            num(b.target_x_m * 1000.0, 1),
+            pct(b.target_x_m),
+            text,
+        ]);
+    }
+    right_align_from(&mut t, 1);
+    t
+}
+
+fn trim_table(a: &Analysis) -> Table {
+    let est = &a.classical;
+    let mut t = table(&["quantity", "value", "unit"]);
+    match est.trim {
+        Some(tr) => {
+            t.add_row(vec!["trim CL".into(), num(tr.cl, 3), String::new()]);
+            t.add_row(vec![
+                "trim angle of attack (fuselage datum)".into(),
+                num(tr.alpha_body_rad.to_degrees(), 2),
+                "deg".into(),
+            ]);
+            t.add_row(vec![
+                "trim speed".into(),
+                format!(
+                    "{} ({} km/h)",
+                    num(tr.speed_m_s, 1),
+                    num(tr.speed_m_s * 3.6, 0)
+                ),
+                "m/s".into(),
+            ]);
+            t.add_row(vec![
+                "stabiliser CL at trim".into(),
+                num(tr.stabiliser_cl, 3),
+                String::new(),
+            ]);
+        }
+        None => {
+            t.add_row(vec!["trim".into(), "not found".into(), String::new()]);
+        }
+    }
+    t.add_row(vec![
+        "aircraft CL max".into(),
+        num(est.cl_max, 3),
+        String::new(),
+    ]);
+    t.add_row(vec![
+        "stall speed".into(),
+        format!(
+            "{} ({} km/h)",
+            num(est.stall_speed_m_s, 1),
+            num(est.stall_speed_m_s * 3.6, 0)
+        ),
+        "m/s".into(),
+    ]);
+    t.add_row(vec![
+        "Reynolds number on MAC".into(),
+        num(a.reynolds_mac, 0),
+        String::new(),
+    ]);
+    right_align_from(&mut t, 1);
+    t
+}
+
+fn cautions_table(a: &Analysis) -> Table {
+    let mut t = table(&["level", "code", "message"]);
+    let mut sorted: Vec<_> = a.cautions.iter().collect();
+    sorted.sort_by_key(|c| std::cmp::Reverse(c.level));
+    for c in sorted {
+        let level = match c.level {
+            Level::Danger => "DANGER",
+            Level::Warning => "warning",
+            Level::Note => "note",
+        };
+        t.add_row(vec![
+            level.to_string(),
+            c.code.to_string(),
+            wrap(&c.message, 72),
+        ]);
+    }
+    t
+}
+
+/// Wrap text at word boundaries to lines of at most `width` characters.
+pub fn wrap(text: &str, width: usize) -> String {
+    let mut out = String::new();
+    let mut line_len = 0;
+    for word in text.split_whitespace() {
+        let w = word.chars().count();
+        if line_len > 0 && line_len + 1 + w > width {
+            out.push('\n');
+            line_len = 0;
+        } else if line_len > 0 {
+            out.push(' ');
+            line_len += 1;
+        }
+        out.push_str(word);
+        line_len += w;
+    }
+    out
+}
+
+/// A one-line picture of the CG against the recommended band and the neutral point, nose to
+/// the left, followed by a legend line:
+/// `  61 mm [=====G=====]   N  99 mm`.
+pub fn cg_gauge(a: &Analysis, width: usize) -> String {
+    let cg = a.mass.cg_x_m;
+    let np = a.classical.neutral_point_x_m;
+    let (fwd, aft) = (a.band.forward_x_m, a.band.aft_x_m);
+    let lo_raw = fwd.min(cg).min(np);
+    let hi_raw = aft.max(cg).max(np);
+    let pad = 0.1 * (hi_raw - lo_raw).max(1e-3);
+    let (lo, hi) = (lo_raw - pad, hi_raw + pad);
+    let width = width.max(20);
+    let col = |x: f64| -> usize {
+        let f = ((x - lo) / (hi - lo)).clamp(0.0, 1.0);
+        ((f * (width - 1) as f64).round() as usize).min(width - 1)
+    };
+    let mut line: Vec<char> = vec!['.'; width];
+    let (cf, ca) = (col(fwd), col(aft));
+    for c in line.iter_mut().take(ca + 1).skip(cf) {
+        *c = '=';
+    }
+    line[cf] = '[';
+    line[ca] = ']';
+    line[col(np)] = 'N';
+    line[col(cg)] = 'G';
+    let gauge: String = line.into_iter().collect();
+    format!(
+        "{} mm {gauge} {} mm\nnose left; [ ] recommended CG band, G centre of gravity, N neutral point\n",
+        num(lo * 1000.0, 0),
+        num(hi * 1000.0, 0)
+    )
+}

@@ -1,0 +1,112 @@
+//! The `check` command end to end: exit codes, JSON paths, errors on stderr.
+
+use std::process::Command;
+
+fn trimline(args: &[&str]) -> std::process::Output {
+    Command::new(env!("CARGO_BIN_EXE_trimline"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .expect("the binary runs")
+}
+
+const REQUIRED: &[&str] = &[
+    "/aircraft/name",
+    "/mass/total_kg",
+    "/balance/cg_x_m",
+    "/balance/cg_percent_mac",
+    "/wing/area_m2",
+    "/wing/span_m",
+    "/wing/aspect_ratio",
+    "/wing/mac_m",
+    "/wing/mac_le_x_m",
+    "/wing/cl_alpha_per_rad",
+    "/stability/neutral_point_x_m",
+    "/stability/neutral_point_percent_mac",
+    "/stability/static_margin_percent",
+    "/trim/cl",
+    "/trim/alpha_deg",
+    "/trim/speed_m_s",
+    "/stall/cl_max",
+    "/stall/speed_m_s",
+    "/cautions",
+];
+
+#[test]
+fn demo_json_has_every_documented_path() {
+    let out = trimline(&["check", "--json"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("valid JSON");
+    for path in REQUIRED {
+        let field = v.pointer(path).unwrap_or_else(|| panic!("missing {path}"));
+        assert!(!field.is_null(), "{path} is null in the demo");
+    }
+    let cautions = v["cautions"].as_array().unwrap();
+    assert!(cautions.iter().any(|c| c["code"] == "safety-estimate-only"));
+    for c in cautions {
+        for key in ["level", "code", "message"] {
+            assert!(c[key].is_string(), "caution lacks {key}: {c}");
+        }
+    }
+}
+
+#[test]
+fn every_example_aircraft_checks_cleanly() {
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("aircraft");
+    let mut n = 0;
+    for entry in std::fs::read_dir(dir).unwrap() {
+        let path = entry.unwrap().path();
+        if path.extension().and_then(|e| e.to_str()) != Some("toml") {
+            continue;
+        }
+        n += 1;
+        let p = path.to_str().unwrap();
+        let out = trimline(&["check", p]);
+        assert!(
+            out.status.success(),
+            "{p}: {}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        let text = String::from_utf8_lossy(&out.stdout);
+        assert!(
+            !text.contains("NaN") && !text.contains("inf"),
+            "{p}: non-finite output"
+        );
+        let out = trimline(&["check", "--json", p]);
+        assert!(out.status.success());
+        let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+        assert!(v.pointer("/wing/mac_m").unwrap().as_f64().unwrap() > 0.0);
+    }
+    assert!(
+        n >= 3,
+        "expected at least three example aircraft, found {n}"
+    );
+}
+
+#[test]
+fn bad_file_exits_1_with_location_on_stderr() {
+    let dir = std::env::temp_dir().join(format!("trimline-cli-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let bad = dir.join("bad.toml");
+    std::fs::write(&bad, "name = \"x\"\n[wing]\nroot_chord = 200\nspna = 3\n").unwrap();
+    let out = trimline(&["check", bad.to_str().unwrap()]);
+    assert_eq!(out.status.code(), Some(1));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("bad.toml:4:1"), "{err}");
+    assert!(err.contains("spna"), "{err}");
+    assert!(out.stdout.is_empty());
+    let missing = trimline(&["check", dir.join("nope.toml").to_str().unwrap()]);
+    assert_eq!(missing.status.code(), Some(1));
+}
+
+#[test]
+fn usage_error_exits_2() {
+    let out = trimline(&["check", "--no-such-option"]);
+    assert_eq!(out.status.code(), Some(2));
+    let out = trimline(&["fly"]);
+    assert_eq!(out.status.code(), Some(2));
+}

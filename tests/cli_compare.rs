@@ -1,0 +1,126 @@
+//! `compare` end to end, and setups applied as documented.
+
+use approx::assert_relative_eq;
+use std::process::Command;
+use trimline::balance::mass_summary;
+use trimline::input::parse_aircraft;
+
+fn trimline(args: &[&str]) -> std::process::Output {
+    Command::new(env!("CARGO_BIN_EXE_trimline"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .expect("the binary runs")
+}
+
+const BASE: &str = r#"
+name = "Setup test"
+[airfoils.a]
+naca = "0012"
+cl_max = 1.0
+[wing]
+root_chord = 200
+airfoil = "a"
+[[wing.panel]]
+span = 600
+tip_chord = 200
+[[mass]]
+name = "airframe"
+mass = 400
+x = 60
+[[mass]]
+name = "battery"
+mass = 100
+x = -50
+[[ballast]]
+name = "nose"
+x = -100
+max = 50
+[[setup]]
+name = "lead"
+ballast = { nose = 20 }
+[[setup]]
+name = "battery back"
+mass_x = { battery = 0 }
+"#;
+
+// Setups change the mass list exactly as stated: statics by hand.
+// Base: (400*60 - 100*50)/500 = 38 mm. "lead": + 20 g at -100 -> (19000 - 2000)/520 = 32.6923 mm.
+// "battery back": (24000 + 0)/500 = 48 mm.
+#[test]
+fn setups_apply_their_changes() {
+    let a = parse_aircraft(BASE, "setups.toml", None).unwrap();
+    assert_eq!(a.setups.len(), 2);
+    let cg = |x: &trimline::model::Aircraft| mass_summary(&x.masses).unwrap().cg_x_m;
+    assert_relative_eq!(cg(&a), 0.038, epsilon = 1e-12);
+    assert_relative_eq!(cg(&a.setups[0].apply(&a)), 0.017 / 0.52, epsilon = 1e-12);
+    assert_relative_eq!(cg(&a.setups[1].apply(&a)), 0.048, epsilon = 1e-12);
+}
+
+#[test]
+fn setup_naming_a_missing_item_is_an_error() {
+    let bad = BASE.replace("mass_x = { battery = 0 }", "mass_x = { batery = 0 }");
+    let e = parse_aircraft(&bad, "setups.toml", None)
+        .unwrap_err()
+        .to_string();
+    assert!(e.contains("no mass item named `batery`"), "{e}");
+    assert!(e.contains("battery"), "{e}");
+    let too_much = BASE.replace("nose = 20", "nose = 80");
+    let e = parse_aircraft(&too_much, "setups.toml", None)
+        .unwrap_err()
+        .to_string();
+    assert!(e.contains("setup[0].ballast.nose"), "{e}");
+}
+
+#[test]
+fn compare_demo_shows_setups_and_differences() {
+    let out = trimline(&["compare", "--json"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let cols = v.as_array().unwrap();
+    assert!(cols.len() >= 2);
+    // The first column's differences from itself are zero.
+    assert_eq!(
+        cols[0]["difference_from_first"]["mass_g"].as_f64(),
+        Some(0.0)
+    );
+    // A difference is the column's value minus the first column's value.
+    let m0 = cols[0]["figures"]["cg_mm_from_datum"].as_f64().unwrap();
+    let m1 = cols[1]["figures"]["cg_mm_from_datum"].as_f64().unwrap();
+    let d1 = cols[1]["difference_from_first"]["cg_mm_from_datum"]
+        .as_f64()
+        .unwrap();
+    assert_relative_eq!(d1, m1 - m0, epsilon = 1e-9);
+}
+
+#[test]
+fn compare_two_files_as_table() {
+    let out = trimline(&[
+        "compare",
+        "--base-only",
+        "aircraft/larkspire-2000.toml",
+        "aircraft/wrenfield-1400.toml",
+    ]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(
+        text.contains("Larkspire 2000") && text.contains("Wrenfield 1400"),
+        "{text}"
+    );
+    assert!(text.contains("static margin %"));
+}
+
+#[test]
+fn compare_with_nothing_to_compare_fails_cleanly() {
+    let out = trimline(&["compare", "--base-only", "aircraft/wrenfield-1400.toml"]);
+    assert_eq!(out.status.code(), Some(1));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("nothing to compare"));
+}

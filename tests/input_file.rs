@@ -1,0 +1,143 @@
+//! Reading aircraft files: units, defaults, and every kind of bad input giving a located error.
+
+use approx::assert_relative_eq;
+use trimline::input::parse_aircraft;
+use trimline::model::SurfaceShape;
+
+const GOOD: &str = r#"
+name = "Test glider"
+[airfoils.a]
+naca = "2412"
+[wing]
+root_chord = 200
+airfoil = "a"
+incidence = "0.05 rad"
+[[wing.panel]]
+span = "24 in"
+tip_chord = 150
+dihedral = 5
+twist = -2
+[[mass]]
+name = "all"
+mass = "12.5 oz"
+x = 60
+"#;
+
+// Unit conversions are exact by definition (1 in = 25.4 mm; 1 oz = 28.349523125 g).
+#[test]
+fn units_and_defaults_in_a_file() {
+    let a = parse_aircraft(GOOD, "good.toml", None).unwrap();
+    let SurfaceShape::Panels(p) = &a.wing.shape else {
+        panic!("panels expected")
+    };
+    assert_relative_eq!(p[0].span_m, 0.6096, epsilon = 1e-12);
+    assert_relative_eq!(p[0].root_chord_m, 0.2, epsilon = 1e-12);
+    assert_relative_eq!(p[0].tip_twist_rad, (-2f64).to_radians(), epsilon = 1e-12);
+    assert_relative_eq!(a.wing.incidence_rad, 0.05, epsilon = 1e-12);
+    assert_relative_eq!(a.masses[0].mass_kg, 0.354_369_039_062_5, epsilon = 1e-12);
+    assert!(a.stabiliser.is_none());
+}
+
+fn error_of(text: &str) -> String {
+    match parse_aircraft(text, "bad.toml", None) {
+        Ok(_) => panic!("expected an error for:\n{text}"),
+        Err(e) => e.to_string(),
+    }
+}
+
+#[test]
+fn unknown_key_is_named_with_its_position() {
+    let text = GOOD.replace("tip_chord = 150", "tip_chrod = 150");
+    let e = error_of(&text);
+    assert!(e.starts_with("bad.toml:11:1:"), "{e}");
+    assert!(e.contains("tip_chrod"), "{e}");
+    assert!(e.contains("tip_chord"), "expected keys listed: {e}");
+}
+
+#[test]
+fn out_of_range_value_names_field_and_range() {
+    let text = GOOD.replace("dihedral = 5", "dihedral = 75");
+    let e = error_of(&text);
+    assert!(e.starts_with("bad.toml:12:12"), "{e}");
+    assert!(e.contains("wing.panel[0].dihedral"), "{e}");
+    assert!(e.contains("-45 deg to 45 deg"), "{e}");
+}
+
+#[test]
+fn wrong_unit_is_refused() {
+    let e = error_of(&GOOD.replace("span = \"24 in\"", "span = \"24 kg\""));
+    assert!(e.contains("wing.panel[0].span"), "{e}");
+    assert!(e.contains("mm, cm, m, in, ft"), "{e}");
+}
+
+#[test]
+fn negative_chord_is_refused() {
+    let e = error_of(&GOOD.replace("root_chord = 200", "root_chord = -200"));
+    assert!(e.contains("wing.root_chord"), "{e}");
+    assert!(e.contains("out of range"), "{e}");
+}
+
+#[test]
+fn text_where_number_expected() {
+    let e = error_of(&GOOD.replace("x = 60", "x = true"));
+    assert!(e.contains("mass[0].x"), "{e}");
+    assert!(e.contains("expected a number"), "{e}");
+}
+
+#[test]
+fn unknown_airfoil_lists_the_known_ones() {
+    let e = error_of(&GOOD.replace("airfoil = \"a\"", "airfoil = \"b\""));
+    assert!(e.contains("no airfoil named `b`"), "{e}");
+    assert!(e.contains("one of: a"), "{e}");
+}
+
+#[test]
+fn bad_naca_designation() {
+    let e = error_of(&GOOD.replace("naca = \"2412\"", "naca = \"24x2\""));
+    assert!(e.contains("airfoils.a.naca"), "{e}");
+}
+
+#[test]
+fn missing_masses_is_an_error() {
+    let text = GOOD.split("[[mass]]").next().unwrap();
+    let e = error_of(text);
+    assert!(e.contains("mass"), "{e}");
+}
+
+#[test]
+fn missing_required_key_is_reported() {
+    let e = error_of(&GOOD.replace("span = \"24 in\"\n", ""));
+    assert!(e.contains("span"), "{e}");
+    assert!(e.starts_with("bad.toml:"), "{e}");
+}
+
+#[test]
+fn syntax_error_is_located() {
+    let e = error_of(&GOOD.replace("[wing]", "[wing"));
+    assert!(e.starts_with("bad.toml:5:"), "{e}");
+    assert!(e.contains("syntax"), "{e}");
+}
+
+#[test]
+fn both_panels_and_ellipse_refused() {
+    let text = GOOD.replace(
+        "[[wing.panel]]",
+        "[wing.ellipse]\nspan = 600\n[[wing.panel]]",
+    );
+    let e = error_of(&text);
+    assert!(e.contains("wing.ellipse"), "{e}");
+}
+
+#[test]
+fn nan_and_infinity_refused() {
+    let e = error_of(&GOOD.replace("x = 60", "x = nan"));
+    assert!(e.contains("finite"), "{e}");
+    let e = error_of(&GOOD.replace("x = 60", "x = \"inf mm\""));
+    assert!(e.contains("mass[0].x"), "{e}");
+}
+
+#[test]
+fn empty_file_is_an_error_not_a_panic() {
+    let e = error_of("");
+    assert!(e.contains("name") || e.contains("missing"), "{e}");
+}
