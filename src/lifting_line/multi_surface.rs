@@ -4,9 +4,9 @@
 //! Each surface is cut spanwise, over both halves, into segments along its quarter-chord line.
 //! Every segment carries a horseshoe vortex: a bound vortex on the segment and two trailing
 //! legs that leave its ends parallel to the free stream and run to infinity. Stations are
-//! clustered toward the tips and panel joins by cosine spacing (and toward the root where the
-//! quarter-chord line is kinked by sweep or dihedral); each control point sits on its bound
-//! segment at the cosine-parameter midpoint. Sweep, dihedral, twist, panel joins and the
+//! clustered toward the tips and panel joins by cosine spacing (and, on request, toward a root
+//! where the quarter-chord line is kinked by sweep or dihedral); each control point sits on its
+//! bound segment at the cosine-parameter midpoint. Sweep, dihedral, twist, panel joins and the
 //! longitudinal and vertical offset of each surface are all part of the geometry, so the
 //! wing's trailing vorticity induces the downwash at the tail and the tail's bound vortex the
 //! upwash at the wing.
@@ -54,11 +54,10 @@
 //! The kernels use a Gaussian core (see [`super::vortex`]). Between stations of the same
 //! surface its radius is 1 % of the segment width (a Gaussian core leaves neighbours half a
 //! width away untouched): it only removes the 0/0 of a bound vortex at its own control point.
-//! Seen from another surface, a wake of discrete lines
-//! stands for a continuous sheet, and a control point of the tail can fall on or next to one
-//! line; there the radius is a fraction ([`LiftingLineOptions::wake_core_fraction`], default
-//! 0.25) of the source segment's width (for a trailing leg, shared by two neighbouring
-//! horseshoes, the mean of their widths). Any smoothing shifts the downwash inside the sheet by
+//! Seen from another surface, a wake of discrete lines stands for a continuous sheet, and a
+//! control point of the tail can fall on or next to one line; there the radius is a fraction
+//! ([`LiftingLineOptions::wake_core_fraction`], default 0.25) of the source segment's width
+//! (for a trailing leg, shared by two neighbouring horseshoes, the mean of their widths). Any smoothing shifts the downwash inside the sheet by
 //! an amount of first order in the core radius (it samples the field slightly off the sheet);
 //! with the default, a tail lying in the far wake of an elliptic wing sees 2 C_L/(pi A) within
 //! about 3 % (tests/lifting_line_downwash.rs), and the error falls as stations are added.
@@ -66,7 +65,7 @@
 //!
 //! # References
 //! - W. F. Phillips and D. O. Snyder, "Modern adaptation of Prandtl's classic lifting-line
-//!   theory", *Journal of Aircraft* 37(4), 662-670, 2000 (horseshoe system, control points,
+//!   theory", *Journal of Aircraft* 37(4), 2000 (horseshoe system, control points,
 //!   nonlinear section relation and Newton's method, cosine clustering).
 //! - L. Prandtl, "Tragflügeltheorie", 1918 (small-angle lifting-line kinematics).
 //! - H. Glauert, *The Elements of Aerofoil and Airscrew Theory*, 1926, ch. X (flap: the
