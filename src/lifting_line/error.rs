@@ -71,6 +71,14 @@ pub enum LiftingLineError {
         /// Number of surfaces in the system.
         expected: usize,
     },
+    /// No station reaches its cl_max in the searched range of angle of attack.
+    #[error("no station reaches cl_max between alpha = {alpha_low_rad} and {alpha_high_rad} rad")]
+    StallNotFound {
+        /// Lower end of the search, rad.
+        alpha_low_rad: f64,
+        /// Upper end of the search, rad.
+        alpha_high_rad: f64,
+    },
     /// No angle of attack makes the pitching moment zero.
     #[error("no angle of attack between -90 and 90 deg gives zero pitching moment about x = {x_ref_m} m")]
     NoTrim {

@@ -20,7 +20,7 @@ pub mod vortex;
 pub use classical::{ClassicalSolution, ClassicalStation, ClassicalWing};
 pub use error::LiftingLineError;
 pub use multi_surface::{
-    ElevatorEffect, FlightCondition, LiftingLineOptions, MultiSurfaceSystem, Reference,
-    SolveStatus, Station, SurfaceInput,
+    ElevatorEffect, FlightCondition, LiftingLineOptions, LinearCoefficients, MultiSurfaceSystem,
+    Reference, SolveStatus, Station, SurfaceInput, TrimControl, TrimPoint, TrimmedStall,
 };
 pub use results::{LiftingLineResult, StallStation, StationResult, SurfaceResult};

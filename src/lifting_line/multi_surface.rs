@@ -302,6 +302,41 @@ pub enum TrimControl {
     Incidence(usize),
 }
 
+/// The trimmed state at which the first station reaches its cl_max.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct TrimmedStall {
+    /// Angle of attack, rad.
+    pub alpha_rad: f64,
+    /// Total lift coefficient there (the critical-section C_L max).
+    pub cl: f64,
+    /// Trim control setting there, rad.
+    pub control_rad: f64,
+    /// Index of the first station to stall in [`MultiSurfaceSystem::stations`].
+    pub station: usize,
+    /// Its surface.
+    pub surface: usize,
+    /// Its spanwise position, percent of that surface's semispan.
+    pub percent_semispan: f64,
+}
+
+fn control_value(cond: &FlightCondition, control: TrimControl) -> f64 {
+    match control {
+        TrimControl::Elevator => cond.elevator_rad,
+        TrimControl::Incidence(s) => cond.incidence_change_rad.get(s).copied().unwrap_or(0.0),
+    }
+}
+
+fn set_control(cond: &mut FlightCondition, control: TrimControl, value: f64) {
+    match control {
+        TrimControl::Elevator => cond.elevator_rad = value,
+        TrimControl::Incidence(s) => {
+            if let Some(v) = cond.incidence_change_rad.get_mut(s) {
+                *v = value;
+            }
+        }
+    }
+}
+
 /// A trimmed state of the linear model.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct TrimPoint {
@@ -737,26 +772,11 @@ impl MultiSurfaceSystem {
         x_ref_m: f64,
         z_ref_m: f64,
     ) -> Result<TrimPoint, LiftingLineError> {
-        let unit = match control {
-            TrimControl::Elevator => UNIT_ELEVATOR,
-            TrimControl::Incidence(s) if s < self.surfaces.len() => UNIT_FIRST_INCIDENCE + s,
-            TrimControl::Incidence(s) => {
-                return Err(LiftingLineError::SurfaceCount {
-                    what: "trim surface index",
-                    got: s,
-                    expected: self.surfaces.len(),
-                })
-            }
-        };
+        let unit = self.control_unit(control)?;
         let mut cond = base.clone();
-        let set = |cond: &mut FlightCondition, v: f64| match control {
-            TrimControl::Elevator => cond.elevator_rad = v,
-            TrimControl::Incidence(s) => cond.incidence_change_rad[s] = v,
-        };
-        let get = |cond: &FlightCondition| match control {
-            TrimControl::Elevator => cond.elevator_rad,
-            TrimControl::Incidence(s) => cond.incidence_change_rad[s],
-        };
+        self.weights(&cond)?;
+        let set = |cond: &mut FlightCondition, v: f64| set_control(cond, control, v);
+        let get = |cond: &FlightCondition| control_value(cond, control);
         let c = self.reference.mac_m;
         for _ in 0..30 {
             let k = self.linear_coefficients(&cond, x_ref_m, z_ref_m)?;
@@ -843,6 +863,101 @@ impl MultiSurfaceSystem {
             }
         }
         Ok(best)
+    }
+
+    /// The trimmed state at which the first station of any surface reaches its cl_max (the
+    /// critical-section estimate of the aircraft's maximum lift: conservative, since the other
+    /// stations could still gain lift). At each angle of attack `control` is set so that C_m
+    /// about (x_ref_m, z_ref_m) is zero; the other controls are taken from `base`. Linear model:
+    /// the flat-top sections are exact up to that point. The search scans alpha from -0.2 to
+    /// 0.8 rad in 0.01 rad steps and refines the first crossing by bisection.
+    pub fn trimmed_stall(
+        &self,
+        base: &FlightCondition,
+        control: TrimControl,
+        x_ref_m: f64,
+        z_ref_m: f64,
+    ) -> Result<TrimmedStall, LiftingLineError> {
+        const ALPHA_LOW_RAD: f64 = -0.2;
+        const ALPHA_HIGH_RAD: f64 = 0.8;
+        const STEP_RAD: f64 = 0.01;
+        let unit = self.control_unit(control)?;
+        let c = self.reference.mac_m;
+        // The trimmed condition at alpha and its largest cl / cl_max.
+        let state = |alpha: f64| -> Result<(FlightCondition, f64, usize), LiftingLineError> {
+            let mut cond = base.clone();
+            cond.alpha_rad = alpha;
+            let cm = self.linear_coefficients(&cond, x_ref_m, z_ref_m)?.cm;
+            let cm_u: f64 = (0..self.surfaces.len())
+                .map(|s| self.unit_sums[s][unit].cm(alpha, x_ref_m, z_ref_m, c))
+                .sum();
+            if cm_u.abs() <= 1e-14 {
+                return Err(LiftingLineError::NoTrim { x_ref_m });
+            }
+            let v = control_value(&cond, control) - cm / cm_u;
+            set_control(&mut cond, control, v);
+            let q = self.weights(&cond)?;
+            let (g, _) = self.linear_circulation(&q);
+            let (mut best, mut at) = (f64::NEG_INFINITY, 0);
+            for (i, st) in self.stations.iter().enumerate() {
+                let ratio = 2.0 * g[i] / (st.chord_m * st.section.cl_max);
+                if ratio > best {
+                    best = ratio;
+                    at = i;
+                }
+            }
+            Ok((cond, best - 1.0, at))
+        };
+        let not_found = LiftingLineError::StallNotFound {
+            alpha_low_rad: ALPHA_LOW_RAD,
+            alpha_high_rad: ALPHA_HIGH_RAD,
+        };
+        let (mut lo, mut hi) = (ALPHA_LOW_RAD, f64::NAN);
+        if state(lo)?.1 >= 0.0 {
+            return Err(not_found);
+        }
+        let steps = ((ALPHA_HIGH_RAD - ALPHA_LOW_RAD) / STEP_RAD).round() as usize;
+        for k in 1..=steps {
+            let a = ALPHA_LOW_RAD + k as f64 * STEP_RAD;
+            if state(a)?.1 >= 0.0 {
+                hi = a;
+                break;
+            }
+            lo = a;
+        }
+        if !hi.is_finite() {
+            return Err(not_found);
+        }
+        for _ in 0..60 {
+            let mid = 0.5 * (lo + hi);
+            if state(mid)?.1 >= 0.0 {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        let (cond, _, station) = state(hi)?;
+        let cl = self.linear_coefficients(&cond, x_ref_m, z_ref_m)?.cl;
+        Ok(TrimmedStall {
+            alpha_rad: cond.alpha_rad,
+            cl,
+            control_rad: control_value(&cond, control),
+            station,
+            surface: self.stations[station].surface,
+            percent_semispan: self.stations[station].percent_semispan,
+        })
+    }
+
+    fn control_unit(&self, control: TrimControl) -> Result<usize, LiftingLineError> {
+        match control {
+            TrimControl::Elevator => Ok(UNIT_ELEVATOR),
+            TrimControl::Incidence(s) if s < self.surfaces.len() => Ok(UNIT_FIRST_INCIDENCE + s),
+            TrimControl::Incidence(s) => Err(LiftingLineError::SurfaceCount {
+                what: "trim surface index",
+                got: s,
+                expected: self.surfaces.len(),
+            }),
+        }
     }
 
     /// Circulations (divided by speed, m) of the linear model for unit weights `q`, and their
@@ -1344,6 +1459,25 @@ pub(crate) mod tests {
         let fd_cl = (at(0.1 + h).cl - at(0.1 - h).cl) / (2.0 * h);
         assert_relative_eq!(k.cm_alpha_per_rad, fd_cm, epsilon = 1e-7);
         assert_relative_eq!(k.cl_alpha_per_rad, fd_cl, epsilon = 1e-7);
+    }
+
+    // Law: the trimmed stall state has C_m = 0 and its first station exactly at cl_max in a
+    // full solve.
+    #[test]
+    fn trimmed_stall_is_trimmed_and_on_cl_max() {
+        let sections = [plate(1.1)];
+        let sys = wing_and_tail(&sections);
+        let (x, z) = (0.05, 0.0);
+        let t = sys
+            .trimmed_stall(&sys.condition(0.0), TrimControl::Elevator, x, z)
+            .unwrap();
+        let mut cond = sys.condition(t.alpha_rad);
+        cond.elevator_rad = t.control_rad;
+        let r = sys.solve(&cond).unwrap();
+        assert_relative_eq!(r.cm(x, z), 0.0, epsilon = 1e-9);
+        assert_relative_eq!(r.stall.cl_ratio, 1.0, epsilon = 1e-9);
+        assert_relative_eq!(r.cl, t.cl, epsilon = 1e-9);
+        assert_eq!(r.stall.station, t.station);
     }
 
     // Law: at the first-stall angle the most loaded station is exactly at cl_max.
