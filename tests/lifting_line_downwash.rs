@@ -124,3 +124,23 @@ fn downwash_gradient_near_the_datcom_estimate() {
     let datcom = 4.44 * (k_a * k_lambda * k_h).powf(1.19);
     assert_relative_eq!(r.surfaces[1].downwash_gradient, datcom, max_relative = 0.15);
 }
+
+#[test]
+fn canard_ahead_of_the_wing_sees_upwash() {
+    // Source: Biot-Savart law for the wing's bound vortex: ahead of a lifting wing the flow is
+    // turned up (upwash), growing with the wing's lift (e.g. Nelson, Flight Stability and
+    // Automatic Control, canard configurations; from memory). Sign check: the canard's
+    // downwash angle and its gradient are negative.
+    let sections = [flat_plate()];
+    let wing = tapered_wing(8.0, 0.5, 2.0);
+    let mac = trimline::planform::geometry(&wing).mac_m;
+    let canard = surface("canard", -3.0 * mac, 0.02, vec![panel(0.3, 0.1, 0.07, 0.0)]);
+    let sys = system(&[&wing, &canard], &sections);
+    let r = sys.solve(&sys.condition(0.05)).unwrap();
+    assert!(
+        r.surfaces[1].downwash_rad < 0.0,
+        "{}",
+        r.surfaces[1].downwash_rad
+    );
+    assert!(r.surfaces[1].downwash_gradient < 0.0);
+}

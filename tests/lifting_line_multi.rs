@@ -395,3 +395,41 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
     assert_relative_eq!(a.cl, b.cl, epsilon = 1e-14);
     assert_relative_eq!(a.cm(0.1, 0.0), b.cm(0.1, 0.0), epsilon = 1e-14);
 }
+
+#[test]
+fn rectangular_wing_spanwise_loading() {
+    // Source: REFERENCES.md, "rectangular, A 6: cl/C_L at eta 0, 0.5, 0.75, 0.9, 0.95 = 1.144,
+    // 1.082, 0.948, 0.728, 0.564" (independent computation of Glauert's method, tolerance
+    // 0.005 there). The numerical stations are interpolated linearly in eta; tolerance 0.01
+    // for the interpolation and the discrete loading. eta 0 is taken at the innermost station.
+    let sections = [flat_plate()];
+    let wing = tapered_wing(6.0, 1.0, 1.5);
+    let sys = wing_only(&wing, &sections, 40);
+    let r = sys.solve(&sys.condition(0.1)).unwrap();
+    let starboard: Vec<(f64, f64)> = r
+        .stations
+        .iter()
+        .filter(|s| s.y_m > 0.0)
+        .map(|s| (s.y_m / 0.75, s.cl / r.cl))
+        .collect();
+    let at = |eta: f64| -> f64 {
+        if eta <= starboard[0].0 {
+            return starboard[0].1;
+        }
+        let w = starboard
+            .windows(2)
+            .find(|w| w[0].0 <= eta && eta <= w[1].0)
+            .unwrap();
+        let f = (eta - w[0].0) / (w[1].0 - w[0].0);
+        w[0].1 + f * (w[1].1 - w[0].1)
+    };
+    for (eta, expected) in [
+        (0.0, 1.144),
+        (0.5, 1.082),
+        (0.75, 0.948),
+        (0.9, 0.728),
+        (0.95, 0.564),
+    ] {
+        assert_relative_eq!(at(eta), expected, epsilon = 1e-2);
+    }
+}
