@@ -10,6 +10,14 @@
 //!
 //! Inside this module every quantity is SI with angles in radians; circulations are stored
 //! divided by the free-stream speed (metres), so no speed or density is needed.
+//!
+//! For balance and trim, build a [`MultiSurfaceSystem`] once per geometry
+//! ([`MultiSurfaceSystem::from_aircraft`]: surface 0 is the wing, 1 the stabiliser) and use its
+//! linear-range helpers, which only combine unit solutions: `linear_coefficients` (C_L, C_m
+//! and their alpha slopes about any point), `dcm_dcl`, `neutral_point_x_m`,
+//! `alpha_for_zero_moment`, `trim_for_cl` (alpha with the elevator or a surface's incidence),
+//! `first_stall_alpha_rad` and `trimmed_stall` (critical-section C_L max). `solve` gives the
+//! full result with the spanwise table, using Newton's method once a station passes cl_max.
 
 pub mod classical;
 mod error;

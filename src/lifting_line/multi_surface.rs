@@ -379,9 +379,9 @@ pub struct MultiSurfaceSystem {
 }
 
 impl MultiSurfaceSystem {
-    /// The wing and, if present, the stabiliser of `aircraft`, on the wing's reference area,
-    /// MAC and span. `sections` is indexed by `AirfoilId.0` (parallel to `aircraft.airfoils`);
-    /// `elevator` applies to the stabiliser.
+    /// The wing (surface 0) and, if present, the stabiliser (surface 1) of `aircraft`, on the
+    /// wing's reference area, MAC and span. `sections` is indexed by `AirfoilId.0` (parallel to
+    /// `aircraft.airfoils`); `elevator` applies to the stabiliser over its whole span.
     pub fn from_aircraft(
         aircraft: &Aircraft,
         sections: &[SectionModel],
