@@ -61,14 +61,14 @@ pub enum LiftingLineError {
         /// What was being computed.
         quantity: &'static str,
     },
-    /// A surface index or per-surface list does not match the system.
-    #[error("{what}: got {got}, the system has {expected} surfaces")]
+    /// A surface index, per-surface list or station count does not match the system.
+    #[error("{what}: got {got}, expected {expected}")]
     SurfaceCount {
         /// What was mismatched.
         what: &'static str,
         /// Number or index given.
         got: usize,
-        /// Number of surfaces in the system.
+        /// What the system has (surfaces or stations).
         expected: usize,
     },
     /// No station reaches its cl_max in the searched range of angle of attack.

@@ -680,7 +680,13 @@ impl MultiSurfaceSystem {
         z_ref_m: f64,
     ) -> Result<f64, LiftingLineError> {
         let k = self.linear_coefficients(cond, x_ref_m, z_ref_m)?;
-        Ok(k.cm_alpha_per_rad / k.cl_alpha_per_rad)
+        let ratio = k.cm_alpha_per_rad / k.cl_alpha_per_rad;
+        if !ratio.is_finite() {
+            return Err(LiftingLineError::NonFinite {
+                quantity: "dC_m/dC_L (zero lift slope)",
+            });
+        }
+        Ok(ratio)
     }
 
     /// The neutral point: the x (m) about which dC_m/dC_L = 0 at `cond`, for a reference
@@ -817,7 +823,25 @@ impl MultiSurfaceSystem {
     /// of the system with the circulations of `result` (small-angle: minus the vertical induced
     /// velocity over the free-stream speed). The point is treated as lying off every surface,
     /// so the wake core applies (see the module documentation).
-    pub fn downwash_at_rad(&self, result: &LiftingLineResult, point_m: [f64; 3]) -> f64 {
+    pub fn downwash_at_rad(
+        &self,
+        result: &LiftingLineResult,
+        point_m: [f64; 3],
+    ) -> Result<f64, LiftingLineError> {
+        if let Some(bad) = point_m.iter().find(|v| !v.is_finite()) {
+            return Err(LiftingLineError::InvalidInput {
+                parameter: "downwash point_m",
+                value: *bad,
+                range: "finite",
+            });
+        }
+        if result.stations.len() != self.stations.len() {
+            return Err(LiftingLineError::SurfaceCount {
+                what: "result stations (result from another system)",
+                got: result.stations.len(),
+                expected: self.stations.len(),
+            });
+        }
         let p = Vec3::new(point_m[0], point_m[1], point_m[2]);
         let wake = self.wake_direction();
         let w: f64 = self
@@ -830,7 +854,7 @@ impl MultiSurfaceSystem {
                     * r.circulation_per_speed_m
             })
             .sum();
-        -w
+        Ok(-w)
     }
 
     /// Unit vector of the trailing legs.
