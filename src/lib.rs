@@ -13,6 +13,7 @@ pub mod atmosphere;
 pub mod balance;
 pub mod caution;
 pub mod input;
+pub mod lifting_line;
 pub mod model;
 pub mod output;
 pub mod performance;

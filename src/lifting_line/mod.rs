@@ -1,0 +1,34 @@
+//! The wing model: lifting-line theory for one wing (classical) and for all lifting surfaces
+//! together (numerical, multi-surface).
+//!
+//! - [`classical`]: Prandtl's lifting-line equation solved by Glauert's Fourier collocation,
+//!   for one straight unswept wing; the reference the numerical model is checked against.
+//! - [`vortex`]: Biot-Savart kernels (segment, semi-infinite leg, horseshoe, Trefftz pair).
+//! - [`multi_surface`]: the Phillips-Snyder numerical lifting line for wing and tail (or
+//!   canard) together, factored once per geometry, with unit solutions for fast trim.
+//! - [`results`]: per-surface and total coefficients, the spanwise table and the stall station.
+//!
+//! Inside this module every quantity is SI with angles in radians; circulations are stored
+//! divided by the free-stream speed (metres), so no speed or density is needed.
+//!
+//! For balance and trim, build a [`MultiSurfaceSystem`] once per geometry
+//! ([`MultiSurfaceSystem::from_aircraft`]: surface 0 is the wing, 1 the stabiliser) and use its
+//! linear-range helpers, which only combine unit solutions: `linear_coefficients` (C_L, C_m
+//! and their alpha slopes about any point), `dcm_dcl`, `neutral_point_x_m`,
+//! `alpha_for_zero_moment`, `trim_for_cl` (alpha with the elevator or a surface's incidence),
+//! `first_stall_alpha_rad` and `trimmed_stall` (critical-section C_L max). `solve` gives the
+//! full result with the spanwise table, using Newton's method once a station passes cl_max.
+
+pub mod classical;
+mod error;
+pub mod multi_surface;
+pub mod results;
+pub mod vortex;
+
+pub use classical::{ClassicalSolution, ClassicalStation, ClassicalWing};
+pub use error::LiftingLineError;
+pub use multi_surface::{
+    ElevatorEffect, FlightCondition, LiftingLineOptions, LinearCoefficients, MultiSurfaceSystem,
+    Reference, SolveStatus, Station, SurfaceInput, TrimControl, TrimPoint, TrimmedStall,
+};
+pub use results::{LiftingLineResult, StallStation, StationResult, SurfaceResult};

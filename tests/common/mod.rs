@@ -1,0 +1,82 @@
+//! Shared builders for the lifting-line validation tests: plain surfaces and section models.
+#![allow(dead_code)]
+
+use trimline::model::{AirfoilId, EllipticShape, Panel, SectionMethod, Surface, SurfaceShape};
+use trimline::section::{ClMaxSource, SectionModel};
+
+/// A thin-airfoil-like section: lift slope `a0` per rad, zero-lift angle `alpha0_rad`,
+/// cm_ac zero, ac at the quarter chord, stall limits +-`cl_max`.
+pub fn section(a0: f64, alpha0_rad: f64, cl_max: f64) -> SectionModel {
+    SectionModel {
+        method: SectionMethod::Thin,
+        alpha_zero_lift_rad: alpha0_rad,
+        cl_alpha_per_rad: a0,
+        cm_ac: 0.0,
+        x_ac_c: 0.25,
+        cl_max,
+        cl_min: -cl_max,
+        cl_max_source: ClMaxSource::Given,
+    }
+}
+
+/// Thin-airfoil flat plate (2 pi per rad) that never stalls in the tests' range.
+pub fn flat_plate() -> SectionModel {
+    section(2.0 * std::f64::consts::PI, 0.0, 10.0)
+}
+
+/// One trapezoidal panel with airfoil 0 at both ends.
+pub fn panel(span_m: f64, root_chord_m: f64, tip_chord_m: f64, sweep_le_deg: f64) -> Panel {
+    Panel {
+        span_m,
+        root_chord_m,
+        tip_chord_m,
+        sweep_le_rad: sweep_le_deg.to_radians(),
+        dihedral_rad: 0.0,
+        tip_twist_rad: 0.0,
+        root_airfoil: AirfoilId(0),
+        tip_airfoil: AirfoilId(0),
+    }
+}
+
+/// A surface of panels with its root leading edge at (x, z) and zero incidence.
+pub fn surface(name: &str, x_m: f64, z_m: f64, panels: Vec<Panel>) -> Surface {
+    Surface {
+        name: name.into(),
+        root_le_x_m: x_m,
+        root_le_z_m: z_m,
+        incidence_rad: 0.0,
+        shape: SurfaceShape::Panels(panels),
+    }
+}
+
+/// A straight tapered wing of aspect ratio `aspect_ratio`, taper `taper`, span `span_m`,
+/// unswept quarter-chord line.
+pub fn tapered_wing(aspect_ratio: f64, taper: f64, span_m: f64) -> Surface {
+    let area = span_m * span_m / aspect_ratio;
+    let root = 2.0 * area / (span_m * (1.0 + taper));
+    let tip = taper * root;
+    let half = 0.5 * span_m;
+    // Leading-edge sweep that keeps the quarter chord straight: tan = (c_r - c_t) / (4 y).
+    let sweep = ((root - tip) / (4.0 * half)).atan().to_degrees();
+    surface("wing", 0.0, 0.0, vec![panel(half, root, tip, sweep)])
+}
+
+/// An elliptic wing of aspect ratio `aspect_ratio` and span `span_m`.
+pub fn elliptic_wing(aspect_ratio: f64, span_m: f64) -> Surface {
+    let area = span_m * span_m / aspect_ratio;
+    let root = 4.0 * area / (std::f64::consts::PI * span_m);
+    Surface {
+        name: "wing".into(),
+        root_le_x_m: 0.0,
+        root_le_z_m: 0.0,
+        incidence_rad: 0.0,
+        shape: SurfaceShape::Elliptic(EllipticShape {
+            semispan_m: 0.5 * span_m,
+            root_chord_m: root,
+            dihedral_rad: 0.0,
+            tip_twist_rad: 0.0,
+            root_airfoil: AirfoilId(0),
+            tip_airfoil: AirfoilId(0),
+        }),
+    }
+}
