@@ -12,9 +12,11 @@ use crate::model::{Aircraft, StabiliserRole};
 use crate::performance::drag::{self, BodyDragInput, SurfaceDragInput};
 use crate::performance::polar::{oswald_straight_wing, GlidePerformance, PolarInput};
 
+use crate::lifting_line::LiftingLineOptions;
 use crate::planform::{self, PlanformGeometry, TailVolume};
 use crate::section::SectionModel;
 use crate::stability::classical::{self, ClassicalEstimate, EquivalentSurface, StabiliserPlace};
+use crate::stability::trim;
 use thiserror::Error;
 
 /// Trim speed below this multiple of the stall speed gives a caution (common practice: 1.2,
@@ -39,11 +41,16 @@ pub const WEIGHING_MASS_TOLERANCE: f64 = 0.05;
 pub struct AnalysisOptions {
     /// Panels for the vortex panel method, where it is used.
     pub panels: usize,
+    /// Lifting-line stations per half-span of each surface.
+    pub stations_per_half_span: usize,
 }
 
 impl Default for AnalysisOptions {
     fn default() -> Self {
-        AnalysisOptions { panels: 160 }
+        AnalysisOptions {
+            panels: 160,
+            stations_per_half_span: 40,
+        }
     }
 }
 
@@ -71,6 +78,8 @@ pub struct CgBand {
     pub forward_x_m: f64,
     /// Aft limit, m aft of the datum (at the smallest recommended static margin).
     pub aft_x_m: f64,
+    /// What sets the forward limit.
+    pub forward_limit: ForwardLimit,
 }
 
 /// Advice for one ballast bay.
@@ -105,8 +114,12 @@ pub struct Analysis {
     pub wing: EquivalentSurface,
     /// Stabiliser reduced likewise.
     pub stabiliser: Option<EquivalentSurface>,
-    /// Closed-form estimate.
+    /// Closed-form estimate, kept as a cross-check.
     pub classical: ClassicalEstimate,
+    /// Full lifting-line balance and trim, when it solved.
+    pub full: Option<trim::FullStability>,
+    /// The headline figures (from `full` when present, else from `classical`).
+    pub headline: Headline,
     /// Recommended CG band.
     pub band: CgBand,
     /// Ballast advice, per bay, when a target static margin is given.
@@ -119,6 +132,79 @@ pub struct Analysis {
     pub glide: Glide,
     /// Everything the builder should read.
     pub cautions: Vec<Caution>,
+}
+
+/// Which model gave the headline figures.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Method {
+    /// The multi-surface lifting line.
+    LiftingLine,
+    /// The closed-form estimate (used only when the lifting line could not be solved).
+    Classical,
+}
+
+impl Method {
+    /// Name used in tables and JSON.
+    pub fn as_str(self) -> &'static str {
+        match self {
+            Method::LiftingLine => "lifting-line",
+            Method::Classical => "classical",
+        }
+    }
+}
+
+/// The trim state shown to the builder.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct TrimSummary {
+    /// Fuselage-datum angle of attack, rad.
+    pub alpha_rad: f64,
+    /// Total lift coefficient on the wing area.
+    pub cl: f64,
+    /// Trim speed, m/s.
+    pub speed_m_s: f64,
+    /// Stabiliser lift coefficient on its own area.
+    pub stabiliser_cl: f64,
+    /// Elevator at trim, rad (zero: the trim is computed with neutral elevator).
+    pub elevator_rad: f64,
+}
+
+/// Where the stall begins.
+#[derive(Debug, Clone, PartialEq)]
+pub struct StallLocation {
+    /// Surface index (0 wing, 1 stabiliser).
+    pub surface: usize,
+    /// Surface name ("wing", "tail", "canard").
+    pub surface_name: &'static str,
+    /// Spanwise position, percent of that surface's semispan.
+    pub percent_semispan: f64,
+}
+
+/// The headline figures of balance and trim, from the best model that solved.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Headline {
+    /// Which model.
+    pub method: Method,
+    /// Neutral point, m aft of the datum.
+    pub neutral_point_x_m: f64,
+    /// Static margin, fraction of MAC.
+    pub static_margin: f64,
+    /// Trim at the CG, when there is one at positive lift.
+    pub trim: Option<TrimSummary>,
+    /// Aircraft CL_max.
+    pub cl_max: f64,
+    /// Stall speed, m/s.
+    pub stall_speed_m_s: f64,
+    /// Where stall begins (lifting line only).
+    pub stall_location: Option<StallLocation>,
+}
+
+/// What sets the forward end of the recommended CG band.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum ForwardLimit {
+    /// The largest recommended static margin.
+    StaticMargin,
+    /// Elevator authority: further forward, full up elevator cannot hold the stall.
+    ElevatorAuthority,
 }
 
 /// Run the whole chain on `aircraft`.
@@ -146,20 +232,57 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         StabiliserRole::Tail => StabiliserPlace::Tail,
         StabiliserRole::Canard => StabiliserPlace::Canard,
     });
+    let fuselage_cm_alpha_per_rad = fuselage_cm_alpha(aircraft, &wing);
     let estimate = classical::estimate(&classical::EstimateInput {
         wing: &wing,
         stabiliser: stabiliser.as_ref().zip(place),
         mass_kg: mass.total_kg,
         cg_x_m: mass.cg_x_m,
         density_kg_m3: air.density_kg_m3,
-        fuselage_cm_alpha_per_rad: fuselage_cm_alpha(aircraft, &wing),
+        fuselage_cm_alpha_per_rad,
     });
+    let full = match trim::full_stability(&trim::TrimInput {
+        aircraft,
+        sections: &sections,
+        mass_kg: mass.total_kg,
+        cg_x_m: mass.cg_x_m,
+        cg_z_m: mass.cg_z_m.unwrap_or(aircraft.wing.root_le_z_m),
+        density_kg_m3: air.density_kg_m3,
+        fuselage_cm_alpha_per_rad,
+        options: LiftingLineOptions {
+            stations_per_half_span: options.stations_per_half_span,
+            ..LiftingLineOptions::default()
+        },
+        target_speed_m_s: aircraft.targets.trim_speed_m_s,
+        top_speed_m_s: aircraft.targets.top_speed_m_s,
+    }) {
+        Ok(f) => Some(f),
+        Err(e) => {
+            cautions.push(Caution::new(
+                Level::Warning,
+                "lifting-line-failed",
+                format!(
+                    "The lifting-line model could not be solved ({e}); the figures come from the \
+                     closed-form estimate only, which ignores sweep, tail height and the spanwise loading."
+                ),
+            ));
+            None
+        }
+    };
+    let headline = headline_of(aircraft, full.as_ref(), &estimate);
 
     let mac = wing.geometry.mac_m;
-    let np = estimate.neutral_point_x_m;
+    let np = headline.neutral_point_x_m;
+    let margin_forward_x_m = np - aircraft.margin_limits.max_static_margin * mac;
+    let elevator_limit = full.as_ref().and_then(|f| f.elevator_forward_limit_x_m);
+    let (forward_x_m, forward_limit) = match elevator_limit {
+        Some(x) if x > margin_forward_x_m => (x, ForwardLimit::ElevatorAuthority),
+        _ => (margin_forward_x_m, ForwardLimit::StaticMargin),
+    };
     let band = CgBand {
-        forward_x_m: np - aircraft.margin_limits.max_static_margin * mac,
+        forward_x_m,
         aft_x_m: np - aircraft.margin_limits.min_static_margin * mac,
+        forward_limit,
     };
     let ballast = match aircraft.targets.static_margin {
         None => Vec::new(),
@@ -176,10 +299,10 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
                 .collect()
         }
     };
-    let speed = estimate
+    let speed = headline
         .trim
         .map(|t| t.speed_m_s)
-        .unwrap_or(estimate.stall_speed_m_s);
+        .unwrap_or(headline.stall_speed_m_s);
     let reynolds_mac = air.reynolds(speed, mac);
     let wing_loading_kg_m2 = mass.total_kg / wing.geometry.area_m2;
     let glide = glide_estimate(
@@ -188,12 +311,12 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         stabiliser.as_ref(),
         &mass,
         &air,
-        estimate.cl_max,
+        headline.cl_max,
     );
     for (name, v) in [
-        ("neutral point", estimate.neutral_point_x_m),
-        ("static margin", estimate.static_margin),
-        ("stall speed", estimate.stall_speed_m_s),
+        ("neutral point", headline.neutral_point_x_m),
+        ("static margin", headline.static_margin),
+        ("stall speed", headline.stall_speed_m_s),
         ("wing loading", wing_loading_kg_m2),
         ("Reynolds number", reynolds_mac),
         ("zero-lift drag", glide.cd0),
@@ -210,31 +333,116 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         Some(balance::weighing(&aircraft.weighing)?)
     };
     if let Some(w) = &weighed {
-        let dx_mm = (w.cg_x_m - mass.cg_x_m) * 1000.0;
-        let dm_pct = 100.0 * (w.total_kg - mass.total_kg) / mass.total_kg;
-        if dx_mm.abs() > WEIGHING_CG_TOLERANCE_M * 1000.0
-            || dm_pct.abs() > 100.0 * WEIGHING_MASS_TOLERANCE
-        {
-            cautions.push(Caution::new(
-                Level::Warning,
-                "weighing-differs",
-                format!(
-                    "The weighing puts the CG at {:.0} mm and the mass at {:.0} g; the mass list gives {:.0} mm \
-                     and {:.0} g ({dx_mm:+.0} mm, {dm_pct:+.1} %). Trust the scales: correct the mass list \
-                     (a forgotten item, a wrong position) before relying on the figures here.",
-                    w.cg_x_m * 1000.0,
-                    w.total_kg * 1000.0,
-                    mass.cg_x_m * 1000.0,
-                    mass.total_kg * 1000.0
-                ),
-            ));
-        }
+        weighing_caution(w, &mass, &mut cautions);
     }
     let tail_volume = stabiliser
         .as_ref()
         .map(|s| planform::tail_volume(&wing.geometry, &s.geometry));
 
-    balance_cautions(aircraft, &mass, &estimate, &band, mac, &mut cautions);
+    balance_cautions(aircraft, &mass, &headline, &band, mac, &mut cautions);
+    if let Some(f) = &full {
+        full_model_cautions(aircraft, f, &headline, &estimate, mac, &mut cautions);
+    }
+    reynolds_caution(reynolds_mac, speed, &mut cautions);
+    cautions.push(safety_caution());
+    Ok(Analysis {
+        air,
+        sections,
+        wing_geometry: wing.geometry,
+        stabiliser_geometry: stabiliser.map(|s| s.geometry),
+        tail_volume,
+        mass,
+        wing_loading_kg_m2,
+        wing,
+        stabiliser,
+        classical: estimate,
+        full,
+        headline,
+        band,
+        ballast,
+        reynolds_mac,
+        weighed,
+        glide,
+        cautions,
+    })
+}
+
+fn headline_of(
+    aircraft: &Aircraft,
+    full: Option<&trim::FullStability>,
+    est: &ClassicalEstimate,
+) -> Headline {
+    let surface_name = |i: usize| -> &'static str {
+        match (i, aircraft.stabiliser.as_ref().map(|s| s.role)) {
+            (0, _) => "wing",
+            (_, Some(StabiliserRole::Canard)) => "canard",
+            _ => "tail",
+        }
+    };
+    match full {
+        Some(f) => Headline {
+            method: Method::LiftingLine,
+            neutral_point_x_m: f.neutral_point_x_m,
+            static_margin: f.static_margin,
+            trim: f.trim.as_ref().map(|t| TrimSummary {
+                alpha_rad: t.alpha_rad,
+                cl: t.cl,
+                speed_m_s: t.speed_m_s,
+                stabiliser_cl: t.stabiliser_cl,
+                elevator_rad: 0.0,
+            }),
+            cl_max: f.stall.as_ref().map_or(est.cl_max, |s| s.cl_max),
+            stall_speed_m_s: f
+                .stall
+                .as_ref()
+                .map_or(est.stall_speed_m_s, |s| s.speed_m_s),
+            stall_location: f.stall.as_ref().map(|s| StallLocation {
+                surface: s.surface,
+                surface_name: surface_name(s.surface),
+                percent_semispan: s.percent_semispan,
+            }),
+        },
+        None => Headline {
+            method: Method::Classical,
+            neutral_point_x_m: est.neutral_point_x_m,
+            static_margin: est.static_margin,
+            trim: est.trim.map(|t| TrimSummary {
+                alpha_rad: t.alpha_body_rad,
+                cl: t.cl,
+                speed_m_s: t.speed_m_s,
+                stabiliser_cl: t.stabiliser_cl,
+                elevator_rad: 0.0,
+            }),
+            cl_max: est.cl_max,
+            stall_speed_m_s: est.stall_speed_m_s,
+            stall_location: None,
+        },
+    }
+}
+
+fn weighing_caution(w: &MassSummary, mass: &MassSummary, cautions: &mut Vec<Caution>) {
+    let dx_mm = (w.cg_x_m - mass.cg_x_m) * 1000.0;
+    let dm_pct = 100.0 * (w.total_kg - mass.total_kg) / mass.total_kg;
+    if dx_mm.abs() > WEIGHING_CG_TOLERANCE_M * 1000.0
+        || dm_pct.abs() > 100.0 * WEIGHING_MASS_TOLERANCE
+    {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "weighing-differs",
+            format!(
+                "The weighing puts the CG at {:.0} mm and the mass at {:.0} g; the mass list gives {:.0} mm \
+                 and {:.0} g ({dx_mm:+.0} mm, {dm_pct:+.1} %). Trust the scales: correct the mass list \
+                 (a forgotten item, a wrong position) before relying on the figures here.",
+                w.cg_x_m * 1000.0,
+                w.total_kg * 1000.0,
+                mass.cg_x_m * 1000.0,
+                mass.total_kg * 1000.0
+            ),
+        ));
+    }
+}
+
+fn reynolds_caution(reynolds_mac: f64, speed: f64, cautions: &mut Vec<Caution>) {
     if reynolds_mac < LOW_REYNOLDS_WARNING {
         cautions.push(Caution::new(
             Level::Warning,
@@ -255,48 +463,29 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
             ),
         ));
     }
-    cautions.push(safety_caution());
-    Ok(Analysis {
-        air,
-        sections,
-        wing_geometry: wing.geometry,
-        stabiliser_geometry: stabiliser.map(|s| s.geometry),
-        tail_volume,
-        mass,
-        wing_loading_kg_m2,
-        wing,
-        stabiliser,
-        classical: estimate,
-        band,
-        ballast,
-        reynolds_mac,
-        weighed,
-        glide,
-        cautions,
-    })
 }
 
 fn balance_cautions(
     aircraft: &Aircraft,
     mass: &MassSummary,
-    est: &ClassicalEstimate,
+    h: &Headline,
     band: &CgBand,
     mac_m: f64,
     cautions: &mut Vec<Caution>,
 ) {
     let mac_mm = mac_m * 1000.0;
-    let sm_pct = 100.0 * est.static_margin;
-    if est.static_margin < 0.0 {
+    let sm_pct = 100.0 * h.static_margin;
+    if h.static_margin < 0.0 {
         cautions.push(Caution::new(
             Level::Danger,
             "static-margin-negative",
             format!(
                 "The CG is {:.0} mm behind the neutral point (static margin {sm_pct:.1} %): the aircraft is \
                  unstable in pitch and will not fly as balanced. Move the CG forward or add nose weight.",
-                (mass.cg_x_m - est.neutral_point_x_m) * 1000.0
+                (mass.cg_x_m - h.neutral_point_x_m) * 1000.0
             ),
         ));
-    } else if est.static_margin < LOW_STATIC_MARGIN.min(aircraft.margin_limits.min_static_margin) {
+    } else if h.static_margin < LOW_STATIC_MARGIN.min(aircraft.margin_limits.min_static_margin) {
         cautions.push(Caution::new(
             Level::Warning,
             "static-margin-low",
@@ -320,20 +509,28 @@ fn balance_cautions(
             ),
         ));
     } else if mass.cg_x_m < fwd - 5e-4 {
+        let why = match band.forward_limit {
+            ForwardLimit::ElevatorAuthority => {
+                "further forward, full up elevator can no longer hold the wing at its stall, so the model \
+                 cannot be flared or slowed properly"
+            }
+            ForwardLimit::StaticMargin => {
+                "the aircraft will be nose-heavy, need more up elevator and fly faster"
+            }
+        };
         cautions.push(Caution::new(
             Level::Warning,
             "cg-forward-of-band",
             format!(
-                "The CG is {:.0} mm forward of the recommended band ({:.0} to {:.0} mm from the datum): \
-                 the aircraft will be nose-heavy, need more up elevator and fly faster.",
+                "The CG is {:.0} mm forward of the recommended band ({:.0} to {:.0} mm from the datum): {why}.",
                 (fwd - mass.cg_x_m) * 1000.0,
                 fwd * 1000.0,
                 aft * 1000.0
             ),
         ));
     }
-    if let Some(t) = est.trim {
-        if t.cl > est.cl_max {
+    if let Some(t) = h.trim {
+        if t.cl > h.cl_max {
             cautions.push(Caution::new(
                 Level::Danger,
                 "trim-beyond-stall",
@@ -341,27 +538,26 @@ fn balance_cautions(
                     "The aircraft trims at CL {:.2}, above its CL max of {:.2}: as balanced it would fly \
                      stalled. Reduce the decalage (stabiliser incidence closer to the wing's) or move the \
                      CG aft within the recommended band.",
-                    t.cl, est.cl_max
+                    t.cl, h.cl_max
                 ),
             ));
-        } else if t.speed_m_s < NEAR_STALL_FACTOR * est.stall_speed_m_s {
+        } else if t.speed_m_s < NEAR_STALL_FACTOR * h.stall_speed_m_s {
             cautions.push(Caution::new(
                 Level::Warning,
                 "trim-near-stall",
                 format!(
                     "Trim speed {:.1} m/s is within 20 % of the stall speed {:.1} m/s: little margin \
                      against a stall in gusts or turns. Reduce the decalage slightly or move the CG aft.",
-                    t.speed_m_s, est.stall_speed_m_s
+                    t.speed_m_s, h.stall_speed_m_s
                 ),
             ));
         }
-    }
-    if est.trim.is_none() {
+    } else if h.static_margin > 0.0 {
         cautions.push(Caution::new(
             Level::Danger,
             "no-trim",
             "No trimmed flight at positive lift was found with this CG and these incidences: \
-             check the decalage (stabiliser incidence) and the CG."
+             check the decalage (stabiliser incidence), the washout of a tailless wing, and the CG."
                 .to_string(),
         ));
     }
@@ -374,6 +570,126 @@ fn balance_cautions(
                  {mac_mm:.0} mm mean chord; set [limits] in the file to use your own.",
                 100.0 * aircraft.margin_limits.min_static_margin,
                 100.0 * aircraft.margin_limits.max_static_margin
+            ),
+        ));
+    }
+}
+
+/// Difference between the lifting-line and closed-form neutral points above which a note
+/// explains it, fraction of MAC (a judgement: the two agree within a few percent on
+/// conventional high-aspect-ratio models).
+pub const MODELS_DISAGREE: f64 = 0.05;
+
+/// Stall beginning outboard of this fraction of the semispan is "tip first" (common practice:
+/// outboard of mid-semispan a stall drops a wing).
+pub const TIP_STALL_PERCENT_SEMISPAN: f64 = 50.0;
+
+fn full_model_cautions(
+    aircraft: &Aircraft,
+    f: &trim::FullStability,
+    h: &Headline,
+    est: &ClassicalEstimate,
+    mac_m: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    if let Some(loc) = &h.stall_location {
+        let role = aircraft.stabiliser.as_ref().map(|s| s.role);
+        match (loc.surface, role) {
+            (0, Some(StabiliserRole::Canard)) => cautions.push(Caution::new(
+                Level::Danger,
+                "canard-stall-order",
+                format!(
+                    "The wing reaches its cl_max before the canard (at {:.0} % of its semispan): a canard \
+                     aircraft must stall on the canard first so that the nose drops. Give the canard a \
+                     higher loading or less incidence margin, or move the CG aft.",
+                    loc.percent_semispan
+                ),
+            )),
+            (0, _) if loc.percent_semispan > TIP_STALL_PERCENT_SEMISPAN => cautions.push(Caution::new(
+                Level::Warning,
+                "tip-stall",
+                format!(
+                    "Stall begins at {:.0} % of the semispan, outboard of mid-span: expect a wing to drop at \
+                     the stall. More washout, a tip airfoil with a higher cl_max, or less taper move it inboard.",
+                    loc.percent_semispan
+                ),
+            )),
+            (1, Some(StabiliserRole::Tail)) => cautions.push(Caution::new(
+                Level::Danger,
+                "tail-stalls-first",
+                format!(
+                    "The tailplane reaches its cl_max before the wing (at {:.0} % of its semispan) when \
+                     trimmed near the stall: pitch control would be lost. Give the tail a larger area, a \
+                     section with a higher cl_max, or move the CG aft.",
+                    loc.percent_semispan
+                ),
+            )),
+            _ => {}
+        }
+    }
+    if let Some(s) = aircraft.stabiliser.as_ref() {
+        if let Some(p) = f.elevator_schedule.iter().find(|p| !p.within_limits) {
+            let (need, have) = if p.elevator_rad < 0.0 {
+                ("up", s.elevator_max_up_rad)
+            } else {
+                ("down", s.elevator_max_down_rad)
+            };
+            cautions.push(Caution::new(
+                Level::Warning,
+                "elevator-authority",
+                format!(
+                    "At {:.1} m/s the elevator needs {:.1} deg {need} to trim, more than the {:.1} deg \
+                     available: the speed range is limited by the elevator. Check the CG and the decalage.",
+                    p.speed_m_s,
+                    p.elevator_rad.abs().to_degrees(),
+                    have.to_degrees()
+                ),
+            ));
+        }
+    }
+    if let Some(t) = &f.tailless {
+        if t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4 {
+            let washout = t.washout_change_rad.map_or(String::new(), |w| {
+                if w < 0.0 {
+                    format!("about {:.1} deg more tip washout", -w.to_degrees())
+                } else {
+                    format!("about {:.1} deg less tip washout", w.to_degrees())
+                }
+            });
+            let level = if t.cm_zero_lift <= 0.0 {
+                Level::Danger
+            } else {
+                Level::Warning
+            };
+            cautions.push(Caution::new(
+                level,
+                "tailless-trim",
+                format!(
+                    "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
+                     {:+.3} there, {:+.3} at zero lift; it must be positive at zero lift). It needs {washout}{}or \
+                     airfoils with about {:.3} more reflex (cm_ac), or the CG moved forward.",
+                    t.design_cl,
+                    t.cm_at_design,
+                    t.cm_zero_lift,
+                    if washout.is_empty() { "" } else { ", " },
+                    t.reflex_cm_change
+                ),
+            ));
+        }
+    }
+    let diff = (f.neutral_point_x_m - est.neutral_point_x_m) / mac_m;
+    if diff.abs() > MODELS_DISAGREE {
+        cautions.push(Caution::new(
+            Level::Note,
+            "models-disagree",
+            format!(
+                "The lifting-line neutral point lies {:.0} mm {} of the closed-form estimate ({:.1} % of MAC). \
+                 The lifting line accounts for sweep, twist, the tail's height in the wake and the real \
+                 spanwise loading, which the closed form does not; treat the difference as a measure of \
+                 how uncertain the neutral point is, and start the first flights at the forward end of the band.",
+                (diff * mac_m * 1000.0).abs(),
+                if diff > 0.0 { "aft" } else { "forward" },
+                100.0 * diff.abs()
             ),
         ));
     }
@@ -420,7 +736,7 @@ impl KeyFigures {
     /// Collect the key figures of an analysed aircraft.
     pub fn of(aircraft: &Aircraft, a: &Analysis) -> KeyFigures {
         let g = &a.wing_geometry;
-        let est = &a.classical;
+        let h = &a.headline;
         KeyFigures {
             name: aircraft.name.clone(),
             mass_kg: a.mass.total_kg,
@@ -428,16 +744,16 @@ impl KeyFigures {
             cg_x_m: a.mass.cg_x_m,
             cg_from_wing_root_le_m: a.mass.cg_x_m - aircraft.wing.root_le_x_m,
             cg_percent_mac: g.percent_mac(a.mass.cg_x_m),
-            neutral_point_x_m: est.neutral_point_x_m,
-            static_margin: est.static_margin,
+            neutral_point_x_m: h.neutral_point_x_m,
+            static_margin: h.static_margin,
             band: a.band,
             decalage_rad: aircraft
                 .stabiliser
                 .as_ref()
                 .map(|s| aircraft.wing.incidence_rad - s.surface.incidence_rad),
-            trim_cl: est.trim.map(|t| t.cl),
-            trim_speed_m_s: est.trim.map(|t| t.speed_m_s),
-            stall_speed_m_s: est.stall_speed_m_s,
+            trim_cl: h.trim.map(|t| t.cl),
+            trim_speed_m_s: h.trim.map(|t| t.speed_m_s),
+            stall_speed_m_s: h.stall_speed_m_s,
             ballast_kg: a.ballast.iter().find_map(|b| match b.outcome {
                 BallastOutcome::Reachable { mass_kg } => Some((b.bay.clone(), mass_kg)),
                 BallastOutcome::NotNeeded => Some((b.bay.clone(), 0.0)),

@@ -395,6 +395,12 @@ impl Ctx<'_> {
                     Dimension::Speed,
                     SPEED_M_S,
                 )?,
+                top_speed_m_s: self.opt_quantity(
+                    t.top_speed.as_ref(),
+                    "targets.top_speed",
+                    Dimension::Speed,
+                    SPEED_M_S,
+                )?,
             },
         };
         let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref())?;

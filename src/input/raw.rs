@@ -178,6 +178,7 @@ pub struct RawBallast {
 pub struct RawTargets {
     pub static_margin: Option<Quantity>,
     pub trim_speed: Option<Quantity>,
+    pub top_speed: Option<Quantity>,
 }
 
 /// `[limits]`

@@ -88,6 +88,8 @@ pub struct Targets {
     pub static_margin: Option<f64>,
     /// Desired trim speed, m/s.
     pub trim_speed_m_s: Option<f64>,
+    /// Highest speed the aircraft should trim at (top of the elevator schedule), m/s.
+    pub top_speed_m_s: Option<f64>,
 }
 
 /// Static-margin limits that bound the recommended CG band, as fractions of MAC.

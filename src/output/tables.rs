@@ -1,7 +1,7 @@
 //! Terminal tables for `check`, in the builder's units (mm, g, g/dm^2, deg, m/s and km/h), with
 //! the unit in every header.
 
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, ForwardLimit, Method};
 use crate::balance::BallastOutcome;
 use crate::caution::Level;
 use crate::model::{Aircraft, StabiliserRole};
@@ -18,7 +18,11 @@ fn table(header: &[&str]) -> Table {
 
 fn right_align_from(t: &mut Table, first: usize) {
     let n = t.column_count();
-    for i in first..n {
+    right_align(t, first..n);
+}
+
+fn right_align(t: &mut Table, columns: std::ops::Range<usize>) {
+    for i in columns {
         if let Some(c) = t.column_mut(i) {
             c.set_cell_alignment(CellAlignment::Right);
         }
@@ -69,7 +73,15 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
     out.push_str(&cg_gauge(a, 60));
 
     out.push_str("\nTrim and stall\n");
-    out.push_str(&trim_table(a).to_string());
+    out.push_str(&trim_table(aircraft, a).to_string());
+    if let Some(t) = spanwise_table(a) {
+        out.push_str("\n\nSpanwise loading of the wing (starboard half)\n");
+        out.push_str(&t.to_string());
+    }
+    if let Some(t) = solves_table(aircraft, a) {
+        out.push_str("\n\nDecalage and elevator\n");
+        out.push_str(&t.to_string());
+    }
     out.push_str("\n\nCautions\n");
     out.push_str(&cautions_table(a).to_string());
     out.push('\n');
@@ -184,14 +196,17 @@ fn mass_table(aircraft: &Aircraft, a: &Analysis) -> Table {
 
 fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     let g = &a.wing_geometry;
-    let est = &a.classical;
+    let h = &a.headline;
     let mut t = table(&["quantity", "mm from datum", "% MAC", "note"]);
     let pct = |x: f64| num(g.percent_mac(x), 1);
     t.add_row(vec![
         "CG".to_string(),
         num(a.mass.cg_x_m * 1000.0, 1),
         pct(a.mass.cg_x_m),
-        "from the mass list".to_string(),
+        format!(
+            "from the mass list; {} mm aft of the wing root leading edge",
+            num((a.mass.cg_x_m - aircraft.wing.root_le_x_m) * 1000.0, 0)
+        ),
     ]);
     if let Some(w) = &a.weighed {
         t.add_row(vec![
@@ -201,24 +216,43 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             format!(
                 "{} g on the scales; static margin {} %",
                 num(w.total_kg * 1000.0, 0),
-                num(100.0 * (est.neutral_point_x_m - w.cg_x_m) / g.mac_m, 1)
+                num(100.0 * (h.neutral_point_x_m - w.cg_x_m) / g.mac_m, 1)
             ),
         ]);
     }
     t.add_row(vec![
         "neutral point".to_string(),
-        num(est.neutral_point_x_m * 1000.0, 1),
-        pct(est.neutral_point_x_m),
-        "closed-form estimate".to_string(),
+        num(h.neutral_point_x_m * 1000.0, 1),
+        pct(h.neutral_point_x_m),
+        match h.method {
+            Method::LiftingLine => "lifting-line model with fuselage".to_string(),
+            Method::Classical => "closed-form estimate".to_string(),
+        },
     ]);
+    if h.method == Method::LiftingLine {
+        let c = &a.classical;
+        t.add_row(vec![
+            "neutral point, closed form".to_string(),
+            num(c.neutral_point_x_m * 1000.0, 1),
+            pct(c.neutral_point_x_m),
+            format!(
+                "cross-check: {} mm from the lifting line",
+                num((c.neutral_point_x_m - h.neutral_point_x_m) * 1000.0, 1)
+            ),
+        ]);
+    }
+    let forward_note = match a.band.forward_limit {
+        ForwardLimit::StaticMargin => format!(
+            "static margin {} %",
+            num(100.0 * aircraft.margin_limits.max_static_margin, 0)
+        ),
+        ForwardLimit::ElevatorAuthority => "full up elevator just holds the stall".to_string(),
+    };
     t.add_row(vec![
         "recommended CG, forward".to_string(),
         num(a.band.forward_x_m * 1000.0, 1),
         pct(a.band.forward_x_m),
-        format!(
-            "static margin {} %",
-            num(100.0 * aircraft.margin_limits.max_static_margin, 0)
-        ),
+        forward_note,
     ]);
     t.add_row(vec![
         "recommended CG, aft".to_string(),
@@ -238,7 +272,7 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     t.add_row(vec![
         "static margin".to_string(),
         String::new(),
-        num(100.0 * est.static_margin, 1),
+        num(100.0 * h.static_margin, 1),
         "neutral point minus CG".to_string(),
     ]);
     for b in &a.ballast {
@@ -262,23 +296,31 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             text,
         ]);
     }
-    right_align_from(&mut t, 1);
+    if let Some(x) = a.full.as_ref().and_then(|f| f.cg_for_target_x_m) {
+        t.add_row(vec![
+            "CG for the target trim speed".to_string(),
+            num(x * 1000.0, 1),
+            pct(x),
+            "with the present incidences".to_string(),
+        ]);
+    }
+    right_align(&mut t, 1..3);
     t
 }
 
-fn trim_table(a: &Analysis) -> Table {
-    let est = &a.classical;
+fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
+    let h = &a.headline;
     let mut t = table(&["quantity", "value", "unit"]);
-    match est.trim {
+    match h.trim {
         Some(tr) => {
             t.add_row(vec!["trim CL".into(), num(tr.cl, 3), String::new()]);
             t.add_row(vec![
                 "trim angle of attack (fuselage datum)".into(),
-                num(tr.alpha_body_rad.to_degrees(), 2),
+                num(tr.alpha_rad.to_degrees(), 2),
                 "deg".into(),
             ]);
             t.add_row(vec![
-                "trim speed".into(),
+                "trim speed, neutral elevator".into(),
                 format!(
                     "{} ({} km/h)",
                     num(tr.speed_m_s, 1),
@@ -286,30 +328,72 @@ fn trim_table(a: &Analysis) -> Table {
                 ),
                 "m/s".into(),
             ]);
-            t.add_row(vec![
-                "stabiliser CL at trim".into(),
-                num(tr.stabiliser_cl, 3),
-                String::new(),
-            ]);
+            if aircraft.stabiliser.is_some() {
+                t.add_row(vec![
+                    "stabiliser CL at trim (own area)".into(),
+                    num(tr.stabiliser_cl, 3),
+                    String::new(),
+                ]);
+            }
         }
         None => {
             t.add_row(vec!["trim".into(), "not found".into(), String::new()]);
         }
     }
-    t.add_row(vec![
-        "aircraft CL max".into(),
-        num(est.cl_max, 3),
-        String::new(),
-    ]);
+    if let Some(ft) = a.full.as_ref().and_then(|f| f.trim.as_ref()) {
+        if aircraft.stabiliser.is_some() {
+            t.add_row(vec![
+                "stabiliser load at trim".into(),
+                format!(
+                    "{} g",
+                    num(ft.stabiliser_load_n / crate::atmosphere::G0 * 1000.0, 0)
+                ),
+                "(- down)".into(),
+            ]);
+            t.add_row(vec![
+                "downwash at the stabiliser".into(),
+                format!(
+                    "{} deg, gradient {}",
+                    num(ft.downwash_rad.to_degrees(), 2),
+                    num(ft.downwash_gradient, 3)
+                ),
+                String::new(),
+            ]);
+        }
+        if let Some(e) = ft.span_efficiency {
+            t.add_row(vec![
+                "span efficiency at trim".into(),
+                num(e, 3),
+                String::new(),
+            ]);
+        }
+    }
+    let crit = if h.method == Method::LiftingLine {
+        "aircraft CL max (first section to stall)"
+    } else {
+        "aircraft CL max (0.9 x section)"
+    };
+    t.add_row(vec![crit.into(), num(h.cl_max, 3), String::new()]);
     t.add_row(vec![
         "stall speed".into(),
         format!(
             "{} ({} km/h)",
-            num(est.stall_speed_m_s, 1),
-            num(est.stall_speed_m_s * 3.6, 0)
+            num(h.stall_speed_m_s, 1),
+            num(h.stall_speed_m_s * 3.6, 0)
         ),
         "m/s".into(),
     ]);
+    if let Some(loc) = &h.stall_location {
+        t.add_row(vec![
+            "stall begins".into(),
+            format!(
+                "{} at {} % semispan",
+                loc.surface_name,
+                num(loc.percent_semispan, 0)
+            ),
+            String::new(),
+        ]);
+    }
     let g = &a.glide.performance;
     let flag = |limited: bool| if limited { " (at CL max)" } else { "" };
     t.add_row(vec![
@@ -342,7 +426,7 @@ fn trim_table(a: &Analysis) -> Table {
         num(a.reynolds_mac, 0),
         String::new(),
     ]);
-    right_align_from(&mut t, 1);
+    right_align(&mut t, 1..2);
     t
 }
 
@@ -389,7 +473,7 @@ pub fn wrap(text: &str, width: usize) -> String {
 /// `  61 mm [=====G=====]   N  99 mm`.
 pub fn cg_gauge(a: &Analysis, width: usize) -> String {
     let cg = a.mass.cg_x_m;
-    let np = a.classical.neutral_point_x_m;
+    let np = a.headline.neutral_point_x_m;
     let (fwd, aft) = (a.band.forward_x_m, a.band.aft_x_m);
     let lo_raw = fwd.min(cg).min(np);
     let hi_raw = aft.max(cg).max(np);
@@ -415,4 +499,106 @@ pub fn cg_gauge(a: &Analysis, width: usize) -> String {
         num(lo * 1000.0, 0),
         num(hi * 1000.0, 0)
     )
+}
+
+/// Rows of the spanwise table: about `rows` wing stations from root to tip.
+fn sample<T>(items: &[T], rows: usize) -> Vec<&T> {
+    if items.len() <= rows {
+        return items.iter().collect();
+    }
+    (0..rows)
+        .map(|k| &items[k * (items.len() - 1) / (rows - 1)])
+        .collect()
+}
+
+/// The wing's spanwise loading at trim and at the stall (lifting line only).
+fn spanwise_table(a: &Analysis) -> Option<Table> {
+    let f = a.full.as_ref()?;
+    let stall = f.stall.as_ref()?;
+    let at_stall = crate::stability::trim::wing_starboard(&stall.result);
+    let at_trim = f
+        .trim
+        .as_ref()
+        .map(|t| crate::stability::trim::wing_starboard(&t.result));
+    let mut t = table(&[
+        "% semispan",
+        "y mm",
+        "chord mm",
+        "cl at trim",
+        "cl/cl max at trim",
+        "cl/cl max at stall",
+    ]);
+    for st in sample(&at_stall, 9) {
+        let trim_row = at_trim
+            .as_ref()
+            .and_then(|rows| rows.iter().find(|r| (r.y_m - st.y_m).abs() < 1e-9));
+        t.add_row(vec![
+            num(st.percent_semispan, 0),
+            num(st.y_m * 1000.0, 0),
+            num(st.chord_m * 1000.0, 0),
+            trim_row.map_or("-".into(), |r| num(r.cl, 3)),
+            trim_row.map_or("-".into(), |r| num(r.cl_ratio, 2)),
+            num(st.cl_ratio, 2),
+        ]);
+    }
+    right_align_from(&mut t, 0);
+    Some(t)
+}
+
+/// Decalage solve, elevator schedule and tailless check (lifting line only).
+fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
+    let f = a.full.as_ref()?;
+    let mut t = table(&["what", "value", "note"]);
+    if let Some(d) = &f.decalage_for_target {
+        t.add_row(vec![
+            format!("stabiliser incidence for {} m/s", num(d.speed_m_s, 1)),
+            format!("{} deg", num(d.stabiliser_incidence_rad.to_degrees(), 2)),
+            format!(
+                "decalage {} deg (now {} deg), neutral elevator, CL {}",
+                num(d.decalage_rad.to_degrees(), 2),
+                num(
+                    aircraft.stabiliser.as_ref().map_or(0.0, |s| {
+                        (aircraft.wing.incidence_rad - s.surface.incidence_rad).to_degrees()
+                    }),
+                    2
+                ),
+                num(d.cl, 3)
+            ),
+        ]);
+    }
+    for p in &f.elevator_schedule {
+        t.add_row(vec![
+            format!("elevator at {} m/s", num(p.speed_m_s, 1)),
+            format!(
+                "{} deg {}",
+                num(p.elevator_rad.abs().to_degrees(), 1),
+                if p.elevator_rad < 0.0 { "up" } else { "down" }
+            ),
+            if p.within_limits {
+                format!("CL {}", num(p.cl, 3))
+            } else {
+                format!("CL {}: beyond the elevator's throw", num(p.cl, 3))
+            },
+        ]);
+    }
+    if let Some(tl) = &f.tailless {
+        t.add_row(vec![
+            "pitching moment at zero lift".into(),
+            num(tl.cm_zero_lift, 4),
+            "about the CG; must be positive for a tailless wing".into(),
+        ]);
+        t.add_row(vec![
+            format!("pitching moment at CL {}", num(tl.design_cl, 2)),
+            num(tl.cm_at_design, 4),
+            "zero when trimmed there".into(),
+        ]);
+        if let Some(w) = tl.washout_change_rad {
+            t.add_row(vec![
+                "washout change to trim there".into(),
+                format!("{} deg", num(w.to_degrees(), 2)),
+                "negative: more washout at the tip".into(),
+            ]);
+        }
+    }
+    (t.row_count() > 0).then_some(t)
 }

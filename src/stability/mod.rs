@@ -6,3 +6,4 @@
 
 pub mod classical;
 pub mod fuselage;
+pub mod trim;

@@ -1,0 +1,534 @@
+//! Balance and trim from the full multi-surface lifting-line model: neutral point, static
+//! margin, trim at the CG, the critical-section stall, the forward CG limit set by elevator
+//! authority, and the solves a builder asks for (decalage for a speed, CG for a speed,
+//! elevator over the speed range, washout missing on a tailless wing).
+//!
+//! The fuselage enters as its Gilruth-White contribution to pitch stiffness
+//! ([`super::fuselage`]). In the linear range a moment `dCm_f (alpha - alpha_L0)` equals
+//! `(dCm_f / CL_alpha) CL`, which is what moving the moment reference aft by
+//! `c dCm_f / CL_alpha` produces; every moment here is therefore taken about that effective
+//! point, so trim, stall and the solves all carry the fuselage consistently.
+//!
+//! The aircraft's maximum lift is the trimmed C_L at which the first station of any surface
+//! reaches its section cl_max (the critical-section method): conservative, since the rest of
+//! the span could still gain lift.
+//!
+//! # References
+//! - W. F. Phillips, D. O. Snyder, "Modern adaptation of Prandtl's classic lifting-line
+//!   theory", *Journal of Aircraft* 37(4), 2000 (the lifting-line model used here).
+//! - B. Etkin, L. D. Reid, *Dynamics of Flight: Stability and Control*, 3rd ed., ch. 2
+//!   (neutral point as the point where dCm/dCL = 0, static margin, elevator angle to trim,
+//!   the forward CG limit from elevator power).
+//! - J. D. Anderson, *Introduction to Flight*, ch. 5 (lift equation, stall speed).
+//! - W. F. Phillips, *Mechanics of Flight*, 2nd ed., sec. 4.3 (critical-section estimate of
+//!   maximum lift).
+
+use crate::lifting_line::{
+    ElevatorEffect, FlightCondition, LiftingLineError, LiftingLineOptions, LiftingLineResult,
+    MultiSurfaceSystem, StationResult, TrimControl,
+};
+use crate::model::{Aircraft, StabiliserRole, SurfaceShape};
+use crate::section::SectionModel;
+
+/// Standard gravity, m/s^2.
+const G0: f64 = crate::atmosphere::G0;
+
+/// Design lift coefficient used to judge a tailless wing when no trim speed is given
+/// (common practice: flying wings cruise near CL 0.3).
+pub const TAILLESS_DESIGN_CL: f64 = 0.3;
+
+/// Top of the elevator schedule when the file gives no top speed, as a multiple of the stall
+/// speed (common practice: a model's useful speed range is about three times its stall speed).
+pub const DEFAULT_TOP_SPEED_FACTOR: f64 = 3.0;
+
+/// Lowest speed of the elevator schedule, as a multiple of the stall speed (common practice:
+/// 1.2, the usual approach-speed margin).
+pub const SCHEDULE_LOW_SPEED_FACTOR: f64 = 1.2;
+
+/// Points in the elevator schedule.
+const SCHEDULE_POINTS: usize = 8;
+
+/// Inputs of the full-model balance and trim.
+#[derive(Debug, Clone, Copy)]
+pub struct TrimInput<'a> {
+    /// The aircraft.
+    pub aircraft: &'a Aircraft,
+    /// Section models, parallel to `aircraft.airfoils`.
+    pub sections: &'a [SectionModel],
+    /// Total mass, kg.
+    pub mass_kg: f64,
+    /// CG x, m aft of the datum.
+    pub cg_x_m: f64,
+    /// Height used as the moment reference, m (the CG's z when known).
+    pub cg_z_m: f64,
+    /// Air density, kg/m^3.
+    pub density_kg_m3: f64,
+    /// Fuselage contribution to dCm/dalpha, per rad.
+    pub fuselage_cm_alpha_per_rad: f64,
+    /// Lifting-line discretisation.
+    pub options: LiftingLineOptions,
+    /// Target trim speed, m/s, if the builder has one.
+    pub target_speed_m_s: Option<f64>,
+    /// Top speed for the elevator schedule, m/s; `None` takes three times the stall speed.
+    pub top_speed_m_s: Option<f64>,
+}
+
+/// The trimmed state at the actual CG with neutral elevator.
+#[derive(Debug, Clone, PartialEq)]
+pub struct FullTrim {
+    /// Fuselage-datum angle of attack, rad.
+    pub alpha_rad: f64,
+    /// Total lift coefficient on the wing area.
+    pub cl: f64,
+    /// Trim speed, m/s.
+    pub speed_m_s: f64,
+    /// Stabiliser lift on its own area (0 without one).
+    pub stabiliser_cl: f64,
+    /// Stabiliser lift force at the trim speed, N (negative is a download).
+    pub stabiliser_load_n: f64,
+    /// Wing induced-drag coefficient share and span efficiency at trim.
+    pub span_efficiency: Option<f64>,
+    /// Downwash angle at the stabiliser, rad (0 without one).
+    pub downwash_rad: f64,
+    /// d(downwash)/d(alpha) at the stabiliser.
+    pub downwash_gradient: f64,
+    /// The full solution (spanwise table and all).
+    pub result: LiftingLineResult,
+}
+
+/// The critical-section stall.
+#[derive(Debug, Clone, PartialEq)]
+pub struct FullStall {
+    /// Aircraft CL_max (trimmed where the aircraft has an elevator).
+    pub cl_max: f64,
+    /// Stall speed, m/s.
+    pub speed_m_s: f64,
+    /// Surface whose station stalls first (0 wing, 1 stabiliser).
+    pub surface: usize,
+    /// Where on that surface, percent of its semispan.
+    pub percent_semispan: f64,
+    /// Elevator at the stall, rad (trailing edge down positive; 0 when not trimmed by elevator).
+    pub elevator_rad: f64,
+    /// True when the stall state was trimmed with the elevator.
+    pub trimmed: bool,
+    /// The full solution at the stall angle (spanwise cl against cl_max).
+    pub result: LiftingLineResult,
+}
+
+/// One point of the elevator schedule.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ElevatorPoint {
+    /// Airspeed, m/s.
+    pub speed_m_s: f64,
+    /// Lift coefficient there.
+    pub cl: f64,
+    /// Elevator to trim, rad (trailing edge down positive).
+    pub elevator_rad: f64,
+    /// True when the deflection is within the elevator's throws.
+    pub within_limits: bool,
+}
+
+/// The stabiliser incidence that trims at a target speed with neutral elevator.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct DecalageSolve {
+    /// The target speed, m/s.
+    pub speed_m_s: f64,
+    /// CL at that speed.
+    pub cl: f64,
+    /// Stabiliser incidence to set, rad.
+    pub stabiliser_incidence_rad: f64,
+    /// Resulting decalage (wing incidence minus stabiliser incidence), rad.
+    pub decalage_rad: f64,
+}
+
+/// What a tailless wing lacks to trim at its design lift.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct TaillessCheck {
+    /// The design CL used.
+    pub design_cl: f64,
+    /// Cm about the CG at zero lift (must be positive for trim at positive lift).
+    pub cm_zero_lift: f64,
+    /// Cm about the CG at the design CL (zero when trimmed there).
+    pub cm_at_design: f64,
+    /// Extra tip washout (linear along the span) that would trim at the design CL, rad
+    /// (negative: more washout needed; positive: less).
+    pub washout_change_rad: Option<f64>,
+    /// Rise of every section's cm_ac (reflex) that would trim at the design CL.
+    pub reflex_cm_change: f64,
+}
+
+/// Everything the full model gives for balance and trim.
+#[derive(Debug, Clone, PartialEq)]
+pub struct FullStability {
+    /// Neutral point with the fuselage, m aft of the datum.
+    pub neutral_point_x_m: f64,
+    /// Neutral point of the lifting surfaces alone, m.
+    pub neutral_point_surfaces_x_m: f64,
+    /// Static margin at the CG, fraction of MAC.
+    pub static_margin: f64,
+    /// Whole-aircraft lift slope on the wing area, per rad.
+    pub cl_alpha_per_rad: f64,
+    /// Trim at the CG, neutral elevator.
+    pub trim: Option<FullTrim>,
+    /// Critical-section stall.
+    pub stall: Option<FullStall>,
+    /// CG at which full up elevator just holds the stall: the forward limit pilots meet, m.
+    pub elevator_forward_limit_x_m: Option<f64>,
+    /// Stabiliser incidence for the target speed.
+    pub decalage_for_target: Option<DecalageSolve>,
+    /// CG that trims at the target speed with the present incidences, m.
+    pub cg_for_target_x_m: Option<f64>,
+    /// Elevator over the speed range.
+    pub elevator_schedule: Vec<ElevatorPoint>,
+    /// Top speed used for the schedule, m/s.
+    pub top_speed_m_s: f64,
+    /// Tailless check (only for aircraft without a stabiliser).
+    pub tailless: Option<TaillessCheck>,
+}
+
+/// Build the lifting-line system of an aircraft with its elevator (Glauert plain flap; the
+/// flap theory moment is about the quarter chord, which is where the section models carry it).
+pub fn build_system(
+    aircraft: &Aircraft,
+    sections: &[SectionModel],
+    options: LiftingLineOptions,
+) -> Result<MultiSurfaceSystem, LiftingLineError> {
+    let elevator = aircraft.stabiliser.as_ref().and_then(|s| {
+        if s.elevator_chord_fraction > 0.0 {
+            crate::section::flap_effectiveness(s.elevator_chord_fraction)
+                .ok()
+                .map(|f| ElevatorEffect {
+                    dalpha0_per_rad_deflection: -f.tau,
+                    dcm_ac_per_rad_deflection: f.dcm_quarter_chord_ddelta_per_rad,
+                })
+        } else {
+            // An all-moving tail: the elevator turns the whole section.
+            Some(ElevatorEffect {
+                dalpha0_per_rad_deflection: -1.0,
+                dcm_ac_per_rad_deflection: 0.0,
+            })
+        }
+    });
+    MultiSurfaceSystem::from_aircraft(aircraft, sections, elevator, options)
+}
+
+/// CL at speed `v` for weight `m g` on area `s`.
+fn cl_at(mass_kg: f64, density: f64, area_m2: f64, v: f64) -> f64 {
+    2.0 * mass_kg * G0 / (density * area_m2 * v * v)
+}
+
+/// Speed for lift coefficient `cl`.
+fn speed_at(mass_kg: f64, density: f64, area_m2: f64, cl: f64) -> f64 {
+    (2.0 * mass_kg * G0 / (density * area_m2 * cl)).sqrt()
+}
+
+/// Run the full-model balance and trim.
+pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLineError> {
+    let system = build_system(input.aircraft, input.sections, input.options)?;
+    let reference = system.reference();
+    let c = reference.mac_m;
+    let area = reference.area_m2;
+    let z = input.cg_z_m;
+    let base = system.condition(0.0);
+    let has_stab = input.aircraft.stabiliser.is_some();
+
+    let coeffs = system.linear_coefficients(&base, input.cg_x_m, z)?;
+    let cl_alpha = coeffs.cl_alpha_per_rad;
+    let np_surfaces = system.neutral_point_x_m(&base, z)?;
+    // The fuselage moves the neutral point forward and the effective moment reference aft.
+    let fuselage_shift_m = c * input.fuselage_cm_alpha_per_rad / cl_alpha;
+    let neutral_point_x_m = np_surfaces - fuselage_shift_m;
+    let eff = |x_cg: f64| x_cg + fuselage_shift_m;
+    let static_margin = (neutral_point_x_m - input.cg_x_m) / c;
+
+    // Trim at the CG with neutral elevator.
+    let trim = match system.alpha_for_zero_moment(&base, eff(input.cg_x_m), z) {
+        Ok(tp) if tp.cl > crate::stability::classical::MIN_TRIM_CL && static_margin > 0.0 => {
+            let mut cond = base.clone();
+            cond.alpha_rad = tp.alpha_rad;
+            let result = system.solve(&cond)?;
+            let speed = speed_at(input.mass_kg, input.density_kg_m3, area, result.cl);
+            let stab = result.surfaces.get(1);
+            let q = 0.5 * input.density_kg_m3 * speed * speed;
+            let (downwash_rad, downwash_gradient) =
+                stab.map_or((0.0, 0.0), |s| (s.downwash_rad, s.downwash_gradient));
+            Some(FullTrim {
+                alpha_rad: tp.alpha_rad,
+                cl: result.cl,
+                speed_m_s: speed,
+                stabiliser_cl: stab.map_or(0.0, |s| s.cl_own_area),
+                stabiliser_load_n: stab.map_or(0.0, |s| s.cl * q * area),
+                span_efficiency: result.span_efficiency,
+                downwash_rad,
+                downwash_gradient,
+                result,
+            })
+        }
+        Ok(_) | Err(LiftingLineError::NoTrim { .. }) => None,
+        Err(e) => return Err(e),
+    };
+
+    // Critical-section stall, trimmed with the elevator where there is one.
+    let stall = stall_at(&system, &base, has_stab, eff(input.cg_x_m), z, input)?;
+
+    // Forward CG limit from elevator authority.
+    let elevator_forward_limit_x_m = match &input.aircraft.stabiliser {
+        Some(s) if s.role == StabiliserRole::Tail => elevator_limit(
+            &system,
+            &base,
+            -s.elevator_max_up_rad,
+            neutral_point_x_m,
+            c,
+            z,
+            fuselage_shift_m,
+        ),
+        _ => None,
+    };
+
+    // Solves for a target speed.
+    let mut decalage_for_target = None;
+    let mut cg_for_target_x_m = None;
+    if let Some(v) = input.target_speed_m_s {
+        let cl_t = cl_at(input.mass_kg, input.density_kg_m3, area, v);
+        if let Some(stab) = &input.aircraft.stabiliser {
+            if let Ok(tp) =
+                system.trim_for_cl(&base, TrimControl::Incidence(1), cl_t, eff(input.cg_x_m), z)
+            {
+                let incidence = stab.surface.incidence_rad + tp.control_rad;
+                decalage_for_target = Some(DecalageSolve {
+                    speed_m_s: v,
+                    cl: cl_t,
+                    stabiliser_incidence_rad: incidence,
+                    decalage_rad: input.aircraft.wing.incidence_rad - incidence,
+                });
+            }
+        }
+        cg_for_target_x_m = cg_for_cl(&system, &base, cl_t, z).map(|x| x - fuselage_shift_m);
+    }
+
+    // Elevator schedule from 1.2 Vs to the top speed.
+    let stall_speed = stall.as_ref().map(|s| s.speed_m_s);
+    let top_speed_m_s = input
+        .top_speed_m_s
+        .or(stall_speed.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
+        .unwrap_or(0.0);
+    let mut elevator_schedule = Vec::new();
+    if let (Some(stab), Some(vs)) = (&input.aircraft.stabiliser, stall_speed) {
+        let lo = SCHEDULE_LOW_SPEED_FACTOR * vs;
+        if top_speed_m_s > lo {
+            for k in 0..SCHEDULE_POINTS {
+                let v = lo + (top_speed_m_s - lo) * k as f64 / (SCHEDULE_POINTS - 1) as f64;
+                let cl = cl_at(input.mass_kg, input.density_kg_m3, area, v);
+                if let Ok(tp) =
+                    system.trim_for_cl(&base, TrimControl::Elevator, cl, eff(input.cg_x_m), z)
+                {
+                    let d = tp.control_rad;
+                    elevator_schedule.push(ElevatorPoint {
+                        speed_m_s: v,
+                        cl,
+                        elevator_rad: d,
+                        within_limits: d >= -stab.elevator_max_up_rad - 1e-12
+                            && d <= stab.elevator_max_down_rad + 1e-12,
+                    });
+                }
+            }
+        }
+    }
+
+    let tailless = if has_stab {
+        None
+    } else {
+        let design_cl = input
+            .target_speed_m_s
+            .map(|v| cl_at(input.mass_kg, input.density_kg_m3, area, v))
+            .unwrap_or(TAILLESS_DESIGN_CL);
+        Some(tailless_check(
+            input,
+            &system,
+            design_cl,
+            eff(input.cg_x_m),
+            z,
+        )?)
+    };
+
+    Ok(FullStability {
+        neutral_point_x_m,
+        neutral_point_surfaces_x_m: np_surfaces,
+        static_margin,
+        cl_alpha_per_rad: cl_alpha,
+        trim,
+        stall,
+        elevator_forward_limit_x_m,
+        decalage_for_target,
+        cg_for_target_x_m,
+        elevator_schedule,
+        top_speed_m_s,
+        tailless,
+    })
+}
+
+/// The stall state with the moment reference at `x_ref` (already shifted for the fuselage).
+fn stall_at(
+    system: &MultiSurfaceSystem,
+    base: &FlightCondition,
+    trimmed_by_elevator: bool,
+    x_ref: f64,
+    z: f64,
+    input: &TrimInput<'_>,
+) -> Result<Option<FullStall>, LiftingLineError> {
+    let area = system.reference().area_m2;
+    let (cond, station, trimmed) = if trimmed_by_elevator {
+        match system.trimmed_stall(base, TrimControl::Elevator, x_ref, z) {
+            Ok(s) => {
+                let mut cond = base.clone();
+                cond.alpha_rad = s.alpha_rad;
+                cond.elevator_rad = s.control_rad;
+                (cond, s.station, true)
+            }
+            Err(LiftingLineError::StallNotFound { .. } | LiftingLineError::NoTrim { .. }) => {
+                return Ok(None)
+            }
+            Err(e) => return Err(e),
+        }
+    } else {
+        match system.first_stall_alpha_rad(base)? {
+            Some((alpha, station)) => {
+                let mut cond = base.clone();
+                cond.alpha_rad = alpha;
+                (cond, station, false)
+            }
+            None => return Ok(None),
+        }
+    };
+    let result = system.solve(&cond)?;
+    if result.cl <= 0.0 {
+        return Ok(None);
+    }
+    let st = &system.stations()[station];
+    Ok(Some(FullStall {
+        cl_max: result.cl,
+        speed_m_s: speed_at(input.mass_kg, input.density_kg_m3, area, result.cl),
+        surface: st.surface,
+        percent_semispan: st.percent_semispan,
+        elevator_rad: cond.elevator_rad,
+        trimmed,
+        result,
+    }))
+}
+
+/// The CG (effective moment reference) at which the elevator needed to hold the stall equals
+/// `full_up_rad`; searched between one MAC ahead of the neutral point and the neutral point.
+fn elevator_limit(
+    system: &MultiSurfaceSystem,
+    base: &FlightCondition,
+    full_up_rad: f64,
+    neutral_point_x_m: f64,
+    mac_m: f64,
+    z: f64,
+    fuselage_shift_m: f64,
+) -> Option<f64> {
+    // Elevator needed at the stall with the CG at x (negative: trailing edge up).
+    let needed = |x: f64| {
+        system
+            .trimmed_stall(base, TrimControl::Elevator, x + fuselage_shift_m, z)
+            .ok()
+            .map(|s| s.control_rad - full_up_rad)
+    };
+    let (mut fwd, mut aft) = (neutral_point_x_m - mac_m, neutral_point_x_m - 0.01 * mac_m);
+    let (f_fwd, f_aft) = (needed(fwd)?, needed(aft)?);
+    if f_aft < 0.0 {
+        // Even near the neutral point full up elevator does not reach the stall.
+        return Some(aft);
+    }
+    if f_fwd >= 0.0 {
+        // Elevator power is not the limit anywhere within a MAC of the neutral point.
+        return None;
+    }
+    for _ in 0..40 {
+        let mid = 0.5 * (fwd + aft);
+        match needed(mid) {
+            Some(f) if f >= 0.0 => aft = mid,
+            Some(_) => fwd = mid,
+            None => return None,
+        }
+    }
+    Some(0.5 * (fwd + aft))
+}
+
+/// The moment reference x at which the aircraft trims at `cl` with the controls of `base`
+/// (the CG for a target speed, before the fuselage shift is removed).
+fn cg_for_cl(system: &MultiSurfaceSystem, base: &FlightCondition, cl: f64, z: f64) -> Option<f64> {
+    let k0 = system.linear_coefficients(base, 0.0, z).ok()?;
+    let mut cond = base.clone();
+    cond.alpha_rad = (cl - k0.cl) / k0.cl_alpha_per_rad;
+    // Cm is linear in the reference x: Cm(x) = Cm(0) + x (Cm(1) - Cm(0)).
+    let m0 = system.linear_coefficients(&cond, 0.0, z).ok()?.cm;
+    let m1 = system.linear_coefficients(&cond, 1.0, z).ok()?.cm;
+    let x = -m0 / (m1 - m0);
+    x.is_finite().then_some(x)
+}
+
+fn tailless_check(
+    input: &TrimInput<'_>,
+    system: &MultiSurfaceSystem,
+    design_cl: f64,
+    x_ref: f64,
+    z: f64,
+) -> Result<TaillessCheck, LiftingLineError> {
+    let cm_at_cl = |sys: &MultiSurfaceSystem, cl: f64| -> Result<f64, LiftingLineError> {
+        let base = sys.condition(0.0);
+        let k0 = sys.linear_coefficients(&base, x_ref, z)?;
+        let mut cond = base;
+        cond.alpha_rad = (cl - k0.cl) / k0.cl_alpha_per_rad;
+        Ok(sys.linear_coefficients(&cond, x_ref, z)?.cm)
+    };
+    let cm_zero_lift = cm_at_cl(system, 0.0)?;
+    let cm_at_design = cm_at_cl(system, design_cl)?;
+    // A uniform rise of cm_ac changes the wing's Cm by the same amount (the MAC is defined so
+    // that the chord-squared integral over S c equals one).
+    let reflex_cm_change = -cm_at_design;
+    // Sensitivity to one degree of extra linear washout, by rebuilding with more twist.
+    let mut washed = input.aircraft.clone();
+    add_linear_washout(&mut washed, -1f64.to_radians());
+    let washout_change_rad = build_system(&washed, input.sections, input.options)
+        .ok()
+        .and_then(|sys| cm_at_cl(&sys, design_cl).ok())
+        .and_then(|cm_washed| {
+            let per_rad = (cm_washed - cm_at_design) / -1f64.to_radians();
+            let change = -cm_at_design / per_rad;
+            (per_rad.abs() > 1e-9 && change.is_finite()).then_some(change)
+        });
+    Ok(TaillessCheck {
+        design_cl,
+        cm_zero_lift,
+        cm_at_design,
+        washout_change_rad,
+        reflex_cm_change,
+    })
+}
+
+/// Add twist growing linearly from 0 at the root to `tip_rad` at the tip of the wing.
+fn add_linear_washout(aircraft: &mut Aircraft, tip_rad: f64) {
+    match &mut aircraft.wing.shape {
+        SurfaceShape::Panels(panels) => {
+            let total: f64 = panels.iter().map(|p| p.span_m).sum();
+            let mut s = 0.0;
+            for p in panels.iter_mut() {
+                s += p.span_m;
+                p.tip_twist_rad += tip_rad * s / total;
+            }
+        }
+        SurfaceShape::Elliptic(e) => e.tip_twist_rad += tip_rad,
+    }
+}
+
+/// The wing's stations of a result, root to starboard tip (for spanwise tables and charts).
+pub fn wing_starboard(result: &LiftingLineResult) -> Vec<&StationResult> {
+    let mut out: Vec<&StationResult> = result
+        .stations
+        .iter()
+        .filter(|s| s.surface == 0 && s.y_m >= 0.0)
+        .collect();
+    out.sort_by(|a, b| a.y_m.total_cmp(&b.y_m));
+    out
+}
