@@ -1,7 +1,7 @@
 //! JSON output of `check`: one object, SI units, x aft of the file's datum, percent of MAC
 //! aft of the MAC leading edge. Every field is documented in `docs/json.md`.
 
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, ForwardLimit, Method};
 use crate::balance::BallastOutcome;
 use crate::caution::Caution;
 use crate::model::{Aircraft, StabiliserRole};
@@ -35,6 +35,10 @@ pub struct CheckDocument {
     pub stall: StallJson,
     /// Glide performance.
     pub glide: GlideJson,
+    /// Solves from the lifting-line model (decalage, CG, elevator schedule).
+    pub solves: Option<SolvesJson>,
+    /// Wing spanwise loading (lifting line), starboard half, root to tip.
+    pub spanwise: Vec<SpanwiseJson>,
     /// Cautions.
     pub cautions: Vec<CautionJson>,
 }
@@ -138,6 +142,8 @@ pub struct BandJson {
     pub max_static_margin_percent: f64,
     /// True when common-practice defaults were used.
     pub from_defaults: bool,
+    /// What sets the forward limit: `static-margin` or `elevator-authority`.
+    pub forward_limit: &'static str,
     /// Where the CG sits: `forward`, `inside`, `aft`.
     pub cg_position: &'static str,
 }
@@ -228,8 +234,12 @@ pub struct SectionJson {
 /// `/stability`
 #[derive(Debug, Serialize)]
 pub struct StabilityJson {
-    /// Method of the figures below.
+    /// Method of the figures below: `lifting-line` or `classical`.
     pub method: &'static str,
+    /// Closed-form neutral point (cross-check), m.
+    pub classical_neutral_point_x_m: f64,
+    /// Lifting-line minus closed-form neutral point, percent MAC (0 when only the closed form ran).
+    pub neutral_point_difference_percent_mac: f64,
     /// m
     pub neutral_point_x_m: f64,
     /// percent MAC
@@ -259,6 +269,14 @@ pub struct TrimJson {
     pub stabiliser_cl: Option<f64>,
     /// On the wing MAC at the trim (or stall) speed.
     pub reynolds_mac: f64,
+    /// Elevator at trim, deg (trailing edge down positive; the trim is computed with it neutral).
+    pub elevator_deg: Option<f64>,
+    /// Stabiliser lift at trim, N (negative is a download), or null.
+    pub stabiliser_load_n: Option<f64>,
+    /// Downwash at the stabiliser at trim, deg, or null.
+    pub downwash_deg: Option<f64>,
+    /// Span efficiency of the whole aircraft at trim, or null.
+    pub span_efficiency: Option<f64>,
 }
 
 /// `/stall`
@@ -268,6 +286,87 @@ pub struct StallJson {
     pub cl_max: f64,
     /// m/s
     pub speed_m_s: f64,
+    /// `critical-section` (lifting line) or `classical` (0.9 x section cl_max).
+    pub method: &'static str,
+    /// Surface where stall begins (`wing`, `tail`, `canard`), or null.
+    pub surface: Option<&'static str>,
+    /// Where on that surface, percent of its semispan, or null.
+    pub percent_semispan: Option<f64>,
+    /// Elevator holding the stall, deg, or null.
+    pub elevator_deg: Option<f64>,
+}
+
+/// `/solves`
+#[derive(Debug, Serialize)]
+pub struct SolvesJson {
+    /// Stabiliser incidence for the target trim speed with neutral elevator, or null.
+    pub decalage_for_target: Option<DecalageJson>,
+    /// CG that trims at the target speed with the present incidences, m, or null.
+    pub cg_for_target_speed_x_m: Option<f64>,
+    /// Top speed of the elevator schedule, m/s.
+    pub top_speed_m_s: f64,
+    /// Elevator to trim over the speed range.
+    pub elevator_schedule: Vec<ElevatorPointJson>,
+    /// Tailless check, or null.
+    pub tailless: Option<TaillessJson>,
+}
+
+/// `/solves/decalage_for_target`
+#[derive(Debug, Serialize)]
+pub struct DecalageJson {
+    /// m/s
+    pub speed_m_s: f64,
+    /// CL at that speed.
+    pub cl: f64,
+    /// deg
+    pub stabiliser_incidence_deg: f64,
+    /// deg, wing incidence minus stabiliser incidence
+    pub decalage_deg: f64,
+}
+
+/// `/solves/elevator_schedule/N`
+#[derive(Debug, Serialize)]
+pub struct ElevatorPointJson {
+    /// m/s
+    pub speed_m_s: f64,
+    /// CL
+    pub cl: f64,
+    /// deg, trailing edge down positive
+    pub elevator_deg: f64,
+    /// Within the elevator's throws.
+    pub within_limits: bool,
+}
+
+/// `/solves/tailless`
+#[derive(Debug, Serialize)]
+pub struct TaillessJson {
+    /// CL at which trim is judged.
+    pub design_cl: f64,
+    /// Cm about the CG at zero lift.
+    pub cm_zero_lift: f64,
+    /// Cm about the CG at the design CL.
+    pub cm_at_design: f64,
+    /// Change of tip twist that trims at the design CL, deg (negative: more washout), or null.
+    pub washout_change_deg: Option<f64>,
+    /// Rise of the sections' cm_ac that trims at the design CL.
+    pub reflex_cm_change: f64,
+}
+
+/// `/spanwise/N`: one wing station, starboard half.
+#[derive(Debug, Serialize)]
+pub struct SpanwiseJson {
+    /// m
+    pub y_m: f64,
+    /// percent of the semispan
+    pub percent_semispan: f64,
+    /// m
+    pub chord_m: f64,
+    /// Section cl at trim, or null.
+    pub cl_trim: Option<f64>,
+    /// cl / cl_max at trim, or null.
+    pub cl_ratio_trim: Option<f64>,
+    /// cl / cl_max at the stall.
+    pub cl_ratio_stall: f64,
 }
 
 /// `/glide`
@@ -343,6 +442,8 @@ fn surface_json(s: &crate::stability::classical::EquivalentSurface) -> SurfaceJs
 pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckDocument {
     let g = &a.wing_geometry;
     let est = &a.classical;
+    let h = &a.headline;
+    let full_trim = a.full.as_ref().and_then(|f| f.trim.as_ref());
     let band_pos = if a.mass.cg_x_m < a.band.forward_x_m - 5e-4 {
         "forward"
     } else if a.mass.cg_x_m > a.band.aft_x_m + 5e-4 {
@@ -390,6 +491,10 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
                 min_static_margin_percent: r(100.0 * aircraft.margin_limits.min_static_margin, 2),
                 max_static_margin_percent: r(100.0 * aircraft.margin_limits.max_static_margin, 2),
                 from_defaults: aircraft.margin_limits.from_defaults,
+                forward_limit: match a.band.forward_limit {
+                    ForwardLimit::StaticMargin => "static-margin",
+                    ForwardLimit::ElevatorAuthority => "elevator-authority",
+                },
                 cg_position: band_pos,
             },
             ballast: a
@@ -471,26 +576,93 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             })
             .collect(),
         stability: StabilityJson {
-            method: "classical",
-            neutral_point_x_m: r(est.neutral_point_x_m, 5),
-            neutral_point_percent_mac: r(g.percent_mac(est.neutral_point_x_m), 2),
-            static_margin_percent: r(100.0 * est.static_margin, 2),
-            downwash_gradient: r(est.downwash_gradient, 4),
-            aircraft_cl_alpha_per_rad: r(est.aircraft_lift_slope_per_rad, 4),
-            cm_alpha_per_rad: r(est.cm_alpha_per_rad, 4),
+            method: h.method.as_str(),
+            classical_neutral_point_x_m: r(est.neutral_point_x_m, 5),
+            neutral_point_difference_percent_mac: r(
+                100.0 * (h.neutral_point_x_m - est.neutral_point_x_m) / g.mac_m,
+                2,
+            ),
+            neutral_point_x_m: r(h.neutral_point_x_m, 5),
+            neutral_point_percent_mac: r(g.percent_mac(h.neutral_point_x_m), 2),
+            static_margin_percent: r(100.0 * h.static_margin, 2),
+            downwash_gradient: r(
+                full_trim.map_or(est.downwash_gradient, |t| t.downwash_gradient),
+                4,
+            ),
+            aircraft_cl_alpha_per_rad: r(
+                a.full
+                    .as_ref()
+                    .map_or(est.aircraft_lift_slope_per_rad, |f| f.cl_alpha_per_rad),
+                4,
+            ),
+            cm_alpha_per_rad: r(
+                -h.static_margin
+                    * a.full
+                        .as_ref()
+                        .map_or(est.aircraft_lift_slope_per_rad, |f| f.cl_alpha_per_rad),
+                4,
+            ),
         },
         trim: TrimJson {
-            found: est.trim.is_some(),
-            cl: est.trim.map(|t| r(t.cl, 4)),
-            alpha_deg: est.trim.map(|t| r(t.alpha_body_rad.to_degrees(), 3)),
-            speed_m_s: est.trim.map(|t| r(t.speed_m_s, 3)),
-            stabiliser_cl: est.trim.map(|t| r(t.stabiliser_cl, 4)),
+            found: h.trim.is_some(),
+            cl: h.trim.map(|t| r(t.cl, 4)),
+            alpha_deg: h.trim.map(|t| r(t.alpha_rad.to_degrees(), 3)),
+            speed_m_s: h.trim.map(|t| r(t.speed_m_s, 3)),
+            stabiliser_cl: h.trim.map(|t| r(t.stabiliser_cl, 4)),
             reynolds_mac: r(a.reynolds_mac, 0),
+            elevator_deg: h.trim.map(|t| r(t.elevator_rad.to_degrees(), 3)),
+            stabiliser_load_n: full_trim
+                .filter(|_| aircraft.stabiliser.is_some())
+                .map(|t| r(t.stabiliser_load_n, 4)),
+            downwash_deg: full_trim
+                .filter(|_| aircraft.stabiliser.is_some())
+                .map(|t| r(t.downwash_rad.to_degrees(), 3)),
+            span_efficiency: full_trim.and_then(|t| t.span_efficiency).map(|e| r(e, 4)),
         },
         stall: StallJson {
-            cl_max: r(est.cl_max, 4),
-            speed_m_s: r(est.stall_speed_m_s, 3),
+            cl_max: r(h.cl_max, 4),
+            speed_m_s: r(h.stall_speed_m_s, 3),
+            method: match h.method {
+                Method::LiftingLine => "critical-section",
+                Method::Classical => "classical",
+            },
+            surface: h.stall_location.as_ref().map(|l| l.surface_name),
+            percent_semispan: h.stall_location.as_ref().map(|l| r(l.percent_semispan, 1)),
+            elevator_deg: a
+                .full
+                .as_ref()
+                .and_then(|f| f.stall.as_ref())
+                .filter(|s| s.trimmed)
+                .map(|s| r(s.elevator_rad.to_degrees(), 2)),
         },
+        solves: a.full.as_ref().map(|f| SolvesJson {
+            decalage_for_target: f.decalage_for_target.map(|d| DecalageJson {
+                speed_m_s: r(d.speed_m_s, 3),
+                cl: r(d.cl, 4),
+                stabiliser_incidence_deg: r(d.stabiliser_incidence_rad.to_degrees(), 3),
+                decalage_deg: r(d.decalage_rad.to_degrees(), 3),
+            }),
+            cg_for_target_speed_x_m: f.cg_for_target_x_m.map(|x| r(x, 5)),
+            top_speed_m_s: r(f.top_speed_m_s, 3),
+            elevator_schedule: f
+                .elevator_schedule
+                .iter()
+                .map(|p| ElevatorPointJson {
+                    speed_m_s: r(p.speed_m_s, 3),
+                    cl: r(p.cl, 4),
+                    elevator_deg: r(p.elevator_rad.to_degrees(), 3),
+                    within_limits: p.within_limits,
+                })
+                .collect(),
+            tailless: f.tailless.map(|t| TaillessJson {
+                design_cl: r(t.design_cl, 4),
+                cm_zero_lift: r(t.cm_zero_lift, 5),
+                cm_at_design: r(t.cm_at_design, 5),
+                washout_change_deg: t.washout_change_rad.map(|w| r(w.to_degrees(), 3)),
+                reflex_cm_change: r(t.reflex_cm_change, 5),
+            }),
+        }),
+        spanwise: spanwise_json(a),
         glide: GlideJson {
             cd0: r(a.glide.cd0, 5),
             span_efficiency: r(a.glide.span_efficiency, 4),
@@ -502,4 +674,33 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
         },
         cautions: a.cautions.iter().map(CautionJson::from).collect(),
     }
+}
+
+fn spanwise_json(a: &Analysis) -> Vec<SpanwiseJson> {
+    let Some(f) = a.full.as_ref() else {
+        return Vec::new();
+    };
+    let Some(stall) = f.stall.as_ref() else {
+        return Vec::new();
+    };
+    let trim_rows = f
+        .trim
+        .as_ref()
+        .map(|t| crate::stability::trim::wing_starboard(&t.result));
+    crate::stability::trim::wing_starboard(&stall.result)
+        .into_iter()
+        .map(|st| {
+            let at_trim = trim_rows
+                .as_ref()
+                .and_then(|rows| rows.iter().find(|t| (t.y_m - st.y_m).abs() < 1e-9));
+            SpanwiseJson {
+                y_m: r(st.y_m, 5),
+                percent_semispan: r(st.percent_semispan, 2),
+                chord_m: r(st.chord_m, 5),
+                cl_trim: at_trim.map(|t| r(t.cl, 4)),
+                cl_ratio_trim: at_trim.map(|t| r(t.cl_ratio, 4)),
+                cl_ratio_stall: r(st.cl_ratio, 4),
+            }
+        })
+        .collect()
 }

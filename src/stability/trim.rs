@@ -487,17 +487,36 @@ fn tailless_check(
     // A uniform rise of cm_ac changes the wing's Cm by the same amount (the MAC is defined so
     // that the chord-squared integral over S c equals one).
     let reflex_cm_change = -cm_at_design;
-    // Sensitivity to one degree of extra linear washout, by rebuilding with more twist.
-    let mut washed = input.aircraft.clone();
-    add_linear_washout(&mut washed, -1f64.to_radians());
-    let washout_change_rad = build_system(&washed, input.sections, input.options)
-        .ok()
-        .and_then(|sys| cm_at_cl(&sys, design_cl).ok())
-        .and_then(|cm_washed| {
-            let per_rad = (cm_washed - cm_at_design) / -1f64.to_radians();
-            let change = -cm_at_design / per_rad;
-            (per_rad.abs() > 1e-9 && change.is_finite()).then_some(change)
-        });
+    // Extra linear washout that zeroes the moment at the design CL: the moment is nearly linear
+    // in twist (the trim angle moves a little with it), so a few secant steps, each rebuilding
+    // the system with the new twist, converge it.
+    let cm_with = |extra_rad: f64| -> Option<f64> {
+        let mut washed = input.aircraft.clone();
+        add_linear_washout(&mut washed, extra_rad);
+        let sys = build_system(&washed, input.sections, input.options).ok()?;
+        cm_at_cl(&sys, design_cl).ok()
+    };
+    let washout_change_rad = (|| {
+        let (mut w0, mut m0) = (0.0, cm_at_design);
+        let mut w1 = -1f64.to_radians();
+        let mut m1 = cm_with(w1)?;
+        for _ in 0..6 {
+            if (m1 - m0).abs() < 1e-12 {
+                return None;
+            }
+            let w2 = w1 - m1 * (w1 - w0) / (m1 - m0);
+            if !w2.is_finite() || w2.abs() > 0.5 {
+                return None;
+            }
+            (w0, m0) = (w1, m1);
+            w1 = w2;
+            m1 = cm_with(w1)?;
+            if m1.abs() < 1e-9 {
+                break;
+            }
+        }
+        Some(w1)
+    })();
     Ok(TaillessCheck {
         design_cl,
         cm_zero_lift,
