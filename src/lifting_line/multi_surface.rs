@@ -49,7 +49,7 @@
 //! kink, not of the solver; the default station count gives lift slopes within about 5 % of
 //! the Helmbold-Diederich formula up to 30 deg of sweep (tests/lifting_line_sweep.rs; 16 % high
 //! at 45 deg). The loading dips at the kink, so the Trefftz-plane span efficiency of a swept
-//! wing is pessimistic (about 0.57 at 30 deg, aspect ratio 8, where a real wing has about 0.9):
+//! wing comes out low (about 0.57 at 30 deg, aspect ratio 8; the same wing unswept gives 0.94):
 //! treat induced drag of strongly swept wings as unreliable. Stations are not clustered at a
 //! kinked root unless asked, because clustering strengthens the dependence.
 //!
