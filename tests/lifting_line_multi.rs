@@ -117,11 +117,12 @@ fn general_aircraft() -> (Surface, Surface) {
 
 #[test]
 fn symmetric_aircraft_gives_symmetric_loading() {
-    // Source: mirror symmetry of the geometry and of the flow in symmetric flight. Both halves
-    // are discretised and solved as one system (the influence rows of the port half are
-    // copied from their starboard mirror images), so the stations must be mirror images and
-    // the circulation must come out symmetric, also with stalled stations (Newton). Tolerance
-    // 1e-12 m on positions, 1e-9 of the largest circulation (round-off in the solves).
+    // Source: mirror symmetry of the geometry and of the flow in symmetric flight. The stations
+    // must be mirror images. The linear unit solutions come from the system folded on the
+    // starboard half (symmetric by construction, their full-system residual is checked inside);
+    // past stall Newton's method works on the full system of both halves, so the stalled case
+    // (13 deg) checks that the full solve keeps the symmetry. Tolerance 1e-12 m on positions,
+    // 1e-9 of the largest circulation (round-off in the solves).
     let sections = [section(2.0 * PI, -0.03, 1.3), section(6.0, -0.01, 1.1)];
     let (wing, tail) = general_aircraft();
     let inputs = [
