@@ -142,6 +142,11 @@ fn symmetric_aircraft_gives_symmetric_loading() {
         let r = sys
             .solve(&sys.condition(f64::to_radians(alpha_deg)))
             .unwrap();
+        let stalled = matches!(
+            r.status,
+            trimline::lifting_line::SolveStatus::Converged { .. }
+        );
+        assert_eq!(stalled, alpha_deg > 10.0, "{alpha_deg}: {:?}", r.status);
         let scale = r
             .stations
             .iter()
