@@ -274,7 +274,7 @@ fn trim_solves_agree_with_the_full_solve() {
     // Source: internal law: the fast superposition and the full solve are the same linear
     // model, so the trimmed state must give C_m = 0 (and the target C_L) in a full solve.
     // Tolerance: round-off.
-    use trimline::lifting_line::multi_surface::TrimControl;
+    use trimline::lifting_line::TrimControl;
     let mut s = section(2.0 * PI, -0.04, 1.4);
     s.cm_ac = -0.07;
     let sections = [s, flat_plate()];
