@@ -9,11 +9,17 @@ use crate::atmosphere::{self, AirState};
 use crate::balance::{self, BallastOutcome, MassSummary};
 use crate::caution::{safety_caution, Caution, Level};
 use crate::model::{Aircraft, StabiliserRole};
+use crate::performance::drag::{self, BodyDragInput, SurfaceDragInput};
+use crate::performance::polar::{oswald_straight_wing, GlidePerformance, PolarInput};
+
 use crate::planform::{self, PlanformGeometry, TailVolume};
 use crate::section::SectionModel;
 use crate::stability::classical::{self, ClassicalEstimate, EquivalentSurface, StabiliserPlace};
 use thiserror::Error;
 
+/// Trim speed below this multiple of the stall speed gives a caution (common practice: 1.2,
+/// the margin a pilot keeps in turbulence).
+pub const NEAR_STALL_FACTOR: f64 = 1.2;
 /// Static margin below which the builder is warned, fraction of MAC (common practice: 5 %).
 pub const LOW_STATIC_MARGIN: f64 = 0.05;
 /// Reynolds number (on the wing MAC at trim speed) below which sections lose lift and gain
@@ -47,6 +53,9 @@ pub enum AnalysisError {
     /// The mass list is unusable.
     #[error(transparent)]
     Balance(#[from] balance::BalanceError),
+    /// An airfoil could not be analysed.
+    #[error(transparent)]
+    Section(#[from] crate::section::SectionError),
     /// A result came out non-finite: the input is outside what the models can handle.
     #[error("the analysis produced a non-finite {quantity}; check the geometry and masses for extreme values")]
     NonFinite {
@@ -106,20 +115,26 @@ pub struct Analysis {
     pub reynolds_mac: f64,
     /// Mass and CG measured by the weighing in the file, if any.
     pub weighed: Option<MassSummary>,
+    /// Glide performance from the drag build-up.
+    pub glide: Glide,
     /// Everything the builder should read.
     pub cautions: Vec<Caution>,
 }
 
 /// Run the whole chain on `aircraft`.
 pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysis, AnalysisError> {
-    let _ = options;
     let mut cautions = Vec::new();
     let air = atmosphere::air_state(&aircraft.air);
     let mut sections = Vec::with_capacity(aircraft.airfoils.len());
     for airfoil in &aircraft.airfoils {
-        let (model, found) = crate::section::pending::section_model(airfoil);
-        sections.push(model);
-        cautions.extend(found);
+        let outcome = crate::section::section_model(
+            airfoil,
+            &crate::section::SectionOptions {
+                panels: options.panels,
+            },
+        )?;
+        sections.push(outcome.model);
+        cautions.extend(outcome.cautions);
     }
     let wing = classical::equivalent_surface(&aircraft.wing, &sections);
     let stabiliser = aircraft
@@ -167,12 +182,23 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         .unwrap_or(estimate.stall_speed_m_s);
     let reynolds_mac = air.reynolds(speed, mac);
     let wing_loading_kg_m2 = mass.total_kg / wing.geometry.area_m2;
+    let glide = glide_estimate(
+        aircraft,
+        &wing,
+        stabiliser.as_ref(),
+        &mass,
+        &air,
+        estimate.cl_max,
+    );
     for (name, v) in [
         ("neutral point", estimate.neutral_point_x_m),
         ("static margin", estimate.static_margin),
         ("stall speed", estimate.stall_speed_m_s),
         ("wing loading", wing_loading_kg_m2),
         ("Reynolds number", reynolds_mac),
+        ("zero-lift drag", glide.cd0),
+        ("best glide", glide.performance.best_glide.glide_ratio),
+        ("minimum sink", glide.performance.min_sink.sink_m_s),
     ] {
         if !v.is_finite() {
             return Err(AnalysisError::NonFinite { quantity: name });
@@ -245,6 +271,7 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         ballast,
         reynolds_mac,
         weighed,
+        glide,
         cautions,
     })
 }
@@ -304,6 +331,30 @@ fn balance_cautions(
                 aft * 1000.0
             ),
         ));
+    }
+    if let Some(t) = est.trim {
+        if t.cl > est.cl_max {
+            cautions.push(Caution::new(
+                Level::Danger,
+                "trim-beyond-stall",
+                format!(
+                    "The aircraft trims at CL {:.2}, above its CL max of {:.2}: as balanced it would fly \
+                     stalled. Reduce the decalage (stabiliser incidence closer to the wing's) or move the \
+                     CG aft within the recommended band.",
+                    t.cl, est.cl_max
+                ),
+            ));
+        } else if t.speed_m_s < NEAR_STALL_FACTOR * est.stall_speed_m_s {
+            cautions.push(Caution::new(
+                Level::Warning,
+                "trim-near-stall",
+                format!(
+                    "Trim speed {:.1} m/s is within 20 % of the stall speed {:.1} m/s: little margin \
+                     against a stall in gusts or turns. Reduce the decalage slightly or move the CG aft.",
+                    t.speed_m_s, est.stall_speed_m_s
+                ),
+            ));
+        }
     }
     if est.trim.is_none() {
         cautions.push(Caution::new(
@@ -416,4 +467,93 @@ pub fn fuselage_cm_alpha(aircraft: &Aircraft, wing: &EquivalentSurface) -> f64 {
             wing.geometry.area_m2,
         )
     })
+}
+
+/// Glide performance of the aircraft.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Glide {
+    /// Zero-lift drag coefficient (at the best-glide speed's Reynolds numbers).
+    pub cd0: f64,
+    /// Span efficiency used in the polar (Raymer's Oswald estimate).
+    pub span_efficiency: f64,
+    /// Best glide and minimum sink.
+    pub performance: GlidePerformance,
+}
+
+/// Position of greatest thickness assumed in the drag build-up, fraction of chord (NACA
+/// 4-digit sections have it at 0.3; common practice for model sections).
+const X_THICKNESS_C: f64 = 0.3;
+
+/// Area-weighted thickness ratio of a surface's airfoils (each panel counts the mean of its
+/// end airfoils).
+fn surface_thickness(aircraft: &Aircraft, surface: &crate::model::Surface) -> f64 {
+    let t = |id: crate::model::AirfoilId| crate::section::thickness_ratio(aircraft.airfoil(id));
+    match &surface.shape {
+        crate::model::SurfaceShape::Panels(panels) => {
+            let (mut num, mut den) = (0.0, 0.0);
+            for p in panels {
+                let area = p.span_m * (p.root_chord_m + p.tip_chord_m);
+                num += area * 0.5 * (t(p.root_airfoil) + t(p.tip_airfoil));
+                den += area;
+            }
+            if den > 0.0 {
+                num / den
+            } else {
+                0.12
+            }
+        }
+        crate::model::SurfaceShape::Elliptic(e) => 0.5 * (t(e.root_airfoil) + t(e.tip_airfoil)),
+    }
+}
+
+fn glide_estimate(
+    aircraft: &Aircraft,
+    wing: &EquivalentSurface,
+    stabiliser: Option<&EquivalentSurface>,
+    mass: &MassSummary,
+    air: &AirState,
+    cl_max: f64,
+) -> Glide {
+    let mut surfaces = vec![SurfaceDragInput {
+        area_m2: wing.geometry.area_m2,
+        mac_m: wing.geometry.mac_m,
+        thickness_ratio: surface_thickness(aircraft, &aircraft.wing),
+        x_thickness_c: X_THICKNESS_C,
+    }];
+    if let (Some(eq), Some(st)) = (stabiliser, aircraft.stabiliser.as_ref()) {
+        surfaces.push(SurfaceDragInput {
+            area_m2: eq.geometry.area_m2,
+            mac_m: eq.geometry.mac_m,
+            thickness_ratio: surface_thickness(aircraft, &st.surface),
+            x_thickness_c: X_THICKNESS_C,
+        });
+    }
+    let body = aircraft.fuselage.as_ref().map(|f| BodyDragInput {
+        length_m: f.length_m,
+        width_m: f.max_width_m,
+    });
+    let span_efficiency = oswald_straight_wing(wing.geometry.aspect_ratio).clamp(0.3, 1.0);
+    let nu = air.kinematic_viscosity_m2_s();
+    let area = wing.geometry.area_m2;
+    // Reynolds numbers depend on speed: evaluate CD0 at the best-glide speed by a few
+    // fixed-point steps (converges in two or three; CD0 varies slowly with Re).
+    let mut speed = 10.0;
+    let mut polar = PolarInput {
+        cd0: 0.0,
+        aspect_ratio: wing.geometry.aspect_ratio,
+        span_efficiency,
+        mass_kg: mass.total_kg,
+        area_m2: area,
+        density_kg_m3: air.density_kg_m3,
+        cl_max,
+    };
+    for _ in 0..4 {
+        polar.cd0 = drag::cd0(&surfaces, body, area, speed, nu);
+        speed = polar.performance().best_glide.speed_m_s;
+    }
+    Glide {
+        cd0: polar.cd0,
+        span_efficiency,
+        performance: polar.performance(),
+    }
 }

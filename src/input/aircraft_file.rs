@@ -556,7 +556,7 @@ impl Ctx<'_> {
                     })
                     .trim()
                     .to_string();
-                super::pending::naca_parse(&designation).map_err(|e| {
+                crate::section::naca::NacaProfile::parse(&designation).map_err(|e| {
                     self.err(
                         &n.span(),
                         &format!("{field}.naca"),
@@ -685,14 +685,24 @@ impl Ctx<'_> {
             )
         })?;
         let (title, points) =
-            super::pending::coordinates_parse(&text, &path.display().to_string())?;
-        let title = if title.is_empty() {
+            super::coordinates::parse_coordinates(&text, &path.display().to_string())?;
+        // Check the shape now, so that a bad file is reported at the key that names it.
+        crate::section::geometry::Contour::new(&points).map_err(|e| {
+            self.err(
+                &span,
+                field,
+                format!("`{}`: {e}", path.display()),
+                Some(
+                    "a closed loop of distinct points, trailing edge to leading edge and back"
+                        .into(),
+                ),
+            )
+        })?;
+        let title = title.unwrap_or_else(|| {
             path.file_stem()
                 .map(|s| s.to_string_lossy().into_owned())
                 .unwrap_or_default()
-        } else {
-            title
-        };
+        });
         Ok(AirfoilShape::Coordinates { title, points })
     }
 

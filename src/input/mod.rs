@@ -8,7 +8,6 @@
 pub mod aircraft_file;
 pub mod coordinates;
 pub mod error;
-mod pending;
 mod raw;
 pub mod units;
 

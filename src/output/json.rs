@@ -33,6 +33,8 @@ pub struct CheckDocument {
     pub trim: TrimJson,
     /// Stall.
     pub stall: StallJson,
+    /// Glide performance.
+    pub glide: GlideJson,
     /// Cautions.
     pub cautions: Vec<CautionJson>,
 }
@@ -268,6 +270,25 @@ pub struct StallJson {
     pub speed_m_s: f64,
 }
 
+/// `/glide`
+#[derive(Debug, Serialize)]
+pub struct GlideJson {
+    /// Zero-lift drag coefficient from the build-up.
+    pub cd0: f64,
+    /// Span efficiency used in the polar.
+    pub span_efficiency: f64,
+    /// Best glide ratio L/D.
+    pub best_glide_ratio: f64,
+    /// m/s
+    pub best_glide_speed_m_s: f64,
+    /// Minimum sink rate, m/s.
+    pub min_sink_m_s: f64,
+    /// m/s
+    pub min_sink_speed_m_s: f64,
+    /// True when minimum sink would lie beyond CL_max and was taken at CL_max.
+    pub min_sink_at_cl_max: bool,
+}
+
 /// `/cautions/N`
 #[derive(Debug, Serialize)]
 pub struct CautionJson {
@@ -469,6 +490,15 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
         stall: StallJson {
             cl_max: r(est.cl_max, 4),
             speed_m_s: r(est.stall_speed_m_s, 3),
+        },
+        glide: GlideJson {
+            cd0: r(a.glide.cd0, 5),
+            span_efficiency: r(a.glide.span_efficiency, 4),
+            best_glide_ratio: r(a.glide.performance.best_glide.glide_ratio, 3),
+            best_glide_speed_m_s: r(a.glide.performance.best_glide.speed_m_s, 3),
+            min_sink_m_s: r(a.glide.performance.min_sink.sink_m_s, 4),
+            min_sink_speed_m_s: r(a.glide.performance.min_sink.speed_m_s, 3),
+            min_sink_at_cl_max: a.glide.performance.min_sink.limited_by_cl_max,
         },
         cautions: a.cautions.iter().map(CautionJson::from).collect(),
     }

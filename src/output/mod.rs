@@ -4,4 +4,5 @@
 
 pub mod compare;
 pub mod json;
+pub mod section;
 pub mod tables;

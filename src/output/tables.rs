@@ -310,6 +310,33 @@ fn trim_table(a: &Analysis) -> Table {
         ),
         "m/s".into(),
     ]);
+    let g = &a.glide.performance;
+    let flag = |limited: bool| if limited { " (at CL max)" } else { "" };
+    t.add_row(vec![
+        "best glide ratio".into(),
+        format!(
+            "{} at {} m/s{}",
+            num(g.best_glide.glide_ratio, 1),
+            num(g.best_glide.speed_m_s, 1),
+            flag(g.best_glide.limited_by_cl_max)
+        ),
+        String::new(),
+    ]);
+    t.add_row(vec![
+        "minimum sink".into(),
+        format!(
+            "{} at {} m/s{}",
+            num(g.min_sink.sink_m_s, 2),
+            num(g.min_sink.speed_m_s, 1),
+            flag(g.min_sink.limited_by_cl_max)
+        ),
+        "m/s".into(),
+    ]);
+    t.add_row(vec![
+        "zero-lift drag CD0 (build-up)".into(),
+        num(a.glide.cd0, 4),
+        String::new(),
+    ]);
     t.add_row(vec![
         "Reynolds number on MAC".into(),
         num(a.reynolds_mac, 0),

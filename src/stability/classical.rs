@@ -35,6 +35,11 @@ use std::f64::consts::PI;
 /// Standard gravity, m/s^2.
 pub const G0: f64 = crate::atmosphere::G0;
 
+/// Smallest trimmed lift coefficient treated as a trim: below it the aircraft would have to
+/// dive at an unbounded speed to balance (0.02 on a model of 15 g/dm^2 is already about
+/// 35 m/s).
+pub const MIN_TRIM_CL: f64 = 0.02;
+
 /// Number of strips used for the spanwise averages (midpoint rule).
 const STRIPS: usize = 400;
 
@@ -260,7 +265,7 @@ pub fn estimate(input: &EstimateInput<'_>) -> ClassicalEstimate {
     let trim = if lin.cm_a < 0.0 {
         let alpha = -lin.cm0 / lin.cm_a;
         let cl = lin.cl0 + lin.cl_a * alpha;
-        (cl > 0.0).then(|| ClassicalTrim {
+        (cl > MIN_TRIM_CL).then(|| ClassicalTrim {
             alpha_body_rad: alpha,
             cl,
             stabiliser_cl: lin.stab_cl0 + lin.stab_cl_a * alpha,

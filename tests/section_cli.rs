@@ -1,0 +1,106 @@
+//! The `trimline section` command run as a user would: JSON, tables and the pressure CSV.
+
+use serde_json::Value;
+
+fn run(args: &[&str]) -> (i32, String, String) {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_trimline"))
+        .args(args)
+        .output()
+        .expect("binary runs");
+    (
+        out.status.code().unwrap_or(-1),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+#[test]
+fn naca_2412_json_has_the_documented_fields() {
+    // Values: the panel method on NACA 2412 must land near thin-airfoil theory (Anderson,
+    // Fundamentals of Aerodynamics, sec. 4.8: -2.077 deg, -0.053) within 0.15 deg and 0.004,
+    // and its lift slope near 2 pi (1 + 0.77 t/c) = 6.86 per rad (thickness correction, from
+    // memory) within 3 %; the aerodynamic centre near the quarter chord (0.23 to 0.28,
+    // judgement for a 12 % section in potential flow).
+    let (code, stdout, stderr) = run(&["section", "naca2412", "--json", "--alpha", "-2,0,4"]);
+    assert_eq!(code, 0, "{stderr}");
+    let v: Value = serde_json::from_str(&stdout).expect("valid JSON");
+    assert_eq!(v["method"], "panel");
+    let num = |p: &str| v.pointer(p).and_then(Value::as_f64).unwrap_or(f64::NAN);
+    approx::assert_relative_eq!(num("/alpha_zero_lift_deg"), -2.077, epsilon = 0.15);
+    approx::assert_relative_eq!(num("/cm_quarter_chord"), -0.053, epsilon = 0.004);
+    approx::assert_relative_eq!(num("/cl_alpha_per_rad"), 6.86, max_relative = 0.03);
+    let x_ac = num("/aerodynamic_center_x_c");
+    assert!((0.23..0.28).contains(&x_ac), "x_ac {x_ac}");
+    let points = v["points"].as_array().expect("points array");
+    assert_eq!(points.len(), 3);
+    for (p, alpha) in points.iter().zip([-2.0, 0.0, 4.0]) {
+        approx::assert_relative_eq!(p["alpha_deg"].as_f64().unwrap(), alpha, epsilon = 1e-12);
+        assert!(p["cl"].as_f64().unwrap().is_finite());
+        assert!(p["cm_quarter_chord"].as_f64().unwrap().is_finite());
+    }
+    assert_eq!(v["cautions"][0]["code"], "cl-max-default");
+}
+
+#[test]
+fn methods_and_specs_from_the_command_line() {
+    // Exact Joukowski section, thin theory on a five-digit section, and Karman-Trefftz:
+    // each prints a finite zero-lift angle of the right sign (camber makes it negative).
+    for (args, method) in [
+        (vec!["section", "jouk:12/2", "--json"], "exact"),
+        (
+            vec!["section", "NACA23012", "--method", "thin", "--json"],
+            "thin",
+        ),
+        (
+            vec!["section", "kt:10/3/8", "--json", "--cl-max", "1.2"],
+            "exact",
+        ),
+        (
+            vec![
+                "section",
+                "tests/data/naca2412.dat",
+                "--json",
+                "--panels",
+                "120",
+            ],
+            "panel",
+        ),
+    ] {
+        let (code, stdout, stderr) = run(&args);
+        assert_eq!(code, 0, "{args:?}: {stderr}");
+        let v: Value = serde_json::from_str(&stdout).unwrap();
+        assert_eq!(v["method"], method, "{args:?}");
+        let a0 = v["alpha_zero_lift_deg"].as_f64().unwrap();
+        assert!(a0 < 0.0 && a0 > -10.0, "{args:?}: {a0}");
+    }
+}
+
+#[test]
+fn tables_show_summary_and_angles() {
+    let (code, stdout, stderr) = run(&["section", "naca0012", "--alpha", "0:4:2"]);
+    assert_eq!(code, 0, "{stderr}");
+    assert!(stdout.contains("Zero-lift angle"), "{stdout}");
+    assert!(stdout.contains("alpha (deg)"), "{stdout}");
+    assert!(
+        !stdout.contains("NaN") && !stdout.contains("inf"),
+        "{stdout}"
+    );
+    assert!(stdout.matches("┆").count() > 10, "{stdout}");
+}
+
+#[test]
+fn csv_is_written_with_one_row_per_surface_point() {
+    let dir = std::env::temp_dir().join(format!("trimline-section-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("cp.csv");
+    let p = path.to_str().unwrap();
+    let (code, _, stderr) = run(&["section", "naca2412", "--panels", "80", "--csv", p]);
+    assert_eq!(code, 0, "{stderr}");
+    let text = std::fs::read_to_string(&path).unwrap();
+    let mut lines = text.lines();
+    assert_eq!(lines.next(), Some("x_c,y_c,cp"));
+    assert_eq!(lines.count(), 80);
+    // Only the CSV is left in the folder: the temporary file was renamed.
+    assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 1);
+    std::fs::remove_dir_all(&dir).unwrap();
+}
