@@ -6,7 +6,7 @@ use std::f64::consts::PI;
 use std::hint::black_box;
 
 use criterion::{criterion_group, criterion_main, Criterion};
-use trimline::lifting_line::multi_surface::TrimControl;
+use trimline::lifting_line::TrimControl;
 use trimline::lifting_line::{
     ElevatorEffect, LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput,
 };

@@ -527,6 +527,56 @@ mod tests {
     }
 
     #[test]
+    fn swept_surface_or_missing_section_is_refused() {
+        use crate::model::{AirfoilId, Panel};
+        use crate::section::ClMaxSource;
+        let panel = Panel {
+            span_m: 1.0,
+            root_chord_m: 0.2,
+            tip_chord_m: 0.2,
+            sweep_le_rad: 0.2,
+            dihedral_rad: 0.0,
+            tip_twist_rad: 0.0,
+            root_airfoil: AirfoilId(0),
+            tip_airfoil: AirfoilId(0),
+        };
+        let surface = Surface {
+            name: "wing".into(),
+            root_le_x_m: 0.0,
+            root_le_z_m: 0.0,
+            incidence_rad: 0.0,
+            shape: SurfaceShape::Panels(vec![panel.clone()]),
+        };
+        let section = SectionModel {
+            method: crate::model::SectionMethod::Thin,
+            alpha_zero_lift_rad: 0.0,
+            cl_alpha_per_rad: 2.0 * PI,
+            cm_ac: 0.0,
+            x_ac_c: 0.25,
+            cl_max: 1.0,
+            cl_min: -1.0,
+            cl_max_source: ClMaxSource::Given,
+        };
+        let sections = [section];
+        assert!(matches!(
+            ClassicalWing::from_surface(&surface, &sections),
+            Err(LiftingLineError::SweptQuarterChord { panel: 0, .. })
+        ));
+        let straight = Surface {
+            shape: SurfaceShape::Panels(vec![Panel {
+                sweep_le_rad: 0.0,
+                ..panel
+            }]),
+            ..surface
+        };
+        assert!(matches!(
+            ClassicalWing::from_surface(&straight, &[]),
+            Err(LiftingLineError::MissingSection { index: 0, .. })
+        ));
+        assert!(ClassicalWing::from_surface(&straight, &sections).is_ok());
+    }
+
+    #[test]
     fn bad_inputs_are_errors() {
         let wing = ClassicalWing::new(1.0, |_| ClassicalStation {
             cl_alpha_per_rad: f64::NAN,

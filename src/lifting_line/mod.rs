@@ -6,6 +6,7 @@
 //! - [`vortex`]: Biot-Savart kernels (segment, semi-infinite leg, horseshoe, Trefftz pair).
 //! - [`multi_surface`]: the Phillips-Snyder numerical lifting line for wing and tail (or
 //!   canard) together, factored once per geometry, with unit solutions for fast trim.
+//! - [`superposition`]: trim, neutral point and stall from the unit solutions (microseconds).
 //! - [`results`]: per-surface and total coefficients, the spanwise table and the stall station.
 //!
 //! Inside this module every quantity is SI with angles in radians; circulations are stored
@@ -23,12 +24,14 @@ pub mod classical;
 mod error;
 pub mod multi_surface;
 pub mod results;
+pub mod superposition;
 pub mod vortex;
 
 pub use classical::{ClassicalSolution, ClassicalStation, ClassicalWing};
 pub use error::LiftingLineError;
 pub use multi_surface::{
-    ElevatorEffect, FlightCondition, LiftingLineOptions, LinearCoefficients, MultiSurfaceSystem,
-    Reference, SolveStatus, Station, SurfaceInput, TrimControl, TrimPoint, TrimmedStall,
+    ElevatorEffect, FlightCondition, LiftingLineOptions, MultiSurfaceSystem, Reference,
+    SolveStatus, Station, SurfaceInput,
 };
 pub use results::{LiftingLineResult, StallStation, StationResult, SurfaceResult};
+pub use superposition::{LinearCoefficients, TrimControl, TrimPoint, TrimmedStall};
