@@ -20,6 +20,8 @@ enum Command {
     Check(commands::check::CheckArgs),
     /// Look at one airfoil: zero-lift angle, lift slope, moments, a table over angle of attack.
     Section(commands::section::SectionArgs),
+    /// Write the one-page PDF trim report (A4, or US Letter with --letter).
+    Report(commands::report::ReportArgs),
 }
 
 fn main() -> ExitCode {
@@ -27,6 +29,7 @@ fn main() -> ExitCode {
     let result = match cli.command {
         Command::Check(args) => commands::check::run(&args),
         Command::Section(args) => commands::section::run(&args),
+        Command::Report(args) => commands::report::run(&args),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,

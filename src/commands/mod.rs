@@ -1,4 +1,5 @@
 //! One module per subcommand: argument struct and the glue from arguments to library calls.
 
 pub mod check;
+pub mod report;
 pub mod section;

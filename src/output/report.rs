@@ -1,0 +1,563 @@
+//! The content of the printed trim report as plain data, independent of any page layout:
+//! titles, key figures, the top-view outlines, chart series, the mass list, cautions and the
+//! methods used. `output::pdf` lays this out; a comparison page can reuse the same pieces.
+//!
+//! Nothing here computes aerodynamics: every number comes from [`Analysis`], from the model's
+//! geometry ([`planform::station_at`]) or from re-running the library's closed-form estimate
+//! ([`classical::estimate`]) at other CG positions.
+
+use crate::analysis::Analysis;
+use crate::balance::BallastOutcome;
+use crate::caution::{Caution, Level, SAFETY_MESSAGE};
+use crate::model::{Aircraft, StabiliserRole, Surface};
+use crate::planform;
+use crate::stability::classical::{self, EstimateInput, StabiliserPlace};
+
+/// Where the report's input came from, for its title block.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct ReportSource {
+    /// Input file name as given, or a description of the built-in demo.
+    pub file_name: String,
+    /// Short content hash of the input text ([`content_hash`]).
+    pub content_hash: String,
+    /// Date of the report, ISO 8601 (YYYY-MM-DD).
+    pub date: String,
+}
+
+/// 64-bit FNV-1a hash of `text`, as 16 lower-case hex digits. Identifies the exact input a
+/// printed report was made from; not a security measure.
+///
+/// # References
+/// - G. Fowler, L. C. Noll, K.-P. Vo, D. Eastlake, "The FNV Non-Cryptographic Hash Algorithm",
+///   IETF draft-eastlake-fnv (offset basis 14695981039346656037, prime 1099511628211).
+pub fn content_hash(text: &str) -> String {
+    let mut h: u64 = 0xcbf2_9ce4_8422_2325;
+    for b in text.as_bytes() {
+        h ^= u64::from(*b);
+        h = h.wrapping_mul(0x0000_0100_0000_01b3);
+    }
+    format!("{h:016x}")
+}
+
+/// Format `v` with `decimals`, "n/a" when not finite, never "-0".
+pub fn fmt(v: f64, decimals: usize) -> String {
+    if v.is_finite() {
+        super::tables::num(v, decimals)
+    } else {
+        "n/a".to_string()
+    }
+}
+
+/// One line of the key-figures block.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct KeyFigure {
+    /// What it is ("Static margin").
+    pub label: String,
+    /// Value with its unit, already formatted ("11.8 % MAC"), or "n/a" / "not computed".
+    pub value: String,
+}
+
+/// The chord line of a mean aerodynamic chord in the top view.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct MacLine {
+    /// x of its leading edge, m aft of the datum.
+    pub le_x_m: f64,
+    /// Spanwise position, m from the centre line.
+    pub y_m: f64,
+    /// Length, m.
+    pub chord_m: f64,
+}
+
+/// A closed outline in the aircraft's top view: points (x m aft of the datum, y m to starboard).
+pub type Outline = Vec<(f64, f64)>;
+
+/// Everything needed to draw the aircraft from above, to scale, with its balance marks.
+#[derive(Debug, Clone, PartialEq)]
+pub struct TopView {
+    /// Both halves of the wing.
+    pub wing: Outline,
+    /// Tail or canard, with its name.
+    pub stabiliser: Option<(String, Outline)>,
+    /// A schematic fuselage from its length and greatest width only.
+    pub fuselage: Option<Outline>,
+    /// The wing's MAC (drawn on the starboard half).
+    pub mac: MacLine,
+    /// x of the wing root leading edge, m: the reference the builder measures from.
+    pub root_le_x_m: f64,
+    /// CG from the mass list, m aft of the datum.
+    pub cg_x_m: f64,
+    /// Neutral point, m aft of the datum.
+    pub neutral_point_x_m: f64,
+    /// Recommended CG band (forward, aft), m aft of the datum.
+    pub band_x_m: (f64, f64),
+    /// The CG for the target static margin, when one is set.
+    pub target_x_m: Option<f64>,
+}
+
+/// Local lift coefficient and local section cl_max at one station of the half-span.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SpanPoint {
+    /// Spanwise station 2y/b, 0 at the root, 1 at the tip.
+    pub eta: f64,
+    /// Local lift coefficient.
+    pub cl: f64,
+    /// Local section maximum lift coefficient.
+    pub cl_max: f64,
+}
+
+/// One loading case for the spanwise chart.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SpanCase {
+    /// Legend text ("at trim, CL 0.52").
+    pub label: String,
+    /// Points from root to tip.
+    pub points: Vec<SpanPoint>,
+}
+
+/// Spanwise lift against local cl_max, at trim and near stall.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SpanwiseData {
+    /// How the cl values were obtained, printed under the chart.
+    pub method: String,
+    /// At trim (absent when there is no trim).
+    pub trim: Option<SpanCase>,
+    /// Near stall.
+    pub near_stall: Option<SpanCase>,
+    /// Station where stall begins, 2y/b, when the method can tell.
+    pub stall_onset_eta: Option<f64>,
+}
+
+/// Trim speed at CG positions across (and a little beyond) the recommended band.
+#[derive(Debug, Clone, PartialEq)]
+pub struct TrimSweep {
+    /// (CG mm aft of the wing root leading edge, trim speed m/s or `None` where it does not trim).
+    pub points: Vec<(f64, Option<f64>)>,
+    /// Recommended band, mm aft of the wing root leading edge (forward, aft).
+    pub band_mm: (f64, f64),
+    /// Present CG, mm aft of the wing root leading edge.
+    pub cg_mm: f64,
+    /// Stall speed, m/s.
+    pub stall_speed_m_s: f64,
+    /// How the speeds were obtained.
+    pub method: String,
+}
+
+/// One row of the mass list, formatted.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct MassRow {
+    /// Item name.
+    pub name: String,
+    /// Mass, g.
+    pub mass_g: String,
+    /// x, mm aft of the datum.
+    pub x_mm: String,
+}
+
+/// The whole content of a trim report.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ReportData {
+    /// Aircraft name.
+    pub name: String,
+    /// The builder's notes.
+    pub notes: String,
+    /// What x = 0 is.
+    pub datum: String,
+    /// Input identity.
+    pub source: ReportSource,
+    /// trimline version.
+    pub tool_version: String,
+    /// CG, mm aft of the wing root leading edge (the headline number).
+    pub cg_from_root_le_mm: f64,
+    /// Recommended band, mm aft of the wing root leading edge.
+    pub band_from_root_le_mm: (f64, f64),
+    /// CG for the target static margin, mm aft of the wing root leading edge, with the margin
+    /// in percent.
+    pub target_from_root_le_mm: Option<(f64, f64)>,
+    /// Key figures, in order.
+    pub key_figures: Vec<KeyFigure>,
+    /// Top view.
+    pub top_view: TopView,
+    /// Spanwise chart.
+    pub spanwise: SpanwiseData,
+    /// Trim speed against CG.
+    pub trim_sweep: TrimSweep,
+    /// Mass items, then added ballast, then the total.
+    pub masses: Vec<MassRow>,
+    /// The aircraft's cautions, most serious first (the standing safety caution excluded).
+    pub cautions: Vec<Caution>,
+    /// The standing safety caution.
+    pub safety: String,
+    /// Methods and their sources, one line each.
+    pub methods: Vec<String>,
+}
+
+/// Number of points along the half-span for the spanwise chart.
+const SPAN_POINTS: usize = 41;
+/// Number of CG positions in the trim-speed sweep.
+const SWEEP_POINTS: usize = 41;
+
+/// Build the report content for `aircraft` and its `analysis`.
+pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportData {
+    let root_le = aircraft.wing.root_le_x_m;
+    let to_root_mm = |x_m: f64| (x_m - root_le) * 1000.0;
+    let target = target_static_margin_x(aircraft, a);
+    let mut cautions: Vec<Caution> = a
+        .cautions
+        .iter()
+        .filter(|c| c.message != SAFETY_MESSAGE)
+        .cloned()
+        .collect();
+    cautions.sort_by_key(|c| std::cmp::Reverse(c.level));
+    ReportData {
+        name: aircraft.name.clone(),
+        notes: aircraft.notes.trim().to_string(),
+        datum: aircraft.datum.clone(),
+        source,
+        tool_version: env!("CARGO_PKG_VERSION").to_string(),
+        cg_from_root_le_mm: to_root_mm(a.mass.cg_x_m),
+        band_from_root_le_mm: (to_root_mm(a.band.forward_x_m), to_root_mm(a.band.aft_x_m)),
+        target_from_root_le_mm: target.map(|(x, sm)| (to_root_mm(x), 100.0 * sm)),
+        key_figures: key_figures(aircraft, a),
+        top_view: top_view(aircraft, a, target.map(|t| t.0)),
+        spanwise: strip_spanwise(aircraft, a),
+        trim_sweep: trim_sweep(aircraft, a),
+        masses: mass_rows(aircraft, a),
+        cautions,
+        safety: SAFETY_MESSAGE.to_string(),
+        methods: methods(),
+    }
+}
+
+/// CG for the file's target static margin (m aft of the datum) and that margin (fraction).
+fn target_static_margin_x(aircraft: &Aircraft, a: &Analysis) -> Option<(f64, f64)> {
+    aircraft.targets.static_margin.map(|sm| {
+        (
+            a.classical.neutral_point_x_m - sm * a.wing_geometry.mac_m,
+            sm,
+        )
+    })
+}
+
+fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
+    let kf = |label: &str, value: String| KeyFigure {
+        label: label.to_string(),
+        value,
+    };
+    let g = &a.wing_geometry;
+    let est = &a.classical;
+    let speed = |v: f64| format!("{} m/s ({} km/h)", fmt(v, 1), fmt(v * 3.6, 0));
+    let mut out = vec![
+        kf("Mass", format!("{} g", fmt(a.mass.total_kg * 1000.0, 0))),
+        kf(
+            "Wing area, span",
+            format!(
+                "{} dm\u{b2}, {} mm",
+                fmt(g.area_m2 * 100.0, 1),
+                fmt(g.span_m * 1000.0, 0)
+            ),
+        ),
+        kf(
+            "Wing loading",
+            format!("{} g/dm\u{b2}", fmt(a.wing_loading_kg_m2 * 10.0, 1)),
+        ),
+        kf(
+            "CG",
+            format!(
+                "{} % MAC ({} mm from datum)",
+                fmt(g.percent_mac(a.mass.cg_x_m), 1),
+                fmt(a.mass.cg_x_m * 1000.0, 0)
+            ),
+        ),
+        kf(
+            "Neutral point",
+            format!(
+                "{} % MAC ({} mm from datum)",
+                fmt(g.percent_mac(est.neutral_point_x_m), 1),
+                fmt(est.neutral_point_x_m * 1000.0, 0)
+            ),
+        ),
+        kf(
+            "Static margin",
+            format!("{} % MAC", fmt(100.0 * est.static_margin, 1)),
+        ),
+        kf(
+            "Trim speed",
+            match est.trim {
+                Some(t) => speed(t.speed_m_s),
+                None => "no trim found".to_string(),
+            },
+        ),
+        kf("Stall speed", speed(est.stall_speed_m_s)),
+    ];
+    out.push(kf(
+        "Decalage",
+        match &aircraft.stabiliser {
+            Some(st) => {
+                let (front, back) = match st.role {
+                    StabiliserRole::Tail => (&aircraft.wing, &st.surface),
+                    StabiliserRole::Canard => (&st.surface, &aircraft.wing),
+                };
+                format!(
+                    "{}\u{b0} (front {}\u{b0}, rear {}\u{b0})",
+                    fmt((front.incidence_rad - back.incidence_rad).to_degrees(), 2),
+                    fmt(front.incidence_rad.to_degrees(), 2),
+                    fmt(back.incidence_rad.to_degrees(), 2)
+                )
+            }
+            None => "n/a (tailless)".to_string(),
+        },
+    ));
+    out.push(kf("Ballast needed", ballast_text(aircraft, a)));
+    out.push(kf("Best glide", "not computed yet".to_string()));
+    out.push(kf("Minimum sink", "not computed yet".to_string()));
+    out.push(kf("Reynolds number (MAC)", fmt(a.reynolds_mac, 0)));
+    out
+}
+
+fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
+    let Some(sm) = aircraft.targets.static_margin else {
+        return "no target static margin set".to_string();
+    };
+    if a.ballast.is_empty() {
+        return format!("no ballast bay given (target {} % MAC)", fmt(100.0 * sm, 0));
+    }
+    let parts: Vec<String> = a
+        .ballast
+        .iter()
+        .map(|b| match b.outcome {
+            BallastOutcome::NotNeeded => format!("{}: none", b.bay),
+            BallastOutcome::Reachable { mass_kg } => {
+                format!("{}: {} g", b.bay, fmt(mass_kg * 1000.0, 0))
+            }
+            BallastOutcome::ExceedsBay { needed_kg, max_kg } => format!(
+                "{}: {} g, bay holds {} g",
+                b.bay,
+                fmt(needed_kg * 1000.0, 0),
+                fmt(max_kg * 1000.0, 0)
+            ),
+            BallastOutcome::WrongSide => format!("{}: cannot help", b.bay),
+        })
+        .collect();
+    format!("{} (for {} % MAC)", parts.join("; "), fmt(100.0 * sm, 0))
+}
+
+/// Outline of both halves of `surface` in the top view: leading edge from the port tip to the
+/// starboard tip, trailing edge back.
+pub fn surface_outline(surface: &Surface) -> Outline {
+    let total = planform::half_span_length_m(surface);
+    let mut s_values: Vec<f64> = (0..=64).map(|i| total * f64::from(i) / 64.0).collect();
+    for b in planform::break_points_m(surface) {
+        // Both sides of a join, where the chord may jump.
+        s_values.push(b);
+        s_values.push((b + 1e-9 * total.max(1e-3)).min(total));
+    }
+    s_values.sort_by(f64::total_cmp);
+    s_values.dedup();
+    let stations: Vec<_> = s_values
+        .iter()
+        .map(|&s| planform::station_at(surface, s))
+        .collect();
+    let mut le: Vec<(f64, f64)> = stations.iter().map(|st| (st.x_le_m, st.y_m)).collect();
+    let mut te: Vec<(f64, f64)> = stations
+        .iter()
+        .map(|st| (st.x_le_m + st.chord_m, st.y_m))
+        .collect();
+    // Starboard: root to tip along the leading edge, back along the trailing edge.
+    let mut out: Outline = Vec::new();
+    out.extend(le.iter().rev().map(|&(x, y)| (x, -y)));
+    out.extend(le.drain(..));
+    te.reverse();
+    out.extend(te.iter().copied());
+    out.extend(te.iter().rev().map(|&(x, y)| (x, -y)));
+    out
+}
+
+fn fuselage_outline(f: &crate::model::Fuselage) -> Outline {
+    // Schematic: rounded over the first 8 % of the length, full width to 35 %, then tapering
+    // straight to 35 % of the width at the tail. Only length and greatest width are known.
+    let (x0, l, half) = (f.nose_x_m, f.length_m, 0.5 * f.max_width_m);
+    let mut side: Vec<(f64, f64)> = (0..=8)
+        .map(|i| {
+            let t = f64::from(i) / 8.0;
+            let ang = t * std::f64::consts::FRAC_PI_2;
+            (x0 + 0.08 * l * (1.0 - ang.cos()), half * ang.sin())
+        })
+        .collect();
+    side.push((x0 + 0.35 * l, half));
+    side.push((x0 + l, 0.35 * half));
+    let mut out: Outline = side.clone();
+    out.extend(side.iter().rev().map(|&(x, y)| (x, -y)));
+    out
+}
+
+fn top_view(aircraft: &Aircraft, a: &Analysis, target_x_m: Option<f64>) -> TopView {
+    let g = &a.wing_geometry;
+    TopView {
+        wing: surface_outline(&aircraft.wing),
+        stabiliser: aircraft.stabiliser.as_ref().map(|s| {
+            let name = match s.role {
+                StabiliserRole::Tail => "tail",
+                StabiliserRole::Canard => "canard",
+            };
+            (name.to_string(), surface_outline(&s.surface))
+        }),
+        fuselage: aircraft.fuselage.as_ref().map(fuselage_outline),
+        mac: MacLine {
+            le_x_m: g.mac_le_x_m,
+            y_m: g.mac_y_m,
+            chord_m: g.mac_m,
+        },
+        root_le_x_m: aircraft.wing.root_le_x_m,
+        cg_x_m: a.mass.cg_x_m,
+        neutral_point_x_m: a.classical.neutral_point_x_m,
+        band_x_m: (a.band.forward_x_m, a.band.aft_x_m),
+        target_x_m,
+    }
+}
+
+/// The spanwise chart fed from the strip estimate: local section cl_max along the span from
+/// the wing's airfoils, and a uniform cl equal to the aircraft CL at trim and at CL_max. This
+/// is a stand-in until the lifting-line loading is available; it cannot say where stall
+/// begins, so `stall_onset_eta` is `None`.
+pub fn strip_spanwise(aircraft: &Aircraft, a: &Analysis) -> SpanwiseData {
+    let wing = &aircraft.wing;
+    let total = planform::half_span_length_m(wing);
+    let half_b = 0.5 * a.wing_geometry.span_m;
+    let stations: Vec<(f64, f64)> = (0..SPAN_POINTS)
+        .map(|i| {
+            let s = total * i as f64 / (SPAN_POINTS - 1) as f64;
+            let st = planform::station_at(wing, s);
+            let sec = classical::section_at(&a.sections, &st);
+            let eta = if half_b > 0.0 { st.y_m / half_b } else { 0.0 };
+            (eta, sec.cl_max)
+        })
+        .collect();
+    let case = |label: String, cl: f64| SpanCase {
+        label,
+        points: stations
+            .iter()
+            .map(|&(eta, cl_max)| SpanPoint { eta, cl, cl_max })
+            .collect(),
+    };
+    let est = &a.classical;
+    SpanwiseData {
+        method: "Strip estimate: uniform cl equal to the aircraft CL (no spanwise loading model \
+                 yet), so the stall station is not predicted."
+            .to_string(),
+        trim: est
+            .trim
+            .map(|t| case(format!("at trim, CL {}", fmt(t.cl, 2)), t.cl)),
+        near_stall: Some(case(
+            format!("near stall, CL max {}", fmt(est.cl_max, 2)),
+            est.cl_max,
+        )),
+        stall_onset_eta: None,
+    }
+}
+
+/// Trim speed against CG position: the closed-form estimate re-run with the CG moved across
+/// the recommended band (extended by a quarter of its width each side, and to the present CG).
+pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
+    let root_le = aircraft.wing.root_le_x_m;
+    let (fwd, aft) = (a.band.forward_x_m, a.band.aft_x_m);
+    let width = (aft - fwd).abs().max(1e-3);
+    let lo = (fwd - 0.25 * width).min(a.mass.cg_x_m - 0.05 * width);
+    let hi = (aft + 0.25 * width).max(a.mass.cg_x_m + 0.05 * width);
+    let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
+        StabiliserRole::Tail => StabiliserPlace::Tail,
+        StabiliserRole::Canard => StabiliserPlace::Canard,
+    });
+    let points = (0..SWEEP_POINTS)
+        .map(|i| {
+            let x = lo + (hi - lo) * i as f64 / (SWEEP_POINTS - 1) as f64;
+            let est = classical::estimate(&EstimateInput {
+                wing: &a.wing,
+                stabiliser: a.stabiliser.as_ref().zip(place),
+                mass_kg: a.mass.total_kg,
+                cg_x_m: x,
+                density_kg_m3: a.air.density_kg_m3,
+            });
+            let v = est.trim.map(|t| t.speed_m_s).filter(|v| v.is_finite());
+            ((x - root_le) * 1000.0, v)
+        })
+        .collect();
+    TrimSweep {
+        points,
+        band_mm: ((fwd - root_le) * 1000.0, (aft - root_le) * 1000.0),
+        cg_mm: (a.mass.cg_x_m - root_le) * 1000.0,
+        stall_speed_m_s: a.classical.stall_speed_m_s,
+        method: "Closed-form estimate re-run at each CG position, same mass and incidences."
+            .to_string(),
+    }
+}
+
+fn mass_rows(aircraft: &Aircraft, a: &Analysis) -> Vec<MassRow> {
+    let mut rows: Vec<MassRow> = aircraft
+        .masses
+        .iter()
+        .map(|m| MassRow {
+            name: m.name.clone(),
+            mass_g: fmt(m.mass_kg * 1000.0, 0),
+            x_mm: fmt(m.x_m * 1000.0, 0),
+        })
+        .collect();
+    rows.push(MassRow {
+        name: "Total, CG".to_string(),
+        mass_g: fmt(a.mass.total_kg * 1000.0, 0),
+        x_mm: fmt(a.mass.cg_x_m * 1000.0, 0),
+    });
+    for b in &a.ballast {
+        if let BallastOutcome::Reachable { mass_kg } = b.outcome {
+            let bay = aircraft.ballast_bays.iter().find(|bay| bay.name == b.bay);
+            rows.push(MassRow {
+                name: format!("+ ballast in {} (to target)", b.bay),
+                mass_g: fmt(mass_kg * 1000.0, 0),
+                x_mm: bay
+                    .map(|bay| fmt(bay.x_m * 1000.0, 0))
+                    .unwrap_or_else(|| "n/a".to_string()),
+            });
+        }
+    }
+    rows
+}
+
+fn methods() -> Vec<String> {
+    [
+        "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3).",
+        "Lift slope: Helmbold's equation (Helmbold, Jahrbuch der Deutschen Luftfahrtforschung, 1942); downwash 2CL/(pi A), neutral point and static margin (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, 2nd ed., ch. 8-9; Etkin and Reid, Dynamics of Flight, 3rd ed., sec. 2.3-2.4).",
+        "Trim from Cm = 0 about the CG; stall speed from W = 1/2 rho V\u{b2} S CLmax with CLmax = 0.9 x mean section cl max (Anderson, Introduction to Flight, ch. 5 and 7). Air: ISA (US Standard Atmosphere, 1976).",
+    ]
+    .iter()
+    .map(|s| s.to_string())
+    .collect()
+}
+
+/// Lower-case name of a caution level, as printed in the cautions box.
+pub fn level_name(level: Level) -> &'static str {
+    match level {
+        Level::Danger => "DANGER",
+        Level::Warning => "Warning",
+        Level::Note => "Note",
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    // FNV-1a 64 test vectors from the FNV reference (draft-eastlake-fnv, test suite):
+    // "" -> cbf29ce484222325, "a" -> af63dc4c8601ec8c, "foobar" -> 85944171f73967e8.
+    #[test]
+    fn fnv1a_matches_the_reference_vectors() {
+        assert_eq!(content_hash(""), "cbf29ce484222325");
+        assert_eq!(content_hash("a"), "af63dc4c8601ec8c");
+        assert_eq!(content_hash("foobar"), "85944171f73967e8");
+    }
+
+    #[test]
+    fn non_finite_numbers_print_as_not_available() {
+        assert_eq!(fmt(f64::NAN, 1), "n/a");
+        assert_eq!(fmt(f64::INFINITY, 0), "n/a");
+        assert_eq!(fmt(-0.01, 1), "0.0");
+    }
+}
