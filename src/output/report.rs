@@ -365,7 +365,7 @@ pub fn surface_outline(surface: &Surface) -> Outline {
     // Starboard: root to tip along the leading edge, back along the trailing edge.
     let mut out: Outline = Vec::new();
     out.extend(le.iter().rev().map(|&(x, y)| (x, -y)));
-    out.extend(le.drain(..));
+    out.append(&mut le);
     te.reverse();
     out.extend(te.iter().copied());
     out.extend(te.iter().rev().map(|&(x, y)| (x, -y)));

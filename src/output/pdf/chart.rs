@@ -263,7 +263,7 @@ impl Axes {
                 }
             }
         }
-        (t0 <= t1).then(|| {
+        (t0 <= t1).then_some({
             (
                 (a.0 + t0 * dx, a.1 + t0 * dy),
                 (a.0 + t1 * dx, a.1 + t1 * dy),
@@ -342,7 +342,7 @@ mod tests {
         assert!(a.min <= 0.13 && a.max >= 1.17);
         assert_relative_eq!(a.step, 0.25, epsilon = 1e-12);
         assert_eq!(a.decimals, 2);
-        let b = Axis::nice(58.0, 91.0, 6, "mm");
+        let b = Axis::nice(58.0, 91.0, 7, "mm");
         assert_relative_eq!(b.step, 5.0, epsilon = 1e-12);
         assert_relative_eq!(b.min, 55.0, epsilon = 1e-9);
         assert_relative_eq!(b.max, 95.0, epsilon = 1e-9);

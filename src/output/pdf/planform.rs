@@ -185,6 +185,9 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     let gap = LABEL_BOLD.line_height_mm();
     let ideal: Vec<f64> = marks.iter().map(|mk| page((mk.x_m, 0.0)).1).collect();
     let mut placed = ideal.clone();
+    if let Some(p0) = placed.first_mut() {
+        *p0 = p0.min(area.top() - CAPTION.line_height_mm() - gap);
+    }
     for i in 1..placed.len() {
         placed[i] = placed[i].min(placed[i - 1] - gap);
     }
@@ -201,7 +204,7 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     if let Some(&first) = placed.first() {
         c.text_grey(
             col_right,
-            (first + gap).min(area.top() - CAPTION.cap_height_mm()),
+            first + gap,
             "mm aft of root LE",
             CAPTION,
             Align::Right,
