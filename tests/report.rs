@@ -238,3 +238,45 @@ fn command_with_a_bad_file_fails_and_keeps_the_old_report() {
         .collect();
     assert_eq!(names.len(), 2, "stray files: {names:?}");
 }
+
+/// Golden file: the demo page's text as lopdf extracts it, one line per text run, compared
+/// with `tests/data/report-larkspire-2000.expected`. Refresh after an intended change with
+/// `UPDATE_EXPECT=1 cargo test --test report`.
+#[test]
+fn demo_page_text_matches_the_golden_file() {
+    let bytes = report_pdf(&demo(), source(), Paper::A4).unwrap();
+    let doc = lopdf::Document::load_mem(&bytes).unwrap();
+    let got: String = doc
+        .extract_text(&[1])
+        .unwrap()
+        .lines()
+        .map(str::trim_end)
+        .filter(|l| !l.is_empty())
+        .map(|l| format!("{l}\n"))
+        .collect();
+    let path =
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/data/report-larkspire-2000.expected");
+    if std::env::var_os("UPDATE_EXPECT").is_some() {
+        std::fs::write(&path, &got).unwrap();
+        return;
+    }
+    let want = std::fs::read_to_string(&path).unwrap_or_default();
+    if want != got {
+        let mut diff = String::new();
+        for (i, (w, g)) in want.lines().zip(got.lines()).enumerate() {
+            if w != g {
+                diff.push_str(&format!(
+                    "line {}:\n  expected: {w}\n  got:      {g}\n",
+                    i + 1
+                ));
+            }
+        }
+        panic!(
+            "report text differs from {} ({} expected lines, {} got):\n{diff}\
+             Run with UPDATE_EXPECT=1 to accept.",
+            path.display(),
+            want.lines().count(),
+            got.lines().count()
+        );
+    }
+}

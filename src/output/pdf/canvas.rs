@@ -127,10 +127,33 @@ pub enum Marker {
     Cross,
 }
 
-/// A page being drawn: a list of printpdf operations.
+/// Where a piece of text was put: its box from the descender to the cap height, mm.
+#[derive(Debug, Clone, PartialEq)]
+pub struct TextBox {
+    /// Left, bottom, right, top, mm.
+    pub rect: [f64; 4],
+    /// The text.
+    pub text: String,
+}
+
+impl TextBox {
+    /// Whether two boxes overlap by more than `tolerance_mm` in both directions.
+    pub fn overlaps(&self, other: &TextBox, tolerance_mm: f64) -> bool {
+        let [a0, b0, a1, b1] = self.rect;
+        let [c0, d0, c1, d1] = other.rect;
+        a0 + tolerance_mm < c1
+            && c0 + tolerance_mm < a1
+            && b0 + tolerance_mm < d1
+            && d0 + tolerance_mm < b1
+    }
+}
+
+/// A page being drawn: a list of printpdf operations, and the boxes of the text placed so
+/// far (for layout checks).
 #[derive(Debug, Default)]
 pub struct Canvas {
     ops: Vec<Op>,
+    texts: Vec<TextBox>,
 }
 
 fn pt(p: P) -> Point {
@@ -171,6 +194,11 @@ impl Canvas {
     /// The operations drawn so far.
     pub fn into_ops(self) -> Vec<Op> {
         self.ops
+    }
+
+    /// The boxes of every text drawn so far.
+    pub fn text_boxes(&self) -> &[TextBox] {
+        &self.texts
     }
 
     fn set_pen(&mut self, pen: Pen) {
@@ -288,6 +316,12 @@ impl Canvas {
             Align::Centre => x - 0.5 * w,
             Align::Right => x - w,
         };
+        // Helvetica descender 207/1000 em below the baseline.
+        let descent = 0.207 * font.size_pt * super::MM_PER_PT;
+        self.texts.push(TextBox {
+            rect: [x0, y - descent, x0 + w, y + font.cap_height_mm()],
+            text: text.to_string(),
+        });
         let builtin = match font.face {
             Face::Regular => BuiltinFont::Helvetica,
             Face::Bold => BuiltinFont::HelveticaBold,

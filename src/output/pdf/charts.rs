@@ -30,7 +30,9 @@ fn chart_frame(
         Align::Left,
     );
     let left = area.x + Axes::y_label_width(&y) + 2.0;
-    let width = area.right() - left - 1.0;
+    // Room on the right for half of the last x tick label.
+    let last_x = x.label(x.max);
+    let width = area.right() - left - (0.5 * TICK_FONT.width_mm(&last_x) + 0.3).max(1.0);
     let note_lines = metrics::wrap(note, Face::Regular, NOTE.size_pt, area.w);
     let legend_h = chart::legend_height(area.w, legend);
     let bottom_stack = TICK_FONT.line_height_mm()
@@ -234,6 +236,15 @@ pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
     }
     if !line.iter().any(Option::is_some) {
         let f = axes.frame;
+        let msg_w = TITLE_FONT.width_mm("no trimmed flight in this CG range") + 3.0;
+        c.rect(
+            f.x + 0.5 * (f.w - msg_w),
+            f.y + 0.5 * f.h - 1.5,
+            msg_w,
+            TITLE_FONT.cap_height_mm() + 3.0,
+            Some(1.0),
+            Some(Pen::solid(0.4)),
+        );
         c.text(
             f.x + 0.5 * f.w,
             f.y + 0.5 * f.h,

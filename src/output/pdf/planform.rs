@@ -22,6 +22,7 @@ struct Mark {
     x_m: f64,
     text: String,
     font: Font,
+    is_root: bool,
 }
 
 /// Draw `view` inside `area`. Returns the scale denominator N (drawing is 1:N).
@@ -32,26 +33,31 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
             x_m: view.root_le_x_m,
             text: "wing root LE: 0".to_string(),
             font: LABEL,
+            is_root: true,
         },
         Mark {
             x_m: view.band_x_m.0,
             text: format!("forward limit {}", fmt(mm(view.band_x_m.0), 0)),
             font: LABEL,
+            is_root: false,
         },
         Mark {
             x_m: view.band_x_m.1,
             text: format!("aft limit {}", fmt(mm(view.band_x_m.1), 0)),
             font: LABEL,
+            is_root: false,
         },
         Mark {
             x_m: view.neutral_point_x_m,
             text: format!("neutral point {}", fmt(mm(view.neutral_point_x_m), 0)),
             font: LABEL,
+            is_root: false,
         },
         Mark {
             x_m: view.cg_x_m,
             text: format!("CG {}", fmt(mm(view.cg_x_m), 0)),
             font: LABEL_BOLD,
+            is_root: false,
         },
     ];
     if let Some(t) = view.target_x_m {
@@ -59,6 +65,7 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
             x_m: t,
             text: format!("target CG {}", fmt(mm(t), 0)),
             font: LABEL,
+            is_root: false,
         });
     }
     marks.retain(|m| m.x_m.is_finite());
@@ -173,13 +180,19 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     c.line(a, b, Pen::solid(1.6));
     c.line((a.0 - 1.2, a.1), (a.0 + 1.2, a.1), Pen::solid(0.8));
     c.line((b.0 - 1.2, b.1), (b.0 + 1.2, b.1), Pen::solid(0.8));
-    c.text(
-        a.0 + 1.5,
-        0.5 * (a.1 + b.1) - 0.5 * LABEL.cap_height_mm(),
-        &format!("MAC {} mm", fmt(m.chord_m * 1000.0, 0)),
-        Font::regular(6.5),
-        Align::Left,
+    // On a white ground so it stays legible where it crosses the outline.
+    let mac_font = Font::regular(6.5);
+    let mac_text = format!("MAC {} mm", fmt(m.chord_m * 1000.0, 0));
+    let mac_base = 0.5 * (a.1 + b.1) - 0.5 * mac_font.cap_height_mm();
+    c.rect(
+        a.0 + 1.0,
+        mac_base - 0.6,
+        mac_font.width_mm(&mac_text) + 1.0,
+        mac_font.cap_height_mm() + 1.2,
+        Some(1.0),
+        None,
     );
+    c.text(a.0 + 1.5, mac_base, &mac_text, mac_font, Align::Left);
 
     // Leader labels, spread apart vertically so none overlap.
     let gap = LABEL_BOLD.line_height_mm();
@@ -213,6 +226,8 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     }
     let port_end = cx - w_mark;
     for ((mk, &y_ideal), &y_label) in marks.iter().zip(&ideal).zip(&placed) {
+        // The root leading edge is a point on the centre line; the others are mark lines.
+        let end = if mk.is_root { cx } else { port_end };
         c.text(
             col_right,
             y_label - 0.5 * mk.font.cap_height_mm(),
@@ -225,8 +240,8 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
             &[
                 (col_right + 0.8, y_label),
                 (col_right + 2.5, y_label),
-                (port_end - 2.0, y_ideal),
-                (port_end, y_ideal),
+                (end - 2.0, y_ideal),
+                (end, y_ideal),
             ],
             leader,
         );

@@ -147,7 +147,7 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
     let h = pad
         + HEAD.line_height_mm()
         + big.cap_height_mm()
-        + 2.5
+        + 4.0
         + lines.iter().map(|l| l.1.line_height_mm()).sum::<f64>()
         + pad;
     c.rect(x, top - h, w, h, Some(1.0), Some(Pen::solid(1.4)));
@@ -161,7 +161,7 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
         big,
         Align::Centre,
     );
-    y -= 0.8;
+    y -= 2.0;
     for (text, font) in &lines {
         y -= font.line_height_mm();
         c.text(x + 0.5 * w, y, text, *font, Align::Centre);
@@ -316,4 +316,93 @@ fn footer(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64, paint: bool)
         }
     }
     h
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::analysis::{analyse, AnalysisOptions};
+    use crate::caution::{Caution, Level};
+    use crate::output::report::{self, ReportSource};
+
+    fn data(path: &str) -> ReportData {
+        let file = format!("{}/aircraft/{path}", env!("CARGO_MANIFEST_DIR"));
+        let text = std::fs::read_to_string(&file).unwrap();
+        let aircraft = crate::input::parse_aircraft(&text, &file, None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        report::build(
+            &aircraft,
+            &a,
+            ReportSource {
+                file_name: path.to_string(),
+                content_hash: report::content_hash(&text),
+                date: "2026-01-02".to_string(),
+            },
+        )
+    }
+
+    /// No two pieces of text overlap, and all text lies inside the page margins.
+    fn assert_clean_layout(d: &ReportData, paper: Paper) {
+        let c = draw(d, paper);
+        let (w, h) = paper.size_mm();
+        let boxes = c.text_boxes();
+        for (i, a) in boxes.iter().enumerate() {
+            let [x0, y0, x1, y1] = a.rect;
+            assert!(
+                x0 >= MARGIN - 0.5
+                    && x1 <= w - MARGIN + 0.5
+                    && y0 >= MARGIN - 0.5
+                    && y1 <= h - MARGIN + 0.5,
+                "{:?} runs off the page area ({paper:?})",
+                a
+            );
+            for b in &boxes[i + 1..] {
+                assert!(!a.overlaps(b, 0.05), "{a:?} overlaps {b:?} ({paper:?})");
+            }
+        }
+    }
+
+    #[test]
+    fn example_pages_have_no_overlapping_text() {
+        for f in [
+            "larkspire-2000.toml",
+            "wrenfield-1400.toml",
+            "skerrywing-900.toml",
+        ] {
+            let d = data(f);
+            assert_clean_layout(&d, Paper::A4);
+            assert_clean_layout(&d, Paper::Letter);
+        }
+    }
+
+    // A crowded page: long names, many mass items and cautions, a long datum.
+    #[test]
+    fn a_crowded_page_still_has_no_overlapping_text() {
+        let mut d = data("larkspire-2000.toml");
+        d.name = "Larkspire 2000 with a rather long name for a model".to_string();
+        d.datum = "the front face of the motor firewall, measured along the fuselage datum line"
+            .to_string();
+        for i in 0..8 {
+            d.masses.insert(
+                0,
+                report::MassRow {
+                    name: format!("extra item number {i} with a long description"),
+                    mass_g: "1234".to_string(),
+                    x_mm: "-1234".to_string(),
+                },
+            );
+            d.cautions.push(Caution::new(
+                Level::Warning,
+                "test",
+                "A long caution that needs several lines of the box to print in full, so the \
+                 layout must make room for it without running into the charts above.",
+            ));
+        }
+        assert_clean_layout(&d, Paper::A4);
+        assert_clean_layout(&d, Paper::Letter);
+        if let Ok(dir) = std::env::var("DUMP_CROWDED") {
+            let bytes = crate::output::pdf::trim_report(&d, Paper::A4);
+            std::fs::write(format!("{dir}/crowded.pdf"), bytes).unwrap();
+        }
+    }
 }
