@@ -9,7 +9,7 @@
 use crate::analysis::Analysis;
 use crate::balance::BallastOutcome;
 use crate::caution::{Caution, Level, SAFETY_MESSAGE};
-use crate::model::{Aircraft, StabiliserRole, Surface};
+use crate::model::{Aircraft, SectionMethod, StabiliserRole, Surface};
 use crate::planform;
 use crate::stability::classical::{self, EstimateInput, StabiliserPlace};
 
@@ -224,7 +224,7 @@ pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportD
         masses: mass_rows(aircraft, a),
         cautions,
         safety: SAFETY_MESSAGE.to_string(),
-        methods: methods(),
+        methods: methods(a),
     }
 }
 
@@ -293,12 +293,13 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
         "Decalage",
         match &aircraft.stabiliser {
             Some(st) => {
-                let (front, back) = match st.role {
-                    StabiliserRole::Tail => (&aircraft.wing, &st.surface),
-                    StabiliserRole::Canard => (&st.surface, &aircraft.wing),
+                // Front surface minus rear surface incidence.
+                let (front, back, front_name, back_name) = match st.role {
+                    StabiliserRole::Tail => (&aircraft.wing, &st.surface, "wing", "tail"),
+                    StabiliserRole::Canard => (&st.surface, &aircraft.wing, "canard", "wing"),
                 };
                 format!(
-                    "{}\u{b0} (front {}\u{b0}, rear {}\u{b0})",
+                    "{}\u{b0} ({front_name} {}\u{b0}, {back_name} {}\u{b0})",
                     fmt((front.incidence_rad - back.incidence_rad).to_degrees(), 2),
                     fmt(front.incidence_rad.to_degrees(), 2),
                     fmt(back.incidence_rad.to_degrees(), 2)
@@ -446,9 +447,9 @@ pub fn strip_spanwise(aircraft: &Aircraft, a: &Analysis) -> SpanwiseData {
             .to_string(),
         trim: est
             .trim
-            .map(|t| case(format!("at trim, CL {}", fmt(t.cl, 2)), t.cl)),
+            .map(|t| case(format!("strip estimate at trim, CL {}", fmt(t.cl, 2)), t.cl)),
         near_stall: Some(case(
-            format!("near stall, CL max {}", fmt(est.cl_max, 2)),
+            format!("strip estimate near stall, CL max {}", fmt(est.cl_max, 2)),
             est.cl_max,
         )),
         stall_onset_eta: None,
@@ -521,18 +522,37 @@ fn mass_rows(aircraft: &Aircraft, a: &Analysis) -> Vec<MassRow> {
     rows
 }
 
-fn methods() -> Vec<String> {
-    [
+fn methods(a: &Analysis) -> Vec<String> {
+    let mut used: Vec<SectionMethod> = a.sections.iter().map(|s| s.method).collect();
+    used.sort_by_key(|m| m.as_str());
+    used.dedup();
+    let sections: Vec<&str> = used
+        .iter()
+        .map(|m| match m {
+            SectionMethod::Exact => "exact conformal mapping (Milne-Thomson, Theoretical Aerodynamics)",
+            SectionMethod::Thin => {
+                "thin-airfoil theory (Abbott and von Doenhoff, Theory of Wing Sections, 1959, ch. 4)"
+            }
+            SectionMethod::Panel => {
+                "linear-strength vortex panels (Katz and Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001)"
+            }
+        })
+        .collect();
+    let mut out = vec![format!(
+        "Airfoil sections: {}; section cl max as given in the file or a default.",
+        sections.join("; ")
+    )];
+    out.extend([
         "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3).",
         "Lift slope: Helmbold's equation (Helmbold, Jahrbuch der Deutschen Luftfahrtforschung, 1942); downwash 2CL/(pi A), neutral point and static margin (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, 2nd ed., ch. 8-9; Etkin and Reid, Dynamics of Flight, 3rd ed., sec. 2.3-2.4).",
         "Trim from Cm = 0 about the CG; stall speed from W = 1/2 rho V\u{b2} S CLmax with CLmax = 0.9 x mean section cl max (Anderson, Introduction to Flight, ch. 5 and 7). Air: ISA (US Standard Atmosphere, 1976).",
     ]
     .iter()
-    .map(|s| s.to_string())
-    .collect()
+    .map(|s| s.to_string()));
+    out
 }
 
-/// Lower-case name of a caution level, as printed in the cautions box.
+/// Name of a caution level as the cautions box prints it (danger in capitals).
 pub fn level_name(level: Level) -> &'static str {
     match level {
         Level::Danger => "DANGER",

@@ -289,3 +289,84 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     );
     n
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::analysis::{analyse, AnalysisOptions};
+    use crate::output::report::{self, ReportSource};
+    use approx::assert_relative_eq;
+    use printpdf::{Mm, Op};
+
+    /// Page polygons (in mm) drawn by the top view, in drawing order.
+    fn polygons(c: Canvas) -> Vec<Vec<(f64, f64)>> {
+        c.into_ops()
+            .into_iter()
+            .filter_map(|op| match op {
+                Op::DrawPolygon { polygon } => Some(
+                    polygon.rings[0]
+                        .points
+                        .iter()
+                        .map(|lp| (f64::from(Mm::from(lp.p.x).0), f64::from(Mm::from(lp.p.y).0)))
+                        .collect(),
+                ),
+                _ => None,
+            })
+            .collect()
+    }
+
+    // The demo has a fuselage, a wing and a tail: the wing polygon must be exactly the span
+    // at the stated scale wide, and the tail must lie below the wing (nose up).
+    #[test]
+    fn demo_top_view_is_to_scale_and_nose_up() {
+        let text = include_str!("../../../aircraft/larkspire-2000.toml");
+        let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        let d = report::build(
+            &aircraft,
+            &a,
+            ReportSource {
+                file_name: "demo".into(),
+                content_hash: String::new(),
+                date: String::new(),
+            },
+        );
+        let mut c = Canvas::new();
+        let area = Frame {
+            x: 10.0,
+            y: 100.0,
+            w: 190.0,
+            h: 110.0,
+        };
+        let n = top_view(&mut c, area, &d.top_view);
+        assert!(n.is_finite() && n >= 1.0);
+        let polys = polygons(c);
+        // Drawing order: fuselage, wing, tail.
+        let extent = |p: &Vec<(f64, f64)>| {
+            let xs = p.iter().map(|q| q.0);
+            let ys = p.iter().map(|q| q.1);
+            (
+                xs.clone().fold(f64::INFINITY, f64::min),
+                xs.fold(f64::NEG_INFINITY, f64::max),
+                ys.clone().fold(f64::INFINITY, f64::min),
+                ys.fold(f64::NEG_INFINITY, f64::max),
+            )
+        };
+        let (fx0, fx1, fy0, fy1) = extent(&polys[0]);
+        let (wx0, wx1, wy0, wy1) = extent(&polys[1]);
+        let (_, _, _, ty1) = extent(&polys[2]);
+        // printpdf stores points as f32 pt: allow 0.01 mm.
+        assert_relative_eq!(
+            wx1 - wx0,
+            a.wing_geometry.span_m * 1000.0 / n,
+            epsilon = 0.01
+        );
+        let fus = aircraft.fuselage.as_ref().unwrap();
+        assert_relative_eq!(fx1 - fx0, fus.max_width_m * 1000.0 / n, epsilon = 0.01);
+        assert_relative_eq!(fy1 - fy0, fus.length_m * 1000.0 / n, epsilon = 0.01);
+        assert!(ty1 < wy0, "tail not below the wing: nose is not up");
+        assert!(fy1 > wy1, "the nose must be above the wing");
+        // The wing's vertical extent is at least its root chord at the same scale.
+        assert!(wy1 - wy0 >= a.wing_geometry.root_chord_m * 1000.0 / n - 0.01);
+    }
+}

@@ -400,9 +400,5 @@ mod tests {
         }
         assert_clean_layout(&d, Paper::A4);
         assert_clean_layout(&d, Paper::Letter);
-        if let Ok(dir) = std::env::var("DUMP_CROWDED") {
-            let bytes = crate::output::pdf::trim_report(&d, Paper::A4);
-            std::fs::write(format!("{dir}/crowded.pdf"), bytes).unwrap();
-        }
     }
 }
