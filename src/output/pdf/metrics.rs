@@ -105,6 +105,34 @@ pub fn wrap(text: &str, face: Face, size_pt: f64, width_mm: f64) -> Vec<String> 
     lines
 }
 
+/// `text` if it fits in `width_mm`; otherwise `text` with characters removed from its end
+/// (`middle` false) or its middle (`middle` true, to keep both ends of a file name) and "..."
+/// put in their place, so it fits.
+pub fn shorten(text: &str, face: Face, size_pt: f64, width_mm: f64, middle: bool) -> String {
+    if text_width_mm(text, face, size_pt) <= width_mm {
+        return text.to_string();
+    }
+    let chars: Vec<char> = text.chars().collect();
+    for keep in (0..chars.len()).rev() {
+        let candidate: String = if middle {
+            let head = keep.div_ceil(2);
+            let tail = keep - head;
+            let mut s: String = chars[..head].iter().collect();
+            s.push_str("...");
+            s.extend(&chars[chars.len() - tail..]);
+            s
+        } else {
+            let mut s: String = chars[..keep].iter().collect();
+            s.push_str("...");
+            s
+        };
+        if text_width_mm(&candidate, face, size_pt) <= width_mm {
+            return candidate;
+        }
+    }
+    String::new()
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -120,6 +148,17 @@ mod tests {
             epsilon = 1e-9
         );
         assert!(text_width_mm("m", Face::Bold, 10.0) > text_width_mm("m", Face::Regular, 10.0));
+    }
+
+    #[test]
+    fn shortened_text_fits_and_keeps_its_ends() {
+        let name = "a-very-long-aircraft-file-name-for-the-winter-project.toml";
+        let s = shorten(name, Face::Regular, 7.0, 30.0, true);
+        assert!(text_width_mm(&s, Face::Regular, 7.0) <= 30.0);
+        assert!(s.starts_with("a-very") && s.ends_with(".toml") && s.contains("..."));
+        let e = shorten(name, Face::Bold, 7.0, 30.0, false);
+        assert!(e.starts_with("a-very") && e.ends_with("..."));
+        assert_eq!(shorten("short", Face::Regular, 7.0, 30.0, true), "short");
     }
 
     #[test]

@@ -92,29 +92,49 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
 
 /// Title, notes, and the input's identity at the right. Returns the y below the rule.
 fn title_block(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 {
-    let title = Font::bold(16.0);
-    c.text(x, top - title.cap_height_mm(), &d.name, title, Align::Left);
-    let right = [
+    let info = Font::regular(6.5);
+    let right_max = 0.45 * w;
+    let right: Vec<String> = [
         format!("Trim report, {}", d.source.date),
         format!("Input: {}", d.source.file_name),
         format!("Input hash (FNV-1a 64): {}", d.source.content_hash),
         format!("trimline {}", d.tool_version),
-    ];
-    let info = Font::regular(6.5);
+    ]
+    .iter()
+    .map(|l| metrics::shorten(l, Face::Regular, info.size_pt, right_max, true))
+    .collect();
+    let right_w = right.iter().map(|l| info.width_mm(l)).fold(0.0, f64::max);
+    let left_w = w - right_w - 6.0;
+    // The name at 16 pt, smaller (down to 10 pt) when it is long, shortened as a last resort.
+    let wide = Font::bold(16.0).width_mm(&d.name);
+    let size = if wide > left_w {
+        (16.0 * left_w / wide).max(10.0)
+    } else {
+        16.0
+    };
+    let title = Font::bold(size);
+    let name = metrics::shorten(&d.name, Face::Bold, size, left_w, false);
+    c.text(x, top - title.cap_height_mm(), &name, title, Align::Left);
     let mut y = top - info.cap_height_mm();
-    let mut right_w: f64 = 0.0;
     for line in &right {
         c.text(x + w, y, line, info, Align::Right);
-        right_w = right_w.max(info.width_mm(line));
         y -= info.line_height_mm();
     }
-    let left_w = w - right_w - 6.0;
-    let mut ly = top - title.line_height_mm() - 1.5;
-    for l in metrics::wrap(&d.notes, Face::Regular, BODY.size_pt, left_w)
-        .iter()
-        .take(2)
-    {
-        c.text(x, ly, l, BODY, Align::Left);
+    let mut ly = top - Font::bold(16.0).line_height_mm() - 1.5;
+    let notes = metrics::wrap(&d.notes, Face::Regular, BODY.size_pt, left_w);
+    for (i, l) in notes.iter().take(2).enumerate() {
+        let line = if i == 1 && notes.len() > 2 {
+            metrics::shorten(
+                &format!("{l} ..."),
+                Face::Regular,
+                BODY.size_pt,
+                left_w,
+                false,
+            )
+        } else {
+            l.clone()
+        };
+        c.text(x, ly, &line, BODY, Align::Left);
         ly -= BODY.line_height_mm();
     }
     let bottom = ly.min(y) + 0.5;
@@ -379,7 +399,11 @@ mod tests {
     #[test]
     fn a_crowded_page_still_has_no_overlapping_text() {
         let mut d = data("larkspire-2000.toml");
-        d.name = "Larkspire 2000 with a rather long name for a model".to_string();
+        d.name =
+            "Larkspire 2000 with a rather long name for a model, too long for one line at 16 pt"
+                .to_string();
+        d.notes = "Notes that go on and on. ".repeat(20);
+        d.source.file_name = format!("{}.toml", "very-long-file-name-".repeat(8));
         d.datum = "the front face of the motor firewall, measured along the fuselage datum line"
             .to_string();
         for i in 0..8 {
