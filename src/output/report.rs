@@ -456,29 +456,50 @@ pub fn strip_spanwise(aircraft: &Aircraft, a: &Analysis) -> SpanwiseData {
     }
 }
 
-/// Trim speed against CG position: the closed-form estimate re-run with the CG moved across
-/// the recommended band (extended by a quarter of its width each side, and to the present CG).
+/// Trim speed against CG position from the closed-form estimate, re-run with the CG moved
+/// across the recommended band ([`trim_sweep_with`] gives the range).
 pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
+    let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
+        StabiliserRole::Tail => StabiliserPlace::Tail,
+        StabiliserRole::Canard => StabiliserPlace::Canard,
+    });
+    trim_sweep_with(
+        aircraft,
+        a,
+        |cg_x_m| {
+            classical::estimate(&EstimateInput {
+                wing: &a.wing,
+                stabiliser: a.stabiliser.as_ref().zip(place),
+                mass_kg: a.mass.total_kg,
+                cg_x_m,
+                density_kg_m3: a.air.density_kg_m3,
+            })
+            .trim
+            .map(|t| t.speed_m_s)
+        },
+        "Closed-form estimate re-run at each CG position, same mass and incidences.",
+    )
+}
+
+/// Trim speed against CG position with any trim solver: `speed_at(cg_x_m)` gives the trim
+/// speed (m/s) with the CG at `cg_x_m` (m aft of the datum), or `None` where the aircraft does
+/// not trim. The CG runs over the recommended band, extended by a quarter of its width each
+/// side and far enough to include the present CG. Non-finite speeds are dropped.
+pub fn trim_sweep_with(
+    aircraft: &Aircraft,
+    a: &Analysis,
+    speed_at: impl Fn(f64) -> Option<f64>,
+    method: &str,
+) -> TrimSweep {
     let root_le = aircraft.wing.root_le_x_m;
     let (fwd, aft) = (a.band.forward_x_m, a.band.aft_x_m);
     let width = (aft - fwd).abs().max(1e-3);
     let lo = (fwd - 0.25 * width).min(a.mass.cg_x_m - 0.05 * width);
     let hi = (aft + 0.25 * width).max(a.mass.cg_x_m + 0.05 * width);
-    let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
-        StabiliserRole::Tail => StabiliserPlace::Tail,
-        StabiliserRole::Canard => StabiliserPlace::Canard,
-    });
     let points = (0..SWEEP_POINTS)
         .map(|i| {
             let x = lo + (hi - lo) * i as f64 / (SWEEP_POINTS - 1) as f64;
-            let est = classical::estimate(&EstimateInput {
-                wing: &a.wing,
-                stabiliser: a.stabiliser.as_ref().zip(place),
-                mass_kg: a.mass.total_kg,
-                cg_x_m: x,
-                density_kg_m3: a.air.density_kg_m3,
-            });
-            let v = est.trim.map(|t| t.speed_m_s).filter(|v| v.is_finite());
+            let v = speed_at(x).filter(|v| v.is_finite());
             ((x - root_le) * 1000.0, v)
         })
         .collect();
@@ -487,8 +508,7 @@ pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
         band_mm: ((fwd - root_le) * 1000.0, (aft - root_le) * 1000.0),
         cg_mm: (a.mass.cg_x_m - root_le) * 1000.0,
         stall_speed_m_s: a.classical.stall_speed_m_s,
-        method: "Closed-form estimate re-run at each CG position, same mass and incidences."
-            .to_string(),
+        method: method.to_string(),
     }
 }
 
@@ -572,6 +592,32 @@ mod tests {
         assert_eq!(content_hash(""), "cbf29ce484222325");
         assert_eq!(content_hash("a"), "af63dc4c8601ec8c");
         assert_eq!(content_hash("foobar"), "85944171f73967e8");
+    }
+
+    // The sweep re-runs the library's estimate with the CG moved; interpolated at the
+    // mass-list CG it must give the analysis's own trim speed. Tolerance 1 %: linear
+    // interpolation between sweep points 1/40 of the range apart on a smooth curve.
+    #[test]
+    fn sweep_passes_through_the_analysis_trim_speed() {
+        use crate::analysis::{analyse, AnalysisOptions};
+        let text = include_str!("../../aircraft/larkspire-2000.toml");
+        let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        let want = a.classical.trim.expect("the demo trims").speed_m_s;
+        let sweep = trim_sweep(&aircraft, &a);
+        let root = aircraft.wing.root_le_x_m;
+        assert!(sweep.points.first().unwrap().0 < (a.band.forward_x_m - root) * 1000.0);
+        assert!(sweep.points.last().unwrap().0 > (a.band.aft_x_m - root) * 1000.0);
+        let cg = sweep.cg_mm;
+        let pair = sweep
+            .points
+            .windows(2)
+            .find(|w| w[0].0 <= cg && cg <= w[1].0)
+            .expect("the sweep covers the present CG");
+        let (x0, v0) = (pair[0].0, pair[0].1.unwrap());
+        let (x1, v1) = (pair[1].0, pair[1].1.unwrap());
+        let got = v0 + (v1 - v0) * (cg - x0) / (x1 - x0);
+        approx::assert_relative_eq!(got, want, max_relative = 0.01);
     }
 
     #[test]
