@@ -173,6 +173,9 @@ pub struct ReportData {
     /// CG for the target static margin, mm aft of the wing root leading edge, with the margin
     /// in percent.
     pub target_from_root_le_mm: Option<(f64, f64)>,
+    /// A short alarm for the balance box when the CG is unsafe or outside the band
+    /// (from the cautions `static-margin-negative`, `cg-aft-of-band`, `cg-forward-of-band`).
+    pub balance_alert: Option<String>,
     /// Key figures, in order.
     pub key_figures: Vec<KeyFigure>,
     /// Top view.
@@ -217,6 +220,7 @@ pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportD
         cg_from_root_le_mm: to_root_mm(a.mass.cg_x_m),
         band_from_root_le_mm: (to_root_mm(a.band.forward_x_m), to_root_mm(a.band.aft_x_m)),
         target_from_root_le_mm: target.map(|(x, sm)| (to_root_mm(x), 100.0 * sm)),
+        balance_alert: balance_alert(&a.cautions),
         key_figures: key_figures(aircraft, a),
         top_view: top_view(aircraft, a, target.map(|t| t.0)),
         spanwise: strip_spanwise(aircraft, a),
@@ -225,6 +229,19 @@ pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportD
         cautions,
         safety: SAFETY_MESSAGE.to_string(),
         methods: methods(a),
+    }
+}
+
+fn balance_alert(cautions: &[Caution]) -> Option<String> {
+    let has = |code: &str| cautions.iter().any(|c| c.code == code);
+    if has("static-margin-negative") {
+        Some("UNSTABLE: see cautions".to_string())
+    } else if has("cg-aft-of-band") {
+        Some("CG AFT OF BAND: see cautions".to_string())
+    } else if has("cg-forward-of-band") {
+        Some("CG FORWARD OF BAND: see cautions".to_string())
+    } else {
+        None
     }
 }
 

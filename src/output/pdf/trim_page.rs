@@ -164,11 +164,18 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
             BODY,
         ));
     }
+    let alert_font = Font::bold(8.0);
+    let alert_h = if d.balance_alert.is_some() {
+        alert_font.line_height_mm() + 2.8
+    } else {
+        0.0
+    };
     let h = pad
         + HEAD.line_height_mm()
         + big.cap_height_mm()
         + 4.0
         + lines.iter().map(|l| l.1.line_height_mm()).sum::<f64>()
+        + alert_h
         + pad;
     c.rect(x, top - h, w, h, Some(1.0), Some(Pen::solid(1.4)));
     let mut y = top - pad - HEAD.cap_height_mm();
@@ -182,9 +189,34 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
         Align::Centre,
     );
     y -= 2.0;
-    for (text, font) in &lines {
+    for (i, (text, font)) in lines.iter().enumerate() {
         y -= font.line_height_mm();
         c.text(x + 0.5 * w, y, text, *font, Align::Centre);
+        // After "as the mass list puts it": the alarm, white on a black bar.
+        if i == 1 {
+            if let Some(alert) = &d.balance_alert {
+                let bar_top = y - 1.6;
+                let bar_h = alert_h - 1.4;
+                // Shrink the alarm's type if it is wider than the bar.
+                let room = w - 8.0;
+                let wide = alert_font.width_mm(alert);
+                let font = if wide > room {
+                    Font::bold(alert_font.size_pt * room / wide)
+                } else {
+                    alert_font
+                };
+                c.rect(x + 2.0, bar_top - bar_h, w - 4.0, bar_h, Some(0.0), None);
+                c.text_grey(
+                    x + 0.5 * w,
+                    bar_top - bar_h + 0.5 * (bar_h - font.cap_height_mm()),
+                    alert,
+                    font,
+                    Align::Centre,
+                    1.0,
+                );
+                y -= alert_h;
+            }
+        }
     }
     top - h
 }
@@ -403,6 +435,7 @@ mod tests {
             "Larkspire 2000 with a rather long name for a model, too long for one line at 16 pt"
                 .to_string();
         d.notes = "Notes that go on and on. ".repeat(20);
+        d.balance_alert = Some("CG FORWARD OF BAND: see the cautions below, and more".to_string());
         d.source.file_name = format!("{}.toml", "very-long-file-name-".repeat(8));
         d.datum = "the front face of the motor firewall, measured along the fuselage datum line"
             .to_string();
@@ -424,5 +457,13 @@ mod tests {
         }
         assert_clean_layout(&d, Paper::A4);
         assert_clean_layout(&d, Paper::Letter);
+        // The alarm stays on its bar inside the balance box (58 mm wide at the left margin).
+        let c = draw(&d, Paper::A4);
+        let alarm = c
+            .text_boxes()
+            .iter()
+            .find(|t| t.text.starts_with("CG FORWARD OF BAND"))
+            .expect("the alarm is printed");
+        assert!(alarm.rect[0] >= MARGIN + 2.0 && alarm.rect[2] <= MARGIN + 58.0 - 2.0);
     }
 }
