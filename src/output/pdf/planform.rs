@@ -25,8 +25,8 @@ struct Mark {
     is_root: bool,
 }
 
-/// Draw `view` inside `area`. Returns the scale denominator N (drawing is 1:N).
-pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
+/// The balance marks of `view`, sorted fore to aft.
+fn marks(view: &TopView) -> Vec<Mark> {
     let mm = |x_m: f64| (x_m - view.root_le_x_m) * 1000.0;
     let mut marks = vec![
         Mark {
@@ -70,7 +70,26 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     }
     marks.retain(|m| m.x_m.is_finite());
     marks.sort_by(|a, b| a.x_m.total_cmp(&b.x_m));
+    marks
+}
 
+/// Where the drawing goes inside an area, and at what scale.
+struct Layout {
+    /// Width of the label column, mm.
+    label_w: f64,
+    /// Height of the caption and scale bar under the drawing, mm.
+    caption_h: f64,
+    /// The drawing's frame.
+    draw: Frame,
+    /// Scale denominator N (1:N).
+    n: f64,
+    /// Aircraft extent: x_min, x_max, greatest |y|, m.
+    x_min: f64,
+    x_max: f64,
+    y_max: f64,
+}
+
+fn layout(area: Frame, view: &TopView, marks: &[Mark]) -> Option<Layout> {
     // Extent of everything drawn, aircraft axes (m).
     let mut pts: Vec<(f64, f64)> = view.wing.clone();
     if let Some((_, o)) = &view.stabiliser {
@@ -85,9 +104,8 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     let x_max = pts.iter().map(|p| p.0).fold(f64::NEG_INFINITY, f64::max);
     let y_max = pts.iter().map(|p| p.1.abs()).fold(0.0, f64::max);
     if !(x_min.is_finite() && x_max > x_min && y_max > 0.0) {
-        return f64::NAN;
+        return None;
     }
-
     // Label column on the left, caption and scale bar at the bottom.
     let label_w = marks
         .iter()
@@ -113,6 +131,54 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
             let k = (draw.w / (2.0 * y_max)).min(draw.h / (x_max - x_min));
             (1000.0 / k).ceil()
         });
+    Some(Layout {
+        label_w,
+        caption_h,
+        draw,
+        n,
+        x_min,
+        x_max,
+        y_max,
+    })
+}
+
+/// The height (mm) the top view of `view` needs in an area `width` wide and at most
+/// `max_height` tall: the drawing at the scale it would get, its caption and a little air.
+pub fn height_needed(width: f64, max_height: f64, view: &TopView) -> f64 {
+    let marks = marks(view);
+    let area = Frame {
+        x: 0.0,
+        y: 0.0,
+        w: width,
+        h: max_height,
+    };
+    match layout(area, view, &marks) {
+        Some(l) => {
+            let drawing = (l.x_max - l.x_min) * 1000.0 / l.n;
+            // Room for the labels too, which are spread one line apart.
+            let labels = (marks.len() as f64 + 1.0) * LABEL_BOLD.line_height_mm();
+            (drawing.max(labels) + l.caption_h + 6.0).min(max_height)
+        }
+        None => max_height,
+    }
+}
+
+/// Draw `view` inside `area`. Returns the scale denominator N (drawing is 1:N), NaN when the
+/// view has nothing to draw.
+pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
+    let marks = marks(view);
+    let Some(Layout {
+        label_w,
+        caption_h,
+        draw,
+        n,
+        x_min,
+        x_max,
+        y_max,
+    }) = layout(area, view, &marks)
+    else {
+        return f64::NAN;
+    };
     let k = 1000.0 / n;
     let cx = draw.x + 0.5 * draw.w;
     let top = draw.top() - 0.5 * (draw.h - (x_max - x_min) * k);

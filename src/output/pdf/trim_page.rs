@@ -12,6 +12,9 @@ use crate::output::report::{fmt, level_name, ReportData};
 
 const MARGIN: f64 = 10.0;
 const GAP: f64 = 4.0;
+/// How much taller than their base height the charts may grow when the top view leaves
+/// room, mm.
+const MAX_CHART_GROWTH: f64 = 20.0;
 const BODY: Font = Font::regular(7.0);
 const BODY_BOLD: Font = Font::bold(7.0);
 const HEAD: Font = Font::bold(8.0);
@@ -39,12 +42,16 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     let key_h = 0.0 - key_figures(&mut Canvas::new(), data, 0.0, 0.0, key_w);
     let mass_h = mass_list(&mut Canvas::new(), data, 0.0, 0.0, mass_w);
     let row_h = box_h.max(key_h).max(mass_h);
-    let chart_h = match paper {
+    let mut chart_h = match paper {
         Paper::A4 => 58.0,
         Paper::Letter => 52.0,
     };
     let caution_top = MARGIN + footer_h + GAP + caution_h;
     let charts_y = caution_top + GAP;
+    // Height the top view would get; what it does not need goes to the charts (up to a limit).
+    let view_h = top - (charts_y + chart_h + GAP + row_h) - GAP;
+    let spare = view_h - planform::height_needed(w, view_h, &data.top_view);
+    chart_h += spare.clamp(0.0, MAX_CHART_GROWTH);
     let row_top = charts_y + chart_h + GAP + row_h;
     let view = Frame {
         x: x0,
