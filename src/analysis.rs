@@ -241,21 +241,14 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         density_kg_m3: air.density_kg_m3,
         fuselage_cm_alpha_per_rad,
     });
-    let full = match trim::full_stability(&trim::TrimInput {
+    let full = match trim::full_stability(&trim_input(
         aircraft,
-        sections: &sections,
-        mass_kg: mass.total_kg,
-        cg_x_m: mass.cg_x_m,
-        cg_z_m: mass.cg_z_m.unwrap_or(aircraft.wing.root_le_z_m),
-        density_kg_m3: air.density_kg_m3,
+        &sections,
+        &mass,
+        &air,
         fuselage_cm_alpha_per_rad,
-        options: LiftingLineOptions {
-            stations_per_half_span: options.stations_per_half_span,
-            ..LiftingLineOptions::default()
-        },
-        target_speed_m_s: aircraft.targets.trim_speed_m_s,
-        top_speed_m_s: aircraft.targets.top_speed_m_s,
-    }) {
+        options,
+    )) {
         Ok(f) => Some(f),
         Err(e) => {
             cautions.push(Caution::new(
@@ -871,5 +864,32 @@ fn glide_estimate(
         cd0: polar.cd0,
         span_efficiency,
         performance: polar.performance(),
+    }
+}
+
+/// The inputs of the full-model balance and trim for an aircraft, its section models, masses
+/// and air (shared by the analysis and by charts that re-trim at other CG positions).
+pub fn trim_input<'a>(
+    aircraft: &'a Aircraft,
+    sections: &'a [SectionModel],
+    mass: &MassSummary,
+    air: &AirState,
+    fuselage_cm_alpha_per_rad: f64,
+    options: &AnalysisOptions,
+) -> trim::TrimInput<'a> {
+    trim::TrimInput {
+        aircraft,
+        sections,
+        mass_kg: mass.total_kg,
+        cg_x_m: mass.cg_x_m,
+        cg_z_m: mass.cg_z_m.unwrap_or(aircraft.wing.root_le_z_m),
+        density_kg_m3: air.density_kg_m3,
+        fuselage_cm_alpha_per_rad,
+        options: LiftingLineOptions {
+            stations_per_half_span: options.stations_per_half_span,
+            ..LiftingLineOptions::default()
+        },
+        target_speed_m_s: aircraft.targets.trim_speed_m_s,
+        top_speed_m_s: aircraft.targets.top_speed_m_s,
     }
 }

@@ -22,6 +22,8 @@ enum Command {
     Compare(commands::compare::CompareArgs),
     /// Look at one airfoil: zero-lift angle, lift slope, moments, a table over angle of attack.
     Section(commands::section::SectionArgs),
+    /// Write the one-page PDF trim report (A4, or US Letter with --letter).
+    Report(commands::report::ReportArgs),
 }
 
 fn main() -> ExitCode {
@@ -30,6 +32,7 @@ fn main() -> ExitCode {
         Command::Check(args) => commands::check::run(&args),
         Command::Compare(args) => commands::compare::run(&args),
         Command::Section(args) => commands::section::run(&args),
+        Command::Report(args) => commands::report::run(&args),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,

@@ -2,4 +2,5 @@
 
 pub mod check;
 pub mod compare;
+pub mod report;
 pub mod section;

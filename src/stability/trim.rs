@@ -551,3 +551,55 @@ pub fn wing_starboard(result: &LiftingLineResult) -> Vec<&StationResult> {
     out.sort_by(|a, b| a.y_m.total_cmp(&b.y_m));
     out
 }
+
+/// Trim speed at any CG position with the incidences held, from one factored system (for
+/// charts of trim speed against CG).
+pub struct TrimSweeper<'a> {
+    input: TrimInput<'a>,
+    system: MultiSurfaceSystem,
+    fuselage_shift_m: f64,
+}
+
+impl<'a> TrimSweeper<'a> {
+    /// Build the system once for `input` (its CG is ignored).
+    pub fn new(input: TrimInput<'a>) -> Result<Self, LiftingLineError> {
+        let system = build_system(input.aircraft, input.sections, input.options)?;
+        let base = system.condition(0.0);
+        let cl_alpha = system
+            .linear_coefficients(&base, input.cg_x_m, input.cg_z_m)?
+            .cl_alpha_per_rad;
+        let fuselage_shift_m =
+            system.reference().mac_m * input.fuselage_cm_alpha_per_rad / cl_alpha;
+        Ok(TrimSweeper {
+            input,
+            system,
+            fuselage_shift_m,
+        })
+    }
+
+    /// Trim speed (m/s) with the CG at `cg_x_m` and neutral elevator, or `None` where there is
+    /// no stable trim at positive lift.
+    pub fn trim_speed_m_s(&self, cg_x_m: f64) -> Option<f64> {
+        let base = self.system.condition(0.0);
+        let x = cg_x_m + self.fuselage_shift_m;
+        let np = self
+            .system
+            .neutral_point_x_m(&base, self.input.cg_z_m)
+            .ok()?;
+        if x >= np {
+            return None;
+        }
+        let tp = self
+            .system
+            .alpha_for_zero_moment(&base, x, self.input.cg_z_m)
+            .ok()?;
+        (tp.cl > crate::stability::classical::MIN_TRIM_CL).then(|| {
+            speed_at(
+                self.input.mass_kg,
+                self.input.density_kg_m3,
+                self.system.reference().area_m2,
+                tp.cl,
+            )
+        })
+    }
+}

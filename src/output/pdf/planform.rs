@@ -1,0 +1,465 @@
+//! The to-scale top view: wing, tail or canard, schematic fuselage, centre line, MAC, the
+//! recommended CG band (hatched), neutral point, target CG and CG, with labelled leaders
+//! giving each position in mm aft of the wing root leading edge, and a scale bar.
+//!
+//! Orientation: nose up, starboard wing on the right (seen from above). Aircraft x (aft)
+//! runs down the page, y (starboard) to the right.
+
+use super::canvas::{Align, Canvas, Dash, Font, Marker, Pen};
+use super::chart::Frame;
+use crate::output::report::{fmt, TopView};
+
+const LABEL: Font = Font::regular(7.0);
+const LABEL_BOLD: Font = Font::bold(7.5);
+const CAPTION: Font = Font::regular(6.5);
+
+/// Drawing scales offered, as N in "1:N": round numbers a builder can use with a ruler.
+const SCALES: [f64; 16] = [
+    1.0, 2.0, 2.5, 4.0, 5.0, 7.5, 10.0, 12.5, 15.0, 20.0, 25.0, 30.0, 40.0, 50.0, 75.0, 100.0,
+];
+
+struct Mark {
+    x_m: f64,
+    text: String,
+    font: Font,
+    is_root: bool,
+}
+
+/// The balance marks of `view`, sorted fore to aft.
+fn marks(view: &TopView) -> Vec<Mark> {
+    let mm = |x_m: f64| (x_m - view.root_le_x_m) * 1000.0;
+    let mut marks = vec![
+        Mark {
+            x_m: view.root_le_x_m,
+            text: "wing root LE: 0".to_string(),
+            font: LABEL,
+            is_root: true,
+        },
+        Mark {
+            x_m: view.band_x_m.0,
+            text: format!("forward limit {}", fmt(mm(view.band_x_m.0), 0)),
+            font: LABEL,
+            is_root: false,
+        },
+        Mark {
+            x_m: view.band_x_m.1,
+            text: format!("aft limit {}", fmt(mm(view.band_x_m.1), 0)),
+            font: LABEL,
+            is_root: false,
+        },
+        Mark {
+            x_m: view.neutral_point_x_m,
+            text: format!("neutral point {}", fmt(mm(view.neutral_point_x_m), 0)),
+            font: LABEL,
+            is_root: false,
+        },
+        Mark {
+            x_m: view.cg_x_m,
+            text: format!("CG {}", fmt(mm(view.cg_x_m), 0)),
+            font: LABEL_BOLD,
+            is_root: false,
+        },
+    ];
+    if let Some(t) = view.target_x_m {
+        marks.push(Mark {
+            x_m: t,
+            text: format!("target CG {}", fmt(mm(t), 0)),
+            font: LABEL,
+            is_root: false,
+        });
+    }
+    marks.retain(|m| m.x_m.is_finite());
+    marks.sort_by(|a, b| a.x_m.total_cmp(&b.x_m));
+    marks
+}
+
+/// Where the drawing goes inside an area, and at what scale.
+struct Layout {
+    /// Width of the label column, mm.
+    label_w: f64,
+    /// Height of the caption and scale bar under the drawing, mm.
+    caption_h: f64,
+    /// The drawing's frame.
+    draw: Frame,
+    /// Scale denominator N (1:N).
+    n: f64,
+    /// Aircraft extent: x_min, x_max, greatest |y|, m.
+    x_min: f64,
+    x_max: f64,
+    y_max: f64,
+}
+
+fn layout(area: Frame, view: &TopView, marks: &[Mark]) -> Option<Layout> {
+    // Extent of everything drawn, aircraft axes (m).
+    let mut pts: Vec<(f64, f64)> = view.wing.clone();
+    if let Some((_, o)) = &view.stabiliser {
+        pts.extend(o);
+    }
+    if let Some(o) = &view.fuselage {
+        pts.extend(o);
+    }
+    pts.extend(marks.iter().map(|m| (m.x_m, 0.0)));
+    pts.retain(|p| p.0.is_finite() && p.1.is_finite());
+    let x_min = pts.iter().map(|p| p.0).fold(f64::INFINITY, f64::min);
+    let x_max = pts.iter().map(|p| p.0).fold(f64::NEG_INFINITY, f64::max);
+    let y_max = pts.iter().map(|p| p.1.abs()).fold(0.0, f64::max);
+    if !(x_min.is_finite() && x_max > x_min && y_max > 0.0) {
+        return None;
+    }
+    // Label column on the left, caption and scale bar at the bottom.
+    let label_w = marks
+        .iter()
+        .map(|m| m.font.width_mm(&m.text))
+        .fold(CAPTION.width_mm("mm aft of root LE"), f64::max)
+        + 2.0;
+    let caption_h = 2.0 * CAPTION.line_height_mm() + 4.0;
+    let draw = Frame {
+        x: area.x + label_w + 4.0,
+        y: area.y + caption_h,
+        w: area.w - label_w - 4.0,
+        h: area.h - caption_h - 2.0,
+    };
+    // mm of paper per m of aircraft for 1:N is 1000/N; pick the smallest N that fits.
+    let n = SCALES
+        .iter()
+        .copied()
+        .find(|n| {
+            let k = 1000.0 / n;
+            2.0 * y_max * k <= draw.w && (x_max - x_min) * k <= draw.h
+        })
+        .unwrap_or_else(|| {
+            let k = (draw.w / (2.0 * y_max)).min(draw.h / (x_max - x_min));
+            (1000.0 / k).ceil()
+        });
+    Some(Layout {
+        label_w,
+        caption_h,
+        draw,
+        n,
+        x_min,
+        x_max,
+        y_max,
+    })
+}
+
+/// The least height (mm) in which the top view can print all its labels: one line per mark,
+/// their heading and the caption, with a little air.
+pub fn min_height(view: &TopView) -> f64 {
+    (marks(view).len() as f64 + 3.0) * LABEL_BOLD.line_height_mm() + 6.0
+}
+
+/// The height (mm) the top view of `view` needs in an area `width` wide and at most
+/// `max_height` tall: the drawing at the scale it would get, its caption and a little air.
+pub fn height_needed(width: f64, max_height: f64, view: &TopView) -> f64 {
+    let marks = marks(view);
+    let area = Frame {
+        x: 0.0,
+        y: 0.0,
+        w: width,
+        h: max_height,
+    };
+    match layout(area, view, &marks) {
+        Some(l) => {
+            let drawing = (l.x_max - l.x_min) * 1000.0 / l.n;
+            // Room for the labels too, spread one line apart, with their heading above.
+            let labels = (marks.len() as f64 + 2.0) * LABEL_BOLD.line_height_mm();
+            (drawing.max(labels) + l.caption_h + 6.0).min(max_height)
+        }
+        None => max_height,
+    }
+}
+
+/// Draw `view` inside `area`. Returns the scale denominator N (drawing is 1:N), NaN when the
+/// view has nothing to draw.
+pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
+    let marks = marks(view);
+    let Some(Layout {
+        label_w,
+        caption_h,
+        draw,
+        n,
+        x_min,
+        x_max,
+        y_max,
+    }) = layout(area, view, &marks)
+    else {
+        return f64::NAN;
+    };
+    let k = 1000.0 / n;
+    let cx = draw.x + 0.5 * draw.w;
+    let top = draw.top() - 0.5 * (draw.h - (x_max - x_min) * k);
+    let page = |p: (f64, f64)| (cx + p.1 * k, top - (p.0 - x_min) * k);
+
+    let outline = Pen::solid(0.8);
+    if let Some(f) = &view.fuselage {
+        let p: Vec<_> = f.iter().map(|&q| page(q)).collect();
+        c.polygon(&p, Some(0.85), Some(Pen::solid(0.5)));
+    }
+    let wing: Vec<_> = view.wing.iter().map(|&q| page(q)).collect();
+    c.polygon(&wing, Some(0.95), Some(outline));
+    if let Some((_, o)) = &view.stabiliser {
+        let p: Vec<_> = o.iter().map(|&q| page(q)).collect();
+        c.polygon(&p, Some(0.95), Some(outline));
+    }
+    c.line(
+        (cx, top + 2.0),
+        (cx, top - (x_max - x_min) * k - 2.0),
+        Pen::solid(0.3).with_dash(Dash::DashDot),
+    );
+
+    // Balance marks across the wing root: half-width w_mark on each side of the centre line.
+    let w_mark = (0.22 * y_max * k).clamp(6.0, 0.5 * draw.w);
+    let (b0, b1) = (
+        page((view.band_x_m.0, 0.0)).1,
+        page((view.band_x_m.1, 0.0)).1,
+    );
+    if b0.is_finite() && b1.is_finite() {
+        let (lo, hi) = (b0.min(b1), b0.max(b1));
+        c.rect(cx - w_mark, lo, 2.0 * w_mark, hi - lo, Some(1.0), None);
+        c.hatch_rect(cx - w_mark, lo, 2.0 * w_mark, hi - lo, 0.9, Pen::solid(0.3));
+        c.rect(
+            cx - w_mark,
+            lo,
+            2.0 * w_mark,
+            hi - lo,
+            None,
+            Some(Pen::solid(0.5)),
+        );
+    }
+    let np_y = page((view.neutral_point_x_m, 0.0)).1;
+    c.line(
+        (cx - w_mark, np_y),
+        (cx + w_mark, np_y),
+        Pen::solid(0.9).with_dash(Dash::Dashed),
+    );
+    c.marker((cx + w_mark, np_y), Marker::Triangle, 2.2, Pen::solid(0.7));
+    if let Some(t) = view.target_x_m {
+        let ty = page((t, 0.0)).1;
+        c.line(
+            (cx - w_mark, ty),
+            (cx + w_mark, ty),
+            Pen::solid(0.7).with_dash(Dash::Dotted),
+        );
+    }
+    let cg_y = page((view.cg_x_m, 0.0)).1;
+    c.line((cx - w_mark, cg_y), (cx + w_mark, cg_y), Pen::solid(1.2));
+    c.cg_symbol((cx, cg_y), 1.8);
+
+    // MAC on the starboard half, with end ticks and its length.
+    let m = view.mac;
+    let a = page((m.le_x_m, m.y_m));
+    let b = page((m.le_x_m + m.chord_m, m.y_m));
+    c.line(a, b, Pen::solid(1.6));
+    c.line((a.0 - 1.2, a.1), (a.0 + 1.2, a.1), Pen::solid(0.8));
+    c.line((b.0 - 1.2, b.1), (b.0 + 1.2, b.1), Pen::solid(0.8));
+    // On a white ground so it stays legible where it crosses the outline.
+    let mac_font = Font::regular(6.5);
+    let mac_text = format!("MAC {} mm", fmt(m.chord_m * 1000.0, 0));
+    let mac_base = 0.5 * (a.1 + b.1) - 0.5 * mac_font.cap_height_mm();
+    c.rect(
+        a.0 + 1.0,
+        mac_base - 0.6,
+        mac_font.width_mm(&mac_text) + 1.0,
+        mac_font.cap_height_mm() + 1.2,
+        Some(1.0),
+        None,
+    );
+    c.text(a.0 + 1.5, mac_base, &mac_text, mac_font, Align::Left);
+
+    // Leader labels, spread apart vertically so none overlap. On a view too short for all of
+    // them, the least needed go first: the root leading edge (always 0), then the target.
+    let gap = LABEL_BOLD.line_height_mm();
+    let capacity = ((area.top() - CAPTION.line_height_mm() - gap - (area.y + caption_h)) / gap)
+        .floor()
+        .max(0.0) as usize
+        + 1;
+    let mut marks = marks;
+    if marks.len() > capacity {
+        marks.retain(|m| !m.is_root);
+    }
+    if marks.len() > capacity {
+        marks.retain(|m| !m.text.starts_with("target"));
+    }
+    let ideal: Vec<f64> = marks.iter().map(|mk| page((mk.x_m, 0.0)).1).collect();
+    let mut placed = ideal.clone();
+    if let Some(p0) = placed.first_mut() {
+        *p0 = p0.min(area.top() - CAPTION.line_height_mm() - gap);
+    }
+    for i in 1..placed.len() {
+        placed[i] = placed[i].min(placed[i - 1] - gap);
+    }
+    let floor = area.y + caption_h;
+    if let Some(&last) = placed.last() {
+        if last < floor {
+            let lift = floor - last;
+            for p in &mut placed {
+                *p += lift;
+            }
+        }
+    }
+    // On a short view the lifted stack can reach above the view; then spread the labels evenly
+    // between the floor and the top instead (closer together, still in order).
+    let top_limit = area.top() - CAPTION.line_height_mm() - gap;
+    if placed.first().is_some_and(|&p| p > top_limit) && placed.len() > 1 {
+        let step = (top_limit - floor) / (placed.len() - 1) as f64;
+        for (i, p) in placed.iter_mut().enumerate() {
+            *p = top_limit - step * i as f64;
+        }
+    }
+    let col_right = area.x + label_w;
+    if let Some(&first) = placed.first() {
+        c.text_grey(
+            col_right,
+            first + gap,
+            "mm aft of root LE",
+            CAPTION,
+            Align::Right,
+            0.3,
+        );
+    }
+    let port_end = cx - w_mark;
+    for ((mk, &y_ideal), &y_label) in marks.iter().zip(&ideal).zip(&placed) {
+        // The root leading edge is a point on the centre line; the others are mark lines.
+        let end = if mk.is_root { cx } else { port_end };
+        c.text(
+            col_right,
+            y_label - 0.5 * mk.font.cap_height_mm(),
+            &mk.text,
+            mk.font,
+            Align::Right,
+        );
+        let leader = Pen::solid(0.3).with_grey(0.2);
+        c.polyline(
+            &[
+                (col_right + 0.8, y_label),
+                (col_right + 2.5, y_label),
+                (end - 2.0, y_ideal),
+                (end, y_ideal),
+            ],
+            leader,
+        );
+    }
+
+    // Caption and a 100 mm (or shorter) scale bar.
+    let bar_m = [0.5, 0.2, 0.1, 0.05]
+        .into_iter()
+        .find(|len| len * k <= 0.3 * draw.w)
+        .unwrap_or(0.05);
+    let bar_y = area.y + CAPTION.line_height_mm() + 1.5;
+    let bx = draw.x;
+    c.rect(
+        bx,
+        bar_y,
+        0.5 * bar_m * k,
+        1.0,
+        Some(0.0),
+        Some(Pen::solid(0.4)),
+    );
+    c.rect(
+        bx + 0.5 * bar_m * k,
+        bar_y,
+        0.5 * bar_m * k,
+        1.0,
+        Some(1.0),
+        Some(Pen::solid(0.4)),
+    );
+    c.text(
+        bx + bar_m * k + 1.5,
+        bar_y,
+        &format!("{} mm", fmt(bar_m * 1000.0, 0)),
+        CAPTION,
+        Align::Left,
+    );
+    c.text(
+        area.x,
+        area.y + 0.5,
+        &format!(
+            "Top view to scale 1:{} when printed at 100 %. Nose up, starboard wing right.",
+            fmt(n, if n.fract().abs() < 1e-9 { 0 } else { 1 })
+        ),
+        CAPTION,
+        Align::Left,
+    );
+    n
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::analysis::{analyse, AnalysisOptions};
+    use crate::output::report::{self, ReportSource};
+    use approx::assert_relative_eq;
+    use printpdf::{Mm, Op};
+
+    /// Page polygons (in mm) drawn by the top view, in drawing order.
+    fn polygons(c: Canvas) -> Vec<Vec<(f64, f64)>> {
+        c.into_ops()
+            .into_iter()
+            .filter_map(|op| match op {
+                Op::DrawPolygon { polygon } => Some(
+                    polygon.rings[0]
+                        .points
+                        .iter()
+                        .map(|lp| (f64::from(Mm::from(lp.p.x).0), f64::from(Mm::from(lp.p.y).0)))
+                        .collect(),
+                ),
+                _ => None,
+            })
+            .collect()
+    }
+
+    // The demo has a fuselage, a wing and a tail: the wing polygon must be exactly the span
+    // at the stated scale wide, and the tail must lie below the wing (nose up).
+    #[test]
+    fn demo_top_view_is_to_scale_and_nose_up() {
+        let text = include_str!("../../../aircraft/larkspire-2000.toml");
+        let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        let d = report::build(
+            &aircraft,
+            &a,
+            ReportSource {
+                file_name: "demo".into(),
+                content_hash: String::new(),
+                date: String::new(),
+            },
+        );
+        let mut c = Canvas::new();
+        let area = Frame {
+            x: 10.0,
+            y: 100.0,
+            w: 190.0,
+            h: 110.0,
+        };
+        let n = top_view(&mut c, area, &d.top_view);
+        assert!(n.is_finite() && n >= 1.0);
+        let polys = polygons(c);
+        // Drawing order: fuselage, wing, tail.
+        let extent = |p: &Vec<(f64, f64)>| {
+            let xs = p.iter().map(|q| q.0);
+            let ys = p.iter().map(|q| q.1);
+            (
+                xs.clone().fold(f64::INFINITY, f64::min),
+                xs.fold(f64::NEG_INFINITY, f64::max),
+                ys.clone().fold(f64::INFINITY, f64::min),
+                ys.fold(f64::NEG_INFINITY, f64::max),
+            )
+        };
+        let (fx0, fx1, fy0, fy1) = extent(&polys[0]);
+        let (wx0, wx1, wy0, wy1) = extent(&polys[1]);
+        let (_, _, _, ty1) = extent(&polys[2]);
+        // printpdf stores points as f32 pt: allow 0.01 mm.
+        assert_relative_eq!(
+            wx1 - wx0,
+            a.wing_geometry.span_m * 1000.0 / n,
+            epsilon = 0.01
+        );
+        let fus = aircraft.fuselage.as_ref().unwrap();
+        assert_relative_eq!(fx1 - fx0, fus.max_width_m * 1000.0 / n, epsilon = 0.01);
+        assert_relative_eq!(fy1 - fy0, fus.length_m * 1000.0 / n, epsilon = 0.01);
+        assert!(ty1 < wy0, "tail not below the wing: nose is not up");
+        assert!(fy1 > wy1, "the nose must be above the wing");
+        // The wing's vertical extent is at least its root chord at the same scale.
+        assert!(wy1 - wy0 >= a.wing_geometry.root_chord_m * 1000.0 / n - 0.01);
+    }
+}

@@ -1,0 +1,753 @@
+//! The content of the printed trim report as plain data, independent of any page layout:
+//! titles, key figures, the top-view outlines, chart series, the mass list, cautions and the
+//! methods used. `output::pdf` lays this out; a comparison page can reuse the same pieces.
+//!
+//! Nothing here computes aerodynamics: every number comes from [`Analysis`], from the model's
+//! geometry ([`planform::station_at`]) or from re-running the library's closed-form estimate
+//! ([`classical::estimate`]) at other CG positions.
+
+use crate::analysis::Analysis;
+use crate::balance::BallastOutcome;
+use crate::caution::{Caution, Level, SAFETY_MESSAGE};
+use crate::model::{Aircraft, SectionMethod, StabiliserRole, Surface};
+use crate::planform;
+use crate::stability::classical::{self, EstimateInput, StabiliserPlace};
+
+/// Where the report's input came from, for its title block.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct ReportSource {
+    /// Input file name as given, or a description of the built-in demo.
+    pub file_name: String,
+    /// Short content hash of the input text ([`content_hash`]).
+    pub content_hash: String,
+    /// Date of the report, ISO 8601 (YYYY-MM-DD).
+    pub date: String,
+}
+
+/// 64-bit FNV-1a hash of `text`, as 16 lower-case hex digits. Identifies the exact input a
+/// printed report was made from; not a security measure.
+///
+/// # References
+/// - G. Fowler, L. C. Noll, K.-P. Vo, D. Eastlake, "The FNV Non-Cryptographic Hash Algorithm",
+///   IETF draft-eastlake-fnv (offset basis 14695981039346656037, prime 1099511628211).
+pub fn content_hash(text: &str) -> String {
+    let mut h: u64 = 0xcbf2_9ce4_8422_2325;
+    for b in text.as_bytes() {
+        h ^= u64::from(*b);
+        h = h.wrapping_mul(0x0000_0100_0000_01b3);
+    }
+    format!("{h:016x}")
+}
+
+/// Format `v` with `decimals`, "n/a" when not finite, never "-0".
+pub fn fmt(v: f64, decimals: usize) -> String {
+    if v.is_finite() {
+        super::tables::num(v, decimals)
+    } else {
+        "n/a".to_string()
+    }
+}
+
+/// One line of the key-figures block.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct KeyFigure {
+    /// What it is ("Static margin").
+    pub label: String,
+    /// Value with its unit, already formatted ("11.8 % MAC"), or "n/a" / "not computed".
+    pub value: String,
+}
+
+/// The chord line of a mean aerodynamic chord in the top view.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct MacLine {
+    /// x of its leading edge, m aft of the datum.
+    pub le_x_m: f64,
+    /// Spanwise position, m from the centre line.
+    pub y_m: f64,
+    /// Length, m.
+    pub chord_m: f64,
+}
+
+/// A closed outline in the aircraft's top view: points (x m aft of the datum, y m to starboard).
+pub type Outline = Vec<(f64, f64)>;
+
+/// Everything needed to draw the aircraft from above, to scale, with its balance marks.
+#[derive(Debug, Clone, PartialEq)]
+pub struct TopView {
+    /// Both halves of the wing.
+    pub wing: Outline,
+    /// Tail or canard, with its name.
+    pub stabiliser: Option<(String, Outline)>,
+    /// A schematic fuselage from its length and greatest width only.
+    pub fuselage: Option<Outline>,
+    /// The wing's MAC (drawn on the starboard half).
+    pub mac: MacLine,
+    /// x of the wing root leading edge, m: the reference the builder measures from.
+    pub root_le_x_m: f64,
+    /// CG from the mass list, m aft of the datum.
+    pub cg_x_m: f64,
+    /// Neutral point, m aft of the datum.
+    pub neutral_point_x_m: f64,
+    /// Recommended CG band (forward, aft), m aft of the datum.
+    pub band_x_m: (f64, f64),
+    /// The CG for the target static margin, when one is set.
+    pub target_x_m: Option<f64>,
+}
+
+/// Local lift coefficient and local section cl_max at one station of the half-span.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SpanPoint {
+    /// Spanwise station 2y/b, 0 at the root, 1 at the tip.
+    pub eta: f64,
+    /// Local lift coefficient.
+    pub cl: f64,
+    /// Local section maximum lift coefficient.
+    pub cl_max: f64,
+}
+
+/// One loading case for the spanwise chart.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SpanCase {
+    /// Legend text ("at trim, CL 0.52").
+    pub label: String,
+    /// Points from root to tip.
+    pub points: Vec<SpanPoint>,
+}
+
+/// Spanwise lift against local cl_max, at trim and near stall.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SpanwiseData {
+    /// How the cl values were obtained, printed under the chart.
+    pub method: String,
+    /// At trim (absent when there is no trim).
+    pub trim: Option<SpanCase>,
+    /// Near stall.
+    pub near_stall: Option<SpanCase>,
+    /// Station where stall begins, 2y/b, when the method can tell.
+    pub stall_onset_eta: Option<f64>,
+}
+
+/// Trim speed at CG positions across (and a little beyond) the recommended band.
+#[derive(Debug, Clone, PartialEq)]
+pub struct TrimSweep {
+    /// (CG mm aft of the wing root leading edge, trim speed m/s or `None` where it does not trim).
+    pub points: Vec<(f64, Option<f64>)>,
+    /// Recommended band, mm aft of the wing root leading edge (forward, aft).
+    pub band_mm: (f64, f64),
+    /// Present CG, mm aft of the wing root leading edge.
+    pub cg_mm: f64,
+    /// Stall speed, m/s.
+    pub stall_speed_m_s: f64,
+    /// How the speeds were obtained.
+    pub method: String,
+}
+
+/// One row of the mass list, formatted.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct MassRow {
+    /// Item name.
+    pub name: String,
+    /// Mass, g.
+    pub mass_g: String,
+    /// x, mm aft of the datum.
+    pub x_mm: String,
+}
+
+/// The whole content of a trim report.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ReportData {
+    /// Aircraft name.
+    pub name: String,
+    /// The builder's notes.
+    pub notes: String,
+    /// What x = 0 is.
+    pub datum: String,
+    /// Input identity.
+    pub source: ReportSource,
+    /// trimline version.
+    pub tool_version: String,
+    /// CG, mm aft of the wing root leading edge (the headline number).
+    pub cg_from_root_le_mm: f64,
+    /// Recommended band, mm aft of the wing root leading edge.
+    pub band_from_root_le_mm: (f64, f64),
+    /// CG for the target static margin, mm aft of the wing root leading edge, with the margin
+    /// in percent.
+    pub target_from_root_le_mm: Option<(f64, f64)>,
+    /// A short alarm for the balance box when the CG is unsafe or outside the band
+    /// (from the cautions `static-margin-negative`, `cg-aft-of-band`, `cg-forward-of-band`).
+    pub balance_alert: Option<String>,
+    /// Key figures, in order.
+    pub key_figures: Vec<KeyFigure>,
+    /// Top view.
+    pub top_view: TopView,
+    /// Spanwise chart.
+    pub spanwise: SpanwiseData,
+    /// Trim speed against CG.
+    pub trim_sweep: TrimSweep,
+    /// Mass items, then added ballast, then the total.
+    pub masses: Vec<MassRow>,
+    /// The aircraft's cautions, most serious first (the standing safety caution excluded).
+    pub cautions: Vec<Caution>,
+    /// The standing safety caution.
+    pub safety: String,
+    /// Methods and their sources, one line each.
+    pub methods: Vec<String>,
+}
+
+/// Number of points along the half-span for the spanwise chart.
+const SPAN_POINTS: usize = 41;
+/// Number of CG positions in the trim-speed sweep.
+const SWEEP_POINTS: usize = 41;
+
+/// Build the report content for `aircraft` and its `analysis`.
+pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportData {
+    let root_le = aircraft.wing.root_le_x_m;
+    let to_root_mm = |x_m: f64| (x_m - root_le) * 1000.0;
+    let target = target_static_margin_x(aircraft, a);
+    let mut cautions: Vec<Caution> = a
+        .cautions
+        .iter()
+        .filter(|c| c.message != SAFETY_MESSAGE)
+        .cloned()
+        .collect();
+    cautions.sort_by_key(|c| std::cmp::Reverse(c.level));
+    ReportData {
+        name: aircraft.name.clone(),
+        notes: aircraft.notes.trim().to_string(),
+        datum: aircraft.datum.clone(),
+        source,
+        tool_version: env!("CARGO_PKG_VERSION").to_string(),
+        cg_from_root_le_mm: to_root_mm(a.mass.cg_x_m),
+        band_from_root_le_mm: (to_root_mm(a.band.forward_x_m), to_root_mm(a.band.aft_x_m)),
+        target_from_root_le_mm: target.map(|(x, sm)| (to_root_mm(x), 100.0 * sm)),
+        balance_alert: balance_alert(&a.cautions),
+        key_figures: key_figures(aircraft, a),
+        top_view: top_view(aircraft, a, target.map(|t| t.0)),
+        spanwise: lifting_line_spanwise(a).unwrap_or_else(|| strip_spanwise(aircraft, a)),
+        trim_sweep: trim_sweep(aircraft, a),
+        masses: mass_rows(aircraft, a),
+        cautions,
+        safety: SAFETY_MESSAGE.to_string(),
+        methods: methods(a),
+    }
+}
+
+fn balance_alert(cautions: &[Caution]) -> Option<String> {
+    let has = |code: &str| cautions.iter().any(|c| c.code == code);
+    if has("static-margin-negative") {
+        Some("UNSTABLE: see cautions".to_string())
+    } else if has("cg-aft-of-band") {
+        Some("CG AFT OF BAND: see cautions".to_string())
+    } else if has("cg-forward-of-band") {
+        Some("CG FORWARD OF BAND: see cautions".to_string())
+    } else {
+        None
+    }
+}
+
+/// CG for the file's target static margin (m aft of the datum) and that margin (fraction).
+fn target_static_margin_x(aircraft: &Aircraft, a: &Analysis) -> Option<(f64, f64)> {
+    aircraft.targets.static_margin.map(|sm| {
+        (
+            a.headline.neutral_point_x_m - sm * a.wing_geometry.mac_m,
+            sm,
+        )
+    })
+}
+
+fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
+    let kf = |label: &str, value: String| KeyFigure {
+        label: label.to_string(),
+        value,
+    };
+    let g = &a.wing_geometry;
+    let h = &a.headline;
+    let speed = |v: f64| format!("{} m/s ({} km/h)", fmt(v, 1), fmt(v * 3.6, 0));
+    let mut out = vec![
+        kf("Mass", format!("{} g", fmt(a.mass.total_kg * 1000.0, 0))),
+        kf(
+            "Wing area, span",
+            format!(
+                "{} dm\u{b2}, {} mm",
+                fmt(g.area_m2 * 100.0, 1),
+                fmt(g.span_m * 1000.0, 0)
+            ),
+        ),
+        kf(
+            "Wing loading",
+            format!("{} g/dm\u{b2}", fmt(a.wing_loading_kg_m2 * 10.0, 1)),
+        ),
+        kf(
+            "CG",
+            format!(
+                "{} % MAC ({} mm from datum)",
+                fmt(g.percent_mac(a.mass.cg_x_m), 1),
+                fmt(a.mass.cg_x_m * 1000.0, 0)
+            ),
+        ),
+        kf(
+            "Neutral point",
+            format!(
+                "{} % MAC ({} mm from datum)",
+                fmt(g.percent_mac(h.neutral_point_x_m), 1),
+                fmt(h.neutral_point_x_m * 1000.0, 0)
+            ),
+        ),
+        kf(
+            "Static margin",
+            format!("{} % MAC", fmt(100.0 * h.static_margin, 1)),
+        ),
+        kf(
+            "Trim speed",
+            match h.trim {
+                Some(t) => speed(t.speed_m_s),
+                None => "no trim found".to_string(),
+            },
+        ),
+        kf("Stall speed", speed(h.stall_speed_m_s)),
+    ];
+    if let Some(loc) = &h.stall_location {
+        out.push(kf(
+            "Stall begins",
+            format!(
+                "{}, {} % semispan",
+                loc.surface_name,
+                fmt(loc.percent_semispan, 0)
+            ),
+        ));
+    }
+    out.push(kf(
+        "Decalage",
+        match &aircraft.stabiliser {
+            Some(st) => {
+                // Front surface minus rear surface incidence.
+                let (front, back, front_name, back_name) = match st.role {
+                    StabiliserRole::Tail => (&aircraft.wing, &st.surface, "wing", "tail"),
+                    StabiliserRole::Canard => (&st.surface, &aircraft.wing, "canard", "wing"),
+                };
+                format!(
+                    "{}\u{b0} ({front_name} {}\u{b0}, {back_name} {}\u{b0})",
+                    fmt((front.incidence_rad - back.incidence_rad).to_degrees(), 2),
+                    fmt(front.incidence_rad.to_degrees(), 2),
+                    fmt(back.incidence_rad.to_degrees(), 2)
+                )
+            }
+            None => "n/a (tailless)".to_string(),
+        },
+    ));
+    out.push(kf("Ballast needed", ballast_text(aircraft, a)));
+    if let Some(d) = a.full.as_ref().and_then(|f| f.decalage_for_target) {
+        out.push(kf(
+            &format!("Decalage for {} m/s", fmt(d.speed_m_s, 1)),
+            format!(
+                "{}\u{b0} (tail {}\u{b0})",
+                fmt(d.decalage_rad.to_degrees(), 2),
+                fmt(d.stabiliser_incidence_rad.to_degrees(), 2)
+            ),
+        ));
+    }
+    let glide = &a.glide.performance;
+    let at_max = |limited: bool| if limited { ", at CL max" } else { "" };
+    out.push(kf(
+        "Best glide",
+        format!(
+            "{} at {} m/s{}",
+            fmt(glide.best_glide.glide_ratio, 1),
+            fmt(glide.best_glide.speed_m_s, 1),
+            at_max(glide.best_glide.limited_by_cl_max)
+        ),
+    ));
+    out.push(kf(
+        "Minimum sink",
+        format!(
+            "{} m/s at {} m/s{}",
+            fmt(glide.min_sink.sink_m_s, 2),
+            fmt(glide.min_sink.speed_m_s, 1),
+            at_max(glide.min_sink.limited_by_cl_max)
+        ),
+    ));
+    out.push(kf("Reynolds number (MAC)", fmt(a.reynolds_mac, 0)));
+    out
+}
+
+fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
+    let Some(sm) = aircraft.targets.static_margin else {
+        return "no target static margin set".to_string();
+    };
+    if a.ballast.is_empty() {
+        return format!("no ballast bay given (target {} % MAC)", fmt(100.0 * sm, 0));
+    }
+    let parts: Vec<String> = a
+        .ballast
+        .iter()
+        .map(|b| match b.outcome {
+            BallastOutcome::NotNeeded => format!("{}: none", b.bay),
+            BallastOutcome::Reachable { mass_kg } => {
+                format!("{}: {} g", b.bay, fmt(mass_kg * 1000.0, 0))
+            }
+            BallastOutcome::ExceedsBay { needed_kg, max_kg } => format!(
+                "{}: {} g, bay holds {} g",
+                b.bay,
+                fmt(needed_kg * 1000.0, 0),
+                fmt(max_kg * 1000.0, 0)
+            ),
+            BallastOutcome::WrongSide => format!("{}: cannot help", b.bay),
+        })
+        .collect();
+    format!("{} (for {} % MAC)", parts.join("; "), fmt(100.0 * sm, 0))
+}
+
+/// Outline of both halves of `surface` in the top view: leading edge from the port tip to the
+/// starboard tip, trailing edge back.
+pub fn surface_outline(surface: &Surface) -> Outline {
+    let total = planform::half_span_length_m(surface);
+    let mut s_values: Vec<f64> = (0..=64).map(|i| total * f64::from(i) / 64.0).collect();
+    for b in planform::break_points_m(surface) {
+        // Both sides of a join, where the chord may jump.
+        s_values.push(b);
+        s_values.push((b + 1e-9 * total.max(1e-3)).min(total));
+    }
+    s_values.sort_by(f64::total_cmp);
+    s_values.dedup();
+    let stations: Vec<_> = s_values
+        .iter()
+        .map(|&s| planform::station_at(surface, s))
+        .collect();
+    let mut le: Vec<(f64, f64)> = stations.iter().map(|st| (st.x_le_m, st.y_m)).collect();
+    let mut te: Vec<(f64, f64)> = stations
+        .iter()
+        .map(|st| (st.x_le_m + st.chord_m, st.y_m))
+        .collect();
+    // Starboard: root to tip along the leading edge, back along the trailing edge.
+    let mut out: Outline = Vec::new();
+    out.extend(le.iter().rev().map(|&(x, y)| (x, -y)));
+    out.append(&mut le);
+    te.reverse();
+    out.extend(te.iter().copied());
+    out.extend(te.iter().rev().map(|&(x, y)| (x, -y)));
+    out
+}
+
+fn fuselage_outline(f: &crate::model::Fuselage) -> Outline {
+    // Schematic: rounded over the first 8 % of the length, full width to 35 %, then tapering
+    // straight to 35 % of the width at the tail. Only length and greatest width are known.
+    let (x0, l, half) = (f.nose_x_m, f.length_m, 0.5 * f.max_width_m);
+    let mut side: Vec<(f64, f64)> = (0..=8)
+        .map(|i| {
+            let t = f64::from(i) / 8.0;
+            let ang = t * std::f64::consts::FRAC_PI_2;
+            (x0 + 0.08 * l * (1.0 - ang.cos()), half * ang.sin())
+        })
+        .collect();
+    side.push((x0 + 0.35 * l, half));
+    side.push((x0 + l, 0.35 * half));
+    let mut out: Outline = side.clone();
+    out.extend(side.iter().rev().map(|&(x, y)| (x, -y)));
+    out
+}
+
+fn top_view(aircraft: &Aircraft, a: &Analysis, target_x_m: Option<f64>) -> TopView {
+    let g = &a.wing_geometry;
+    TopView {
+        wing: surface_outline(&aircraft.wing),
+        stabiliser: aircraft.stabiliser.as_ref().map(|s| {
+            let name = match s.role {
+                StabiliserRole::Tail => "tail",
+                StabiliserRole::Canard => "canard",
+            };
+            (name.to_string(), surface_outline(&s.surface))
+        }),
+        fuselage: aircraft.fuselage.as_ref().map(fuselage_outline),
+        mac: MacLine {
+            le_x_m: g.mac_le_x_m,
+            y_m: g.mac_y_m,
+            chord_m: g.mac_m,
+        },
+        root_le_x_m: aircraft.wing.root_le_x_m,
+        cg_x_m: a.mass.cg_x_m,
+        neutral_point_x_m: a.headline.neutral_point_x_m,
+        band_x_m: (a.band.forward_x_m, a.band.aft_x_m),
+        target_x_m,
+    }
+}
+
+/// The spanwise chart from the lifting-line solution: the wing's local cl against its local
+/// cl_max at trim and at the critical-section stall, with the station where stall begins.
+pub fn lifting_line_spanwise(a: &Analysis) -> Option<SpanwiseData> {
+    use crate::stability::trim::wing_starboard;
+    let f = a.full.as_ref()?;
+    let stall = f.stall.as_ref()?;
+    let half_b = 0.5 * a.wing_geometry.span_m;
+    if half_b <= 0.0 {
+        return None;
+    }
+    let case = |label: String, r: &crate::lifting_line::LiftingLineResult| SpanCase {
+        label,
+        points: wing_starboard(r)
+            .into_iter()
+            .map(|st| SpanPoint {
+                eta: st.y_m / half_b,
+                cl: st.cl,
+                cl_max: if st.cl_ratio > 0.0 {
+                    st.cl / st.cl_ratio
+                } else {
+                    f64::NAN
+                },
+            })
+            .filter(|p| p.cl_max.is_finite())
+            .collect(),
+    };
+    let onset = a
+        .headline
+        .stall_location
+        .as_ref()
+        .filter(|l| l.surface == 0)
+        .map(|l| l.percent_semispan / 100.0);
+    Some(SpanwiseData {
+        method: "Multi-surface lifting line (Phillips and Snyder, 2000); stall where the first \
+                 section reaches its cl max (critical-section method, conservative)."
+            .to_string(),
+        trim: f
+            .trim
+            .as_ref()
+            .map(|t| case(format!("at trim, CL {}", fmt(t.cl, 2)), &t.result)),
+        near_stall: Some(case(
+            format!("at stall, CL max {}", fmt(stall.cl_max, 2)),
+            &stall.result,
+        )),
+        stall_onset_eta: onset,
+    })
+}
+
+/// The spanwise chart fed from the strip estimate: local section cl_max along the span from
+/// the wing's airfoils, and a uniform cl equal to the aircraft CL at trim and at CL_max. This
+/// is a stand-in until the lifting-line loading is available; it cannot say where stall
+/// begins, so `stall_onset_eta` is `None`.
+pub fn strip_spanwise(aircraft: &Aircraft, a: &Analysis) -> SpanwiseData {
+    let wing = &aircraft.wing;
+    let total = planform::half_span_length_m(wing);
+    let half_b = 0.5 * a.wing_geometry.span_m;
+    let stations: Vec<(f64, f64)> = (0..SPAN_POINTS)
+        .map(|i| {
+            let s = total * i as f64 / (SPAN_POINTS - 1) as f64;
+            let st = planform::station_at(wing, s);
+            let sec = classical::section_at(&a.sections, &st);
+            let eta = if half_b > 0.0 { st.y_m / half_b } else { 0.0 };
+            (eta, sec.cl_max)
+        })
+        .collect();
+    let case = |label: String, cl: f64| SpanCase {
+        label,
+        points: stations
+            .iter()
+            .map(|&(eta, cl_max)| SpanPoint { eta, cl, cl_max })
+            .collect(),
+    };
+    let est = &a.classical;
+    SpanwiseData {
+        method: "Strip estimate: uniform cl equal to the aircraft CL (no spanwise loading model \
+                 yet), so the stall station is not predicted."
+            .to_string(),
+        trim: est
+            .trim
+            .map(|t| case(format!("strip estimate at trim, CL {}", fmt(t.cl, 2)), t.cl)),
+        near_stall: Some(case(
+            format!("strip estimate near stall, CL max {}", fmt(est.cl_max, 2)),
+            est.cl_max,
+        )),
+        stall_onset_eta: None,
+    }
+}
+
+/// Trim speed against CG position across the recommended band ([`trim_sweep_with`] gives the
+/// range): from the lifting-line model when it solved, else from the closed-form estimate.
+pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
+    let fuselage = crate::analysis::fuselage_cm_alpha(aircraft, &a.wing);
+    if a.full.is_some() {
+        let input = crate::analysis::trim_input(
+            aircraft,
+            &a.sections,
+            &a.mass,
+            &a.air,
+            fuselage,
+            &crate::analysis::AnalysisOptions::default(),
+        );
+        if let Ok(sweeper) = crate::stability::trim::TrimSweeper::new(input) {
+            return trim_sweep_with(
+                aircraft,
+                a,
+                |cg_x_m| sweeper.trim_speed_m_s(cg_x_m),
+                "Lifting-line model re-trimmed at each CG position, same mass and incidences, neutral elevator.",
+            );
+        }
+    }
+    let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
+        StabiliserRole::Tail => StabiliserPlace::Tail,
+        StabiliserRole::Canard => StabiliserPlace::Canard,
+    });
+    trim_sweep_with(
+        aircraft,
+        a,
+        |cg_x_m| {
+            classical::estimate(&EstimateInput {
+                wing: &a.wing,
+                stabiliser: a.stabiliser.as_ref().zip(place),
+                mass_kg: a.mass.total_kg,
+                cg_x_m,
+                density_kg_m3: a.air.density_kg_m3,
+                fuselage_cm_alpha_per_rad: fuselage,
+            })
+            .trim
+            .map(|t| t.speed_m_s)
+        },
+        "Closed-form estimate re-run at each CG position, same mass and incidences.",
+    )
+}
+
+/// Trim speed against CG position with any trim solver: `speed_at(cg_x_m)` gives the trim
+/// speed (m/s) with the CG at `cg_x_m` (m aft of the datum), or `None` where the aircraft does
+/// not trim. The CG runs over the recommended band, extended by a quarter of its width each
+/// side and far enough to include the present CG. Non-finite speeds are dropped.
+pub fn trim_sweep_with(
+    aircraft: &Aircraft,
+    a: &Analysis,
+    speed_at: impl Fn(f64) -> Option<f64>,
+    method: &str,
+) -> TrimSweep {
+    let root_le = aircraft.wing.root_le_x_m;
+    let (fwd, aft) = (a.band.forward_x_m, a.band.aft_x_m);
+    let width = (aft - fwd).abs().max(1e-3);
+    let lo = (fwd - 0.25 * width).min(a.mass.cg_x_m - 0.05 * width);
+    let hi = (aft + 0.25 * width).max(a.mass.cg_x_m + 0.05 * width);
+    let points = (0..SWEEP_POINTS)
+        .map(|i| {
+            let x = lo + (hi - lo) * i as f64 / (SWEEP_POINTS - 1) as f64;
+            let v = speed_at(x).filter(|v| v.is_finite());
+            ((x - root_le) * 1000.0, v)
+        })
+        .collect();
+    TrimSweep {
+        points,
+        band_mm: ((fwd - root_le) * 1000.0, (aft - root_le) * 1000.0),
+        cg_mm: (a.mass.cg_x_m - root_le) * 1000.0,
+        stall_speed_m_s: a.headline.stall_speed_m_s,
+        method: method.to_string(),
+    }
+}
+
+fn mass_rows(aircraft: &Aircraft, a: &Analysis) -> Vec<MassRow> {
+    let mut rows: Vec<MassRow> = aircraft
+        .masses
+        .iter()
+        .map(|m| MassRow {
+            name: m.name.clone(),
+            mass_g: fmt(m.mass_kg * 1000.0, 0),
+            x_mm: fmt(m.x_m * 1000.0, 0),
+        })
+        .collect();
+    rows.push(MassRow {
+        name: "Total, CG".to_string(),
+        mass_g: fmt(a.mass.total_kg * 1000.0, 0),
+        x_mm: fmt(a.mass.cg_x_m * 1000.0, 0),
+    });
+    for b in &a.ballast {
+        if let BallastOutcome::Reachable { mass_kg } = b.outcome {
+            let bay = aircraft.ballast_bays.iter().find(|bay| bay.name == b.bay);
+            rows.push(MassRow {
+                name: format!("+ ballast in {} (to target)", b.bay),
+                mass_g: fmt(mass_kg * 1000.0, 0),
+                x_mm: bay
+                    .map(|bay| fmt(bay.x_m * 1000.0, 0))
+                    .unwrap_or_else(|| "n/a".to_string()),
+            });
+        }
+    }
+    rows
+}
+
+fn methods(a: &Analysis) -> Vec<String> {
+    let mut used: Vec<SectionMethod> = a.sections.iter().map(|s| s.method).collect();
+    used.sort_by_key(|m| m.as_str());
+    used.dedup();
+    let sections: Vec<&str> = used
+        .iter()
+        .map(|m| match m {
+            SectionMethod::Exact => "exact conformal mapping (Milne-Thomson, Theoretical Aerodynamics)",
+            SectionMethod::Thin => {
+                "thin-airfoil theory (Abbott and von Doenhoff, Theory of Wing Sections, 1959, ch. 4)"
+            }
+            SectionMethod::Panel => {
+                "linear-strength vortex panels (Katz and Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001)"
+            }
+        })
+        .collect();
+    let mut out = vec![format!(
+        "Airfoil sections: {}; section cl max as given in the file or a default.",
+        sections.join("; ")
+    )];
+    out.extend([
+        "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3).",
+        "Wing and tail together: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000), tail in the wing's wake; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2); fuselage by Gilruth and White (NACA Report 711).",
+        "Stall: first section to reach its cl max (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
+        "Glide: drag build-up and parabolic polar (Raymer, Aircraft Design, ch. 12). Air: ISA (US Standard Atmosphere, 1976).",
+    ]
+    .iter()
+    .map(|s| s.to_string()));
+    out
+}
+
+/// Name of a caution level as the cautions box prints it (danger in capitals).
+pub fn level_name(level: Level) -> &'static str {
+    match level {
+        Level::Danger => "DANGER",
+        Level::Warning => "Warning",
+        Level::Note => "Note",
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    // FNV-1a 64 test vectors from the FNV reference (draft-eastlake-fnv, test suite):
+    // "" -> cbf29ce484222325, "a" -> af63dc4c8601ec8c, "foobar" -> 85944171f73967e8.
+    #[test]
+    fn fnv1a_matches_the_reference_vectors() {
+        assert_eq!(content_hash(""), "cbf29ce484222325");
+        assert_eq!(content_hash("a"), "af63dc4c8601ec8c");
+        assert_eq!(content_hash("foobar"), "85944171f73967e8");
+    }
+
+    // The sweep re-runs the library's estimate with the CG moved; interpolated at the
+    // mass-list CG it must give the analysis's own trim speed. Tolerance 1 %: linear
+    // interpolation between sweep points 1/40 of the range apart on a smooth curve.
+    #[test]
+    fn sweep_passes_through_the_analysis_trim_speed() {
+        use crate::analysis::{analyse, AnalysisOptions};
+        let text = include_str!("../../aircraft/larkspire-2000.toml");
+        let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        let want = a.headline.trim.expect("the demo trims").speed_m_s;
+        let sweep = trim_sweep(&aircraft, &a);
+        let root = aircraft.wing.root_le_x_m;
+        assert!(sweep.points.first().unwrap().0 < (a.band.forward_x_m - root) * 1000.0);
+        assert!(sweep.points.last().unwrap().0 > (a.band.aft_x_m - root) * 1000.0);
+        let cg = sweep.cg_mm;
+        let pair = sweep
+            .points
+            .windows(2)
+            .find(|w| w[0].0 <= cg && cg <= w[1].0)
+            .expect("the sweep covers the present CG");
+        let (x0, v0) = (pair[0].0, pair[0].1.unwrap());
+        let (x1, v1) = (pair[1].0, pair[1].1.unwrap());
+        let got = v0 + (v1 - v0) * (cg - x0) / (x1 - x0);
+        approx::assert_relative_eq!(got, want, max_relative = 0.01);
+    }
+
+    #[test]
+    fn non_finite_numbers_print_as_not_available() {
+        assert_eq!(fmt(f64::NAN, 1), "n/a");
+        assert_eq!(fmt(f64::INFINITY, 0), "n/a");
+        assert_eq!(fmt(-0.01, 1), "0.0");
+    }
+}

@@ -1,0 +1,282 @@
+//! The PDF trim report read back: one valid page, the figures of the library's own analysis
+//! appear as text, the standing safety caution is printed, and a failing analysis writes no
+//! file and leaves an existing one untouched.
+//!
+//! Expected numbers are computed here from `analysis::analyse` (the values the page must show,
+//! rounded to whole millimetres and grams), never copied from a generated report.
+
+use std::path::{Path, PathBuf};
+use std::process::Command;
+use trimline::analysis::{analyse, AnalysisOptions};
+use trimline::caution::SAFETY_MESSAGE;
+use trimline::input::parse_aircraft;
+use trimline::model::Aircraft;
+use trimline::output::pdf::Paper;
+use trimline::output::report::ReportSource;
+use trimline::output::report_file::{report_pdf, write_report, ReportError};
+
+const DEMO: &str = include_str!("../aircraft/larkspire-2000.toml");
+
+fn demo() -> Aircraft {
+    parse_aircraft(DEMO, "larkspire-2000.toml", None).expect("the demo parses")
+}
+
+fn source() -> ReportSource {
+    ReportSource {
+        file_name: "larkspire-2000.toml".to_string(),
+        content_hash: "0123456789abcdef".to_string(),
+        date: "2026-01-02".to_string(),
+    }
+}
+
+/// A fresh, empty folder for one test under Cargo's scratch directory.
+fn scratch(name: &str) -> PathBuf {
+    let dir = Path::new(env!("CARGO_TARGET_TMPDIR"))
+        .join("report-tests")
+        .join(name);
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    dir
+}
+
+/// Page count and the page's text with runs of whitespace collapsed, read with lopdf.
+fn read_back(bytes: &[u8]) -> (usize, String) {
+    assert!(bytes.starts_with(b"%PDF-"), "no PDF header");
+    let doc = lopdf::Document::load_mem(bytes).expect("lopdf reads the report");
+    let pages = doc.get_pages();
+    let text = doc.extract_text(&[1]).expect("text of page 1");
+    (
+        pages.len(),
+        text.split_whitespace().collect::<Vec<_>>().join(" "),
+    )
+}
+
+fn squash(s: &str) -> String {
+    s.split_whitespace().collect::<Vec<_>>().join(" ")
+}
+
+#[test]
+fn demo_report_is_one_page_with_the_analysis_figures() {
+    let aircraft = demo();
+    let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+    let bytes = report_pdf(&aircraft, source(), Paper::A4).unwrap();
+    let (pages, text) = read_back(&bytes);
+    assert_eq!(pages, 1);
+    let root = aircraft.wing.root_le_x_m;
+    let cg_mm = (a.mass.cg_x_m - root) * 1000.0;
+    let expected = [
+        aircraft.name.clone(),
+        format!("{cg_mm:.0} mm"),
+        format!("CG {cg_mm:.0}"),
+        format!(
+            "Recommended {:.0} to {:.0} mm",
+            (a.band.forward_x_m - root) * 1000.0,
+            (a.band.aft_x_m - root) * 1000.0
+        ),
+        format!(
+            "neutral point {:.0}",
+            (a.headline.neutral_point_x_m - root) * 1000.0
+        ),
+        format!("{:.0} g", a.mass.total_kg * 1000.0),
+        format!("{:.1} % MAC", 100.0 * a.headline.static_margin),
+        format!("{:.1} m/s", a.headline.stall_speed_m_s),
+        format!("{:.1} at", a.glide.performance.best_glide.glide_ratio),
+        "0123456789abcdef".to_string(),
+        "2026-01-02".to_string(),
+        format!("trimline {}", env!("CARGO_PKG_VERSION")),
+        "Nose up".to_string(),
+    ];
+    for e in &expected {
+        assert!(text.contains(e.as_str()), "missing {e:?} in:\n{text}");
+    }
+    if let Some(t) = a.headline.trim {
+        assert!(text.contains(&format!("{:.1} m/s", t.speed_m_s)));
+    }
+    assert!(
+        text.contains(&squash(SAFETY_MESSAGE)),
+        "the safety caution is not printed in full"
+    );
+    for c in &a.cautions {
+        assert!(
+            text.contains(&squash(&c.message)),
+            "caution {} missing",
+            c.code
+        );
+    }
+}
+
+#[test]
+fn every_example_aircraft_gives_one_clean_page() {
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("aircraft");
+    let mut n = 0;
+    for entry in std::fs::read_dir(dir).unwrap() {
+        let path = entry.unwrap().path();
+        if path.extension().and_then(|e| e.to_str()) != Some("toml") {
+            continue;
+        }
+        let text = std::fs::read_to_string(&path).unwrap();
+        let aircraft = parse_aircraft(&text, &path.display().to_string(), path.parent()).unwrap();
+        for paper in [Paper::A4, Paper::Letter] {
+            let bytes = report_pdf(&aircraft, source(), paper).unwrap();
+            let (pages, page_text) = read_back(&bytes);
+            assert_eq!(pages, 1, "{}", path.display());
+            assert!(page_text.contains(&aircraft.name));
+            for bad in ["NaN", "inf ", "-inf"] {
+                assert!(
+                    !page_text.contains(bad),
+                    "{bad} printed for {}",
+                    path.display()
+                );
+            }
+        }
+        n += 1;
+    }
+    assert!(n >= 3, "only {n} example aircraft found");
+}
+
+#[test]
+fn letter_paper_has_the_letter_media_box() {
+    let bytes = report_pdf(&demo(), source(), Paper::Letter).unwrap();
+    let doc = lopdf::Document::load_mem(&bytes).unwrap();
+    let (_, page_id) = doc.get_pages().into_iter().next().unwrap();
+    let page = doc.get_dictionary(page_id).unwrap();
+    let media = page.get(b"MediaBox").unwrap().as_array().unwrap();
+    let w = media[2].as_float().unwrap();
+    let h = media[3].as_float().unwrap();
+    // US Letter is 8.5 x 11 in = 612 x 792 pt.
+    assert!(
+        (w - 612.0).abs() < 0.5 && (h - 792.0).abs() < 0.5,
+        "{w} x {h}"
+    );
+}
+
+#[test]
+fn failing_analysis_writes_nothing_and_keeps_the_old_file() {
+    let mut aircraft = demo();
+    for m in &mut aircraft.masses {
+        m.mass_kg = 0.0;
+    }
+    let dir = scratch("failing-analysis");
+    let old = dir.join("old.pdf");
+    std::fs::write(&old, b"previous report").unwrap();
+    let err = write_report(&aircraft, source(), Paper::A4, &old).unwrap_err();
+    assert!(matches!(err, ReportError::Analysis(_)), "{err}");
+    assert_eq!(std::fs::read(&old).unwrap(), b"previous report");
+    let fresh = dir.join("fresh.pdf");
+    assert!(write_report(&aircraft, source(), Paper::A4, &fresh).is_err());
+    assert!(!fresh.exists());
+    let names: Vec<_> = std::fs::read_dir(&dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name())
+        .collect();
+    assert_eq!(names.len(), 1, "stray files: {names:?}");
+}
+
+#[test]
+fn successful_write_replaces_the_old_file_and_leaves_no_temporary() {
+    let dir = scratch("replace");
+    let path = dir.join("sub").join("demo.pdf");
+    std::fs::create_dir_all(path.parent().unwrap()).unwrap();
+    std::fs::write(&path, b"previous report").unwrap();
+    write_report(&demo(), source(), Paper::A4, &path).unwrap();
+    let (pages, _) = read_back(&std::fs::read(&path).unwrap());
+    assert_eq!(pages, 1);
+    let names: Vec<_> = std::fs::read_dir(path.parent().unwrap())
+        .unwrap()
+        .map(|e| e.unwrap().file_name())
+        .collect();
+    assert_eq!(names.len(), 1, "stray files: {names:?}");
+}
+
+fn trimline(args: &[&str], dir: &Path) -> std::process::Output {
+    Command::new(env!("CARGO_BIN_EXE_trimline"))
+        .args(args)
+        .current_dir(dir)
+        .env("SOURCE_DATE_EPOCH", "86400")
+        .output()
+        .expect("the binary runs")
+}
+
+#[test]
+fn command_writes_the_demo_to_its_default_path() {
+    let dir = scratch("cli-default");
+    let out = trimline(&["report"], &dir);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let path = dir.join("reports").join("larkspire-2000.pdf");
+    let stdout = String::from_utf8_lossy(&out.stdout);
+    assert!(stdout.contains("reports/larkspire-2000.pdf"), "{stdout}");
+    let (pages, text) = read_back(&std::fs::read(path).unwrap());
+    assert_eq!(pages, 1);
+    assert!(
+        text.contains("1970-01-02"),
+        "SOURCE_DATE_EPOCH date not used"
+    );
+    assert!(text.contains("built-in demo"));
+}
+
+#[test]
+fn command_with_a_bad_file_fails_and_keeps_the_old_report() {
+    let dir = scratch("cli-bad");
+    let bad = dir.join("bad.toml");
+    std::fs::write(
+        &bad,
+        DEMO.replace("name = \"Larkspire 2000\"", "nmae = \"x\""),
+    )
+    .unwrap();
+    let out_path = dir.join("bad.pdf");
+    std::fs::write(&out_path, b"previous report").unwrap();
+    let out = trimline(&["report", "bad.toml", "-o", "bad.pdf", "--letter"], &dir);
+    assert_eq!(out.status.code(), Some(1));
+    assert_eq!(std::fs::read(&out_path).unwrap(), b"previous report");
+    let names: Vec<_> = std::fs::read_dir(&dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name())
+        .collect();
+    assert_eq!(names.len(), 2, "stray files: {names:?}");
+}
+
+/// Golden file: the demo page's text as lopdf extracts it, one line per text run, compared
+/// with `tests/data/report-larkspire-2000.expected`. Refresh after an intended change with
+/// `UPDATE_EXPECT=1 cargo test --test report`.
+#[test]
+fn demo_page_text_matches_the_golden_file() {
+    let bytes = report_pdf(&demo(), source(), Paper::A4).unwrap();
+    let doc = lopdf::Document::load_mem(&bytes).unwrap();
+    let got: String = doc
+        .extract_text(&[1])
+        .unwrap()
+        .lines()
+        .map(str::trim_end)
+        .filter(|l| !l.is_empty())
+        .map(|l| format!("{l}\n"))
+        .collect();
+    let path =
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/data/report-larkspire-2000.expected");
+    if std::env::var_os("UPDATE_EXPECT").is_some() {
+        std::fs::write(&path, &got).unwrap();
+        return;
+    }
+    let want = std::fs::read_to_string(&path).unwrap_or_default();
+    if want != got {
+        let mut diff = String::new();
+        for (i, (w, g)) in want.lines().zip(got.lines()).enumerate() {
+            if w != g {
+                diff.push_str(&format!(
+                    "line {}:\n  expected: {w}\n  got:      {g}\n",
+                    i + 1
+                ));
+            }
+        }
+        panic!(
+            "report text differs from {} ({} expected lines, {} got):\n{diff}\
+             Run with UPDATE_EXPECT=1 to accept.",
+            path.display(),
+            want.lines().count(),
+            got.lines().count()
+        );
+    }
+}
