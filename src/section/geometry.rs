@@ -318,10 +318,26 @@ impl Contour {
                 })
                 .collect()
         };
-        // Arc length on [lo, hi] where the spline's x equals `x` (x monotone there).
+        // Arc length on [lo, hi] where the spline's x equals `x` (x monotone there): first the
+        // pair of data points that brackets x, then bisection between them.
         let find = |x: f64, lo: f64, hi: f64, rising: bool| -> f64 {
+            let (k_lo, k_hi) = (
+                s.partition_point(|&t| t < lo),
+                s.partition_point(|&t| t <= hi),
+            );
             let (mut a, mut b) = (lo, hi);
-            for _ in 0..80 {
+            for k in k_lo..k_hi.min(s.len()) {
+                if (xs[k] < x) == rising {
+                    a = a.max(s[k]);
+                } else {
+                    b = b.min(s[k]);
+                    break;
+                }
+            }
+            if a >= b {
+                (a, b) = (lo, hi);
+            }
+            for _ in 0..45 {
                 let m = 0.5 * (a + b);
                 if (sx.eval(m) < x) == rising {
                     a = m;

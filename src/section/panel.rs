@@ -126,11 +126,11 @@ impl PanelSolution {
                     // On the panel's outer side at its midpoint.
                     (PI, 0.0)
                 } else {
-                    let th1 = z.atan2(x);
-                    let th2 = z.atan2(x - l);
+                    // theta_2 - theta_1 is the angle from (x, z) to (x - l, z): one atan2 of
+                    // their cross and dot products.
                     let r1sq = x * x + z * z;
                     let r2sq = (x - l) * (x - l) + z * z;
-                    (th2 - th1, 0.5 * (r1sq / r2sq).ln())
+                    ((z * l).atan2(x * (x - l) + z * z), 0.5 * (r1sq / r2sq).ln())
                 };
                 let (x, z) = if i == j { (0.5 * l, 0.0) } else { (x, z) };
                 // Velocity of gamma_a (1 - s/l) + gamma_b s/l in the panel frame.
