@@ -299,6 +299,9 @@ pub fn analyse_section(
 /// method before re-panelling.
 const SHAPE_POINTS_PER_PANEL: usize = 4;
 
+/// Most surface points used to describe exact and NACA shapes (keeps the contour checks fast).
+const MAX_SHAPE_POINTS: usize = 2400;
+
 /// Stations of a mean line taken from coordinates.
 const MEAN_LINE_STATIONS: usize = 201;
 
@@ -358,7 +361,15 @@ pub fn solve_section(
     if let (SectionMethod::Thin, Some(profile)) = (method, naca) {
         return Ok(SectionSolution::Thin(ThinAirfoil::solve(&profile)));
     }
-    let shape_points = options.panels.max(50) * SHAPE_POINTS_PER_PANEL;
+    if method == SectionMethod::Panel
+        && !(geometry::MIN_PANELS..=geometry::MAX_PANELS).contains(&options.panels)
+    {
+        return Err(SectionError::Panel {
+            airfoil: name(),
+            error: PanelError::Geometry(GeometryError::PanelCount(options.panels)),
+        });
+    }
+    let shape_points = (options.panels * SHAPE_POINTS_PER_PANEL).clamp(400, MAX_SHAPE_POINTS);
     let raw: Vec<[f64; 2]> = match (&airfoil.shape, &exact, &naca) {
         (_, Some(ExactSolution::Joukowski(j)), _) => j.coordinates(shape_points),
         (_, Some(ExactSolution::KarmanTrefftz(k)), _) => k.coordinates(shape_points),

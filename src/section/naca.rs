@@ -95,10 +95,11 @@ impl NacaProfile {
     /// a dash, e.g. `"2412"`, `"naca23012"`, `"NACA 0012"`.
     pub fn parse(designation: &str) -> Result<NacaProfile, NacaError> {
         let trimmed = designation.trim();
-        let digits_part = if trimmed.len() >= 4 && trimmed[..4].eq_ignore_ascii_case("naca") {
-            trimmed[4..].trim_start_matches([' ', '-', '_'])
-        } else {
-            trimmed
+        let digits_part = match (trimmed.get(..4), trimmed.get(4..)) {
+            (Some(prefix), Some(rest)) if prefix.eq_ignore_ascii_case("naca") => {
+                rest.trim_start_matches([' ', '-', '_'])
+            }
+            _ => trimmed,
         };
         if digits_part.is_empty() {
             return Err(NacaError::Empty);
@@ -318,6 +319,10 @@ mod tests {
     #[test]
     fn rejects_bad_designations_with_typed_errors() {
         assert_eq!(NacaProfile::parse("naca"), Err(NacaError::Empty));
+        assert!(matches!(
+            NacaProfile::parse("nac\u{e4}2412"),
+            Err(NacaError::NotDigits(_, 'n'))
+        ));
         assert!(matches!(
             NacaProfile::parse("24a2"),
             Err(NacaError::NotDigits(_, 'a'))

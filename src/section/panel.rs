@@ -95,6 +95,11 @@ impl PanelSolution {
         {
             return Err(PanelError::NotFinite);
         }
+        if nodes_ccw.len() < 4 {
+            return Err(PanelError::Geometry(GeometryError::TooFewPoints(
+                nodes_ccw.len(),
+            )));
+        }
         let mut nodes = nodes_ccw.to_vec();
         nodes.reverse(); // clockwise, as the method is written
         let n = nodes.len() - 1;
