@@ -70,7 +70,7 @@ pub const FULL_COSINE_WEIGHT: f64 = 0.75;
 /// Fewest panels accepted when re-panelling.
 pub const MIN_PANELS: usize = 16;
 /// Most panels accepted when re-panelling.
-pub const MAX_PANELS: usize = 4000;
+pub const MAX_PANELS: usize = 1000;
 
 /// A checked, normalised airfoil contour.
 #[derive(Debug, Clone, PartialEq)]

@@ -42,7 +42,7 @@ use thin_airfoil::{SampledMeanLine, ThinAirfoil, ThinAirfoilError};
 /// Options of the section methods.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct SectionOptions {
-    /// Number of panels for the panel method (16 to 4000).
+    /// Number of panels for the panel method (16 to 1000).
     pub panels: usize,
 }
 
