@@ -104,3 +104,22 @@ fn csv_is_written_with_one_row_per_surface_point() {
     assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 1);
     std::fs::remove_dir_all(&dir).unwrap();
 }
+
+#[test]
+fn table_output_matches_the_golden_file() {
+    // Regression check of the terminal layout (STYLE.md, golden files at the edges): thin
+    // theory on NACA 0012 is analytic, so the numbers are stable. Refresh with UPDATE_EXPECT=1.
+    let (code, stdout, stderr) = run(&[
+        "section", "naca0012", "--method", "thin", "--alpha", "0,4", "--cl-max", "1.3",
+    ]);
+    assert_eq!(code, 0, "{stderr}");
+    let path = "tests/data/section_naca0012_thin.expected";
+    if std::env::var_os("UPDATE_EXPECT").is_some() {
+        std::fs::write(path, &stdout).unwrap();
+    }
+    let expected = std::fs::read_to_string(path).expect("golden file (UPDATE_EXPECT=1 makes it)");
+    assert!(
+        stdout == expected,
+        "table changed.\n--- expected\n{expected}\n--- got\n{stdout}"
+    );
+}
