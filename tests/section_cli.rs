@@ -17,7 +17,7 @@ fn run(args: &[&str]) -> (i32, String, String) {
 #[test]
 fn naca_2412_json_has_the_documented_fields() {
     // Values: the panel method on NACA 2412 must land near thin-airfoil theory (Anderson,
-    // Fundamentals of Aerodynamics, sec. 4.8: -2.077 deg, -0.053) within 0.15 deg and 0.004,
+    // Fundamentals of Aerodynamics, ch. 4: -2.077 deg, -0.053) within 0.15 deg and 0.004,
     // and its lift slope near 2 pi (1 + 0.77 t/c) = 6.86 per rad (thickness correction, from
     // memory) within 3 %; the aerodynamic centre near the quarter chord (0.23 to 0.28,
     // judgement for a 12 % section in potential flow).

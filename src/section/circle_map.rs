@@ -19,10 +19,10 @@
 //! and the trailing edge at (1, 0). Moments are positive nose up.
 //!
 //! # References
-//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed., Macmillan, sec. 6.21
-//!   (circle theorem), 6.41-6.42 (Blasius' theorem), ch. VII (aerofoils).
+//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed., Macmillan (circle theorem,
+//!   Blasius' theorem, aerofoils).
 //! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., Cambridge University Press,
-//!   sec. 6.6-6.8 (Joukowski and Karman-Trefftz airfoils, Kutta condition).
+//!   ch. 6 (Joukowski and Karman-Trefftz airfoils, Kutta condition).
 
 use nalgebra::Complex;
 use std::f64::consts::PI;

@@ -16,11 +16,11 @@
 //! stay nodes.
 //!
 //! # References
-//! - de Boor, C. (2001). A Practical Guide to Splines, rev. ed., Springer, ch. IV (cubic
-//!   spline interpolation, natural end conditions).
-//! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., sec. 11.1 (panel layout,
+//! - de Boor, C. (2001). A Practical Guide to Splines, rev. ed., Springer (cubic spline
+//!   interpolation, natural end conditions).
+//! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., ch. 11 (panel layout,
 //!   cosine spacing).
-//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections, sec. 6.1 (chord line,
+//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections, ch. 6 (chord line,
 //!   mean line as the locus of midpoints).
 
 use std::f64::consts::PI;

@@ -561,7 +561,7 @@ mod tests {
     #[test]
     fn thin_model_of_a_naca_section_has_ac_at_quarter_chord() {
         // Thin-airfoil theory: cm about c/4 does not change with lift, so x_ac = 0.25 exactly
-        // (Anderson, Fundamentals of Aerodynamics, sec. 4.8); 1e-12 for rounding.
+        // (Anderson, Fundamentals of Aerodynamics, ch. 4); 1e-12 for rounding.
         let n = airfoil(AirfoilShape::Naca("4412".into()), Some(SectionMethod::Thin));
         let m = section_model(&n, &SectionOptions::default()).unwrap().model;
         assert_relative_eq!(m.x_ac_c, 0.25, epsilon = 1e-12);

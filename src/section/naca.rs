@@ -17,7 +17,7 @@
 //!   (four-digit thickness form and mean line).
 //! - Abbott, I. H., von Doenhoff, A. E., Stivers, L. S. (1945). Summary of airfoil data.
 //!   NACA Report 824, sec. "Numbering system" and the mean-line tables.
-//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections. Dover, sec. 6.4
+//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections. Dover, ch. 6
 //!   (equations of the four- and five-digit mean lines, constants r and k1 of the 210-250 lines).
 
 /// Largest thickness accepted, fraction of chord (the NACA thickness form is published up to
@@ -81,7 +81,7 @@ pub enum NacaProfile {
 }
 
 /// Constants (P digit, r, k1) of the standard five-digit mean lines for design cl 0.3
-/// (Abbott & von Doenhoff 1959, sec. 6.4).
+/// (Abbott & von Doenhoff 1959, ch. 6).
 const FIVE_DIGIT_LINES: [(u32, f64, f64); 5] = [
     (1, 0.0580, 361.4),
     (2, 0.1260, 51.64),

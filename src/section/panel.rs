@@ -25,8 +25,8 @@
 //!
 //! # References
 //! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., Cambridge University Press,
-//!   sec. 10.3.3 (linear vortex element, eqs. 10.72-10.75) and sec. 11.4.2 (linear-strength
-//!   vortex method, Kutta condition eq. 11.64, program 7 of appendix D).
+//!   ch. 10 (velocity induced by a linear-strength vortex element) and ch. 11
+//!   (linear-strength vortex method with the Kutta condition).
 
 use crate::section::geometry::{Contour, GeometryError};
 use nalgebra::{DMatrix, DVector};
