@@ -70,7 +70,7 @@ pub enum CircleMapError {
     #[error("trailing-edge angle {:.2} deg is outside the accepted range 0 <= angle < 57.3 deg (1 rad)", .0.to_degrees())]
     TrailingEdgeAngle(f64),
     /// The circle that gives the requested shape was not found.
-    #[error("no circle found for thickness {thickness_ratio} and camber {camber_ratio} (residual {residual:e})")]
+    #[error("no circle found for thickness {thickness_ratio} and camber {camber_ratio} (residual {residual:.1e}); a large trailing-edge angle needs a thicker section")]
     NotConverged {
         /// Requested thickness ratio.
         thickness_ratio: f64,
