@@ -17,7 +17,7 @@ fn run(args: &[&str]) -> (i32, String, String) {
 #[test]
 fn naca_2412_json_has_the_documented_fields() {
     // Values: the panel method on NACA 2412 must land near thin-airfoil theory (Anderson,
-    // Fundamentals of Aerodynamics, sec. 4.8: -2.077 deg, -0.053) within 0.15 deg and 0.004,
+    // Fundamentals of Aerodynamics, ch. 4: -2.077 deg, -0.053) within 0.15 deg and 0.004,
     // and its lift slope near 2 pi (1 + 0.77 t/c) = 6.86 per rad (thickness correction, from
     // memory) within 3 %; the aerodynamic centre near the quarter chord (0.23 to 0.28,
     // judgement for a 12 % section in potential flow).
@@ -103,4 +103,23 @@ fn csv_is_written_with_one_row_per_surface_point() {
     // Only the CSV is left in the folder: the temporary file was renamed.
     assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 1);
     std::fs::remove_dir_all(&dir).unwrap();
+}
+
+#[test]
+fn table_output_matches_the_golden_file() {
+    // Regression check of the terminal layout (STYLE.md, golden files at the edges): thin
+    // theory on NACA 0012 is analytic, so the numbers are stable. Refresh with UPDATE_EXPECT=1.
+    let (code, stdout, stderr) = run(&[
+        "section", "naca0012", "--method", "thin", "--alpha", "0,4", "--cl-max", "1.3",
+    ]);
+    assert_eq!(code, 0, "{stderr}");
+    let path = "tests/data/section_naca0012_thin.expected";
+    if std::env::var_os("UPDATE_EXPECT").is_some() {
+        std::fs::write(path, &stdout).unwrap();
+    }
+    let expected = std::fs::read_to_string(path).expect("golden file (UPDATE_EXPECT=1 makes it)");
+    assert!(
+        stdout == expected,
+        "table changed.\n--- expected\n{expected}\n--- got\n{stdout}"
+    );
 }

@@ -21,7 +21,7 @@ fn from_axis<M: trimline::section::circle_map::CircleMap>(
 fn symmetric_section_shape_lift_and_moment() {
     // REFERENCES.md, independent computation of the Joukowski map, centre mu = -0.1:
     // a 1.1, chord 4.033333, t/c 0.11785 (tol 1e-5); at 5 deg cl 0.59740 (tol 1e-4) and
-    // cm_c/4 -0.00235 (tol 2e-4). cl = 8 pi (a/c) sin(alpha + beta) (Katz & Plotkin sec. 6.6).
+    // cm_c/4 -0.00235 (tol 2e-4). cl = 8 pi (a/c) sin(alpha + beta) (Katz & Plotkin ch. 6).
     let j = JoukowskiAirfoil::from_circle(-0.1, 0.0).unwrap();
     assert_relative_eq!(j.radius(), 1.1, epsilon = 1e-12);
     assert_relative_eq!(j.chord(), 4.033333, epsilon = 1e-5);
@@ -77,7 +77,7 @@ fn cusp_speed_of_the_cambered_section() {
 #[test]
 fn zero_lift_angle_is_minus_beta_from_the_axis() {
     // Kutta condition: Gamma = 4 pi a U sin(alpha + beta) vanishes at alpha = -beta
-    // (Katz & Plotkin sec. 6.6; REFERENCES.md formula); 1e-12 for rounding.
+    // (Katz & Plotkin ch. 6; REFERENCES.md formula); 1e-12 for rounding.
     let j = JoukowskiAirfoil::from_circle(-0.08, 0.06).unwrap();
     assert_relative_eq!(
         j.alpha_zero_lift_rad() + j.chord_angle_rad(),
@@ -136,7 +136,7 @@ fn karman_trefftz_ten_degree_trailing_edge() {
 #[test]
 fn karman_trefftz_at_zero_angle_is_joukowski() {
     // The Karman-Trefftz map with n = 2 is the Joukowski map (von Karman & Trefftz 1918;
-    // Milne-Thomson sec. 7.40): everything must agree to machine precision (1e-12, a few
+    // Milne-Thomson, Theoretical Hydrodynamics): everything must agree to machine precision (1e-12, a few
     // hundred ulps for the complex powers).
     let j = JoukowskiAirfoil::from_circle(-0.09, 0.07).unwrap();
     let k = KarmanTrefftzAirfoil::from_circle(-0.09, 0.07, 0.0).unwrap();
@@ -168,7 +168,7 @@ fn panel_on(j: &JoukowskiAirfoil, points: usize, panels: usize) -> PanelSolution
 
 #[test]
 fn panel_method_reproduces_the_exact_lift_and_pressures() {
-    // The classic panel-method check (Katz & Plotkin, Low-Speed Aerodynamics, sec. 11.4 and
+    // The classic panel-method check (Katz & Plotkin, Low-Speed Aerodynamics, ch. 11, and
     // their comparison with the exact Joukowski solution): at 200 panels the panel cl must be
     // within 0.5 % of the exact cl, and Cp within 0.01 of the exact Cp at the same x/c on the
     // same surface for 0.02 <= x/c <= 0.95 (away from the trailing edge, where the cusp

@@ -14,7 +14,7 @@ fn thin(designation: &str) -> ThinAirfoil {
 
 #[test]
 fn naca_2412_zero_lift_angle_and_moment() {
-    // Anderson, Fundamentals of Aerodynamics, sec. 4.8, worked example for the NACA 2412:
+    // Anderson, Fundamentals of Aerodynamics, ch. 4, worked example for the NACA 2412:
     // alpha_L0 = -2.077 deg and cm_c/4 = -0.053 (memory); REFERENCES.md gives the converged
     // values -2.0772 deg and -0.05312 (independent computation of Glauert's integrals).
     // Tolerances 0.002 deg and 2e-4: the rounding of those values.
@@ -29,8 +29,8 @@ fn naca_2412_zero_lift_angle_and_moment() {
 
 #[test]
 fn naca_2412_lift_and_centre_of_pressure_at_4_deg() {
-    // REFERENCES.md (independent computation of thin-airfoil theory, Anderson sec. 4.8 eqs.
-    // 4.60 and 4.66): cl 0.6664 and x_cp/c 0.3297 at 4 deg; tolerance 1e-3, the rounding.
+    // REFERENCES.md (independent computation of thin-airfoil theory, Anderson ch. 4, cl and
+    // centre-of-pressure formulas): cl 0.6664 and x_cp/c 0.3297 at 4 deg; tolerance 1e-3, the rounding.
     let t = thin("2412");
     let a = 4f64.to_radians();
     assert_relative_eq!(t.cl(a), 0.6664, epsilon = 1e-3);
@@ -53,7 +53,7 @@ fn naca_4412_zero_lift_angle_and_moment() {
 #[test]
 fn naca_23012_zero_lift_angle_moment_and_design_lift() {
     // REFERENCES.md, independent computation for the 230 mean line with Abbott & von
-    // Doenhoff's constants (Theory of Wing Sections, sec. 6.4: r 0.2025, k1 15.957):
+    // Doenhoff's constants (Theory of Wing Sections, ch. 6: r 0.2025, k1 15.957):
     // alpha_L0 -1.0936 deg (tol 0.002 deg), cm_c/4 -0.01284 (tol 1e-4). The design lift
     // coefficient, cl at the ideal angle (A0 = 0) = pi A1, must be the 0.3 that the first digit
     // 2 stands for (NACA Report 824, numbering system); tolerance 2e-3 for the rounded k1.
@@ -69,7 +69,7 @@ fn naca_23012_zero_lift_angle_moment_and_design_lift() {
 
 #[test]
 fn thickness_does_not_enter() {
-    // Thin-airfoil theory uses only the mean line (Anderson sec. 4.8): NACA 2415 = NACA 2412
+    // Thin-airfoil theory uses only the mean line (Anderson ch. 4): NACA 2415 = NACA 2412
     // exactly (1e-15, rounding).
     let (a, b) = (thin("2412"), thin("2415"));
     assert_relative_eq!(
@@ -112,7 +112,7 @@ fn results_are_linear_in_maximum_camber() {
 #[test]
 fn parabolic_mean_line_closed_form() {
     // Circular-arc (parabolic) camber z = 4 h x (1 - x): alpha_L0 = -2 h, cm_c/4 = -pi h
-    // (Anderson sec. 4.8; REFERENCES.md, formula): h = 0.02 gives -2.2918 deg and -0.062832;
+    // (Anderson ch. 4; REFERENCES.md, formula): h = 0.02 gives -2.2918 deg and -0.062832;
     // tolerance 1e-5 as listed there (the quadrature is far better).
     let h = 0.02;
     let t = ThinAirfoil::solve(&SlopeFn {
@@ -135,7 +135,7 @@ fn mean_line_from_a_coordinates_file() {
     // marks no leading edge, so its chord runs from the point farthest from the trailing edge;
     // on this section that point lies about 0.0016 c above the mean line's origin (nose radius
     // 1.1019 t^2 centred along the mean-line slope 2m/p = 0.1 at the nose, Abbott & von
-    // Doenhoff sec. 6.4), which turns the chord line by up to 0.09 deg; the rest of the
+    // Doenhoff ch. 6), which turns the chord line by up to 0.09 deg; the rest of the
     // tolerance covers the linear interpolation of the 81-point surfaces.
     let text = std::fs::read_to_string("tests/data/naca2412.dat").unwrap();
     let (title, points) = trimline::input::coordinates::parse_coordinates(&text, "naca2412.dat")

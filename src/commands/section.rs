@@ -37,7 +37,7 @@ pub struct SectionArgs {
     /// Method; the default is exact for Joukowski and Karman-Trefftz sections, panel otherwise.
     #[arg(long, value_enum)]
     pub method: Option<MethodArg>,
-    /// Number of panels for the panel method (16 to 4000; an odd number is raised by one).
+    /// Number of panels for the panel method (16 to 1000; an odd number is raised by one).
     #[arg(long, default_value_t = SectionOptions::default().panels)]
     pub panels: usize,
     /// Section cl_max to use for the stall limit (a conservative default otherwise).

@@ -142,6 +142,16 @@ pub fn to_json(report: &SectionReport) -> Result<String, serde_json::Error> {
     serde_json::to_string_pretty(report)
 }
 
+/// `value` with `digits` decimals, without a minus sign on a value that rounds to zero.
+fn fixed(value: f64, digits: usize) -> String {
+    let text = format!("{value:.digits$}");
+    if text.starts_with('-') && text[1..].chars().all(|c| c == '0' || c == '.') {
+        text[1..].to_string()
+    } else {
+        text
+    }
+}
+
 fn right(text: String) -> Cell {
     Cell::new(text).set_alignment(CellAlignment::Right)
 }
@@ -161,35 +171,27 @@ pub fn render_tables(report: &SectionReport) -> String {
         ("Method", method, ""),
         (
             "Zero-lift angle",
-            format!("{:.2}", report.alpha_zero_lift_deg),
+            fixed(report.alpha_zero_lift_deg, 2),
             "deg",
         ),
-        (
-            "Lift slope",
-            format!("{:.3}", report.cl_alpha_per_rad),
-            "per rad",
-        ),
-        (
-            "Lift slope",
-            format!("{:.4}", report.cl_alpha_per_deg),
-            "per deg",
-        ),
+        ("Lift slope", fixed(report.cl_alpha_per_rad, 3), "per rad"),
+        ("Lift slope", fixed(report.cl_alpha_per_deg, 4), "per deg"),
         (
             "cm about c/4 at zero lift",
-            format!("{:.4}", report.cm_quarter_chord),
+            fixed(report.cm_quarter_chord, 4),
             "",
         ),
         (
             "Aerodynamic centre",
-            format!("{:.3}", report.aerodynamic_center_x_c),
+            fixed(report.aerodynamic_center_x_c, 3),
             "x/c",
         ),
         (
             "cl_max",
-            format!("{:.2} ({})", report.cl_max, report.cl_max_source),
+            format!("{} ({})", fixed(report.cl_max, 2), report.cl_max_source),
             "",
         ),
-        ("cl_min", format!("{:.2}", report.cl_min), ""),
+        ("cl_min", fixed(report.cl_min, 2), ""),
     ];
     for (name, value, unit) in rows {
         summary.add_row(vec![Cell::new(name), right(value), Cell::new(unit)]);
@@ -199,10 +201,10 @@ pub fn render_tables(report: &SectionReport) -> String {
     sweep.set_header(vec!["alpha (deg)", "cl", "cm c/4", "cl with stall limit"]);
     for p in &report.points {
         sweep.add_row(vec![
-            right(format!("{:.1}", p.alpha_deg)),
-            right(format!("{:.4}", p.cl)),
-            right(format!("{:.4}", p.cm_quarter_chord)),
-            right(format!("{:.4}", p.cl_model)),
+            right(fixed(p.alpha_deg, 1)),
+            right(fixed(p.cl, 4)),
+            right(fixed(p.cm_quarter_chord, 4)),
+            right(fixed(p.cl_model, 4)),
         ]);
     }
     let mut out = format!("{summary}\n{sweep}\n");
@@ -272,6 +274,13 @@ mod tests {
         let t = render_tables(&report());
         assert!(t.contains("-2.29"), "{t}");
         assert!(t.contains("0.2480"), "{t}");
+    }
+
+    #[test]
+    fn no_minus_sign_on_zero() {
+        assert_eq!(fixed(-1e-17, 4), "0.0000");
+        assert_eq!(fixed(-0.00004, 4), "0.0000");
+        assert_eq!(fixed(-0.00006, 4), "-0.0001");
     }
 
     #[test]

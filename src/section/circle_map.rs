@@ -19,10 +19,10 @@
 //! and the trailing edge at (1, 0). Moments are positive nose up.
 //!
 //! # References
-//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed., Macmillan, sec. 6.21
-//!   (circle theorem), 6.41-6.42 (Blasius' theorem), ch. VII (aerofoils).
+//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed., Macmillan (circle theorem,
+//!   Blasius' theorem, aerofoils).
 //! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., Cambridge University Press,
-//!   sec. 6.6-6.8 (Joukowski and Karman-Trefftz airfoils, Kutta condition).
+//!   ch. 6 (Joukowski and Karman-Trefftz airfoils, Kutta condition).
 
 use nalgebra::Complex;
 use std::f64::consts::PI;
@@ -70,7 +70,7 @@ pub enum CircleMapError {
     #[error("trailing-edge angle {:.2} deg is outside the accepted range 0 <= angle < 57.3 deg (1 rad)", .0.to_degrees())]
     TrailingEdgeAngle(f64),
     /// The circle that gives the requested shape was not found.
-    #[error("no circle found for thickness {thickness_ratio} and camber {camber_ratio} (residual {residual:e})")]
+    #[error("no circle found for thickness {thickness_ratio} and camber {camber_ratio} (residual {residual:.1e}); a large trailing-edge angle needs a thicker section")]
     NotConverged {
         /// Requested thickness ratio.
         thickness_ratio: f64,

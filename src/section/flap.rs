@@ -17,7 +17,7 @@
 //! - Glauert, H. (1927). Theoretical relationships for an aerofoil with hinged flap. ARC
 //!   R&M 1095.
 //! - Houghton, E. L., Carpenter, P. W. (2003). Aerodynamics for Engineering Students, 5th ed.,
-//!   Butterworth-Heinemann, sec. 4.9, eqs. 4.49-4.52.
+//!   Butterworth-Heinemann, eqs. 4.49-4.52.
 
 use std::f64::consts::PI;
 

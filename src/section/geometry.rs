@@ -16,11 +16,11 @@
 //! stay nodes.
 //!
 //! # References
-//! - de Boor, C. (2001). A Practical Guide to Splines, rev. ed., Springer, ch. IV (cubic
-//!   spline interpolation, natural end conditions).
-//! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., sec. 11.1 (panel layout,
+//! - de Boor, C. (2001). A Practical Guide to Splines, rev. ed., Springer (cubic spline
+//!   interpolation, natural end conditions).
+//! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., ch. 11 (panel layout,
 //!   cosine spacing).
-//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections, sec. 6.1 (chord line,
+//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections, ch. 6 (chord line,
 //!   mean line as the locus of midpoints).
 
 use std::f64::consts::PI;
@@ -70,7 +70,7 @@ pub const FULL_COSINE_WEIGHT: f64 = 0.75;
 /// Fewest panels accepted when re-panelling.
 pub const MIN_PANELS: usize = 16;
 /// Most panels accepted when re-panelling.
-pub const MAX_PANELS: usize = 4000;
+pub const MAX_PANELS: usize = 1000;
 
 /// A checked, normalised airfoil contour.
 #[derive(Debug, Clone, PartialEq)]
@@ -318,10 +318,26 @@ impl Contour {
                 })
                 .collect()
         };
-        // Arc length on [lo, hi] where the spline's x equals `x` (x monotone there).
+        // Arc length on [lo, hi] where the spline's x equals `x` (x monotone there): first the
+        // pair of data points that brackets x, then bisection between them.
         let find = |x: f64, lo: f64, hi: f64, rising: bool| -> f64 {
+            let (k_lo, k_hi) = (
+                s.partition_point(|&t| t < lo),
+                s.partition_point(|&t| t <= hi),
+            );
             let (mut a, mut b) = (lo, hi);
-            for _ in 0..80 {
+            for k in k_lo..k_hi.min(s.len()) {
+                if (xs[k] < x) == rising {
+                    a = a.max(s[k]);
+                } else {
+                    b = b.min(s[k]);
+                    break;
+                }
+            }
+            if a >= b {
+                (a, b) = (lo, hi);
+            }
+            for _ in 0..45 {
                 let m = 0.5 * (a + b);
                 if (sx.eval(m) < x) == rising {
                     a = m;

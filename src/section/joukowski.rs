@@ -13,8 +13,8 @@
 //! - Joukowski, N. (1910). Ueber die Konturen der Tragflaechen der Drachenflieger.
 //!   Zeitschrift fuer Flugtechnik und Motorluftschiffahrt 1, 281-284.
 //! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., Cambridge University Press,
-//!   sec. 6.6 (Joukowski airfoil, eqs. 6.60-6.68).
-//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed., sec. 7.30-7.32.
+//!   ch. 6 (Joukowski airfoil).
+//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed. (Joukowski aerofoils).
 
 use crate::section::circle_map::{CircleAirfoil, CircleMap, CircleMapError, C64};
 
@@ -77,7 +77,7 @@ mod tests {
     fn symmetric_section_chord_and_slope() {
         // Closed form: mu = -0.1 gives a = 1.1, leading edge at zeta = -1.2, z = -(1.2 + 1/1.2),
         // so c = 2 + 1.2 + 1/1.2 = 4.033333 and dcl/dalpha = 8 pi a / c (Katz & Plotkin,
-        // sec. 6.6); 1e-12 for rounding.
+        // ch. 6); 1e-12 for rounding.
         let j = JoukowskiAirfoil::from_circle(-0.1, 0.0).unwrap();
         let c = 2.0 + 1.2 + 1.0 / 1.2;
         assert_relative_eq!(j.chord(), c, epsilon = 1e-12);

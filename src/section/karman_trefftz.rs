@@ -13,9 +13,9 @@
 //! # References
 //! - von Karman, Th., Trefftz, E. (1918). Potentialstroemung um gegebene Tragflaechenquerschnitte.
 //!   Zeitschrift fuer Flugtechnik und Motorluftschiffahrt 9, 111-116.
-//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed., sec. 7.40
+//! - Milne-Thomson, L. M. (1968). Theoretical Hydrodynamics, 5th ed.
 //!   (Karman-Trefftz profiles).
-//! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., sec. 6.8.
+//! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., ch. 6.
 
 use crate::section::circle_map::{CircleAirfoil, CircleMap, CircleMapError, C64};
 use std::f64::consts::PI;

@@ -42,7 +42,7 @@ use thin_airfoil::{SampledMeanLine, ThinAirfoil, ThinAirfoilError};
 /// Options of the section methods.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct SectionOptions {
-    /// Number of panels for the panel method (16 to 4000).
+    /// Number of panels for the panel method (16 to 1000).
     pub panels: usize,
 }
 
@@ -121,6 +121,16 @@ pub enum SectionError {
         method: &'static str,
         /// Which quantity.
         what: &'static str,
+    },
+    /// The solution puts the aerodynamic centre far off the section.
+    #[error("airfoil '{airfoil}': the {method} solution is not credible (aerodynamic centre at x/c = {x_ac_c:.2}); for very thin sections use method thin")]
+    NotCredible {
+        /// Airfoil name.
+        airfoil: String,
+        /// Method.
+        method: &'static str,
+        /// The aerodynamic centre found, fraction of chord.
+        x_ac_c: f64,
     },
     /// Flap-chord fraction not accepted.
     #[error(transparent)]
@@ -291,13 +301,52 @@ pub fn analyse_section(
         .method
         .unwrap_or_else(|| default_method(&airfoil.shape));
     let solution = solve_section(airfoil, method, options)?;
-    let outcome = model_from_solution(airfoil, &solution)?;
+    let mut outcome = model_from_solution(airfoil, &solution)?;
+    if method == SectionMethod::Panel {
+        if let Some(t) = shape_thickness(airfoil).filter(|&t| t < THIN_SECTION_FOR_PANELS) {
+            outcome.cautions.push(Caution::new(
+                Level::Warning,
+                "section-too-thin-for-panels",
+                format!(
+                    "Airfoil '{}' is only {:.1} % thick; the panel method loses accuracy on                      sections thinner than {:.0} % of chord. Thin-airfoil theory (method thin)                      suits such sections better.",
+                    airfoil.name,
+                    100.0 * t,
+                    100.0 * THIN_SECTION_FOR_PANELS
+                ),
+            ));
+        }
+    }
     Ok(SectionAnalysis { solution, outcome })
+}
+
+/// Thickness below which the panel method gets a caution (judgement: on thinner sections the
+/// normal-velocity conditions of the two surfaces nearly repeat each other, see
+/// [`geometry::FULL_COSINE_WEIGHT`]; at 1 % thickness the aerodynamic centre is already a few
+/// per cent of chord off).
+const THIN_SECTION_FOR_PANELS: f64 = 0.03;
+
+/// Greatest thickness of the airfoil's shape, fraction of chord, where it is known.
+fn shape_thickness(airfoil: &Airfoil) -> Option<f64> {
+    match &airfoil.shape {
+        AirfoilShape::Naca(d) => NacaProfile::parse(d).ok().map(|p| p.thickness_ratio()),
+        AirfoilShape::Joukowski {
+            thickness_ratio, ..
+        }
+        | AirfoilShape::KarmanTrefftz {
+            thickness_ratio, ..
+        } => Some(*thickness_ratio),
+        AirfoilShape::Coordinates { points, .. } => {
+            Contour::new(points).ok().map(|c| c.thickness_ratio())
+        }
+    }
 }
 
 /// Grid of surface points per panel used to describe exact and NACA shapes to the panel
 /// method before re-panelling.
 const SHAPE_POINTS_PER_PANEL: usize = 4;
+
+/// Most surface points used to describe exact and NACA shapes (keeps the contour checks fast).
+const MAX_SHAPE_POINTS: usize = 2400;
 
 /// Stations of a mean line taken from coordinates.
 const MEAN_LINE_STATIONS: usize = 201;
@@ -358,7 +407,15 @@ pub fn solve_section(
     if let (SectionMethod::Thin, Some(profile)) = (method, naca) {
         return Ok(SectionSolution::Thin(ThinAirfoil::solve(&profile)));
     }
-    let shape_points = options.panels.max(50) * SHAPE_POINTS_PER_PANEL;
+    if method == SectionMethod::Panel
+        && !(geometry::MIN_PANELS..=geometry::MAX_PANELS).contains(&options.panels)
+    {
+        return Err(SectionError::Panel {
+            airfoil: name(),
+            error: PanelError::Geometry(GeometryError::PanelCount(options.panels)),
+        });
+    }
+    let shape_points = (options.panels * SHAPE_POINTS_PER_PANEL).clamp(400, MAX_SHAPE_POINTS);
     let raw: Vec<[f64; 2]> = match (&airfoil.shape, &exact, &naca) {
         (_, Some(ExactSolution::Joukowski(j)), _) => j.coordinates(shape_points),
         (_, Some(ExactSolution::KarmanTrefftz(k)), _) => k.coordinates(shape_points),
@@ -368,8 +425,10 @@ pub fn solve_section(
         _ => return Err(geometry_err(GeometryError::Degenerate)),
     };
     let contour = match naca {
-        // NACA coordinates have the leading edge of their chord line at the middle point.
-        Some(_) => Contour::with_leading_edge(&raw, raw.len() / 2),
+        // NACA coordinates have the leading edge of their chord line at the middle point. On
+        // thick, strongly cambered sections the surface runs ahead of that point; their chord
+        // then starts at the point farthest from the trailing edge, as for a file.
+        Some(_) => Contour::with_leading_edge(&raw, raw.len() / 2).or_else(|_| Contour::new(&raw)),
         None => Contour::new(&raw),
     }
     .map_err(geometry_err)?;
@@ -427,6 +486,13 @@ pub fn model_from_solution(
     let cm_ac = solution.cm_quarter_chord(alpha0);
     if !x_ac_c.is_finite() {
         return Err(not_finite("aerodynamic centre"));
+    }
+    if !(-0.5..=1.5).contains(&x_ac_c) {
+        return Err(SectionError::NotCredible {
+            airfoil: airfoil.name.clone(),
+            method: method.as_str(),
+            x_ac_c,
+        });
     }
     if !cm_ac.is_finite() {
         return Err(not_finite("moment coefficient"));
@@ -570,7 +636,7 @@ mod tests {
     #[test]
     fn thin_model_of_a_naca_section_has_ac_at_quarter_chord() {
         // Thin-airfoil theory: cm about c/4 does not change with lift, so x_ac = 0.25 exactly
-        // (Anderson, Fundamentals of Aerodynamics, sec. 4.8); 1e-12 for rounding.
+        // (Anderson, Fundamentals of Aerodynamics, ch. 4); 1e-12 for rounding.
         let n = airfoil(AirfoilShape::Naca("4412".into()), Some(SectionMethod::Thin));
         let m = section_model(&n, &SectionOptions::default()).unwrap().model;
         assert_relative_eq!(m.x_ac_c, 0.25, epsilon = 1e-12);
@@ -586,6 +652,35 @@ mod tests {
         assert_relative_eq!(out.model.cl_min, -1.2, epsilon = 1e-12);
         n.cl_max = Some(f64::NAN);
         assert!(section_model(&n, &SectionOptions::default()).is_err());
+    }
+
+    #[test]
+    fn very_thin_sections_are_flagged_for_the_panel_method() {
+        let n = airfoil(
+            AirfoilShape::Naca("0002".into()),
+            Some(SectionMethod::Panel),
+        );
+        let out = section_model(&n, &SectionOptions { panels: 80 }).unwrap();
+        assert!(out
+            .cautions
+            .iter()
+            .any(|c| c.code == "section-too-thin-for-panels"));
+        let j = airfoil(
+            AirfoilShape::Joukowski {
+                thickness_ratio: 0.01,
+                camber_ratio: 0.14,
+            },
+            Some(SectionMethod::Panel),
+        );
+        // Either refused as not credible or flagged: never a silent answer.
+        match section_model(&j, &SectionOptions::default()) {
+            Err(SectionError::NotCredible { .. }) => {}
+            Ok(out) => assert!(out
+                .cautions
+                .iter()
+                .any(|c| c.code == "section-too-thin-for-panels")),
+            Err(e) => panic!("unexpected error {e}"),
+        }
     }
 
     #[test]

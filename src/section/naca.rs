@@ -17,7 +17,7 @@
 //!   (four-digit thickness form and mean line).
 //! - Abbott, I. H., von Doenhoff, A. E., Stivers, L. S. (1945). Summary of airfoil data.
 //!   NACA Report 824, sec. "Numbering system" and the mean-line tables.
-//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections. Dover, sec. 6.4
+//! - Abbott, I. H., von Doenhoff, A. E. (1959). Theory of Wing Sections. Dover, ch. 6
 //!   (equations of the four- and five-digit mean lines, constants r and k1 of the 210-250 lines).
 
 /// Largest thickness accepted, fraction of chord (the NACA thickness form is published up to
@@ -81,7 +81,7 @@ pub enum NacaProfile {
 }
 
 /// Constants (P digit, r, k1) of the standard five-digit mean lines for design cl 0.3
-/// (Abbott & von Doenhoff 1959, sec. 6.4).
+/// (Abbott & von Doenhoff 1959, ch. 6).
 const FIVE_DIGIT_LINES: [(u32, f64, f64); 5] = [
     (1, 0.0580, 361.4),
     (2, 0.1260, 51.64),
@@ -95,10 +95,11 @@ impl NacaProfile {
     /// a dash, e.g. `"2412"`, `"naca23012"`, `"NACA 0012"`.
     pub fn parse(designation: &str) -> Result<NacaProfile, NacaError> {
         let trimmed = designation.trim();
-        let digits_part = if trimmed.len() >= 4 && trimmed[..4].eq_ignore_ascii_case("naca") {
-            trimmed[4..].trim_start_matches([' ', '-', '_'])
-        } else {
-            trimmed
+        let digits_part = match (trimmed.get(..4), trimmed.get(4..)) {
+            (Some(prefix), Some(rest)) if prefix.eq_ignore_ascii_case("naca") => {
+                rest.trim_start_matches([' ', '-', '_'])
+            }
+            _ => trimmed,
         };
         if digits_part.is_empty() {
             return Err(NacaError::Empty);
@@ -318,6 +319,10 @@ mod tests {
     #[test]
     fn rejects_bad_designations_with_typed_errors() {
         assert_eq!(NacaProfile::parse("naca"), Err(NacaError::Empty));
+        assert!(matches!(
+            NacaProfile::parse("nac\u{e4}2412"),
+            Err(NacaError::NotDigits(_, 'n'))
+        ));
         assert!(matches!(
             NacaProfile::parse("24a2"),
             Err(NacaError::NotDigits(_, 'a'))

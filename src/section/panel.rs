@@ -25,8 +25,8 @@
 //!
 //! # References
 //! - Katz, J., Plotkin, A. (2001). Low-Speed Aerodynamics, 2nd ed., Cambridge University Press,
-//!   sec. 10.3.3 (linear vortex element, eqs. 10.72-10.75) and sec. 11.4.2 (linear-strength
-//!   vortex method, Kutta condition eq. 11.64, program 7 of appendix D).
+//!   ch. 10 (velocity induced by a linear-strength vortex element) and ch. 11
+//!   (linear-strength vortex method with the Kutta condition).
 
 use crate::section::geometry::{Contour, GeometryError};
 use nalgebra::{DMatrix, DVector};
@@ -95,6 +95,11 @@ impl PanelSolution {
         {
             return Err(PanelError::NotFinite);
         }
+        if nodes_ccw.len() < 4 {
+            return Err(PanelError::Geometry(GeometryError::TooFewPoints(
+                nodes_ccw.len(),
+            )));
+        }
         let mut nodes = nodes_ccw.to_vec();
         nodes.reverse(); // clockwise, as the method is written
         let n = nodes.len() - 1;
@@ -126,11 +131,11 @@ impl PanelSolution {
                     // On the panel's outer side at its midpoint.
                     (PI, 0.0)
                 } else {
-                    let th1 = z.atan2(x);
-                    let th2 = z.atan2(x - l);
+                    // theta_2 - theta_1 is the angle from (x, z) to (x - l, z): one atan2 of
+                    // their cross and dot products.
                     let r1sq = x * x + z * z;
                     let r2sq = (x - l) * (x - l) + z * z;
-                    (th2 - th1, 0.5 * (r1sq / r2sq).ln())
+                    ((z * l).atan2(x * (x - l) + z * z), 0.5 * (r1sq / r2sq).ln())
                 };
                 let (x, z) = if i == j { (0.5 * l, 0.0) } else { (x, z) };
                 // Velocity of gamma_a (1 - s/l) + gamma_b s/l in the panel frame.

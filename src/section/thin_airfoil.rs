@@ -17,9 +17,9 @@
 //!
 //! # References
 //! - Glauert, H. (1926). The Elements of Aerofoil and Airscrew Theory. Cambridge University
-//!   Press, ch. VII (thin aerofoil, Fourier coefficients).
-//! - Anderson, J. D. (2017). Fundamentals of Aerodynamics, 6th ed., McGraw-Hill, sec. 4.8,
-//!   eqs. 4.50-4.66 (cambered thin airfoil: A0, An, cl, cm_c/4, centre of pressure).
+//!   Press (thin aerofoil, Fourier coefficients).
+//! - Anderson, J. D. (2017). Fundamentals of Aerodynamics, 6th ed., McGraw-Hill, ch. 4
+//!   (cambered thin airfoil: A0, An, cl, cm_c/4, centre of pressure).
 
 use std::f64::consts::PI;
 
@@ -237,7 +237,7 @@ mod tests {
     #[test]
     fn parabolic_mean_line_matches_closed_form() {
         // z = 4 h x (1 - x): alpha_L0 = -2h, cm_c/4 = -pi h, A1 = 4h, A2 = 0 (Anderson,
-        // Fundamentals of Aerodynamics, sec. 4.8, circular-arc camber); tolerance 1e-12 because
+        // Fundamentals of Aerodynamics, ch. 4, circular-arc camber); tolerance 1e-12 because
         // the integrand is a trigonometric polynomial, integrated exactly by the quadrature.
         let h = 0.03;
         let t = ThinAirfoil::solve(&SlopeFn {
