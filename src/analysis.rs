@@ -660,7 +660,7 @@ fn full_model_cautions(
                 format!(
                     "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
                      {:+.3} there, {:+.3} at zero lift; it must be positive at zero lift). It needs {washout}{}or \
-                     airfoils with about {:.3} more reflex (cm_ac), or the CG moved forward.",
+                     airfoils with about {:.3} more reflex (cm_ac), or the CG moved aft within the recommended band.",
                     t.design_cl,
                     t.cm_at_design,
                     t.cm_zero_lift,

@@ -308,7 +308,9 @@ pub fn analyse_section(
                 Level::Warning,
                 "section-too-thin-for-panels",
                 format!(
-                    "Airfoil '{}' is only {:.1} % thick; the panel method loses accuracy on                      sections thinner than {:.0} % of chord. Thin-airfoil theory (method thin)                      suits such sections better.",
+                    "Airfoil '{}' is only {:.1} % thick; the panel method loses accuracy on \
+                     sections thinner than {:.0} % of chord. Thin-airfoil theory (method thin) \
+                     suits such sections better.",
                     airfoil.name,
                     100.0 * t,
                     100.0 * THIN_SECTION_FOR_PANELS
@@ -575,18 +577,7 @@ pub fn flap_effectiveness(chord_fraction: f64) -> Result<FlapEffect, SectionErro
 /// coordinate loop that cannot be read as a contour (input validation prevents this) gives
 /// 0.12, a typical model section, rather than failing the whole analysis.
 pub fn thickness_ratio(airfoil: &Airfoil) -> f64 {
-    match &airfoil.shape {
-        AirfoilShape::Naca(d) => NacaProfile::parse(d).map_or(0.12, |p| p.thickness_ratio()),
-        AirfoilShape::Joukowski {
-            thickness_ratio, ..
-        }
-        | AirfoilShape::KarmanTrefftz {
-            thickness_ratio, ..
-        } => *thickness_ratio,
-        AirfoilShape::Coordinates { points, .. } => {
-            Contour::new(points).map_or(0.12, |c| c.thickness_ratio())
-        }
-    }
+    shape_thickness(airfoil).unwrap_or(0.12)
 }
 
 #[cfg(test)]
