@@ -723,6 +723,10 @@ pub struct KeyFigures {
     pub warnings: usize,
     /// Number of dangers.
     pub dangers: usize,
+    /// x of the wing root leading edge, m (to express positions as builders measure them).
+    pub wing_root_le_x_m: f64,
+    /// Codes of the warnings and dangers raised, most serious first.
+    pub caution_codes: Vec<(Level, &'static str)>,
 }
 
 impl KeyFigures {
@@ -762,6 +766,17 @@ impl KeyFigures {
                 .iter()
                 .filter(|c| c.level == Level::Danger)
                 .count(),
+            wing_root_le_x_m: aircraft.wing.root_le_x_m,
+            caution_codes: {
+                let mut codes: Vec<(Level, &'static str)> = a
+                    .cautions
+                    .iter()
+                    .filter(|c| c.level >= Level::Warning)
+                    .map(|c| (c.level, c.code))
+                    .collect();
+                codes.sort_by_key(|c| std::cmp::Reverse(c.0));
+                codes
+            },
         }
     }
 }

@@ -124,3 +124,63 @@ fn compare_with_nothing_to_compare_fails_cleanly() {
     assert_eq!(out.status.code(), Some(1));
     assert!(String::from_utf8_lossy(&out.stderr).contains("nothing to compare"));
 }
+
+fn read_back(path: &std::path::Path) -> (usize, String) {
+    let bytes = std::fs::read(path).expect("the PDF was written");
+    assert!(bytes.starts_with(b"%PDF-"), "no PDF header");
+    let doc = lopdf::Document::load_mem(&bytes).expect("lopdf reads the comparison");
+    let text = doc.extract_text(&[1]).expect("text of page 1");
+    (
+        doc.get_pages().len(),
+        text.split_whitespace().collect::<Vec<_>>().join(" "),
+    )
+}
+
+// The comparison PDF: one page, every setup's name and its CG figure as text, the standing
+// safety caution; the figures are those of the JSON comparison of the same run.
+#[test]
+fn comparison_pdf_is_one_page_with_the_figures() {
+    let dir = std::env::temp_dir().join(format!("trimline-cmp-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let pdf = dir.join("cmp.pdf");
+    let out = trimline(&["compare", "--json", "--pdf", pdf.to_str().unwrap()]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let (pages, text) = read_back(&pdf);
+    assert_eq!(pages, 1);
+    for col in v.as_array().unwrap() {
+        assert!(text.contains(col["name"].as_str().unwrap()), "{text}");
+        let cg = col["figures"]["cg_mm_from_datum"].as_f64().unwrap();
+        assert!(
+            text.contains(&format!("{cg:.1}")),
+            "CG {cg:.1} missing in {text}"
+        );
+    }
+    let safety: String = trimline::caution::SAFETY_MESSAGE
+        .split_whitespace()
+        .collect::<Vec<_>>()
+        .join(" ");
+    assert!(text.contains(&safety));
+}
+
+// A comparison that fails writes nothing and leaves an existing file untouched.
+#[test]
+fn failed_comparison_leaves_the_old_pdf_alone() {
+    let dir = std::env::temp_dir().join(format!("trimline-cmp-fail-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let pdf = dir.join("old.pdf");
+    std::fs::write(&pdf, b"old contents").unwrap();
+    let out = trimline(&[
+        "compare",
+        "--base-only",
+        "aircraft/wrenfield-1400.toml",
+        "--pdf",
+        pdf.to_str().unwrap(),
+    ]);
+    assert_eq!(out.status.code(), Some(1));
+    assert_eq!(std::fs::read(&pdf).unwrap(), b"old contents");
+}

@@ -5,6 +5,9 @@ use anyhow::Context;
 use clap::Args;
 use std::path::PathBuf;
 use trimline::analysis::{analyse, AnalysisOptions, KeyFigures};
+use trimline::output::pdf::compare_page::MAX_COLUMNS;
+use trimline::output::pdf::Paper;
+use trimline::output::report_file::write_atomically;
 
 /// Arguments of `compare`.
 #[derive(Debug, Args)]
@@ -18,6 +21,13 @@ pub struct CompareArgs {
     /// Print JSON instead of a table.
     #[arg(long)]
     pub json: bool,
+    /// Also write a one-page comparison PDF: to PATH, or to
+    /// reports/<first file's stem>-compare.pdf when no PATH is given.
+    #[arg(long, value_name = "PATH", num_args = 0..=1, default_missing_value = "")]
+    pub pdf: Option<PathBuf>,
+    /// US Letter paper for the PDF instead of A4.
+    #[arg(long)]
+    pub letter: bool,
 }
 
 /// Every configuration to compare, analysed: key figures and source name.
@@ -57,6 +67,40 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
     if columns.len() < 2 {
         anyhow::bail!(
             "nothing to compare: give two or more aircraft files, or a file with [[setup]] tables"
+        );
+    }
+    if columns.len() > MAX_COLUMNS && args.pdf.is_some() {
+        anyhow::bail!(
+            "{} configurations do not fit on one comparison page (at most {MAX_COLUMNS}); \
+             use --base-only or fewer files",
+            columns.len()
+        );
+    }
+    if let Some(pdf) = &args.pdf {
+        let path = if pdf.as_os_str().is_empty() {
+            let stem = args
+                .files
+                .first()
+                .and_then(|f| f.file_stem())
+                .map(|s| s.to_string_lossy().into_owned())
+                .unwrap_or_else(|| "larkspire-2000".to_string());
+            PathBuf::from("reports").join(format!("{stem}-compare.pdf"))
+        } else {
+            pdf.clone()
+        };
+        let data = trimline::output::compare::compare_data(&columns, super::report::today_utc());
+        let paper = if args.letter {
+            Paper::Letter
+        } else {
+            Paper::A4
+        };
+        let bytes = trimline::output::pdf::comparison_report(&data, paper);
+        write_atomically(&path, &bytes)
+            .with_context(|| format!("writing the comparison to {}", path.display()))?;
+        eprintln!(
+            "Wrote the comparison of {} setups to {}",
+            columns.len(),
+            path.display()
         );
     }
     if args.json {

@@ -82,7 +82,7 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<()> {
 
 /// Today's date (UTC) as YYYY-MM-DD; `SOURCE_DATE_EPOCH` (seconds), when set, is used instead
 /// of the clock so reports can be reproduced byte for byte.
-fn today_utc() -> String {
+pub fn today_utc() -> String {
     let secs = std::env::var("SOURCE_DATE_EPOCH")
         .ok()
         .and_then(|s| s.trim().parse::<i64>().ok())

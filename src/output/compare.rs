@@ -96,6 +96,43 @@ const ROWS: &[Row] = &[
     },
 ];
 
+/// The comparison as text cells: one row per figure, the label then one cell per
+/// configuration; later columns show their difference from the first in brackets, "(=)" when
+/// unchanged, and "n/a" where a value does not exist.
+pub fn compare_cells(columns: &[KeyFigures]) -> Vec<(&'static str, Vec<String>)> {
+    ROWS.iter()
+        .map(|row| {
+            let base = columns.first().and_then(|k| (row.value)(k));
+            let cells = columns
+                .iter()
+                .enumerate()
+                .map(
+                    |(i, k)| match ((row.value)(k).filter(|v| v.is_finite()), base) {
+                        (None, _) => "n/a".to_string(),
+                        (Some(v), _) if i == 0 => num(v, row.decimals),
+                        (Some(v), Some(b)) => {
+                            let d = v - b;
+                            let shown = num(d, row.decimals);
+                            if shown
+                                .trim_start_matches('-')
+                                .chars()
+                                .all(|c| c == '0' || c == '.')
+                            {
+                                format!("{} (=)", num(v, row.decimals))
+                            } else {
+                                let sign = if d > 0.0 { "+" } else { "" };
+                                format!("{} ({sign}{shown})", num(v, row.decimals))
+                            }
+                        }
+                        (Some(v), None) => num(v, row.decimals),
+                    },
+                )
+                .collect();
+            (row.label, cells)
+        })
+        .collect()
+}
+
 /// The comparison table: one column per configuration; later columns show their difference
 /// from the first in brackets.
 pub fn compare_table(columns: &[KeyFigures]) -> Table {
@@ -104,32 +141,10 @@ pub fn compare_table(columns: &[KeyFigures]) -> Table {
     let mut header = vec![Cell::new("")];
     header.extend(columns.iter().map(|k| Cell::new(&k.name)));
     t.set_header(header);
-    for row in ROWS {
-        let base = columns.first().and_then(|k| (row.value)(k));
-        let mut cells = vec![row.label.to_string()];
-        for (i, k) in columns.iter().enumerate() {
-            let cell = match ((row.value)(k), base) {
-                (None, _) => "n/a".to_string(),
-                (Some(v), _) if i == 0 => num(v, row.decimals),
-                (Some(v), Some(b)) => {
-                    let d = v - b;
-                    let shown = num(d, row.decimals);
-                    if shown
-                        .trim_start_matches('-')
-                        .chars()
-                        .all(|c| c == '0' || c == '.')
-                    {
-                        format!("{} (=)", num(v, row.decimals))
-                    } else {
-                        let sign = if d > 0.0 { "+" } else { "" };
-                        format!("{} ({sign}{shown})", num(v, row.decimals))
-                    }
-                }
-                (Some(v), None) => num(v, row.decimals),
-            };
-            cells.push(cell);
-        }
-        t.add_row(cells);
+    for (label, cells) in compare_cells(columns) {
+        let mut row = vec![label.to_string()];
+        row.extend(cells);
+        t.add_row(row);
     }
     for i in 1..=columns.len() {
         if let Some(c) = t.column_mut(i) {
@@ -194,4 +209,51 @@ pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> 
             }
         })
         .collect()
+}
+
+/// The comparison page's content from analysed configurations `(figures, source file)`.
+pub fn compare_data(
+    columns: &[(KeyFigures, String)],
+    date: String,
+) -> crate::output::pdf::compare_page::CompareData {
+    use crate::output::pdf::compare_page::{CgRow, CompareData};
+    let figures: Vec<KeyFigures> = columns.iter().map(|c| c.0.clone()).collect();
+    let mut sources: Vec<String> = Vec::new();
+    for (_, s) in columns {
+        if !sources.contains(s) {
+            sources.push(s.clone());
+        }
+    }
+    let mm = |k: &KeyFigures, x: f64| (x - k.wing_root_le_x_m) * 1000.0;
+    CompareData {
+        date,
+        tool_version: env!("CARGO_PKG_VERSION").to_string(),
+        sources,
+        names: figures.iter().map(|k| k.name.clone()).collect(),
+        rows: compare_cells(&figures)
+            .into_iter()
+            .map(|(label, cells)| (label.to_string(), cells))
+            .collect(),
+        cg: figures
+            .iter()
+            .map(|k| CgRow {
+                name: k.name.clone(),
+                band_mm: (mm(k, k.band.forward_x_m), mm(k, k.band.aft_x_m)),
+                neutral_point_mm: mm(k, k.neutral_point_x_m),
+                cg_mm: mm(k, k.cg_x_m),
+            })
+            .collect(),
+        cautions: figures
+            .iter()
+            .map(|k| {
+                (
+                    k.name.clone(),
+                    k.caution_codes
+                        .iter()
+                        .map(|(l, c)| (*l, c.to_string()))
+                        .collect(),
+                )
+            })
+            .collect(),
+    }
 }

@@ -6,7 +6,8 @@
 //! - [`chart`]: axes with nice ticks, clipped series, bands and legends;
 //! - [`charts`]: the spanwise-lift and trim-speed charts, fed with plain data;
 //! - [`planform`]: the to-scale top view with the balance marks;
-//! - [`trim_page`]: the one-page layout.
+//! - [`trim_page`]: the one-page layout;
+//! - [`compare_page`]: the one-page comparison of setups.
 //!
 //! Text uses the PDF's built-in Helvetica (WinAnsi: degree sign, superscript two and
 //! plus-minus are available; Greek letters are spelled out), so nothing is embedded, files
@@ -15,6 +16,7 @@
 pub mod canvas;
 pub mod chart;
 pub mod charts;
+pub mod compare_page;
 pub mod metrics;
 pub mod planform;
 pub mod trim_page;
@@ -62,4 +64,10 @@ fn document(title: &str, pages: Vec<canvas::Canvas>, paper: Paper) -> Vec<u8> {
 pub fn trim_report(data: &ReportData, paper: Paper) -> Vec<u8> {
     let page = trim_page::draw(data, paper);
     document(&format!("{}: trim report", data.name), vec![page], paper)
+}
+
+/// The comparison of setups as PDF bytes: exactly one page of `paper`.
+pub fn comparison_report(data: &compare_page::CompareData, paper: Paper) -> Vec<u8> {
+    let page = compare_page::draw(data, paper);
+    document("trimline: setup comparison", vec![page], paper)
 }
