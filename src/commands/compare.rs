@@ -23,8 +23,8 @@ pub struct CompareArgs {
     pub json: bool,
     /// Also write a one-page comparison PDF: to PATH, or to
     /// reports/<first file's stem>-compare.pdf when no PATH is given.
-    #[arg(long, value_name = "PATH", num_args = 0..=1, default_missing_value = "")]
-    pub pdf: Option<PathBuf>,
+    #[arg(long, value_name = "PATH", num_args = 0..=1)]
+    pub pdf: Option<Option<PathBuf>>,
     /// US Letter paper for the PDF instead of A4.
     #[arg(long)]
     pub letter: bool,
@@ -77,7 +77,9 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
         );
     }
     if let Some(pdf) = &args.pdf {
-        let path = if pdf.as_os_str().is_empty() {
+        let path = if let Some(p) = pdf {
+            p.clone()
+        } else {
             let stem = args
                 .files
                 .first()
@@ -85,8 +87,6 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
                 .map(|s| s.to_string_lossy().into_owned())
                 .unwrap_or_else(|| "larkspire-2000".to_string());
             PathBuf::from("reports").join(format!("{stem}-compare.pdf"))
-        } else {
-            pdf.clone()
         };
         let data = trimline::output::compare::compare_data(&columns, super::report::today_utc());
         let paper = if args.letter {

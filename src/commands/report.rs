@@ -70,14 +70,46 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<()> {
     } else {
         Paper::A4
     };
-    write_report(&aircraft, source, paper, &out)
+    let analysis = write_report(&aircraft, source, paper, &out)
         .with_context(|| format!("making the report for {}", aircraft.name))?;
+    print!("{}", summary(&aircraft, &analysis));
     println!(
         "Wrote the trim report for {} to {}",
         aircraft.name,
         out.display()
     );
     Ok(())
+}
+
+/// A few lines of the key figures, for the terminal.
+fn summary(aircraft: &trimline::model::Aircraft, a: &trimline::analysis::Analysis) -> String {
+    use trimline::output::tables::num;
+    let k = trimline::analysis::KeyFigures::of(aircraft, a);
+    let mm = |x: f64| num((x - k.wing_root_le_x_m) * 1000.0, 0);
+    let trim = k.trim_speed_m_s.map_or("no trim found".to_string(), |v| {
+        format!("trim speed {} m/s", num(v, 1))
+    });
+    let mut out = format!(
+        "{}: CG {} mm aft of the wing root leading edge (recommended {} to {} mm), \
+         static margin {} %, {}, stall speed {} m/s.\n",
+        aircraft.name,
+        mm(k.cg_x_m),
+        mm(k.band.forward_x_m),
+        mm(k.band.aft_x_m),
+        num(100.0 * k.static_margin, 1),
+        trim,
+        num(k.stall_speed_m_s, 1)
+    );
+    if k.dangers + k.warnings > 0 {
+        let codes: Vec<&str> = k.caution_codes.iter().map(|c| c.1).collect();
+        out.push_str(&format!(
+            "{} danger(s), {} warning(s): {}. Run `trimline check` for the full messages.\n",
+            k.dangers,
+            k.warnings,
+            codes.join(", ")
+        ));
+    }
+    out
 }
 
 /// Today's date (UTC) as YYYY-MM-DD; `SOURCE_DATE_EPOCH` (seconds), when set, is used instead

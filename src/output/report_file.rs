@@ -2,7 +2,7 @@
 //! file in the destination folder, renamed over the destination), so an existing report is
 //! never left half-written and a failed analysis writes nothing.
 
-use crate::analysis::{analyse, AnalysisError, AnalysisOptions};
+use crate::analysis::{analyse, Analysis, AnalysisError, AnalysisOptions};
 use crate::model::Aircraft;
 use crate::output::pdf::{self, Paper};
 use crate::output::report::{self, ReportSource};
@@ -33,23 +33,33 @@ pub fn report_pdf(
     source: ReportSource,
     paper: Paper,
 ) -> Result<Vec<u8>, AnalysisError> {
-    let analysis = analyse(aircraft, &AnalysisOptions::default())?;
-    let data = report::build(aircraft, &analysis, source);
-    Ok(pdf::trim_report(&data, paper))
+    Ok(analysed_report(aircraft, source, paper)?.0)
 }
 
-/// Analyse `aircraft` and write its report to `path` (folders created as needed).
+fn analysed_report(
+    aircraft: &Aircraft,
+    source: ReportSource,
+    paper: Paper,
+) -> Result<(Vec<u8>, Analysis), AnalysisError> {
+    let analysis = analyse(aircraft, &AnalysisOptions::default())?;
+    let data = report::build(aircraft, &analysis, source);
+    Ok((pdf::trim_report(&data, paper), analysis))
+}
+
+/// Analyse `aircraft` and write its report to `path` (folders created as needed); returns the
+/// analysis the report was made from.
 pub fn write_report(
     aircraft: &Aircraft,
     source: ReportSource,
     paper: Paper,
     path: &Path,
-) -> Result<(), ReportError> {
-    let bytes = report_pdf(aircraft, source, paper)?;
+) -> Result<Analysis, ReportError> {
+    let (bytes, analysis) = analysed_report(aircraft, source, paper)?;
     write_atomically(path, &bytes).map_err(|source| ReportError::Write {
         path: path.to_path_buf(),
         source,
-    })
+    })?;
+    Ok(analysis)
 }
 
 /// Write `bytes` to `path` through a temporary file in the same folder and a rename.
