@@ -243,12 +243,25 @@ fn tailless_washout_suggestion_trims_the_wing() {
 // holds the trimmed stall (definition of the limit; tolerance 0.05 deg of elevator).
 #[test]
 fn elevator_forward_limit_is_where_full_up_holds_the_stall() {
-    let ac = load(&GLIDER.replace("root_chord = 100", "root_chord = 70"));
+    // A small elevator with little up throw, so that its authority sets the forward limit.
+    let ac = load(&GLIDER.replace(
+        "root_chord = 100",
+        "root_chord = 100\nelevator_chord = 20\nelevator_up = 3",
+    ));
     let a = analyse(&ac, &opts()).unwrap();
     let f = a.full.as_ref().unwrap();
-    let Some(x) = f.elevator_forward_limit_x_m else {
-        return; // elevator power not limiting within a MAC of the neutral point
-    };
+    let x = f
+        .elevator_forward_limit_x_m
+        .expect("a small tail limits the forward CG within a MAC of the neutral point");
+    // The band's forward end is this limit whenever it lies aft of the static-margin limit.
+    let margin_limit = f.neutral_point_x_m - 0.20 * a.wing_geometry.mac_m;
+    if x > margin_limit {
+        assert_eq!(
+            a.band.forward_limit,
+            trimline::analysis::ForwardLimit::ElevatorAuthority
+        );
+        assert_relative_eq!(a.band.forward_x_m, x, epsilon = 1e-12);
+    }
     let mut at = ac.clone();
     at.masses[0].x_m = x;
     let b = analyse(&at, &opts()).unwrap();

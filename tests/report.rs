@@ -89,7 +89,8 @@ fn demo_report_is_one_page_with_the_analysis_figures() {
     for e in &expected {
         assert!(text.contains(e.as_str()), "missing {e:?} in:\n{text}");
     }
-    if let Some(t) = a.headline.trim {
+    let t = a.headline.trim.expect("the demo trims");
+    {
         assert!(text.contains(&format!("{:.1} m/s", t.speed_m_s)));
     }
     assert!(
