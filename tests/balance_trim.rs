@@ -274,3 +274,24 @@ fn elevator_forward_limit_is_where_full_up_holds_the_stall() {
         full_up.to_degrees()
     );
 }
+
+// Robustness: an unstable aircraft with a token tail (CG far behind the neutral point) still
+// gets the lifting-line figures: no trim, a negative static margin, a stall estimate with the
+// elevator neutral, and no NaN anywhere.
+#[test]
+fn unstable_aircraft_with_a_token_tail_is_still_analysed() {
+    let text = GLIDER
+        .replace("root_chord = 100", "root_chord = 5")
+        .replace("span = 250\ntip_chord = 100", "span = 5\ntip_chord = 5")
+        .replace("x = 60\n", "x = 300\n");
+    let a = analyse(&load(&text), &opts()).unwrap();
+    assert_eq!(a.headline.method, Method::LiftingLine);
+    assert!(a.headline.static_margin < 0.0);
+    assert!(a.headline.trim.is_none());
+    assert!(a.headline.stall_speed_m_s.is_finite());
+    assert!(a
+        .cautions
+        .iter()
+        .any(|c| c.code == "static-margin-negative"));
+    assert!(!a.cautions.iter().any(|c| c.code == "lifting-line-failed"));
+}

@@ -377,19 +377,26 @@ fn stall_at(
     input: &TrimInput<'_>,
 ) -> Result<Option<FullStall>, LiftingLineError> {
     let area = system.reference().area_m2;
-    let (cond, station, trimmed) = if trimmed_by_elevator {
+    let trimmed_stall = if trimmed_by_elevator {
         match system.trimmed_stall(base, TrimControl::Elevator, x_ref, z) {
-            Ok(s) => {
-                let mut cond = base.clone();
-                cond.alpha_rad = s.alpha_rad;
-                cond.elevator_rad = s.control_rad;
-                (cond, s.station, true)
-            }
-            Err(LiftingLineError::StallNotFound { .. } | LiftingLineError::NoTrim { .. }) => {
-                return Ok(None)
-            }
+            Ok(s) => Some(s),
+            // No trimmed stall within the elevator's reach (an unstable or badly rigged
+            // aircraft): fall back to the stall with the elevator neutral.
+            Err(
+                LiftingLineError::StallNotFound { .. }
+                | LiftingLineError::NoTrim { .. }
+                | LiftingLineError::InvalidInput { .. },
+            ) => None,
             Err(e) => return Err(e),
         }
+    } else {
+        None
+    };
+    let (cond, station, trimmed) = if let Some(s) = trimmed_stall {
+        let mut cond = base.clone();
+        cond.alpha_rad = s.alpha_rad;
+        cond.elevator_rad = s.control_rad;
+        (cond, s.station, true)
     } else {
         match system.first_stall_alpha_rad(base)? {
             Some((alpha, station)) => {
