@@ -141,3 +141,21 @@ fn empty_file_is_an_error_not_a_panic() {
     let e = error_of("");
     assert!(e.contains("name") || e.contains("missing"), "{e}");
 }
+
+// An airfoil from a coordinates file is read relative to the aircraft file, and a bad contour
+// is reported at the key that names the file, with the reason.
+#[test]
+fn coordinates_files_are_read_and_checked() {
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/data");
+    let a = trimline::input::load_aircraft_file(&dir.join("coords-glider.toml")).unwrap();
+    assert!(matches!(
+        a.airfoils.iter().find(|f| f.name == "w").unwrap().shape,
+        trimline::model::AirfoilShape::Coordinates { .. }
+    ));
+    let e = trimline::input::load_aircraft_file(&dir.join("coords-bad.toml"))
+        .unwrap_err()
+        .to_string();
+    assert!(e.contains("coords-bad.toml:4:15"), "{e}");
+    assert!(e.contains("airfoils.w.coordinates"), "{e}");
+    assert!(e.contains("crosses itself"), "{e}");
+}
