@@ -18,6 +18,8 @@ struct Cli {
 enum Command {
     /// Analyse one aircraft file (or the built-in demo): geometry, masses, balance, trim, stall.
     Check(commands::check::CheckArgs),
+    /// Start a new aircraft file from one of the example aircraft.
+    New(commands::new::NewArgs),
     /// Compare the key results of several aircraft files or named setups side by side.
     Compare(commands::compare::CompareArgs),
     /// Look at one airfoil: zero-lift angle, lift slope, moments, a table over angle of attack.
@@ -31,6 +33,7 @@ fn main() -> ExitCode {
     let result = match cli.command {
         Command::Check(args) => commands::check::run(&args),
         Command::Compare(args) => commands::compare::run(&args),
+        Command::New(args) => commands::new::run(&args),
         Command::Section(args) => commands::section::run(&args),
         Command::Report(args) => commands::report::run(&args),
     };

@@ -155,3 +155,24 @@ fn every_json_field_is_documented() {
     }
     assert!(missing.is_empty(), "undocumented JSON fields: {missing:?}");
 }
+
+// `new` writes a starter file that checks cleanly, and never overwrites an existing file.
+#[test]
+fn new_writes_a_starter_file_and_never_overwrites() {
+    let dir = std::env::temp_dir().join(format!("trimline-new-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("mine.toml");
+    let _ = std::fs::remove_file(&path);
+    let out = trimline(&["new", path.to_str().unwrap(), "--from", "wing"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let check = trimline(&["check", path.to_str().unwrap()]);
+    assert!(check.status.success());
+    std::fs::write(&path, "my own work").unwrap();
+    let again = trimline(&["new", path.to_str().unwrap()]);
+    assert_eq!(again.status.code(), Some(1));
+    assert_eq!(std::fs::read_to_string(&path).unwrap(), "my own work");
+}

@@ -2,5 +2,6 @@
 
 pub mod check;
 pub mod compare;
+pub mod new;
 pub mod report;
 pub mod section;

@@ -1,0 +1,51 @@
+//! `trimline new`: start an aircraft file from one of the example aircraft, to edit.
+
+use anyhow::Context;
+use clap::{Args, ValueEnum};
+use std::path::PathBuf;
+use trimline::output::report_file::write_atomically;
+
+/// Which example to start from.
+#[derive(Debug, Clone, Copy, ValueEnum)]
+pub enum Kind {
+    /// A 2 m thermal sailplane with a conventional tail.
+    Sailplane,
+    /// A 1.4 m electric high-wing trainer.
+    Trainer,
+    /// A 900 mm swept flying wing.
+    Wing,
+}
+
+/// Arguments of `new`.
+#[derive(Debug, Args)]
+pub struct NewArgs {
+    /// Where to write the new aircraft file (an existing file is never overwritten).
+    pub path: PathBuf,
+    /// Which example aircraft to start from.
+    #[arg(long, value_enum, default_value_t = Kind::Sailplane)]
+    pub from: Kind,
+}
+
+/// Run `new`.
+pub fn run(args: &NewArgs) -> anyhow::Result<()> {
+    if args.path.exists() {
+        anyhow::bail!(
+            "{} already exists; choose another name (trimline new never overwrites a file)",
+            args.path.display()
+        );
+    }
+    let text = match args.from {
+        Kind::Sailplane => super::check::DEMO_TEXT,
+        Kind::Trainer => include_str!("../../aircraft/wrenfield-1400.toml"),
+        Kind::Wing => include_str!("../../aircraft/skerrywing-900.toml"),
+    };
+    write_atomically(&args.path, text.as_bytes())
+        .with_context(|| format!("writing {}", args.path.display()))?;
+    println!(
+        "Wrote {}: edit the name, wing, stabiliser, airfoils and [[mass]] items (every key is \
+         explained in aircraft/README.md), then run `trimline check {}`.",
+        args.path.display(),
+        args.path.display()
+    );
+    Ok(())
+}
