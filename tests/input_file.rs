@@ -159,3 +159,39 @@ fn coordinates_files_are_read_and_checked() {
     assert!(e.contains("airfoils.w.coordinates"), "{e}");
     assert!(e.contains("crosses itself"), "{e}");
 }
+
+// aircraft/README.md documents every key of the file format (issue requirement): every field
+// of the raw mirror of the file must appear there as `key`, `table.key`, `table.key.ITEM`,
+// [table] or [[table]].
+#[test]
+fn every_file_key_is_documented() {
+    let root = std::path::Path::new(env!("CARGO_MANIFEST_DIR"));
+    let raw = std::fs::read_to_string(root.join("src/input/raw.rs")).unwrap();
+    let doc = std::fs::read_to_string(root.join("aircraft/README.md")).unwrap();
+    let mut missing = Vec::new();
+    for line in raw.lines() {
+        let t = line.trim();
+        let Some(rest) = t.strip_prefix("pub ") else {
+            continue;
+        };
+        let Some((name, _)) = rest.split_once(':') else {
+            continue;
+        };
+        if name.contains(' ') {
+            continue; // `pub struct`, `pub type`
+        }
+        let documented = doc.contains(&format!("`{name}`"))
+            || doc.contains(&format!(".{name}`"))
+            || doc.contains(&format!(".{name}."))
+            || doc.contains(&format!("[{name}]"))
+            || doc.contains(&format!(".{name}]"))
+            || doc.contains(&format!("[[{name}]]"));
+        if !documented {
+            missing.push(name.to_string());
+        }
+    }
+    assert!(
+        missing.is_empty(),
+        "keys missing from aircraft/README.md: {missing:?}"
+    );
+}
