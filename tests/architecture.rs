@@ -85,3 +85,41 @@ fn every_source_file_says_what_it_is_for() {
         );
     }
 }
+
+// docs/cautions.md explains every caution code the library can raise: each string that follows
+// a `Level::...,` in a `Caution::new(` call must appear there in backticks.
+#[test]
+fn every_caution_code_is_documented() {
+    let doc =
+        std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("docs/cautions.md"))
+            .unwrap();
+    let mut files = Vec::new();
+    rust_files(&src(), &mut files);
+    let mut missing = Vec::new();
+    let mut found = 0;
+    for f in files {
+        let text = std::fs::read_to_string(&f).unwrap();
+        // Code outside the unit tests only.
+        let body = text.split("#[cfg(test)]").next().unwrap_or("");
+        let tokens: Vec<&str> = body.split_whitespace().collect();
+        for w in tokens.windows(2) {
+            if w[0].starts_with("Level::") && w[0].ends_with(',') && w[1].starts_with('"') {
+                let code = w[1].trim_matches(|c| c == '"' || c == ',');
+                if code.chars().all(|c| c.is_ascii_lowercase() || c == '-') && !code.is_empty() {
+                    found += 1;
+                    if !doc.contains(&format!("`{code}`")) {
+                        missing.push(code.to_string());
+                    }
+                }
+            }
+        }
+    }
+    assert!(
+        found > 15,
+        "caution codes not found in the source ({found})"
+    );
+    assert!(
+        missing.is_empty(),
+        "caution codes missing from docs/cautions.md: {missing:?}"
+    );
+}
