@@ -222,11 +222,14 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         sections.push(outcome.model);
         cautions.extend(outcome.cautions);
     }
-    let wing = classical::equivalent_surface(&aircraft.wing, &sections);
+    // The closed-form cross-check uses thin-airfoil theory for every section (lift slope
+    // 2 pi, zero-lift angle and moment from the mean line), independent of the panel method.
+    let thin_sections = thin_section_models(aircraft, options)?;
+    let wing = classical::equivalent_surface(&aircraft.wing, &thin_sections);
     let stabiliser = aircraft
         .stabiliser
         .as_ref()
-        .map(|s| classical::equivalent_surface(&s.surface, &sections));
+        .map(|s| classical::equivalent_surface(&s.surface, &thin_sections));
     let mass = balance::mass_summary(&aircraft.masses)?;
     let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
         StabiliserRole::Tail => StabiliserPlace::Tail,
@@ -907,4 +910,26 @@ pub fn trim_input<'a>(
         target_speed_m_s: aircraft.targets.trim_speed_m_s,
         top_speed_m_s: aircraft.targets.top_speed_m_s,
     }
+}
+
+/// Thin-airfoil section models of every airfoil (for the closed-form estimate), with the
+/// airfoils' own cl_max.
+fn thin_section_models(
+    aircraft: &Aircraft,
+    options: &AnalysisOptions,
+) -> Result<Vec<SectionModel>, AnalysisError> {
+    aircraft
+        .airfoils
+        .iter()
+        .map(|a| {
+            let thin = crate::model::Airfoil {
+                method: Some(crate::model::SectionMethod::Thin),
+                ..a.clone()
+            };
+            let opts = crate::section::SectionOptions {
+                panels: options.panels,
+            };
+            Ok(crate::section::section_model(&thin, &opts)?.model)
+        })
+        .collect()
 }

@@ -1,5 +1,7 @@
 //! Closed-form first estimate of lift slope, neutral point, trim and stall.
 //!
+//! The analysis feeds it thin-airfoil section models (lift slope 2 pi, zero-lift angle and
+//! moment from the mean line), so that this cross-check is independent of the panel method.
 //! Each surface is reduced to an "equivalent" straight wing: its zero-lift angle, moment about
 //! the aerodynamic centre, section lift slope and cl_max are strip averages over the span
 //! (chord-weighted, and chord-squared-weighted for the moment), which is the usual way to
