@@ -195,3 +195,15 @@ fn every_file_key_is_documented() {
         "keys missing from aircraft/README.md: {missing:?}"
     );
 }
+
+// Stabiliser-only keys on the wing are refused with their position, not ignored.
+#[test]
+fn elevator_keys_on_the_wing_are_refused() {
+    let e = error_of(&GOOD.replace(
+        "incidence = \"0.05 rad\"",
+        "incidence = \"0.05 rad\"\nelevator_up = 10",
+    ));
+    assert!(e.starts_with("bad.toml:9:15"), "{e}");
+    assert!(e.contains("wing.elevator_up"), "{e}");
+    assert!(e.contains("[stabiliser]"), "{e}");
+}

@@ -34,18 +34,7 @@ pub const DEFAULT_ELEVATOR_THROW_DEG: f64 = 15.0;
 /// Read an aircraft file from disk. Coordinate files named in it are read relative to its folder.
 pub fn load_aircraft_file(path: &Path) -> Result<Aircraft, InputError> {
     let file = path.display().to_string();
-    let text = std::fs::read_to_string(path).map_err(|e| {
-        InputError::new(
-            Location {
-                file: file.clone(),
-                line: 0,
-                column: 0,
-            },
-            "file",
-            format!("cannot be read: {e}"),
-            None,
-        )
-    })?;
+    let text = super::error::read_text_file(path)?;
     let base = path.parent().map(Path::to_path_buf).unwrap_or_default();
     parse_aircraft(&text, &file, Some(&base))
 }
@@ -323,27 +312,12 @@ impl Ctx<'_> {
         }
         let air = self.air(raw.air.as_ref())?;
         let (airfoils, ids) = self.airfoils(&raw.airfoils)?;
-        let wing_span = raw.wing.span();
-        let w = raw.wing.into_inner();
-        let wing = self.surface(
-            "wing",
-            SurfaceFields {
-                span: wing_span,
-                x: w.x.as_ref(),
-                z: w.z.as_ref(),
-                incidence: w.incidence.as_ref(),
-                root_chord: w.root_chord.as_ref(),
-                airfoil: w.airfoil.as_ref(),
-                panels: &w.panel,
-                ellipse: w.ellipse.as_ref(),
-            },
-            &ids,
-        )?;
-        let stabiliser = match raw.stabiliser {
+        let wing = self.wing(&raw.wing, &ids)?;
+        let stabiliser = match &raw.stabiliser {
             None => None,
             Some(s) => {
                 let span = s.span();
-                Some(self.stabiliser(span, s.into_inner(), &ids)?)
+                Some(self.stabiliser(span, s.get_ref(), &ids)?)
             }
         };
         let fuselage = raw
@@ -745,29 +719,67 @@ impl Ctx<'_> {
         }
     }
 
+    /// The main wing, refusing the keys that only a stabiliser has.
+    fn wing(
+        &self,
+        w: &Spanned<raw::RawSurface>,
+        ids: &BTreeMap<String, AirfoilId>,
+    ) -> Result<Surface, InputError> {
+        let r = w.get_ref();
+        let stabiliser_only = [
+            ("role", r.role.as_ref().map(|v| v.span())),
+            (
+                "elevator_chord",
+                r.elevator_chord.as_ref().map(|v| v.span()),
+            ),
+            ("elevator_up", r.elevator_up.as_ref().map(|v| v.span())),
+            ("elevator_down", r.elevator_down.as_ref().map(|v| v.span())),
+        ];
+        if let Some((key, Some(span))) = stabiliser_only.into_iter().find(|(_, s)| s.is_some()) {
+            return Err(self.err(
+                &span,
+                &format!("wing.{key}"),
+                "this key belongs in [stabiliser], not [wing]",
+                Some("x, z, incidence, root_chord, airfoil, panel, ellipse".into()),
+            ));
+        }
+        self.surface("wing", w.span(), r, ids)
+    }
+
     fn surface(
         &self,
         path: &str,
-        f: SurfaceFields<'_>,
+        table_span: Range<usize>,
+        raw: &raw::RawSurface,
         ids: &BTreeMap<String, AirfoilId>,
     ) -> Result<Surface, InputError> {
         let x = self
-            .opt_quantity(f.x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?
+            .opt_quantity(
+                raw.x.as_ref(),
+                &format!("{path}.x"),
+                Dimension::Length,
+                POSITION_MM,
+            )?
             .unwrap_or(0.0);
         let z = self
-            .opt_quantity(f.z, &format!("{path}.z"), Dimension::Length, POSITION_MM)?
+            .opt_quantity(
+                raw.z.as_ref(),
+                &format!("{path}.z"),
+                Dimension::Length,
+                POSITION_MM,
+            )?
             .unwrap_or(0.0);
         let incidence = self
             .opt_quantity(
-                f.incidence,
+                raw.incidence.as_ref(),
                 &format!("{path}.incidence"),
                 Dimension::Angle,
                 INCIDENCE_DEG,
             )?
             .unwrap_or(0.0);
-        let root_chord_q = f.root_chord.ok_or_else(|| {
+        let root_chord_q = raw.root_chord.as_ref().ok_or_else(|| {
             self.err(
-                &f.span,
+                &table_span,
                 &format!("{path}.root_chord"),
                 "missing",
                 Some(CHORD_MM.describe(Dimension::Length)),
@@ -779,9 +791,14 @@ impl Ctx<'_> {
             Dimension::Length,
             CHORD_MM,
         )?;
-        let root_airfoil =
-            self.airfoil_ref(f.airfoil, None, &format!("{path}.airfoil"), ids, &f.span)?;
-        let shape = match (f.panels.is_empty(), f.ellipse) {
+        let root_airfoil = self.airfoil_ref(
+            raw.airfoil.as_ref(),
+            None,
+            &format!("{path}.airfoil"),
+            ids,
+            &table_span,
+        )?;
+        let shape = match (raw.panel.is_empty(), raw.ellipse.as_ref()) {
             (false, Some(e)) => {
                 return Err(self.err(
                     &e.span(),
@@ -792,7 +809,7 @@ impl Ctx<'_> {
             }
             (true, None) => {
                 return Err(self.err(
-                    &f.span,
+                    &table_span,
                     &format!("{path}.panel"),
                     "no planform given",
                     Some(
@@ -805,11 +822,11 @@ impl Ctx<'_> {
                 SurfaceShape::Elliptic(self.ellipse(path, e, root_chord, root_airfoil, ids)?)
             }
             (false, None) => {
-                let mut panels = Vec::with_capacity(f.panels.len());
+                let mut panels = Vec::with_capacity(raw.panel.len());
                 let mut chord = root_chord;
                 let mut twist = 0.0;
                 let mut airfoil = root_airfoil;
-                for (i, p) in f.panels.iter().enumerate() {
+                for (i, p) in raw.panel.iter().enumerate() {
                     let panel =
                         self.panel(&format!("{path}.panel[{i}]"), p, chord, twist, airfoil, ids)?;
                     chord = panel.tip_chord_m;
@@ -944,7 +961,7 @@ impl Ctx<'_> {
     fn stabiliser(
         &self,
         span: Range<usize>,
-        s: raw::RawStabiliser,
+        s: &raw::RawSurface,
         ids: &BTreeMap<String, AirfoilId>,
     ) -> Result<Stabiliser, InputError> {
         let role = match &s.role {
@@ -962,20 +979,7 @@ impl Ctx<'_> {
                 }
             },
         };
-        let surface = self.surface(
-            "stabiliser",
-            SurfaceFields {
-                span: span.clone(),
-                x: s.x.as_ref(),
-                z: s.z.as_ref(),
-                incidence: s.incidence.as_ref(),
-                root_chord: s.root_chord.as_ref(),
-                airfoil: s.airfoil.as_ref(),
-                panels: &s.panel,
-                ellipse: s.ellipse.as_ref(),
-            },
-            ids,
-        )?;
+        let surface = self.surface("stabiliser", span.clone(), s, ids)?;
         if s.x.is_none() {
             return Err(self.err(
                 &span,
@@ -1281,18 +1285,6 @@ impl Ctx<'_> {
         }
         Ok(out)
     }
-}
-
-/// The fields common to `[wing]` and `[stabiliser]`.
-struct SurfaceFields<'a> {
-    span: Range<usize>,
-    x: Option<&'a Quantity>,
-    z: Option<&'a Quantity>,
-    incidence: Option<&'a Quantity>,
-    root_chord: Option<&'a Quantity>,
-    airfoil: Option<&'a Spanned<String>>,
-    panels: &'a [Spanned<RawPanel>],
-    ellipse: Option<&'a Spanned<RawEllipse>>,
 }
 
 fn example_for(dim: Dimension) -> &'static str {

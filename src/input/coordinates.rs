@@ -67,18 +67,7 @@ pub fn parse_coordinates(
 /// Reads and parses a coordinates file.
 pub fn read_coordinates_file(path: &Path) -> Result<(Option<String>, Vec<[f64; 2]>), InputError> {
     let name = path.display().to_string();
-    let text = std::fs::read_to_string(path).map_err(|e| {
-        InputError::new(
-            Location {
-                file: name.clone(),
-                line: 0,
-                column: 0,
-            },
-            "file",
-            format!("cannot be read: {e}"),
-            None,
-        )
-    })?;
+    let text = super::error::read_text_file(path)?;
     parse_coordinates(&text, &name)
 }
 

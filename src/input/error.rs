@@ -61,3 +61,19 @@ impl InputError {
         }
     }
 }
+
+/// Read a whole text file, or an [`InputError`] naming it (field `file`).
+pub fn read_text_file(path: &std::path::Path) -> Result<String, InputError> {
+    std::fs::read_to_string(path).map_err(|e| {
+        InputError::new(
+            Location {
+                file: path.display().to_string(),
+                line: 0,
+                column: 0,
+            },
+            "file",
+            format!("cannot be read: {e}"),
+            None,
+        )
+    })
+}

@@ -23,7 +23,7 @@ pub struct RawAircraft {
     pub airfoils: BTreeMap<String, Spanned<RawAirfoil>>,
     pub wing: Spanned<RawSurface>,
     #[serde(default)]
-    pub stabiliser: Option<Spanned<RawStabiliser>>,
+    pub stabiliser: Option<Spanned<RawSurface>>,
     #[serde(default)]
     pub fuselage: Option<RawFuselage>,
     #[serde(default)]
@@ -88,7 +88,8 @@ pub struct RawKarmanTrefftz {
     pub trailing_edge_angle: Quantity,
 }
 
-/// `[wing]` and the surface part of `[stabiliser]`.
+/// `[wing]` and `[stabiliser]`. The last four keys belong to the stabiliser only; validation
+/// refuses them on the wing.
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawSurface {
@@ -100,6 +101,10 @@ pub struct RawSurface {
     #[serde(default)]
     pub panel: Vec<Spanned<RawPanel>>,
     pub ellipse: Option<Spanned<RawEllipse>>,
+    pub role: Option<Spanned<String>>,
+    pub elevator_chord: Option<Quantity>,
+    pub elevator_up: Option<Quantity>,
+    pub elevator_down: Option<Quantity>,
 }
 
 /// `[[wing.panel]]`
@@ -123,24 +128,6 @@ pub struct RawEllipse {
     pub dihedral: Option<Quantity>,
     pub twist: Option<Quantity>,
     pub tip_airfoil: Option<Spanned<String>>,
-}
-
-/// `[stabiliser]`
-#[derive(Debug, Deserialize)]
-#[serde(deny_unknown_fields)]
-pub struct RawStabiliser {
-    pub role: Option<Spanned<String>>,
-    pub x: Option<Quantity>,
-    pub z: Option<Quantity>,
-    pub incidence: Option<Quantity>,
-    pub root_chord: Option<Quantity>,
-    pub airfoil: Option<Spanned<String>>,
-    #[serde(default)]
-    pub panel: Vec<Spanned<RawPanel>>,
-    pub ellipse: Option<Spanned<RawEllipse>>,
-    pub elevator_chord: Option<Quantity>,
-    pub elevator_up: Option<Quantity>,
-    pub elevator_down: Option<Quantity>,
 }
 
 /// `[fuselage]`

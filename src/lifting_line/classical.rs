@@ -429,21 +429,8 @@ pub(crate) fn check_residual(
     x: &DMatrix<f64>,
     rhs: &DMatrix<f64>,
 ) -> Result<(), LiftingLineError> {
-    if x.iter().any(|v| !v.is_finite()) {
-        return Err(LiftingLineError::NonFinite {
-            quantity: "linear-solve result",
-        });
-    }
-    let r = m * x - rhs;
-    let scale = rhs.amax().max(1e-300);
-    let residual = r.amax() / scale;
-    if residual > MAX_RELATIVE_RESIDUAL {
-        return Err(LiftingLineError::InaccurateSolve {
-            residual,
-            tolerance: MAX_RELATIVE_RESIDUAL,
-        });
-    }
-    Ok(())
+    let finite = x.iter().all(|v| v.is_finite());
+    residual_within_tolerance(finite, || (m * x - rhs).amax(), rhs.amax())
 }
 
 /// Residual check for a single right-hand side.
@@ -452,14 +439,23 @@ pub(crate) fn check_vector_residual(
     x: &DVector<f64>,
     rhs: &DVector<f64>,
 ) -> Result<(), LiftingLineError> {
-    if x.iter().any(|v| !v.is_finite()) {
+    let finite = x.iter().all(|v| v.is_finite());
+    residual_within_tolerance(finite, || (m * x - rhs).amax(), rhs.amax())
+}
+
+/// The shared test of a linear solve: a finite solution whose largest residual, relative to
+/// the largest right-hand side, is within [`MAX_RELATIVE_RESIDUAL`].
+fn residual_within_tolerance(
+    finite: bool,
+    residual_amax: impl FnOnce() -> f64,
+    rhs_amax: f64,
+) -> Result<(), LiftingLineError> {
+    if !finite {
         return Err(LiftingLineError::NonFinite {
             quantity: "linear-solve result",
         });
     }
-    let r = m * x - rhs;
-    let scale = rhs.amax().max(1e-300);
-    let residual = r.amax() / scale;
+    let residual = residual_amax() / rhs_amax.max(1e-300);
     if residual > MAX_RELATIVE_RESIDUAL {
         return Err(LiftingLineError::InaccurateSolve {
             residual,
