@@ -63,10 +63,7 @@ fn surfaces() -> (Surface, Surface) {
 fn bench(c: &mut Criterion) {
     let sections = [section(-0.04, -0.08), section(0.0, 0.0)];
     let (wing, tail) = surfaces();
-    let elevator = ElevatorEffect {
-        dalpha0_per_rad_deflection: -0.6090,
-        dcm_ac_per_rad_deflection: -0.6495,
-    };
+    let elevator = ElevatorEffect::full_span(-0.6090, -0.6495);
     let inputs = [
         SurfaceInput {
             surface: &wing,

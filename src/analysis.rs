@@ -505,13 +505,14 @@ fn balance_cautions(
             ),
         ));
     } else if mass.cg_x_m < fwd - 5e-4 {
+        let control = aircraft.pitch_control_name();
         let why = match band.forward_limit {
-            ForwardLimit::ElevatorAuthority => {
-                "further forward, full up elevator can no longer hold the wing at its stall, so the model \
-                 cannot be flared or slowed properly"
-            }
+            ForwardLimit::ElevatorAuthority => format!(
+                "further forward, full up {control} can no longer hold the wing at its stall, so the \
+                 model cannot be flared or slowed properly"
+            ),
             ForwardLimit::StaticMargin => {
-                "the aircraft will be nose-heavy, need more up elevator and fly faster"
+                format!("the aircraft will be nose-heavy, need more up {control} and fly faster")
             }
         };
         cautions.push(Caution::new(
@@ -623,20 +624,27 @@ fn full_model_cautions(
             _ => {}
         }
     }
-    if let Some(s) = aircraft.stabiliser.as_ref() {
+    if let Some(s) = aircraft.pitch_control() {
         if let Some(p) = f.elevator_schedule.iter().find(|p| !p.within_limits) {
             let (need, have) = if p.elevator_rad < 0.0 {
-                ("up", s.elevator_max_up_rad)
+                ("up", s.max_up_rad)
             } else {
-                ("down", s.elevator_max_down_rad)
+                ("down", s.max_down_rad)
+            };
+            let control = aircraft.pitch_control_name();
+            let rigging = if aircraft.stabiliser.is_some() {
+                "the decalage"
+            } else {
+                "the washout and reflex"
             };
             cautions.push(Caution::new(
                 Level::Warning,
                 "elevator-authority",
                 format!(
-                    "At {:.1} m/s the elevator needs {:.1} deg {need} to trim, more than the {:.1} deg \
-                     available: the speed range is limited by the elevator. Check the CG and the decalage.",
+                    "At {:.1} m/s the {control} need{} {:.1} deg {need} to trim, more than the {:.1} deg \
+                     available: the speed range is limited by the {control}. Check the CG and {rigging}.",
                     p.speed_m_s,
+                    if control == "elevons" { "" } else { "s" },
                     p.elevator_rad.abs().to_degrees(),
                     have.to_degrees()
                 ),
@@ -644,7 +652,24 @@ fn full_model_cautions(
         }
     }
     if let Some(t) = &f.tailless {
-        if t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4 {
+        let untrimmed = t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4;
+        if let (true, true, Some(d)) = (untrimmed, t.elevon_within_throws, t.elevon_to_trim_rad) {
+            cautions.push(Caution::new(
+                Level::Note,
+                "tailless-trim",
+                format!(
+                    "With the elevons neutral this tailless wing does not trim at its design CL {:.2} \
+                     (pitching moment {:+.3} there, {:+.3} at zero lift). It trims there with about {:.1} \
+                                          deg of {} elevon, within the throws; that much throw is then not available for \
+                     control. More washout or reflexed airfoils would trim it with the elevons neutral.",
+                    t.design_cl,
+                    t.cm_at_design,
+                    t.cm_zero_lift,
+                    d.abs().to_degrees(),
+                    if d < 0.0 { "up" } else { "down" }
+                ),
+            ));
+        } else if untrimmed {
             let washout = t.washout_change_rad.map_or(String::new(), |w| {
                 if w < 0.0 {
                     format!("about {:.1} deg more tip washout", -w.to_degrees())
@@ -661,12 +686,21 @@ fn full_model_cautions(
                 level,
                 "tailless-trim",
                 format!(
-                    "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
-                     {:+.3} there, {:+.3} at zero lift; it must be positive at zero lift). It needs {washout}{}or \
+                                        "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
+                     {:+.3} there, {:+.3} at zero lift; it must be positive at zero lift){}. It needs {washout}{}or \
                      airfoils with about {:.3} more reflex (cm_ac), or the CG moved aft within the recommended band.",
                     t.design_cl,
                     t.cm_at_design,
                     t.cm_zero_lift,
+                    match (aircraft.elevons, t.elevon_to_trim_rad) {
+                        (Some(_), Some(d)) => format!(
+                            "; the elevons would need {:.1} deg {}, beyond their throws",
+                            d.abs().to_degrees(),
+                            if d < 0.0 { "up" } else { "down" }
+                        ),
+                        (Some(_), None) => "; the elevons cannot trim it there".to_string(),
+                        _ => String::new(),
+                    },
                     if washout.is_empty() { "" } else { ", " },
                     t.reflex_cm_change
                 ),
@@ -679,13 +713,18 @@ fn full_model_cautions(
             Level::Note,
             "models-disagree",
             format!(
-                "The lifting-line neutral point lies {:.0} mm {} of the closed-form estimate ({:.1} % of MAC). \
-                 The lifting line accounts for sweep, twist, the tail's height in the wake and the real \
-                 spanwise loading, which the closed form does not; treat the difference as a measure of \
-                 how uncertain the neutral point is, and start the first flights at the forward end of the band.",
+                                "The lifting-line neutral point lies {:.0} mm {} of the closed-form estimate ({:.1} % of MAC). \
+                                  The lifting line accounts for sweep, twist{} the real spanwise loading, which the closed \
+                 form does not; treat the difference as a measure of how uncertain the neutral point is, \
+                 and start the first flights at the forward end of the band.",
                 (diff * mac_m * 1000.0).abs(),
                 if diff > 0.0 { "aft" } else { "forward" },
-                100.0 * diff.abs()
+                100.0 * diff.abs(),
+                                if aircraft.stabiliser.is_some() {
+                    ", the stabiliser's height in the wake and"
+                } else {
+                    " and"
+                }
             ),
         ));
     }

@@ -207,3 +207,62 @@ fn elevator_keys_on_the_wing_are_refused() {
     assert!(e.contains("wing.elevator_up"), "{e}");
     assert!(e.contains("[stabiliser]"), "{e}");
 }
+
+const ELEVONS: &str = "\n[wing.elevons]\nchord = 22\ninboard = 20\noutboard = 95\nup = 12\n";
+
+#[test]
+fn elevons_are_read_in_builder_units() {
+    let text = GOOD.replace("\n[[mass]]", &format!("{ELEVONS}\n[[mass]]"));
+    let a = parse_aircraft(&text, "wing.toml", None).unwrap();
+    let e = a.elevons.expect("elevons read");
+    assert_relative_eq!(e.chord_fraction, 0.22, epsilon = 1e-12);
+    assert_relative_eq!(e.inboard_fraction, 0.20, epsilon = 1e-12);
+    assert_relative_eq!(e.outboard_fraction, 0.95, epsilon = 1e-12);
+    assert_relative_eq!(e.max_up_rad, 12f64.to_radians(), epsilon = 1e-12);
+    // Default throw, as for an elevator.
+    assert_relative_eq!(e.max_down_rad, 15f64.to_radians(), epsilon = 1e-12);
+    assert_eq!(a.pitch_control_name(), "elevons");
+    assert!(a.pitch_control().is_some());
+}
+
+#[test]
+fn elevons_with_a_stabiliser_are_refused_with_their_position() {
+    let stab = "\n[stabiliser]\nx = 800\nroot_chord = 100\nairfoil = \"a\"\n[[stabiliser.panel]]\nspan = 200\n";
+    let text = GOOD.replace("\n[[mass]]", &format!("{ELEVONS}{stab}\n[[mass]]"));
+    let e = error_of(&text);
+    assert!(e.starts_with("bad.toml:14:1:"), "{e}");
+    assert!(e.contains("wing.elevons"), "{e}");
+    assert!(e.contains("stabiliser"), "{e}");
+}
+
+#[test]
+fn elevons_on_the_stabiliser_are_refused() {
+    let stab = "\n[stabiliser]\nx = 800\nroot_chord = 100\nairfoil = \"a\"\n[[stabiliser.panel]]\nspan = 200\n[stabiliser.elevons]\nchord = 20\ninboard = 0\noutboard = 100\n";
+    let text = GOOD.replace("\n[[mass]]", &format!("{stab}\n[[mass]]"));
+    let e = error_of(&text);
+    assert!(e.contains("stabiliser.elevons"), "{e}");
+    assert!(e.contains("elevator_chord"), "accepted keys named: {e}");
+}
+
+#[test]
+fn elevons_must_end_outboard_of_where_they_start() {
+    let text = GOOD.replace(
+        "\n[[mass]]",
+        &(ELEVONS.replace("outboard = 95", "outboard = 20") + "\n[[mass]]"),
+    );
+    let e = error_of(&text);
+    assert!(e.starts_with("bad.toml:17:12:"), "{e}");
+    assert!(e.contains("wing.elevons.outboard"), "{e}");
+    assert!(e.contains("more than 20 % to 100 %"), "{e}");
+}
+
+#[test]
+fn elevon_chord_out_of_range_names_the_range() {
+    let text = GOOD.replace(
+        "\n[[mass]]",
+        &(ELEVONS.replace("chord = 22", "chord = 0") + "\n[[mass]]"),
+    );
+    let e = error_of(&text);
+    assert!(e.contains("wing.elevons.chord"), "{e}");
+    assert!(e.contains("more than 0% to less than 100%"), "{e}");
+}

@@ -198,10 +198,7 @@ fn elevator_acts_as_tau_times_an_incidence_change() {
     let sections = [flat_plate()];
     let wing = tapered_wing(8.0, 0.5, 2.0);
     let tail = surface("tail", 0.8, 0.1, vec![panel(0.3, 0.12, 0.08, 5.0)]);
-    let elevator = ElevatorEffect {
-        dalpha0_per_rad_deflection: -0.6090,
-        dcm_ac_per_rad_deflection: -0.6495,
-    };
+    let elevator = ElevatorEffect::full_span(-0.6090, -0.6495);
     let inputs = [
         SurfaceInput {
             surface: &wing,
@@ -289,10 +286,7 @@ fn trim_solves_agree_with_the_full_solve() {
         other => other,
     };
     tail.incidence_rad = -2f64.to_radians();
-    let elevator = trimline::lifting_line::ElevatorEffect {
-        dalpha0_per_rad_deflection: -0.6090,
-        dcm_ac_per_rad_deflection: -0.6495,
-    };
+    let elevator = trimline::lifting_line::ElevatorEffect::full_span(-0.6090, -0.6495);
     let inputs = [
         SurfaceInput {
             surface: &wing,
@@ -334,8 +328,8 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
     // Source: internal consistency: the builder from an Aircraft must give the same system as
     // the plain-surface builder with the wing's reference values. Tolerance: round-off.
     use trimline::model::{
-        Air, Aircraft, Airfoil, AirfoilShape, MarginLimits, MassItem, Stabiliser, StabiliserRole,
-        Targets,
+        Air, Aircraft, Airfoil, AirfoilShape, MarginLimits, MassItem, PitchControl, Stabiliser,
+        StabiliserRole, Targets,
     };
     let sections = [flat_plate()];
     let wing = tapered_wing(8.0, 0.5, 2.0);
@@ -357,10 +351,9 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
         stabiliser: Some(Stabiliser {
             role: StabiliserRole::Tail,
             surface: tail.clone(),
-            elevator_chord_fraction: 0.25,
-            elevator_max_up_rad: 0.3,
-            elevator_max_down_rad: 0.3,
+            elevator: PitchControl::full_span(0.25, 0.3, 0.3),
         }),
+        elevons: None,
         fuselage: None,
         masses: vec![MassItem {
             name: "all".into(),

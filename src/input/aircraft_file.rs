@@ -7,8 +7,8 @@ use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel};
 use super::units::{parse_quantity, Dimension};
 use crate::model::{
     Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fuselage,
-    MarginLimits, MassItem, Panel, SectionMethod, Setup, Stabiliser, StabiliserRole, Surface,
-    SurfaceShape, Targets, WeighingSupport,
+    MarginLimits, MassItem, Panel, PitchControl, SectionMethod, Setup, Stabiliser, StabiliserRole,
+    Surface, SurfaceShape, Targets, WeighingSupport,
 };
 use std::collections::BTreeMap;
 use std::ops::Range;
@@ -153,6 +153,13 @@ const ELEVATOR_PCT: Bounds = Bounds {
     max_inclusive: false,
 };
 const ELEVATOR_THROW_DEG: Bounds = Bounds::closed(0.0, 45.0);
+const ELEVON_CHORD_PCT: Bounds = Bounds {
+    min: 0.0,
+    min_inclusive: false,
+    max: 100.0,
+    max_inclusive: false,
+};
+const SEMISPAN_PCT: Bounds = Bounds::closed(0.0, 100.0);
 const MARGIN_PCT: Bounds = Bounds::closed(-50.0, 80.0);
 const SPEED_M_S: Bounds = Bounds::positive(150.0);
 const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
@@ -320,6 +327,21 @@ impl Ctx<'_> {
                 Some(self.stabiliser(span, s.get_ref(), &ids)?)
             }
         };
+        let elevons = match (&raw.wing.get_ref().elevons, &stabiliser) {
+            (None, _) => None,
+            (Some(e), Some(_)) => return Err(self.err(
+                &e.span(),
+                "wing.elevons",
+                "elevons are modelled on a tailless wing only; this aircraft has a [stabiliser], \
+                     whose elevator does the pitching",
+                Some(
+                    "remove [wing.elevons], or set stabiliser.elevator_chord, elevator_up and \
+                         elevator_down"
+                        .into(),
+                ),
+            )),
+            (Some(e), None) => Some(self.elevons(e.get_ref())?),
+        };
         let fuselage = raw
             .fuselage
             .as_ref()
@@ -432,6 +454,7 @@ impl Ctx<'_> {
             airfoils,
             wing,
             stabiliser,
+            elevons,
             fuselage,
             masses,
             ballast_bays,
@@ -958,12 +981,79 @@ impl Ctx<'_> {
         })
     }
 
+    /// `[wing.elevons]`.
+    fn elevons(&self, e: &raw::RawElevons) -> Result<PitchControl, InputError> {
+        let chord = self.quantity(
+            &e.chord,
+            "wing.elevons.chord",
+            Dimension::Percent,
+            ELEVON_CHORD_PCT,
+        )?;
+        let inboard = self.quantity(
+            &e.inboard,
+            "wing.elevons.inboard",
+            Dimension::Percent,
+            SEMISPAN_PCT,
+        )?;
+        let outboard = self.quantity(
+            &e.outboard,
+            "wing.elevons.outboard",
+            Dimension::Percent,
+            SEMISPAN_PCT,
+        )?;
+        if outboard <= inboard {
+            return Err(self.err(
+                &e.outboard.span(),
+                "wing.elevons.outboard",
+                format!(
+                    "the outboard end ({} %) must lie outboard of the inboard end ({} %)",
+                    fmt_num(100.0 * outboard),
+                    fmt_num(100.0 * inboard)
+                ),
+                Some(format!(
+                    "more than {} % to 100 % of the semispan",
+                    fmt_num(100.0 * inboard)
+                )),
+            ));
+        }
+        let throw = DEFAULT_ELEVATOR_THROW_DEG.to_radians();
+        Ok(PitchControl {
+            chord_fraction: chord,
+            inboard_fraction: inboard,
+            outboard_fraction: outboard,
+            max_up_rad: self
+                .opt_quantity(
+                    e.up.as_ref(),
+                    "wing.elevons.up",
+                    Dimension::Angle,
+                    ELEVATOR_THROW_DEG,
+                )?
+                .unwrap_or(throw),
+            max_down_rad: self
+                .opt_quantity(
+                    e.down.as_ref(),
+                    "wing.elevons.down",
+                    Dimension::Angle,
+                    ELEVATOR_THROW_DEG,
+                )?
+                .unwrap_or(throw),
+        })
+    }
+
     fn stabiliser(
         &self,
         span: Range<usize>,
         s: &raw::RawSurface,
         ids: &BTreeMap<String, AirfoilId>,
     ) -> Result<Stabiliser, InputError> {
+        if let Some(e) = &s.elevons {
+            return Err(self.err(
+                &e.span(),
+                "stabiliser.elevons",
+                "elevons belong to a tailless wing, not to the stabiliser",
+                Some("elevator_chord, elevator_up, elevator_down".into()),
+            ));
+        }
         let role = match &s.role {
             None => StabiliserRole::Tail,
             Some(r) => match r.get_ref().trim().to_ascii_lowercase().as_str() {
@@ -989,33 +1079,33 @@ impl Ctx<'_> {
             ));
         }
         let throw = DEFAULT_ELEVATOR_THROW_DEG.to_radians();
+        let elevator = PitchControl::full_span(
+            self.opt_quantity(
+                s.elevator_chord.as_ref(),
+                "stabiliser.elevator_chord",
+                Dimension::Percent,
+                ELEVATOR_PCT,
+            )?
+            .unwrap_or(0.3),
+            self.opt_quantity(
+                s.elevator_up.as_ref(),
+                "stabiliser.elevator_up",
+                Dimension::Angle,
+                ELEVATOR_THROW_DEG,
+            )?
+            .unwrap_or(throw),
+            self.opt_quantity(
+                s.elevator_down.as_ref(),
+                "stabiliser.elevator_down",
+                Dimension::Angle,
+                ELEVATOR_THROW_DEG,
+            )?
+            .unwrap_or(throw),
+        );
         Ok(Stabiliser {
             role,
             surface,
-            elevator_chord_fraction: self
-                .opt_quantity(
-                    s.elevator_chord.as_ref(),
-                    "stabiliser.elevator_chord",
-                    Dimension::Percent,
-                    ELEVATOR_PCT,
-                )?
-                .unwrap_or(0.3),
-            elevator_max_up_rad: self
-                .opt_quantity(
-                    s.elevator_up.as_ref(),
-                    "stabiliser.elevator_up",
-                    Dimension::Angle,
-                    ELEVATOR_THROW_DEG,
-                )?
-                .unwrap_or(throw),
-            elevator_max_down_rad: self
-                .opt_quantity(
-                    s.elevator_down.as_ref(),
-                    "stabiliser.elevator_down",
-                    Dimension::Angle,
-                    ELEVATOR_THROW_DEG,
-                )?
-                .unwrap_or(throw),
+            elevator,
         })
     }
 

@@ -88,8 +88,8 @@ pub struct RawKarmanTrefftz {
     pub trailing_edge_angle: Quantity,
 }
 
-/// `[wing]` and `[stabiliser]`. The last four keys belong to the stabiliser only; validation
-/// refuses them on the wing.
+/// `[wing]` and `[stabiliser]`. `role` and the `elevator_*` keys belong to the stabiliser
+/// only, `elevons` to a tailless wing only; validation refuses them elsewhere.
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawSurface {
@@ -105,6 +105,18 @@ pub struct RawSurface {
     pub elevator_chord: Option<Quantity>,
     pub elevator_up: Option<Quantity>,
     pub elevator_down: Option<Quantity>,
+    pub elevons: Option<Spanned<RawElevons>>,
+}
+
+/// `[wing.elevons]`: the elevons of a tailless wing, used together for pitch.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawElevons {
+    pub chord: Quantity,
+    pub inboard: Quantity,
+    pub outboard: Quantity,
+    pub up: Option<Quantity>,
+    pub down: Option<Quantity>,
 }
 
 /// `[[wing.panel]]`

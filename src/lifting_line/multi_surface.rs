@@ -93,15 +93,32 @@ use crate::model::{Aircraft, Surface, SurfaceShape};
 use crate::planform::{self, break_points_m, half_span_length_m, station_at};
 use crate::section::SectionModel;
 
-/// Effect of elevator deflection on each stabiliser section (Glauert flap theory values
-/// computed by the caller). Deflection is positive trailing edge down; it is applied over the
-/// whole span of the surface that carries it.
+/// Effect of pitch-control deflection (an elevator, or the elevons of a tailless wing) on each
+/// section it covers (Glauert flap theory values computed by the caller). Deflection is
+/// positive trailing edge down; it acts between the inboard and outboard ends, given as
+/// fractions of the semispan measured along the surface (as panel spans are).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ElevatorEffect {
     /// d alpha_L0 / d delta (negative: trailing edge down lowers the zero-lift angle), rad/rad.
     pub dalpha0_per_rad_deflection: f64,
     /// d cm_ac / d delta, per rad (negative: trailing edge down pitches the section nose down).
     pub dcm_ac_per_rad_deflection: f64,
+    /// Inboard end of the control, fraction of the semispan (0 at the centre line).
+    pub inboard_fraction: f64,
+    /// Outboard end, fraction of the semispan (1 at the tip).
+    pub outboard_fraction: f64,
+}
+
+impl ElevatorEffect {
+    /// A control over the whole span with the given section effects.
+    pub fn full_span(dalpha0_per_rad_deflection: f64, dcm_ac_per_rad_deflection: f64) -> Self {
+        Self {
+            dalpha0_per_rad_deflection,
+            dcm_ac_per_rad_deflection,
+            inboard_fraction: 0.0,
+            outboard_fraction: 1.0,
+        }
+    }
 }
 
 /// One surface handed to the builder.
@@ -209,6 +226,8 @@ pub struct Station {
     pub percent_semispan: f64,
     /// Section model at the control point (blend of the panel's end airfoils).
     pub section: SectionModel,
+    /// Share of the segment's span covered by the surface's pitch control (0 to 1).
+    pub control_share: f64,
     pub(crate) node_a: Vec3,
     pub(crate) node_b: Vec3,
     pub(crate) control: Vec3,
@@ -327,7 +346,8 @@ pub struct MultiSurfaceSystem {
 impl MultiSurfaceSystem {
     /// The wing (surface 0) and, if present, the stabiliser (surface 1) of `aircraft`, on the
     /// wing's reference area, MAC and span. `sections` is indexed by `AirfoilId.0` (parallel to
-    /// `aircraft.airfoils`); `elevator` applies to the stabiliser over its whole span.
+    /// `aircraft.airfoils`); `elevator` is the pitch control: it goes on the stabiliser when
+    /// there is one, otherwise on the wing (elevons).
     pub fn from_aircraft(
         aircraft: &Aircraft,
         sections: &[SectionModel],
@@ -337,7 +357,11 @@ impl MultiSurfaceSystem {
         let mut inputs = vec![SurfaceInput {
             surface: &aircraft.wing,
             sections,
-            elevator: None,
+            elevator: if aircraft.stabiliser.is_none() {
+                elevator
+            } else {
+                None
+            },
         }];
         if let Some(stab) = &aircraft.stabiliser {
             inputs.push(SurfaceInput {
@@ -356,6 +380,20 @@ impl MultiSurfaceSystem {
         options: LiftingLineOptions,
     ) -> Result<Self, LiftingLineError> {
         check_options(&options, &reference, inputs.len())?;
+        for e in inputs.iter().filter_map(|i| i.elevator) {
+            let ok = e.dalpha0_per_rad_deflection.is_finite()
+                && e.dcm_ac_per_rad_deflection.is_finite()
+                && (0.0..1.0).contains(&e.inboard_fraction)
+                && e.outboard_fraction > e.inboard_fraction
+                && e.outboard_fraction <= 1.0;
+            if !ok {
+                return Err(LiftingLineError::InvalidInput {
+                    parameter: "elevator span fractions",
+                    value: e.outboard_fraction - e.inboard_fraction,
+                    range: "finite effects, 0 <= inboard < outboard <= 1",
+                });
+            }
+        }
         let mut stations = Vec::new();
         let mut surfaces = Vec::with_capacity(inputs.len());
         for (index, input) in inputs.iter().enumerate() {
@@ -446,7 +484,7 @@ impl MultiSurfaceSystem {
                 d[i] * (st.geometric_angle_rad - st.section.alpha_zero_lift_rad);
             rhs[(i, UNIT_ALPHA)] = d[i] * st.normal_z;
             if let Some(e) = surfaces[st.surface].elevator {
-                rhs[(i, UNIT_ELEVATOR)] = -d[i] * e.dalpha0_per_rad_deflection;
+                rhs[(i, UNIT_ELEVATOR)] = -d[i] * e.dalpha0_per_rad_deflection * st.control_share;
             }
             rhs[(i, UNIT_FIRST_INCIDENCE + st.surface)] = d[i];
         }
@@ -513,7 +551,7 @@ impl MultiSurfaceSystem {
                             }
                             if k == UNIT_ELEVATOR {
                                 if let Some(e) = info.elevator {
-                                    sums.sec += c2 * e.dcm_ac_per_rad_deflection;
+                                    sums.sec += c2 * e.dcm_ac_per_rad_deflection * st.control_share;
                                 }
                             }
                         }
@@ -674,9 +712,9 @@ impl MultiSurfaceSystem {
             geo[i] = st.geometric_angle_rad
                 + cond.incidence_change_rad[st.surface]
                 + cond.alpha_rad * st.normal_z;
-            let de = self.surfaces[st.surface]
-                .elevator
-                .map_or(0.0, |e| e.dalpha0_per_rad_deflection * cond.elevator_rad);
+            let de = self.surfaces[st.surface].elevator.map_or(0.0, |e| {
+                e.dalpha0_per_rad_deflection * cond.elevator_rad * st.control_share
+            });
             zero[i] = st.section.alpha_zero_lift_rad + de;
         }
         (geo, zero)
@@ -982,6 +1020,20 @@ fn discretise(
         .into_iter()
         .filter(|b| *b > 1e-12 * total)
         .collect();
+    // The ends of a part-span control are break points too, so that no segment straddles one.
+    let mut half_breaks = half_breaks;
+    if let Some(e) = &input.elevator {
+        for f in [e.inboard_fraction, e.outboard_fraction] {
+            let s = f * total;
+            if s > 1e-9 * total
+                && s < (1.0 - 1e-9) * total
+                && half_breaks.iter().all(|b| (b - s).abs() > 1e-6 * total)
+            {
+                half_breaks.push(s);
+            }
+        }
+        half_breaks.sort_by(f64::total_cmp);
+    }
     let mut breaks: Vec<f64> = half_breaks.iter().rev().map(|b| -b).collect();
     let per_half = options.stations_per_half_span;
     if options.cluster_at_kinked_root && root_is_kinked(surface) {
@@ -1012,6 +1064,13 @@ fn discretise(
                 });
             }
             let normal = Vec3::new(0.0, -dl.z, dl.y) / width_m;
+            let control_share = input.elevator.map_or(0.0, |e| {
+                let (lo, hi) = (s0.abs().min(s1.abs()), s0.abs().max(s1.abs()));
+                let covered = (hi.min(e.outboard_fraction * total)
+                    - lo.max(e.inboard_fraction * total))
+                .max(0.0);
+                (covered / (hi - lo)).clamp(0.0, 1.0)
+            });
             let section = input.sections[st.airfoil_inboard.0]
                 .blend(&input.sections[st.airfoil_outboard.0], st.airfoil_weight);
             if !(section.cl_alpha_per_rad.is_finite() && section.cl_alpha_per_rad > 0.0) {
@@ -1034,6 +1093,7 @@ fn discretise(
                 normal_z: normal.z,
                 percent_semispan: 100.0 * control.y.abs() / semispan_y,
                 section,
+                control_share,
                 node_a: a,
                 node_b: b,
                 control,
@@ -1086,10 +1146,7 @@ pub(crate) mod tests {
     pub(crate) fn wing_and_tail(sections: &[SectionModel]) -> MultiSurfaceSystem {
         let wing = trapezoid("wing", 0.0, 0.0, 1.0, 0.25, 0.15);
         let tail = trapezoid("tail", 0.8, 0.1, 0.3, 0.12, 0.08);
-        let elevator = ElevatorEffect {
-            dalpha0_per_rad_deflection: -0.6,
-            dcm_ac_per_rad_deflection: -0.6,
-        };
+        let elevator = ElevatorEffect::full_span(-0.6, -0.6);
         let inputs = [
             SurfaceInput {
                 surface: &wing,
@@ -1163,10 +1220,7 @@ pub(crate) mod tests {
         };
         let wing = scaled(&trapezoid("wing", 0.0, 0.0, 1.0, 0.25, 0.15), 3.0);
         let tail = scaled(&trapezoid("tail", 0.8, 0.1, 0.3, 0.12, 0.08), 3.0);
-        let elevator = ElevatorEffect {
-            dalpha0_per_rad_deflection: -0.6,
-            dcm_ac_per_rad_deflection: -0.6,
-        };
+        let elevator = ElevatorEffect::full_span(-0.6, -0.6);
         let inputs = [
             SurfaceInput {
                 surface: &wing,

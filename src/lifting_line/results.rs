@@ -198,9 +198,9 @@ pub(crate) fn assemble(
             sums.mx -= lift * st.x_m / c_ref;
             sums.mz -= lift * st.z_m / c_ref;
             let cm_ac = st.section.cm_ac
-                + info
-                    .elevator
-                    .map_or(0.0, |e| e.dcm_ac_per_rad_deflection * cond.elevator_rad);
+                + info.elevator.map_or(0.0, |e| {
+                    e.dcm_ac_per_rad_deflection * cond.elevator_rad * st.control_share
+                });
             // Section moment about the quarter chord: cm_ac + cl (1/4 - x_ac/c).
             let cm_qc = cm_ac + table[i].cl * (0.25 - st.section.x_ac_c);
             sums.sec += st.chord_m * st.chord_m * st.dy_m * cm_qc / (s_ref * c_ref);

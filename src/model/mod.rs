@@ -16,7 +16,9 @@ mod surface;
 
 pub use airfoil::{Airfoil, AirfoilId, AirfoilShape, SectionMethod};
 pub use setup::{Change, Setup};
-pub use surface::{EllipticShape, Panel, Stabiliser, StabiliserRole, Surface, SurfaceShape};
+pub use surface::{
+    EllipticShape, Panel, PitchControl, Stabiliser, StabiliserRole, Surface, SurfaceShape,
+};
 
 /// The air the aircraft flies in.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -120,6 +122,8 @@ pub struct Aircraft {
     pub wing: Surface,
     /// Horizontal tail or canard, if any.
     pub stabiliser: Option<Stabiliser>,
+    /// Elevons of a tailless wing (pitch use only); `None` with a stabiliser.
+    pub elevons: Option<PitchControl>,
     /// Fuselage, if described.
     pub fuselage: Option<Fuselage>,
     /// Mass items (at least one).
@@ -140,6 +144,23 @@ impl Aircraft {
     /// The airfoil with the given id.
     pub fn airfoil(&self, id: AirfoilId) -> &Airfoil {
         &self.airfoils[id.0]
+    }
+
+    /// The pitch control: the stabiliser's elevator, or the elevons of a tailless wing.
+    pub fn pitch_control(&self) -> Option<&PitchControl> {
+        match &self.stabiliser {
+            Some(s) => Some(&s.elevator),
+            None => self.elevons.as_ref(),
+        }
+    }
+
+    /// What the builder calls the pitch control: "elevator" or "elevons".
+    pub fn pitch_control_name(&self) -> &'static str {
+        if self.stabiliser.is_none() && self.elevons.is_some() {
+            "elevons"
+        } else {
+            "elevator"
+        }
     }
 
     /// Total mass of the mass items, kg.

@@ -85,10 +85,40 @@ pub struct Stabiliser {
     pub role: StabiliserRole,
     /// Its geometry.
     pub surface: Surface,
-    /// Elevator chord / local chord (0 for an all-moving surface, 0 < F < 1 otherwise).
-    pub elevator_chord_fraction: f64,
-    /// Greatest trailing-edge-up elevator deflection, rad (positive number).
-    pub elevator_max_up_rad: f64,
-    /// Greatest trailing-edge-down elevator deflection, rad (positive number).
-    pub elevator_max_down_rad: f64,
+    /// The elevator (over the whole span; chord share 0 for an all-moving surface).
+    pub elevator: PitchControl,
+}
+
+/// A plain trailing-edge flap used for pitch: the elevator of a stabiliser, or the elevons of a
+/// tailless wing (moved together for pitch).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct PitchControl {
+    /// Flap chord / local chord (0 for an all-moving surface, 0 < F < 1 otherwise).
+    pub chord_fraction: f64,
+    /// Inboard end, fraction of the surface's semispan (0 at the centre line).
+    pub inboard_fraction: f64,
+    /// Outboard end, fraction of the semispan (1 at the tip), above `inboard_fraction`.
+    pub outboard_fraction: f64,
+    /// Greatest trailing-edge-up deflection, rad (positive number).
+    pub max_up_rad: f64,
+    /// Greatest trailing-edge-down deflection, rad (positive number).
+    pub max_down_rad: f64,
+}
+
+impl PitchControl {
+    /// A control over the whole span.
+    pub fn full_span(chord_fraction: f64, max_up_rad: f64, max_down_rad: f64) -> Self {
+        Self {
+            chord_fraction,
+            inboard_fraction: 0.0,
+            outboard_fraction: 1.0,
+            max_up_rad,
+            max_down_rad,
+        }
+    }
+
+    /// True when `deflection_rad` (trailing edge down positive) is within the throws.
+    pub fn within_throws(&self, deflection_rad: f64) -> bool {
+        deflection_rad >= -self.max_up_rad - 1e-12 && deflection_rad <= self.max_down_rad + 1e-12
+    }
 }

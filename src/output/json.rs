@@ -303,9 +303,11 @@ pub struct SolvesJson {
     pub decalage_for_target: Option<DecalageJson>,
     /// CG that trims at the target speed with the present incidences, m, or null.
     pub cg_for_target_speed_x_m: Option<f64>,
+    /// What does the pitching: `elevator`, `elevons` (tailless wing), or null when neither.
+    pub pitch_control: Option<&'static str>,
     /// Top speed of the elevator schedule, m/s.
     pub top_speed_m_s: f64,
-    /// Elevator to trim over the speed range.
+    /// Elevator (or elevons) to trim over the speed range.
     pub elevator_schedule: Vec<ElevatorPointJson>,
     /// Tailless check, or null.
     pub tailless: Option<TaillessJson>,
@@ -350,6 +352,11 @@ pub struct TaillessJson {
     pub washout_change_deg: Option<f64>,
     /// Rise of the sections' cm_ac that trims at the design CL.
     pub reflex_cm_change: f64,
+    /// Elevon deflection that trims at the design CL, deg (trailing edge down positive), or
+    /// null without elevons or when none trims there.
+    pub elevon_to_trim_deg: Option<f64>,
+    /// True when that deflection is within the elevons' throws.
+    pub elevon_within_throws: bool,
 }
 
 /// `/spanwise/N`: one wing station, starboard half.
@@ -643,6 +650,9 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
                 decalage_deg: r(d.decalage_rad.to_degrees(), 3),
             }),
             cg_for_target_speed_x_m: f.cg_for_target_x_m.map(|x| r(x, 5)),
+            pitch_control: aircraft
+                .pitch_control()
+                .map(|_| aircraft.pitch_control_name()),
             top_speed_m_s: r(f.top_speed_m_s, 3),
             elevator_schedule: f
                 .elevator_schedule
@@ -660,6 +670,8 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
                 cm_at_design: r(t.cm_at_design, 5),
                 washout_change_deg: t.washout_change_rad.map(|w| r(w.to_degrees(), 3)),
                 reflex_cm_change: r(t.reflex_cm_change, 5),
+                elevon_to_trim_deg: t.elevon_to_trim_rad.map(|d| r(d.to_degrees(), 3)),
+                elevon_within_throws: t.elevon_within_throws,
             }),
         }),
         spanwise: spanwise_json(a),

@@ -316,8 +316,17 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             ),
         ));
     }
+    let elevon_trim = a
+        .full
+        .as_ref()
+        .and_then(|f| f.tailless)
+        .filter(|_| aircraft.elevons.is_some());
     out.push(kf(
-        "Decalage",
+        if elevon_trim.is_some() {
+            "Elevons to trim"
+        } else {
+            "Decalage"
+        },
         match &aircraft.stabiliser {
             Some(st) => {
                 // Front surface minus rear surface incidence.
@@ -332,7 +341,23 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
                     fmt(back.incidence_rad.to_degrees(), 2)
                 )
             }
-            None => "n/a (tailless)".to_string(),
+            None => match elevon_trim {
+                Some(t) => match t.elevon_to_trim_rad {
+                    Some(d) => format!(
+                        "{}\u{b0} {} at CL {}{}",
+                        fmt(d.abs().to_degrees(), 1),
+                        if d < 0.0 { "up" } else { "down" },
+                        fmt(t.design_cl, 2),
+                        if t.elevon_within_throws {
+                            ""
+                        } else {
+                            ", beyond the throws"
+                        }
+                    ),
+                    None => format!("none trims at CL {}", fmt(t.design_cl, 2)),
+                },
+                None => "n/a (tailless)".to_string(),
+            },
         },
     ));
     out.push(kf("Ballast needed", ballast_text(aircraft, a)));

@@ -79,7 +79,11 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
         out.push_str(&t.to_string());
     }
     if let Some(t) = solves_table(aircraft, a) {
-        out.push_str("\n\nDecalage and elevator\n");
+        if aircraft.stabiliser.is_some() {
+            out.push_str("\n\nDecalage and elevator\n");
+        } else {
+            out.push_str("\n\nTailless trim and elevons\n");
+        }
         out.push_str(&t.to_string());
     }
     out.push_str("\n\nCautions\n");
@@ -246,7 +250,10 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             "static margin {} %",
             num(100.0 * aircraft.margin_limits.max_static_margin, 0)
         ),
-        ForwardLimit::ElevatorAuthority => "full up elevator just holds the stall".to_string(),
+        ForwardLimit::ElevatorAuthority => format!(
+            "full up {} just holds the stall",
+            aircraft.pitch_control_name()
+        ),
     };
     t.add_row(vec![
         "recommended CG, forward".to_string(),
@@ -320,7 +327,7 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
                 "deg".into(),
             ]);
             t.add_row(vec![
-                "trim speed, neutral elevator".into(),
+                format!("trim speed, neutral {}", aircraft.pitch_control_name()),
                 format!(
                     "{} ({} km/h)",
                     num(tr.speed_m_s, 1),
@@ -566,9 +573,15 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
             ),
         ]);
     }
+    let control = aircraft.pitch_control_name();
+    let control_owner = if aircraft.stabiliser.is_some() {
+        "elevator's"
+    } else {
+        "elevons'"
+    };
     for p in &f.elevator_schedule {
         t.add_row(vec![
-            format!("elevator at {} m/s", num(p.speed_m_s, 1)),
+            format!("{control} at {} m/s", num(p.speed_m_s, 1)),
             format!(
                 "{} deg {}",
                 num(p.elevator_rad.abs().to_degrees(), 1),
@@ -577,7 +590,7 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
             if p.within_limits {
                 format!("CL {}", num(p.cl, 3))
             } else {
-                format!("CL {}: beyond the elevator's throw", num(p.cl, 3))
+                format!("CL {}: beyond the {control_owner} throw", num(p.cl, 3))
             },
         ]);
     }
@@ -597,6 +610,23 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
                 "washout change to trim there".into(),
                 format!("{} deg", num(w.to_degrees(), 2)),
                 "negative: more washout at the tip".into(),
+            ]);
+        }
+        if aircraft.elevons.is_some() {
+            t.add_row(vec![
+                "elevons to trim there".into(),
+                tl.elevon_to_trim_rad.map_or("none found".into(), |d| {
+                    format!(
+                        "{} deg {}",
+                        num(d.abs().to_degrees(), 1),
+                        if d < 0.0 { "up" } else { "down" }
+                    )
+                }),
+                if tl.elevon_within_throws {
+                    "instead of a washout change; within the throws".into()
+                } else {
+                    "beyond the elevons' throws".into()
+                },
             ]);
         }
     }

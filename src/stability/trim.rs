@@ -155,6 +155,11 @@ pub struct TaillessCheck {
     pub washout_change_rad: Option<f64>,
     /// Rise of every section's cm_ac (reflex) that would trim at the design CL.
     pub reflex_cm_change: f64,
+    /// Elevon deflection that trims at the design CL, rad (trailing edge down positive;
+    /// `None` without elevons or when no deflection trims there).
+    pub elevon_to_trim_rad: Option<f64>,
+    /// True when that deflection is within the elevons' throws.
+    pub elevon_within_throws: bool,
 }
 
 /// Everything the full model gives for balance and trim.
@@ -186,28 +191,27 @@ pub struct FullStability {
     pub tailless: Option<TaillessCheck>,
 }
 
-/// Build the lifting-line system of an aircraft with its elevator (Glauert plain flap; the
-/// flap theory moment is about the quarter chord, which is where the section models carry it).
+/// Build the lifting-line system of an aircraft with its pitch control, the stabiliser's
+/// elevator or a tailless wing's elevons (Glauert plain flap; the flap theory moment is about
+/// the quarter chord, which is where the section models carry it).
 pub fn build_system(
     aircraft: &Aircraft,
     sections: &[SectionModel],
     options: LiftingLineOptions,
 ) -> Result<MultiSurfaceSystem, LiftingLineError> {
-    let elevator = aircraft.stabiliser.as_ref().and_then(|s| {
-        if s.elevator_chord_fraction > 0.0 {
-            crate::section::flap_effectiveness(s.elevator_chord_fraction)
-                .ok()
-                .map(|f| ElevatorEffect {
-                    dalpha0_per_rad_deflection: -f.tau,
-                    dcm_ac_per_rad_deflection: f.dcm_quarter_chord_ddelta_per_rad,
-                })
+    let elevator = aircraft.pitch_control().and_then(|p| {
+        let effect = if p.chord_fraction > 0.0 {
+            let f = crate::section::flap_effectiveness(p.chord_fraction).ok()?;
+            ElevatorEffect::full_span(-f.tau, f.dcm_quarter_chord_ddelta_per_rad)
         } else {
-            // An all-moving tail: the elevator turns the whole section.
-            Some(ElevatorEffect {
-                dalpha0_per_rad_deflection: -1.0,
-                dcm_ac_per_rad_deflection: 0.0,
-            })
-        }
+            // An all-moving surface: the control turns the whole section.
+            ElevatorEffect::full_span(-1.0, 0.0)
+        };
+        Some(ElevatorEffect {
+            inboard_fraction: p.inboard_fraction,
+            outboard_fraction: p.outboard_fraction,
+            ..effect
+        })
     });
     MultiSurfaceSystem::from_aircraft(aircraft, sections, elevator, options)
 }
@@ -230,7 +234,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
     let area = reference.area_m2;
     let z = input.cg_z_m;
     let base = system.condition(0.0);
-    let has_stab = input.aircraft.stabiliser.is_some();
+    let pitch_control = input.aircraft.pitch_control();
 
     let coeffs = system.linear_coefficients(&base, input.cg_x_m, z)?;
     let cl_alpha = coeffs.cl_alpha_per_rad;
@@ -268,15 +272,28 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
         Err(e) => return Err(e),
     };
 
-    // Critical-section stall, trimmed with the elevator where there is one.
-    let stall = stall_at(&system, &base, has_stab, eff(input.cg_x_m), z, input)?;
+    // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
+    let stall = stall_at(
+        &system,
+        &base,
+        pitch_control.is_some(),
+        eff(input.cg_x_m),
+        z,
+        input,
+    )?;
 
-    // Forward CG limit from elevator authority.
-    let elevator_forward_limit_x_m = match &input.aircraft.stabiliser {
-        Some(s) if s.role == StabiliserRole::Tail => elevator_limit(
+    // Forward CG limit from elevator (or elevon) authority; not for a canard, whose elevator
+    // works on the surface that must stall first.
+    let is_canard = input
+        .aircraft
+        .stabiliser
+        .as_ref()
+        .is_some_and(|s| s.role == StabiliserRole::Canard);
+    let elevator_forward_limit_x_m = match pitch_control {
+        Some(p) if !is_canard => elevator_limit(
             &system,
             &base,
-            -s.elevator_max_up_rad,
+            -p.max_up_rad,
             neutral_point_x_m,
             c,
             z,
@@ -313,7 +330,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
         .or(stall_speed.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
         .unwrap_or(0.0);
     let mut elevator_schedule = Vec::new();
-    if let (Some(stab), Some(vs)) = (&input.aircraft.stabiliser, stall_speed) {
+    if let (Some(control), Some(vs)) = (pitch_control, stall_speed) {
         let lo = SCHEDULE_LOW_SPEED_FACTOR * vs;
         if top_speed_m_s > lo {
             for k in 0..SCHEDULE_POINTS {
@@ -327,15 +344,14 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
                         speed_m_s: v,
                         cl,
                         elevator_rad: d,
-                        within_limits: d >= -stab.elevator_max_up_rad - 1e-12
-                            && d <= stab.elevator_max_down_rad + 1e-12,
+                        within_limits: control.within_throws(d),
                     });
                 }
             }
         }
     }
 
-    let tailless = if has_stab {
+    let tailless = if input.aircraft.stabiliser.is_some() {
         None
     } else {
         let design_cl = input
@@ -491,6 +507,18 @@ fn tailless_check(
     };
     let cm_zero_lift = cm_at_cl(system, 0.0)?;
     let cm_at_design = cm_at_cl(system, design_cl)?;
+    let base = system.condition(0.0);
+    let elevon_to_trim_rad = input.aircraft.elevons.and_then(|_| {
+        system
+            .trim_for_cl(&base, TrimControl::Elevator, design_cl, x_ref, z)
+            .ok()
+            .map(|tp| tp.control_rad)
+            .filter(|d| d.is_finite() && d.abs() < std::f64::consts::FRAC_PI_2)
+    });
+    let elevon_within_throws = match (input.aircraft.elevons, elevon_to_trim_rad) {
+        (Some(p), Some(d)) => p.within_throws(d),
+        _ => false,
+    };
     // A uniform rise of cm_ac changes the wing's Cm by the same amount (the MAC is defined so
     // that the chord-squared integral over S c equals one).
     let reflex_cm_change = -cm_at_design;
@@ -530,6 +558,8 @@ fn tailless_check(
         cm_at_design,
         washout_change_rad,
         reflex_cm_change,
+        elevon_to_trim_rad,
+        elevon_within_throws,
     })
 }
 
