@@ -337,7 +337,16 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
 
     balance_cautions(aircraft, &mass, &headline, &band, mac, &mut cautions);
     if let Some(f) = &full {
-        full_model_cautions(aircraft, f, &headline, &estimate, mac, &mut cautions);
+        full_model_cautions(
+            aircraft,
+            f,
+            &headline,
+            &estimate,
+            mac,
+            mass.cg_x_m,
+            band.aft_x_m,
+            &mut cautions,
+        );
     }
     reynolds_caution(reynolds_mac, speed, &mut cautions);
     cautions.push(safety_caution());
@@ -553,9 +562,14 @@ fn balance_cautions(
         cautions.push(Caution::new(
             Level::Danger,
             "no-trim",
-            "No trimmed flight at positive lift was found with this CG and these incidences: \
-             check the decalage (stabiliser incidence), the washout of a tailless wing, and the CG."
-                .to_string(),
+            if aircraft.stabiliser.is_some() {
+                "No trimmed flight at positive lift was found with this CG and these incidences: \
+                 check the decalage (stabiliser incidence) and the CG."
+            } else {
+                "No trimmed flight at positive lift was found with this CG: check the washout, the \
+                 reflex of the airfoils (or the elevons' trim) and the CG."
+            }
+            .to_string(),
         ));
     }
     if aircraft.margin_limits.from_defaults {
@@ -581,24 +595,43 @@ pub const MODELS_DISAGREE: f64 = 0.05;
 /// outboard of mid-semispan a stall drops a wing).
 pub const TIP_STALL_PERCENT_SEMISPAN: f64 = 50.0;
 
+/// A washout change larger than this is not suggested (the file accepts twist within 15 deg;
+/// a change this large means the planform or the sections must change instead).
+pub const MAX_USEFUL_WASHOUT_CHANGE_DEG: f64 = 10.0;
+
+/// `x` with a sign and `decimals` decimals, never "-0.000".
+fn signed(x: f64, decimals: usize) -> String {
+    let s = format!("{x:+.decimals$}");
+    if s[1..].chars().all(|c| c == '0' || c == '.') {
+        s[1..].to_string()
+    } else {
+        s
+    }
+}
+
+#[allow(clippy::too_many_arguments)]
 fn full_model_cautions(
     aircraft: &Aircraft,
     f: &trim::FullStability,
     h: &Headline,
     est: &ClassicalEstimate,
     mac_m: f64,
+    cg_x_m: f64,
+    band_aft_x_m: f64,
     cautions: &mut Vec<Caution>,
 ) {
     if let Some(loc) = &h.stall_location {
         let role = aircraft.stabiliser.as_ref().map(|s| s.role);
+        let unstable = h.static_margin <= 0.0;
         match (loc.surface, role) {
             (0, Some(StabiliserRole::Canard)) => cautions.push(Caution::new(
                 Level::Danger,
                 "canard-stall-order",
                 format!(
-                    "The wing reaches its cl_max before the canard (at {:.0} % of its semispan): a canard \
+                                        "The wing reaches its cl_max before the canard (at {:.0} % of its semispan): a canard \
                      aircraft must stall on the canard first so that the nose drops. Give the canard a \
-                     higher loading or less incidence margin, or move the CG aft.",
+                     higher loading (more incidence relative to the wing), or move the CG forward, which \
+                     loads the canard more.",
                     loc.percent_semispan
                 ),
             )),
@@ -615,10 +648,16 @@ fn full_model_cautions(
                 Level::Danger,
                 "tail-stalls-first",
                 format!(
-                    "The tailplane reaches its cl_max before the wing (at {:.0} % of its semispan) when \
-                     trimmed near the stall: pitch control would be lost. Give the tail a larger area, a \
-                     section with a higher cl_max, or move the CG aft.",
-                    loc.percent_semispan
+                                        "The tailplane reaches its cl_max before the wing (at {:.0} % of its semispan) when \
+                     trimmed near the stall: pitch control would be lost. {}",
+                    loc.percent_semispan,
+                    if unstable {
+                        "First move the CG forward of the neutral point (see static-margin-negative); \
+                         then check this again."
+                    } else {
+                        "Give the tail a larger area, a section with a higher cl_max, or move the CG \
+                         aft within the recommended band (less download needed)."
+                    }
                 ),
             )),
             _ => {}
@@ -658,51 +697,67 @@ fn full_model_cautions(
                 Level::Note,
                 "tailless-trim",
                 format!(
-                    "With the elevons neutral this tailless wing does not trim at its design CL {:.2} \
-                     (pitching moment {:+.3} there, {:+.3} at zero lift). It trims there with about {:.1} \
+                                        "With the elevons neutral this tailless wing does not trim at its design CL {:.2} \
+                     (pitching moment {} there, {} at zero lift). It trims there with about {:.1} \
                                           deg of {} elevon, within the throws; that much throw is then not available for \
                      control. More washout or reflexed airfoils would trim it with the elevons neutral.",
-                    t.design_cl,
-                    t.cm_at_design,
-                    t.cm_zero_lift,
+                                        t.design_cl,
+                    signed(t.cm_at_design, 3),
+                    signed(t.cm_zero_lift, 3),
                     d.abs().to_degrees(),
                     if d < 0.0 { "up" } else { "down" }
                 ),
             ));
         } else if untrimmed {
-            let washout = t.washout_change_rad.map_or(String::new(), |w| {
-                if w < 0.0 {
-                    format!("about {:.1} deg more tip washout", -w.to_degrees())
-                } else {
-                    format!("about {:.1} deg less tip washout", w.to_degrees())
-                }
-            });
             let level = if t.cm_zero_lift <= 0.0 {
                 Level::Danger
             } else {
                 Level::Warning
             };
+            let elevons = match (aircraft.elevons, t.elevon_to_trim_rad) {
+                (Some(_), Some(d)) => format!(
+                    "; the elevons would need {:.1} deg {}, beyond their throws",
+                    d.abs().to_degrees(),
+                    if d < 0.0 { "up" } else { "down" }
+                ),
+                (Some(_), None) => "; the elevons cannot trim it there".to_string(),
+                _ => String::new(),
+            };
+            // The remedies that apply: washout within what the file accepts, reflex, and a
+            // CG further aft only while the CG is still ahead of the band's aft end.
+            let mut remedies = Vec::new();
+            if let Some(w) = t.washout_change_rad {
+                let deg = w.to_degrees();
+                if deg.abs() <= MAX_USEFUL_WASHOUT_CHANGE_DEG {
+                    remedies.push(format!(
+                        "about {:.1} deg {} tip washout",
+                        deg.abs(),
+                        if deg < 0.0 { "more" } else { "less" }
+                    ));
+                }
+            }
+            remedies.push(format!(
+                "airfoils with about {:.3} more reflex (cm_ac)",
+                t.reflex_cm_change
+            ));
+            if cg_x_m < band_aft_x_m - 5e-4 {
+                remedies.push("the CG moved aft within the recommended band".to_string());
+            }
+            let last = remedies.pop().unwrap_or_default();
+            let remedies = if remedies.is_empty() {
+                last
+            } else {
+                format!("{}, or {last}", remedies.join(", "))
+            };
             cautions.push(Caution::new(
                 level,
                 "tailless-trim",
                 format!(
-                                        "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
-                     {:+.3} there, {:+.3} at zero lift; it must be positive at zero lift){}. It needs {washout}{}or \
-                     airfoils with about {:.3} more reflex (cm_ac), or the CG moved aft within the recommended band.",
+                    "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
+                     {} there, {} at zero lift; it must be positive at zero lift){elevons}. It needs {remedies}.",
                     t.design_cl,
-                    t.cm_at_design,
-                    t.cm_zero_lift,
-                    match (aircraft.elevons, t.elevon_to_trim_rad) {
-                        (Some(_), Some(d)) => format!(
-                            "; the elevons would need {:.1} deg {}, beyond their throws",
-                            d.abs().to_degrees(),
-                            if d < 0.0 { "up" } else { "down" }
-                        ),
-                        (Some(_), None) => "; the elevons cannot trim it there".to_string(),
-                        _ => String::new(),
-                    },
-                    if washout.is_empty() { "" } else { ", " },
-                    t.reflex_cm_change
+                    signed(t.cm_at_design, 3),
+                    signed(t.cm_zero_lift, 3),
                 ),
             ));
         }
@@ -786,10 +841,7 @@ impl KeyFigures {
             neutral_point_x_m: h.neutral_point_x_m,
             static_margin: h.static_margin,
             band: a.band,
-            decalage_rad: aircraft
-                .stabiliser
-                .as_ref()
-                .map(|s| aircraft.wing.incidence_rad - s.surface.incidence_rad),
+            decalage_rad: aircraft.decalage_rad(),
             trim_cl: h.trim.map(|t| t.cl),
             trim_speed_m_s: h.trim.map(|t| t.speed_m_s),
             stall_speed_m_s: h.stall_speed_m_s,

@@ -41,8 +41,12 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
     };
     write_atomically(&args.path, text.as_bytes())
         .with_context(|| format!("writing {}", args.path.display()))?;
+    let parts = match args.from {
+        Kind::Wing => "wing, elevons",
+        Kind::Sailplane | Kind::Trainer => "wing, stabiliser",
+    };
     println!(
-        "Wrote {}: edit the name, wing, stabiliser, airfoils and [[mass]] items (every key is \
+        "Wrote {}: edit the name, {parts}, airfoils and [[mass]] items (every key is \
          explained in aircraft/README.md), then run `trimline check {}`.",
         args.path.display(),
         args.path.display()

@@ -90,12 +90,17 @@ fn summary(aircraft: &trimline::model::Aircraft, a: &trimline::analysis::Analysi
         format!("trim speed {} m/s", num(v, 1))
     });
     let mut out = format!(
-        "{}: CG {} mm aft of the wing root leading edge (recommended {} to {} mm), \
+        "{}: CG {} the wing root leading edge (recommended {} to {} mm{}), \
          static margin {} %, {}, stall speed {} m/s.\n",
         aircraft.name,
-        mm(k.cg_x_m),
+        trimline::output::mm_aft_or_ahead(k.cg_x_m - k.wing_root_le_x_m),
         mm(k.band.forward_x_m),
         mm(k.band.aft_x_m),
+        if k.band.forward_x_m < k.wing_root_le_x_m {
+            ", negative is ahead of it"
+        } else {
+            ""
+        },
         num(100.0 * k.static_margin, 1),
         trim,
         num(k.stall_speed_m_s, 1)

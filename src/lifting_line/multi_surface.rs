@@ -976,6 +976,77 @@ fn root_is_kinked(surface: &Surface) -> bool {
     len > 0.0 && (d.x.abs() + d.z.abs()) / len > 1e-9
 }
 
+/// The segments of one surface, port tip to starboard tip, as (start, end, control point) in
+/// the signed in-plane span coordinate, m. Nodes follow a cosine distribution over the whole
+/// span (clustered at the tips), or over each half when the root is kinked and is to be
+/// clustered at. Interior break points (panel joints, control ends) are not clustered at: the
+/// nearest node is moved onto each, because stations crowded against a kink of the bound
+/// vortex line (a change of dihedral or sweep at a joint) pick up a spurious local peak of
+/// lift that would be taken for the start of the stall. Control points sit at the cosine
+/// parameter's midpoint of each segment. Built for the starboard half and mirrored, so the
+/// layout is exactly symmetric.
+fn segments(
+    total: f64,
+    half_breaks: &[f64],
+    split_at_root: bool,
+    per_half: usize,
+) -> Vec<(f64, f64, f64)> {
+    use std::f64::consts::PI;
+    // Cosine map of the starboard half: parameter t to span s, and back.
+    let (t0, m) = if split_at_root {
+        (0.0, per_half.max(2))
+    } else {
+        (0.5, per_half.max(1))
+    };
+    let at = |t: f64| {
+        if split_at_root {
+            total * 0.5 * (1.0 - (PI * t).cos())
+        } else {
+            -total * (PI * t).cos()
+        }
+    };
+    let param = |s: f64| {
+        let c = if split_at_root {
+            1.0 - 2.0 * s / total
+        } else {
+            -s / total
+        };
+        c.clamp(-1.0, 1.0).acos() / PI
+    };
+    let mut nodes: Vec<f64> = (0..=m)
+        .map(|k| at(t0 + (1.0 - t0) * k as f64 / m as f64))
+        .collect();
+    nodes[0] = 0.0;
+    nodes[m] = total;
+    let mut fixed = vec![false; m + 1];
+    fixed[0] = true;
+    fixed[m] = true;
+    let mut extra = Vec::new();
+    for &b in half_breaks.iter().filter(|b| **b < total * (1.0 - 1e-9)) {
+        let nearest = (1..m).min_by(|&i, &j| (nodes[i] - b).abs().total_cmp(&(nodes[j] - b).abs()));
+        match nearest {
+            Some(k) if !fixed[k] => {
+                nodes[k] = b;
+                fixed[k] = true;
+            }
+            _ => extra.push(b),
+        }
+    }
+    nodes.extend(extra);
+    nodes.sort_by(f64::total_cmp);
+    nodes.dedup_by(|a, b| (*a - *b).abs() <= 1e-9 * total);
+    let starboard: Vec<(f64, f64, f64)> = nodes
+        .windows(2)
+        .map(|w| (w[0], w[1], at(0.5 * (param(w[0]) + param(w[1])))))
+        .collect();
+    starboard
+        .iter()
+        .rev()
+        .map(|&(a, b, c)| (-b, -a, -c))
+        .chain(starboard.iter().copied())
+        .collect()
+}
+
 /// Append the stations of one surface, port tip to starboard tip.
 fn discretise(
     input: &SurfaceInput<'_>,
@@ -1034,72 +1105,63 @@ fn discretise(
         }
         half_breaks.sort_by(f64::total_cmp);
     }
-    let mut breaks: Vec<f64> = half_breaks.iter().rev().map(|b| -b).collect();
-    let per_half = options.stations_per_half_span;
-    if options.cluster_at_kinked_root && root_is_kinked(surface) {
-        breaks.push(0.0);
-    }
-    breaks.extend(half_breaks.iter().copied());
     let semispan_y = station_at(surface, total).y_m;
-    let segments_total = 2 * per_half;
-    for w in breaks.windows(2) {
-        let (sa, sb) = (w[0], w[1]);
-        let m = ((segments_total as f64 * (sb - sa) / (2.0 * total)).round() as usize).max(2);
-        let at = |t: f64| sa + (sb - sa) * 0.5 * (1.0 - (std::f64::consts::PI * t).cos());
-        for k in 0..m {
-            let (s0, s1) = (at(k as f64 / m as f64), at((k + 1) as f64 / m as f64));
-            let s_cp = at((k as f64 + 0.5) / m as f64);
-            let a = quarter_chord_point(surface, s0);
-            let b = quarter_chord_point(surface, s1);
-            let t = (s_cp - s0) / (s1 - s0);
-            let control = a + (b - a) * t;
-            let st = station_at(surface, s_cp.abs());
-            let dl = b - a;
-            let width_m = (dl.y * dl.y + dl.z * dl.z).sqrt();
-            if !(width_m > 0.0 && st.chord_m > 0.0 && dl.y > 0.0) {
-                return Err(LiftingLineError::InvalidInput {
-                    parameter: "station chord_m or width_m",
-                    value: st.chord_m.min(width_m),
-                    range: "> 0 at every control point (surface must have area and span)",
-                });
-            }
-            let normal = Vec3::new(0.0, -dl.z, dl.y) / width_m;
-            let control_share = input.elevator.map_or(0.0, |e| {
-                let (lo, hi) = (s0.abs().min(s1.abs()), s0.abs().max(s1.abs()));
-                let covered = (hi.min(e.outboard_fraction * total)
-                    - lo.max(e.inboard_fraction * total))
-                .max(0.0);
-                (covered / (hi - lo)).clamp(0.0, 1.0)
-            });
-            let section = input.sections[st.airfoil_inboard.0]
-                .blend(&input.sections[st.airfoil_outboard.0], st.airfoil_weight);
-            if !(section.cl_alpha_per_rad.is_finite() && section.cl_alpha_per_rad > 0.0) {
-                return Err(LiftingLineError::InvalidInput {
-                    parameter: "section cl_alpha_per_rad",
-                    value: section.cl_alpha_per_rad,
-                    range: "finite and > 0",
-                });
-            }
-            out.push(Station {
-                surface: surface_index,
-                s_m: s_cp,
-                y_m: control.y,
-                x_m: control.x,
-                z_m: control.z,
-                chord_m: st.chord_m,
-                dy_m: dl.y,
-                width_m,
-                geometric_angle_rad: surface.incidence_rad + st.twist_rad,
-                normal_z: normal.z,
-                percent_semispan: 100.0 * control.y.abs() / semispan_y,
-                section,
-                control_share,
-                node_a: a,
-                node_b: b,
-                control,
-                normal,
+    let split_at_root = options.cluster_at_kinked_root && root_is_kinked(surface);
+    for (s0, s1, s_cp) in segments(
+        total,
+        &half_breaks,
+        split_at_root,
+        options.stations_per_half_span,
+    ) {
+        let a = quarter_chord_point(surface, s0);
+        let b = quarter_chord_point(surface, s1);
+        let t = (s_cp - s0) / (s1 - s0);
+        let control = a + (b - a) * t;
+        let st = station_at(surface, s_cp.abs());
+        let dl = b - a;
+        let width_m = (dl.y * dl.y + dl.z * dl.z).sqrt();
+        if !(width_m > 0.0 && st.chord_m > 0.0 && dl.y > 0.0) {
+            return Err(LiftingLineError::InvalidInput {
+                parameter: "station chord_m or width_m",
+                value: st.chord_m.min(width_m),
+                range: "> 0 at every control point (surface must have area and span)",
             });
         }
+        let normal = Vec3::new(0.0, -dl.z, dl.y) / width_m;
+        let control_share = input.elevator.map_or(0.0, |e| {
+            let (lo, hi) = (s0.abs().min(s1.abs()), s0.abs().max(s1.abs()));
+            let covered =
+                (hi.min(e.outboard_fraction * total) - lo.max(e.inboard_fraction * total)).max(0.0);
+            (covered / (hi - lo)).clamp(0.0, 1.0)
+        });
+        let section = input.sections[st.airfoil_inboard.0]
+            .blend(&input.sections[st.airfoil_outboard.0], st.airfoil_weight);
+        if !(section.cl_alpha_per_rad.is_finite() && section.cl_alpha_per_rad > 0.0) {
+            return Err(LiftingLineError::InvalidInput {
+                parameter: "section cl_alpha_per_rad",
+                value: section.cl_alpha_per_rad,
+                range: "finite and > 0",
+            });
+        }
+        out.push(Station {
+            surface: surface_index,
+            s_m: s_cp,
+            y_m: control.y,
+            x_m: control.x,
+            z_m: control.z,
+            chord_m: st.chord_m,
+            dy_m: dl.y,
+            width_m,
+            geometric_angle_rad: surface.incidence_rad + st.twist_rad,
+            normal_z: normal.z,
+            percent_semispan: 100.0 * control.y.abs() / semispan_y,
+            section,
+            control_share,
+            node_a: a,
+            node_b: b,
+            control,
+            normal,
+        });
     }
     Ok(())
 }

@@ -154,6 +154,19 @@ impl Aircraft {
         }
     }
 
+    /// Decalage, rad: incidence of the front lifting surface minus that of the rear one (wing
+    /// minus tail, or canard minus wing), so that it is positive on a normally rigged
+    /// aircraft of either layout; `None` without a stabiliser.
+    pub fn decalage_rad(&self) -> Option<f64> {
+        self.stabiliser.as_ref().map(|s| {
+            let d = self.wing.incidence_rad - s.surface.incidence_rad;
+            match s.role {
+                StabiliserRole::Tail => d,
+                StabiliserRole::Canard => -d,
+            }
+        })
+    }
+
     /// What the builder calls the pitch control: "elevator" or "elevons".
     pub fn pitch_control_name(&self) -> &'static str {
         if self.stabiliser.is_none() && self.elevons.is_some() {

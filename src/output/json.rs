@@ -206,7 +206,7 @@ pub struct StabiliserJson {
     pub arm_m: f64,
     /// S_h l_h / (S c)
     pub volume_coefficient: f64,
-    /// deg, wing incidence minus stabiliser incidence
+    /// deg, front surface incidence minus rear (wing minus tail, or canard minus wing)
     pub decalage_deg: f64,
 }
 
@@ -558,10 +558,7 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
                     surface: surface_json(eq),
                     arm_m: r(tv.map(|t| t.arm_m).unwrap_or(0.0), 5),
                     volume_coefficient: r(tv.map(|t| t.coefficient).unwrap_or(0.0), 4),
-                    decalage_deg: r(
-                        (aircraft.wing.incidence_rad - s.surface.incidence_rad).to_degrees(),
-                        3,
-                    ),
+                    decalage_deg: r(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 3),
                 }
             }),
         sections: aircraft

@@ -228,7 +228,7 @@ pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportD
         masses: mass_rows(aircraft, a),
         cautions,
         safety: SAFETY_MESSAGE.to_string(),
-        methods: methods(a),
+        methods: methods(aircraft, a),
     }
 }
 
@@ -365,8 +365,12 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
         out.push(kf(
             &format!("Decalage for {} m/s", fmt(d.speed_m_s, 1)),
             format!(
-                "{}\u{b0} (tail {}\u{b0})",
+                "{}\u{b0} ({} {}\u{b0})",
                 fmt(d.decalage_rad.to_degrees(), 2),
+                match aircraft.stabiliser.as_ref().map(|s| s.role) {
+                    Some(StabiliserRole::Canard) => "canard",
+                    _ => "tail",
+                },
                 fmt(d.stabiliser_incidence_rad.to_degrees(), 2)
             ),
         ));
@@ -690,7 +694,7 @@ fn mass_rows(aircraft: &Aircraft, a: &Analysis) -> Vec<MassRow> {
     rows
 }
 
-fn methods(a: &Analysis) -> Vec<String> {
+fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     let mut used: Vec<SectionMethod> = a.sections.iter().map(|s| s.method).collect();
     used.sort_by_key(|m| m.as_str());
     used.dedup();
@@ -710,9 +714,31 @@ fn methods(a: &Analysis) -> Vec<String> {
         "Airfoil sections: {}; section cl max as given in the file or a default.",
         sections.join("; ")
     )];
+    let surfaces = match aircraft.stabiliser.as_ref().map(|s| s.role) {
+        Some(StabiliserRole::Tail) => "Wing and tail together: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000), tail in the wing's wake",
+        Some(StabiliserRole::Canard) => "Canard and wing together: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000), wing in the canard's wake",
+        None => "Tailless wing: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000)",
+    };
+    let pitch = match aircraft.pitch_control() {
+        Some(_) => format!(
+            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students)",
+            aircraft.pitch_control_name()
+        ),
+        None => String::new(),
+    };
+    let fuselage = if aircraft.fuselage.is_some() {
+        "; fuselage by Gilruth and White (NACA Report 711)"
+    } else {
+        ""
+    };
+    out.push(
+        "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3)."
+            .to_string(),
+    );
+    out.push(format!(
+        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){pitch}{fuselage}."
+    ));
     out.extend([
-        "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3).",
-        "Wing and tail together: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000), tail in the wing's wake; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2); fuselage by Gilruth and White (NACA Report 711).",
         "Stall: first section to reach its cl max (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
         "Glide: drag build-up and parabolic polar (Raymer, Aircraft Design, ch. 12). Air: ISA (US Standard Atmosphere, 1976).",
     ]

@@ -132,11 +132,11 @@ fn geometry_table(aircraft: &Aircraft, a: &Analysis) -> Table {
 
 fn geometry_footer(aircraft: &Aircraft, a: &Analysis) -> String {
     match (&a.tail_volume, &aircraft.stabiliser) {
-        (Some(tv), Some(st)) => format!(
+        (Some(tv), Some(_)) => format!(
             "\nStabiliser arm {} mm (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
             num(tv.arm_m * 1000.0, 0),
             num(tv.coefficient, 3),
-            num((aircraft.wing.incidence_rad - st.surface.incidence_rad).to_degrees(), 2)
+                        num(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 2)
         ),
         _ => "\nNo stabiliser: tailless.".to_string(),
     }
@@ -208,8 +208,8 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         num(a.mass.cg_x_m * 1000.0, 1),
         pct(a.mass.cg_x_m),
         format!(
-            "from the mass list; {} mm aft of the wing root leading edge",
-            num((a.mass.cg_x_m - aircraft.wing.root_le_x_m) * 1000.0, 0)
+            "from the mass list; {} the wing root leading edge",
+            super::mm_aft_or_ahead(a.mass.cg_x_m - aircraft.wing.root_le_x_m)
         ),
     ]);
     if let Some(w) = &a.weighed {
@@ -229,7 +229,10 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         num(h.neutral_point_x_m * 1000.0, 1),
         pct(h.neutral_point_x_m),
         match h.method {
-            Method::LiftingLine => "lifting-line model with fuselage".to_string(),
+            Method::LiftingLine if aircraft.fuselage.is_some() => {
+                "lifting-line model with fuselage".to_string()
+            }
+            Method::LiftingLine => "lifting-line model (no [fuselage] given)".to_string(),
             Method::Classical => "closed-form estimate".to_string(),
         },
     ]);
@@ -303,13 +306,26 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             text,
         ]);
     }
-    if let Some(x) = a.full.as_ref().and_then(|f| f.cg_for_target_x_m) {
-        t.add_row(vec![
-            "CG for the target trim speed".to_string(),
-            num(x * 1000.0, 1),
-            pct(x),
-            "with the present incidences".to_string(),
-        ]);
+    if let Some(f) = a.full.as_ref() {
+        match (f.cg_for_target_x_m, aircraft.targets.trim_speed_m_s) {
+            (Some(x), _) => t.add_row(vec![
+                "CG for the target trim speed".to_string(),
+                num(x * 1000.0, 1),
+                pct(x),
+                "with the present incidences".to_string(),
+            ]),
+            (None, Some(_)) => t.add_row(vec![
+                "CG for the target trim speed".to_string(),
+                "-".to_string(),
+                "-".to_string(),
+                if a.headline.static_margin <= 0.0 {
+                    "not solved: the CG is behind the neutral point".to_string()
+                } else {
+                    "none ahead of the neutral point: change the incidences instead".to_string()
+                },
+            ]),
+            (None, None) => &mut t,
+        };
     }
     right_align(&mut t, 1..3);
     t
@@ -355,14 +371,24 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
                     "{} g",
                     num(ft.stabiliser_load_n / crate::atmosphere::G0 * 1000.0, 0)
                 ),
-                "(- down)".into(),
+                "negative: a download".into(),
             ]);
+            let canard = aircraft
+                .stabiliser
+                .as_ref()
+                .is_some_and(|s| s.role == StabiliserRole::Canard);
+            // Ahead of the wing the wing's bound vortex induces an upwash: show it as such.
+            let (label, sign) = if canard {
+                ("upwash at the canard, from the wing", -1.0)
+            } else {
+                ("downwash at the stabiliser", 1.0)
+            };
             t.add_row(vec![
-                "downwash at the stabiliser".into(),
+                label.into(),
                 format!(
                     "{} deg, gradient {}",
-                    num(ft.downwash_rad.to_degrees(), 2),
-                    num(ft.downwash_gradient, 3)
+                    num(sign * ft.downwash_rad.to_degrees(), 2),
+                    num(sign * ft.downwash_gradient, 3)
                 ),
                 String::new(),
             ]);
@@ -556,6 +582,13 @@ fn spanwise_table(a: &Analysis) -> Option<Table> {
 fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
     let f = a.full.as_ref()?;
     let mut t = table(&["what", "value", "note"]);
+    if a.headline.static_margin <= 0.0 && aircraft.pitch_control().is_some() {
+        t.add_row(vec![
+            format!("decalage and {}", aircraft.pitch_control_name()),
+            "not solved".to_string(),
+            "the CG is behind the neutral point: move it forward first".to_string(),
+        ]);
+    }
     if let Some(d) = &f.decalage_for_target {
         t.add_row(vec![
             format!("stabiliser incidence for {} m/s", num(d.speed_m_s, 1)),
@@ -563,12 +596,7 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
             format!(
                 "decalage {} deg (now {} deg), neutral elevator, CL {}",
                 num(d.decalage_rad.to_degrees(), 2),
-                num(
-                    aircraft.stabiliser.as_ref().map_or(0.0, |s| {
-                        (aircraft.wing.incidence_rad - s.surface.incidence_rad).to_degrees()
-                    }),
-                    2
-                ),
+                num(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 2),
                 num(d.cl, 3)
             ),
         ]);
@@ -579,13 +607,24 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
     } else {
         "elevons'"
     };
+    // On a canard, trailing edge down is up elevator (nose up): name the trailing edge.
+    let canard = aircraft
+        .stabiliser
+        .as_ref()
+        .is_some_and(|s| s.role == StabiliserRole::Canard);
     for p in &f.elevator_schedule {
+        let up = p.elevator_rad < 0.0;
         t.add_row(vec![
             format!("{control} at {} m/s", num(p.speed_m_s, 1)),
             format!(
                 "{} deg {}",
                 num(p.elevator_rad.abs().to_degrees(), 1),
-                if p.elevator_rad < 0.0 { "up" } else { "down" }
+                match (canard, up) {
+                    (false, true) => "up",
+                    (false, false) => "down",
+                    (true, true) => "TE up (nose down)",
+                    (true, false) => "TE down (nose up)",
+                }
             ),
             if p.within_limits {
                 format!("CL {}", num(p.cl, 3))
@@ -609,7 +648,11 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
             t.add_row(vec![
                 "washout change to trim there".into(),
                 format!("{} deg", num(w.to_degrees(), 2)),
-                "negative: more washout at the tip".into(),
+                if w.to_degrees().abs() > crate::analysis::MAX_USEFUL_WASHOUT_CHANGE_DEG {
+                    "too large to be practical: change the sections, sweep or CG".into()
+                } else {
+                    "negative: more washout at the tip".into()
+                },
             ]);
         }
         if aircraft.elevons.is_some() {

@@ -513,7 +513,7 @@ pub fn model_from_solution(
                 Level::Warning,
                 "cl-max-default",
                 format!(
-                    "Airfoil '{}' has no cl_max; the conservative default {DEFAULT_CL_MAX} is \
+                    "Airfoil '{}' has no cl_max; the conservative default {DEFAULT_CL_MAX:.1} is \
                      assumed. Give the section's cl_max at your Reynolds number for a better \
                      stall estimate.",
                     airfoil.name

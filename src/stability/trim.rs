@@ -137,7 +137,7 @@ pub struct DecalageSolve {
     pub cl: f64,
     /// Stabiliser incidence to set, rad.
     pub stabiliser_incidence_rad: f64,
-    /// Resulting decalage (wing incidence minus stabiliser incidence), rad.
+    /// Resulting decalage, rad (front surface minus rear: wing minus tail, canard minus wing).
     pub decalage_rad: f64,
 }
 
@@ -254,8 +254,15 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
             let speed = speed_at(input.mass_kg, input.density_kg_m3, area, result.cl);
             let stab = result.surfaces.get(1);
             let q = 0.5 * input.density_kg_m3 * speed * speed;
-            let (downwash_rad, downwash_gradient) =
+            let (downwash_rad, mut downwash_gradient) =
                 stab.map_or((0.0, 0.0), |s| (s.downwash_rad, s.downwash_gradient));
+            // Trimmed beyond the stall (flagged elsewhere) the local gradient of the stalled
+            // wing is near zero; report the attached-flow gradient the neutral point uses.
+            if result.status != crate::lifting_line::SolveStatus::Linear {
+                if let Some(s) = system.solve(&base)?.surfaces.get(1) {
+                    downwash_gradient = s.downwash_gradient;
+                }
+            }
             Some(FullTrim {
                 alpha_rad: tp.alpha_rad,
                 cl: result.cl,
@@ -302,25 +309,34 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
         _ => None,
     };
 
-    // Solves for a target speed.
+    // Solves for a target speed: only for a stable aircraft (with the CG behind the neutral
+    // point a trimmed state cannot be held, and rigging advice would mislead), and a CG for the
+    // target speed only where that CG is itself ahead of the neutral point.
     let mut decalage_for_target = None;
     let mut cg_for_target_x_m = None;
-    if let Some(v) = input.target_speed_m_s {
+    let stable = static_margin > 0.0;
+    if let (Some(v), true) = (input.target_speed_m_s, stable) {
         let cl_t = cl_at(input.mass_kg, input.density_kg_m3, area, v);
         if let Some(stab) = &input.aircraft.stabiliser {
             if let Ok(tp) =
                 system.trim_for_cl(&base, TrimControl::Incidence(1), cl_t, eff(input.cg_x_m), z)
             {
                 let incidence = stab.surface.incidence_rad + tp.control_rad;
+                let wing_minus_stab = input.aircraft.wing.incidence_rad - incidence;
                 decalage_for_target = Some(DecalageSolve {
                     speed_m_s: v,
                     cl: cl_t,
                     stabiliser_incidence_rad: incidence,
-                    decalage_rad: input.aircraft.wing.incidence_rad - incidence,
+                    decalage_rad: match stab.role {
+                        StabiliserRole::Tail => wing_minus_stab,
+                        StabiliserRole::Canard => -wing_minus_stab,
+                    },
                 });
             }
         }
-        cg_for_target_x_m = cg_for_cl(&system, &base, cl_t, z).map(|x| x - fuselage_shift_m);
+        cg_for_target_x_m = cg_for_cl(&system, &base, cl_t, z)
+            .map(|x| x - fuselage_shift_m)
+            .filter(|x| *x < neutral_point_x_m);
     }
 
     // Elevator schedule from 1.2 Vs to the top speed.
@@ -330,7 +346,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
         .or(stall_speed.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
         .unwrap_or(0.0);
     let mut elevator_schedule = Vec::new();
-    if let (Some(control), Some(vs)) = (pitch_control, stall_speed) {
+    if let (Some(control), Some(vs), true) = (pitch_control, stall_speed, stable) {
         let lo = SCHEDULE_LOW_SPEED_FACTOR * vs;
         if top_speed_m_s > lo {
             for k in 0..SCHEDULE_POINTS {

@@ -160,12 +160,26 @@ fn title_block(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
 fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 {
     let big = Font::bold(30.0);
     let pad = 2.5;
+    let ahead = d.cg_from_root_le_mm < -0.5;
+    let band_note = if d.band_from_root_le_mm.0 < -0.5 {
+        " (negative: ahead)"
+    } else {
+        ""
+    };
     let mut lines: Vec<(String, Font)> = vec![
-        ("aft of the wing root leading edge,".to_string(), BODY),
+        (
+            if ahead {
+                "ahead of the wing root leading edge,"
+            } else {
+                "aft of the wing root leading edge,"
+            }
+            .to_string(),
+            BODY,
+        ),
         ("as the mass list puts it".to_string(), BODY),
         (
             format!(
-                "Recommended {} to {} mm",
+                "Recommended {} to {} mm{band_note}",
                 fmt(d.band_from_root_le_mm.0, 0),
                 fmt(d.band_from_root_le_mm.1, 0)
             ),
@@ -198,7 +212,7 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
     c.text(
         x + 0.5 * w,
         y,
-        &format!("{} mm", fmt(d.cg_from_root_le_mm, 0)),
+        &format!("{} mm", fmt(d.cg_from_root_le_mm.abs(), 0)),
         big,
         Align::Centre,
     );
