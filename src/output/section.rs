@@ -198,7 +198,7 @@ pub fn render_tables(report: &SectionReport) -> String {
     }
     let mut sweep = Table::new();
     sweep.load_style(UTF8_FULL_CONDENSED);
-    sweep.set_header(vec!["alpha (deg)", "cl", "cm c/4", "cl with stall limit"]);
+    sweep.set_header(vec!["alpha (deg)", "cl", "cm c/4", "cl used by the wing"]);
     for p in &report.points {
         sweep.add_row(vec![
             right(fixed(p.alpha_deg, 1)),
@@ -207,7 +207,10 @@ pub fn render_tables(report: &SectionReport) -> String {
             right(fixed(p.cl_model, 4)),
         ]);
     }
-    let mut out = format!("{summary}\n{sweep}\n");
+    let mut out = format!(
+        "{summary}\n{sweep}\ncl: the 2-D method at each angle. cl used by the wing: the straight line \
+         through the zero-lift angle with the lift slope above, cut off at cl_max and cl_min.\n"
+    );
     for c in &report.cautions {
         out.push_str(&format!("{} [{}]: {}\n", c.level, c.code, c.message));
     }

@@ -295,12 +295,19 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
                 num(max_kg * 1000.0, 1)
             ),
             BallastOutcome::WrongSide => {
-                "target is on the other side of the CG: ballast here moves it the wrong way"
-                    .to_string()
+                let way = if b.target_x_m > a.mass.cg_x_m {
+                    "aft"
+                } else {
+                    "forward"
+                };
+                format!(
+                    "target {} mm {way} of the CG: this bay moves it the wrong way",
+                    num((b.target_x_m - a.mass.cg_x_m).abs() * 1000.0, 1)
+                )
             }
         };
         t.add_row(vec![
-            format!("ballast in {}", b.bay),
+            format!("target CG, ballast in {}", b.bay),
             num(b.target_x_m * 1000.0, 1),
             pct(b.target_x_m),
             text,
