@@ -80,6 +80,9 @@ pub struct TopView {
     pub stabiliser: Option<(String, Outline)>,
     /// A schematic fuselage from its length and greatest width only.
     pub fuselage: Option<Outline>,
+    /// Pitch-control surfaces (elevator or elevons), each half a separate outline: hinge line
+    /// and trailing edge. Empty for an all-moving tail.
+    pub controls: Vec<Outline>,
     /// The wing's MAC (drawn on the starboard half).
     pub mac: MacLine,
     /// x of the wing root leading edge, m: the reference the builder measures from.
@@ -457,6 +460,54 @@ pub fn surface_outline(surface: &Surface) -> Outline {
     out
 }
 
+/// Outlines of the pitch control on its surface, starboard and port, between its ends: along
+/// the hinge line (at `1 - F` of the local chord) and back along the trailing edge.
+fn control_outlines(aircraft: &Aircraft) -> Vec<Outline> {
+    let (surface, control) = match (&aircraft.stabiliser, &aircraft.elevons) {
+        (Some(s), _) => (&s.surface, &s.elevator),
+        (None, Some(e)) => (&aircraft.wing, e),
+        (None, None) => return Vec::new(),
+    };
+    if control.chord_fraction <= 0.0 {
+        return Vec::new();
+    }
+    let total = planform::half_span_length_m(surface);
+    let (s0, s1) = (
+        control.inboard_fraction * total,
+        control.outboard_fraction * total,
+    );
+    let mut s_values: Vec<f64> = (0..=32)
+        .map(|i| s0 + (s1 - s0) * f64::from(i) / 32.0)
+        .collect();
+    s_values.extend(
+        planform::break_points_m(surface)
+            .into_iter()
+            .filter(|b| *b > s0 && *b < s1),
+    );
+    s_values.sort_by(f64::total_cmp);
+    let stations: Vec<_> = s_values
+        .iter()
+        .map(|&s| planform::station_at(surface, s))
+        .collect();
+    let starboard: Outline = stations
+        .iter()
+        .map(|st| {
+            (
+                st.x_le_m + (1.0 - control.chord_fraction) * st.chord_m,
+                st.y_m,
+            )
+        })
+        .chain(
+            stations
+                .iter()
+                .rev()
+                .map(|st| (st.x_le_m + st.chord_m, st.y_m)),
+        )
+        .collect();
+    let port: Outline = starboard.iter().map(|&(x, y)| (x, -y)).collect();
+    vec![starboard, port]
+}
+
 fn fuselage_outline(f: &crate::model::Fuselage) -> Outline {
     // Schematic: rounded over the first 8 % of the length, full width to 35 %, then tapering
     // straight to 35 % of the width at the tail. Only length and greatest width are known.
@@ -487,6 +538,7 @@ fn top_view(aircraft: &Aircraft, a: &Analysis, target_x_m: Option<f64>) -> TopVi
             (name.to_string(), surface_outline(&s.surface))
         }),
         fuselage: aircraft.fuselage.as_ref().map(fuselage_outline),
+        controls: control_outlines(aircraft),
         mac: MacLine {
             le_x_m: g.mac_le_x_m,
             y_m: g.mac_y_m,
@@ -759,6 +811,28 @@ pub fn level_name(level: Level) -> &'static str {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    // The elevons of the flying-wing example are drawn where the file puts them: from 20 to
+    // 95 % of the 450 mm semispan (no dihedral, so y = span position), hinge line at
+    // 1 - 22 % of the local chord, back edge on the trailing edge (geometry by definition).
+    #[test]
+    fn elevon_outline_follows_the_file() {
+        let text = include_str!("../../aircraft/skerrywing-900.toml");
+        let aircraft = crate::input::parse_aircraft(text, "skerrywing-900.toml", None).unwrap();
+        let outlines = control_outlines(&aircraft);
+        assert_eq!(outlines.len(), 2);
+        let starboard = &outlines[0];
+        let (y_min, y_max) = starboard.iter().fold((f64::MAX, f64::MIN), |(lo, hi), p| {
+            (lo.min(p.1), hi.max(p.1))
+        });
+        assert!((y_min - 0.090).abs() < 1e-9 && (y_max - 0.4275).abs() < 1e-9);
+        let first = starboard[0];
+        let st = planform::station_at(&aircraft.wing, 0.090);
+        assert!((first.0 - (st.x_le_m + 0.78 * st.chord_m)).abs() < 1e-12);
+        let last = starboard[starboard.len() - 1];
+        assert!((last.0 - (st.x_le_m + st.chord_m)).abs() < 1e-12);
+        assert!(outlines[1].iter().all(|p| p.1 <= 0.0));
+    }
 
     // FNV-1a 64 test vectors from the FNV reference (draft-eastlake-fnv, test suite):
     // "" -> cbf29ce484222325, "a" -> af63dc4c8601ec8c, "foobar" -> 85944171f73967e8.

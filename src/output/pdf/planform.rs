@@ -201,6 +201,10 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
         let p: Vec<_> = o.iter().map(|&q| page(q)).collect();
         c.polygon(&p, Some(0.95), Some(outline));
     }
+    for o in &view.controls {
+        let p: Vec<_> = o.iter().map(|&q| page(q)).collect();
+        c.polygon(&p, Some(0.82), Some(Pen::solid(0.4)));
+    }
     c.line(
         (cx, top + 2.0),
         (cx, top - (x_max - x_min) * k - 2.0),
