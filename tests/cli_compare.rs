@@ -184,3 +184,69 @@ fn failed_comparison_leaves_the_old_pdf_alone() {
     assert_eq!(out.status.code(), Some(1));
     assert_eq!(std::fs::read(&pdf).unwrap(), b"old contents");
 }
+
+// `compare --json` writes rounded figures (docs/json.md): no number has more than 6 decimals,
+// so float noise such as 565.0000000000001 never shows, and the caution counts are integers.
+// Checked on the demo's setups and on three whole files (one of them tailless, with nulls).
+#[test]
+fn compare_json_numbers_are_rounded_and_counts_are_integers() {
+    fn numbers(v: &serde_json::Value, path: &str, out: &mut Vec<(String, serde_json::Number)>) {
+        match v {
+            serde_json::Value::Object(map) => {
+                for (k, child) in map {
+                    numbers(child, &format!("{path}/{k}"), out);
+                }
+            }
+            serde_json::Value::Array(items) => {
+                for (i, child) in items.iter().enumerate() {
+                    numbers(child, &format!("{path}/{i}"), out);
+                }
+            }
+            serde_json::Value::Number(n) => out.push((path.to_string(), n.clone())),
+            _ => {}
+        }
+    }
+    for args in [
+        vec!["compare", "--json"],
+        vec![
+            "compare",
+            "--json",
+            "--base-only",
+            "aircraft/larkspire-2000.toml",
+            "aircraft/skerrywing-900.toml",
+            "aircraft/wrenfield-1400.toml",
+        ],
+    ] {
+        let out = trimline(&args);
+        assert!(
+            out.status.success(),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+        let mut found = Vec::new();
+        numbers(&v, "", &mut found);
+        assert!(found.len() > 20, "too few numbers: {found:?}");
+        for (path, n) in &found {
+            let text = n.to_string();
+            assert!(
+                !text.contains(['e', 'E']),
+                "{path} = {text} is in exponent form"
+            );
+            let decimals = text.split_once('.').map_or(0, |(_, d)| d.len());
+            assert!(decimals <= 6, "{path} = {text} has {decimals} decimals");
+            if path.ends_with("/warnings") || path.ends_with("/dangers") {
+                assert!(
+                    n.is_i64() || n.is_u64(),
+                    "{path} = {text} is not an integer"
+                );
+            }
+        }
+        let counts = found
+            .iter()
+            .filter(|(p, _)| p.ends_with("/warnings") || p.ends_with("/dangers"))
+            .count();
+        let columns = v.as_array().unwrap().len();
+        assert_eq!(counts, 4 * columns, "warnings and dangers in both maps");
+    }
+}

@@ -18,7 +18,8 @@ pub struct CompareArgs {
     /// Leave out the named setups: compare the files' base configurations only.
     #[arg(long)]
     pub base_only: bool,
-    /// Print JSON instead of a table.
+    /// Print JSON instead of a table: the same figures in the same units (mm, g, m/s, deg,
+    /// as each key's name says), described in docs/json.md.
     #[arg(long)]
     pub json: bool,
     /// Also write a one-page comparison PDF: to PATH, or to

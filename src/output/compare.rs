@@ -6,10 +6,22 @@ use crate::output::tables::num;
 use comfy_table::{presets, Cell, CellAlignment, Table};
 use serde::Serialize;
 
+/// How a figure is written in `compare --json`.
+#[derive(Clone, Copy)]
+enum JsonNumber {
+    /// Rounded to this many decimals.
+    Decimals(i32),
+    /// A count, written as an integer.
+    Count,
+}
+
 /// One row of the comparison: a label, a unit and how to read a value from the figures.
 struct Row {
     label: &'static str,
+    /// Decimals in the table.
     decimals: usize,
+    /// How the JSON writes it: one decimal more than the table, counts as integers.
+    json: JsonNumber,
     value: fn(&KeyFigures) -> Option<f64>,
 }
 
@@ -17,81 +29,97 @@ const ROWS: &[Row] = &[
     Row {
         label: "mass g",
         decimals: 0,
+        json: JsonNumber::Decimals(1),
         value: |k| Some(k.mass_kg * 1000.0),
     },
     Row {
         label: "wing loading g/dm^2",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.wing_loading_kg_m2 * 10.0),
     },
     Row {
         label: "CG mm from datum",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.cg_x_m * 1000.0),
     },
     Row {
         label: "CG mm aft of wing root LE",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.cg_from_wing_root_le_m * 1000.0),
     },
     Row {
         label: "CG % MAC",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.cg_percent_mac),
     },
     Row {
         label: "neutral point mm from datum",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.neutral_point_x_m * 1000.0),
     },
     Row {
         label: "static margin %",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.static_margin * 100.0),
     },
     Row {
         label: "CG band forward mm",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.band.forward_x_m * 1000.0),
     },
     Row {
         label: "CG band aft mm",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| Some(k.band.aft_x_m * 1000.0),
     },
     Row {
         label: "decalage deg",
         decimals: 2,
+        json: JsonNumber::Decimals(3),
         value: |k| k.decalage_rad.map(f64::to_degrees),
     },
     Row {
         label: "trim CL",
         decimals: 3,
+        json: JsonNumber::Decimals(4),
         value: |k| k.trim_cl,
     },
     Row {
         label: "trim speed m/s",
         decimals: 2,
+        json: JsonNumber::Decimals(3),
         value: |k| k.trim_speed_m_s,
     },
     Row {
         label: "stall speed m/s",
         decimals: 2,
+        json: JsonNumber::Decimals(3),
         value: |k| Some(k.stall_speed_m_s),
     },
     Row {
         label: "ballast for target margin g",
         decimals: 1,
+        json: JsonNumber::Decimals(2),
         value: |k| k.ballast_kg.as_ref().map(|b| b.1 * 1000.0),
     },
     Row {
         label: "warnings",
         decimals: 0,
+        json: JsonNumber::Count,
         value: |k| Some(k.warnings as f64),
     },
     Row {
         label: "dangers",
         decimals: 0,
+        json: JsonNumber::Count,
         value: |k| Some(k.dangers as f64),
     },
 ];
@@ -177,9 +205,40 @@ fn json_key(label: &str) -> String {
         .to_lowercase()
 }
 
-/// The JSON form of a comparison (builder's units, as in the table; each key names its unit).
+/// `v` rounded to `decimals` decimals, never `-0`.
+fn round_to(v: f64, decimals: i32) -> f64 {
+    let scale = 10f64.powi(decimals);
+    let r = (v * scale).round() / scale;
+    if r == 0.0 {
+        0.0
+    } else {
+        r
+    }
+}
+
+/// A figure as JSON: rounded as its row says, a count as an integer.
+fn json_number(v: f64, how: JsonNumber) -> serde_json::Value {
+    match how {
+        JsonNumber::Decimals(d) => serde_json::Value::from(round_to(v, d)),
+        // Counts are whole numbers held in an f64; the cast cannot lose anything.
+        JsonNumber::Count => serde_json::Value::from(v.round() as i64),
+    }
+}
+
+/// The JSON form of a comparison, in the builder's units as in the table (each key names its
+/// unit: mm, g, g/dm^2, percent, deg, m/s). Values are rounded to one decimal more than the
+/// table shows and counts are integers; a difference is that of the rounded values, so it
+/// equals the column's figure minus the first column's figure.
 pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> {
     let first = columns.first().map(|c| &c.0);
+    let rounded = |row: &Row, k: &KeyFigures| -> Option<f64> {
+        (row.value)(k)
+            .filter(|v| v.is_finite())
+            .map(|v| match row.json {
+                JsonNumber::Decimals(d) => round_to(v, d),
+                JsonNumber::Count => v.round(),
+            })
+    };
     columns
         .iter()
         .map(|(k, source)| {
@@ -187,17 +246,17 @@ pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> 
             let mut diff = serde_json::Map::new();
             for row in ROWS {
                 let key = json_key(row.label);
-                let v = (row.value)(k).filter(|v| v.is_finite());
-                let b = first.and_then(|f| (row.value)(f)).filter(|v| v.is_finite());
+                let v = rounded(row, k);
+                let b = first.and_then(|f| rounded(row, f));
                 figures.insert(
                     key.clone(),
-                    v.map(serde_json::Value::from)
+                    v.map(|v| json_number(v, row.json))
                         .unwrap_or(serde_json::Value::Null),
                 );
                 diff.insert(
                     key,
                     v.zip(b)
-                        .map(|(v, b)| serde_json::Value::from(v - b))
+                        .map(|(v, b)| json_number(v - b, row.json))
                         .unwrap_or(serde_json::Value::Null),
                 );
             }
