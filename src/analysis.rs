@@ -535,15 +535,23 @@ fn balance_cautions(
             ),
         ));
     }
+    // With the incidences fixed, a CG further forward trims at a lower CL (faster): CL_trim =
+    // Cm0 about the neutral point / static margin (Etkin & Reid, sec. 2.3).
+    let faster = if aircraft.stabiliser.is_some() {
+        "Reduce the decalage (stabiliser incidence closer to the wing's) or move the CG forward \
+         within the recommended band: nose weight makes it trim faster."
+    } else {
+        "Reduce the washout or reflex, or move the CG forward within the recommended band: nose \
+         weight makes it trim faster."
+    };
     if let Some(t) = h.trim {
         if t.cl > h.cl_max {
             cautions.push(Caution::new(
                 Level::Danger,
                 "trim-beyond-stall",
                 format!(
-                    "The aircraft trims at CL {:.2}, above its CL max of {:.2}: as balanced it would fly \
-                     stalled. Reduce the decalage (stabiliser incidence closer to the wing's) or move the \
-                     CG aft within the recommended band.",
+                                        "The aircraft trims at CL {:.2}, above its CL max of {:.2}: as balanced it would fly \
+                     stalled. {faster}",
                     t.cl, h.cl_max
                 ),
             ));
@@ -552,8 +560,8 @@ fn balance_cautions(
                 Level::Warning,
                 "trim-near-stall",
                 format!(
-                    "Trim speed {:.1} m/s is within 20 % of the stall speed {:.1} m/s: little margin \
-                     against a stall in gusts or turns. Reduce the decalage slightly or move the CG aft.",
+                                        "Trim speed {:.1} m/s is within 20 % of the stall speed {:.1} m/s: little margin \
+                     against a stall in gusts or turns. {faster}",
                     t.speed_m_s, h.stall_speed_m_s
                 ),
             ));
@@ -740,7 +748,9 @@ fn full_model_cautions(
                 "airfoils with about {:.3} more reflex (cm_ac)",
                 t.reflex_cm_change
             ));
-            if cg_x_m < band_aft_x_m - 5e-4 {
+            // At zero lift the moment about the CG is a pure couple: moving the CG cannot make
+            // it positive, so a CG further aft only helps when it already is.
+            if cg_x_m < band_aft_x_m - 5e-4 && t.cm_zero_lift > 0.0 {
                 remedies.push("the CG moved aft within the recommended band".to_string());
             }
             let last = remedies.pop().unwrap_or_default();
