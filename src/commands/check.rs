@@ -68,12 +68,11 @@ pub fn run(args: &CheckArgs) -> anyhow::Result<()> {
         .with_context(|| format!("analysing {source}"))?;
     if args.json {
         let doc = trimline::output::json::check_document(&aircraft, &analysis, &source);
-        println!("{}", serde_json::to_string_pretty(&doc)?);
+        super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
-        print!(
-            "{}",
-            trimline::output::tables::check_report(&aircraft, &analysis, &source)
-        );
+        super::emit(&trimline::output::tables::check_report(
+            &aircraft, &analysis, &source,
+        ))?;
     }
     Ok(())
 }

@@ -106,11 +106,13 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
     }
     if args.json {
         let doc = trimline::output::compare::compare_json(&columns);
-        println!("{}", serde_json::to_string_pretty(&doc)?);
+        super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
         let figures: Vec<KeyFigures> = columns.into_iter().map(|c| c.0).collect();
-        println!("{}", trimline::output::compare::compare_table(&figures));
-        println!("Values in brackets are differences from the first column; (=) means no change.");
+        super::emit(&format!(
+            "{}\nValues in brackets are differences from the first column; (=) means no change.\n",
+            trimline::output::compare::compare_table(&figures)
+        ))?;
     }
     Ok(())
 }

@@ -45,11 +45,11 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
         Kind::Wing => "wing, elevons",
         Kind::Sailplane | Kind::Trainer => "wing, stabiliser",
     };
-    println!(
+    super::emit(&format!(
         "Wrote {}: edit the name, {parts}, airfoils and [[mass]] items (every key is \
-         explained in aircraft/README.md), then run `trimline check {}`.",
+         explained in aircraft/README.md), then run `trimline check {}`.\n",
         args.path.display(),
         args.path.display()
-    );
+    ))?;
     Ok(())
 }

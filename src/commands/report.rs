@@ -72,12 +72,12 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<()> {
     };
     let analysis = write_report(&aircraft, source, paper, &out)
         .with_context(|| format!("making the report for {}", aircraft.name))?;
-    print!("{}", summary(&aircraft, &analysis));
-    println!(
-        "Wrote the trim report for {} to {}",
+    super::emit(&summary(&aircraft, &analysis))?;
+    super::emit(&format!(
+        "Wrote the trim report for {} to {}\n",
         aircraft.name,
         out.display()
-    );
+    ))?;
     Ok(())
 }
 

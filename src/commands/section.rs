@@ -100,9 +100,9 @@ pub fn run(args: &SectionArgs) -> anyhow::Result<()> {
             .with_context(|| format!("writing {}", path.display()))?;
     }
     if args.json {
-        println!("{}", to_json(&report)?);
+        super::emit(&format!("{}\n", to_json(&report)?))?;
     } else {
-        print!("{}", render_tables(&report));
+        super::emit(&render_tables(&report))?;
     }
     Ok(())
 }

@@ -139,7 +139,10 @@ pub fn compare_cells(columns: &[KeyFigures]) -> Vec<(&'static str, Vec<String>)>
                         (None, _) => "n/a".to_string(),
                         (Some(v), _) if i == 0 => num(v, row.decimals),
                         (Some(v), Some(b)) => {
-                            let d = v - b;
+                            // The difference of the values as printed, so that "(=)" never
+                            // stands beside two numbers that print differently.
+                            let scale = 10f64.powi(row.decimals as i32);
+                            let d = (v * scale).round() / scale - (b * scale).round() / scale;
                             let shown = num(d, row.decimals);
                             if shown
                                 .trim_start_matches('-')
@@ -314,5 +317,36 @@ pub fn compare_data(
                 )
             })
             .collect(),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::analysis::{analyse, AnalysisOptions};
+
+    // 102.24 mm and 102.26 mm print as 102.2 and 102.3: the cell must show the printed
+    // difference (+0.1), not "(=)" from the raw difference of 0.02 mm rounding to zero.
+    #[test]
+    fn differences_are_those_of_the_printed_values() {
+        let text = include_str!("../../aircraft/larkspire-2000.toml");
+        let aircraft = crate::input::parse_aircraft(text, "larkspire-2000.toml", None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        let mut first = KeyFigures::of(&aircraft, &a);
+        first.neutral_point_x_m = 0.10224;
+        let mut second = first.clone();
+        second.neutral_point_x_m = 0.10226;
+        let cells = compare_cells(&[first.clone(), second]);
+        let np = cells
+            .iter()
+            .find(|(label, _)| *label == "neutral point mm from datum")
+            .unwrap();
+        assert_eq!(np.1[1], "102.3 (+0.1)");
+        let same = compare_cells(&[first.clone(), first]);
+        let np = same
+            .iter()
+            .find(|(label, _)| *label == "neutral point mm from datum")
+            .unwrap();
+        assert_eq!(np.1[1], "102.2 (=)");
     }
 }
