@@ -169,16 +169,7 @@ const FUSELAGE_MM: Bounds = Bounds::positive(30_000.0);
 
 impl Ctx<'_> {
     fn location(&self, span: &Range<usize>) -> Location {
-        let offset = span.start.min(self.text.len());
-        let before = &self.text[..offset];
-        let line = before.matches('\n').count() + 1;
-        let line_start = before.rfind('\n').map(|i| i + 1).unwrap_or(0);
-        let column = self.text[line_start..offset].chars().count() + 1;
-        Location {
-            file: self.file.to_string(),
-            line,
-            column,
-        }
+        super::toml_error::location(self.text, self.file, span.start)
     }
 
     fn whole_file(&self) -> Location {
@@ -190,43 +181,7 @@ impl Ctx<'_> {
     }
 
     fn toml_error(&self, e: &toml::de::Error) -> InputError {
-        let location = match e.span() {
-            Some(span) => self.location(&span),
-            None => self.whole_file(),
-        };
-        let message = e.message().trim().to_string();
-        // Name the offending key where toml quotes it (`unknown field `spna``).
-        let names_a_field =
-            message.starts_with("unknown field") || message.starts_with("missing field");
-        let field = if names_a_field {
-            let key = message.split('`').nth(1).unwrap_or("syntax");
-            match e.span().and_then(|span| self.enclosing_table(span.start)) {
-                Some(table) if message.starts_with("unknown field") => format!("{table}.{key}"),
-                _ => key.to_string(),
-            }
-        } else {
-            "syntax".to_string()
-        };
-
-        let accepted = message.find("expected").map(|i| message[i..].to_string());
-        let problem = match message.find(", expected") {
-            Some(i) => message[..i].to_string(),
-            None => message.clone(),
-        };
-        InputError::new(location, field, problem, accepted)
-    }
-
-    /// The name of the `[table]` or `[[array]]` header above byte `offset`, if any.
-    fn enclosing_table(&self, offset: usize) -> Option<String> {
-        let before = &self.text[..offset.min(self.text.len())];
-        before.lines().rev().find_map(|line| {
-            let t = line.trim();
-            let inner = t
-                .strip_prefix("[[")
-                .and_then(|r| r.split("]]").next())
-                .or_else(|| t.strip_prefix('[').and_then(|r| r.split(']').next()))?;
-            Some(inner.trim().to_string())
-        })
+        super::toml_error::translate(self.text, self.file, e)
     }
 
     fn err(

@@ -9,6 +9,7 @@ pub mod aircraft_file;
 pub mod coordinates;
 pub mod error;
 mod raw;
+mod toml_error;
 pub mod units;
 
 pub use aircraft_file::{load_aircraft_file, parse_aircraft};
