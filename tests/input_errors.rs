@@ -191,3 +191,104 @@ fn unquoted_text_is_named() {
     let e = error_of(&edit("airfoil = \"a\"", "airfoil = a"));
     check(&e, "bad.toml:6:11: wing.airfoil:", &["quotes", "\"a\""]);
 }
+
+// --- Missing required keys: located at their table's heading, with the full path. ---
+
+#[test]
+fn missing_key_in_an_array_entry_names_entry_and_range() {
+    let e = error_of(&edit("max = 20\n", ""));
+    check(
+        &e,
+        "bad.toml:27:1: ballast[1].max:",
+        &["missing", "more than 0 g to 1000000 g", "oz"],
+    );
+
+    let e = error_of(&edit("x = 40\n", ""));
+    check(
+        &e,
+        "bad.toml:19:1: mass[2].x:",
+        &["missing", "-50000 mm to 50000 mm", "in"],
+    );
+
+    let e = error_of(&edit("mass = 50\n", ""));
+    check(
+        &e,
+        "bad.toml:15:1: mass[1].mass:",
+        &["missing", "0 g to 1000000 g"],
+    );
+
+    let e = error_of(&edit("name = \"battery\"\n", ""));
+    check(&e, "bad.toml:15:1: mass[1].name:", &["missing", "text"]);
+
+    let e = error_of(&edit("name = \"tail\"\n", ""));
+    check(&e, "bad.toml:27:1: ballast[1].name:", &["missing", "text"]);
+
+    let e = error_of(&edit("span = 600\n", ""));
+    check(
+        &e,
+        "bad.toml:8:1: wing.panel[0].span:",
+        &["missing", "5 mm to 30000 mm"],
+    );
+}
+
+#[test]
+fn missing_key_in_a_table_names_table_and_range() {
+    let e = error_of(&edit("root_chord = 200\n", ""));
+    check(
+        &e,
+        "bad.toml:4:1: wing.root_chord:",
+        &["missing", "5 mm to 10000 mm"],
+    );
+
+    let fuselage = "[fuselage]\nlength = 900\nwidth = 60\n[[mass]]\nname = \"fuselage\"";
+    let e = error_of(&edit("[[mass]]\nname = \"fuselage\"", fuselage));
+    check(
+        &e,
+        "bad.toml:11:1: fuselage.nose_x:",
+        &["missing", "-50000 mm to 50000 mm"],
+    );
+
+    let ellipse = "[wing.ellipse]\ndihedral = 2\n";
+    let e = error_of(&edit(
+        "[[wing.panel]]\nspan = 600\ntip_chord = 150\n",
+        ellipse,
+    ));
+    check(
+        &e,
+        "bad.toml:8:1: wing.ellipse.span:",
+        &["missing", "5 mm to 30000 mm"],
+    );
+
+    let elevons = "[wing.elevons]\ninboard = 20\noutboard = 90\n[[mass]]\nname = \"fuselage\"";
+    let e = error_of(&edit("[[mass]]\nname = \"fuselage\"", elevons));
+    check(
+        &e,
+        "bad.toml:11:1: wing.elevons.chord:",
+        &["missing", "more than 0% to less than 100%"],
+    );
+
+    let weighing = "max = 20\n[[weighing]]\nx = 30\nreading = 50\n[[weighing]]\nx = 300\n";
+    let e = error_of(&edit("max = 20\n", weighing));
+    check(
+        &e,
+        "bad.toml:34:1: weighing[1].reading:",
+        &["missing", "0 g to 1000000 g"],
+    );
+
+    let setup = "max = 20\n[[setup]]\nballast = { nose = 5 }\n";
+    let e = error_of(&edit("max = 20\n", setup));
+    check(&e, "bad.toml:31:1: setup[0].name:", &["missing", "text"]);
+}
+
+#[test]
+fn missing_key_in_an_inline_table_is_located_at_the_table() {
+    let e = error_of(&edit(
+        "naca = \"2412\"",
+        "karman_trefftz = { thickness = 12, camber = 2 }",
+    ));
+    check(
+        &e,
+        "bad.toml:3:18: airfoils.a.karman_trefftz.trailing_edge_angle:",
+        &["missing", "0 deg to 30 deg"],
+    );
+}
