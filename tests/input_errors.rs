@@ -292,3 +292,127 @@ fn missing_key_in_an_inline_table_is_located_at_the_table() {
         &["missing", "0 deg to 30 deg"],
     );
 }
+
+// --- Karman-Trefftz sections: the accepted range is the one that works. ---
+
+/// BASE with airfoil `a` given by `shape` (the text after `naca = ...`'s place).
+fn with_airfoil(shape: &str) -> String {
+    edit("naca = \"2412\"", shape)
+}
+
+/// The file is read and the section analysed, with finite results.
+fn section_works(shape: &str) {
+    let a = parse_aircraft(&with_airfoil(shape), "ok.toml", None)
+        .unwrap_or_else(|e| panic!("{shape}: {e}"));
+    let out = trimline::section::section_model(
+        &a.airfoils[0],
+        &trimline::section::SectionOptions::default(),
+    )
+    .unwrap_or_else(|e| panic!("{shape}: {e}"));
+    let m = out.model;
+    assert!(
+        m.cl_alpha_per_rad.is_finite()
+            && m.alpha_zero_lift_rad.is_finite()
+            && m.cm_ac.is_finite()
+            && m.x_ac_c.is_finite(),
+        "{shape}: {m:?}"
+    );
+}
+
+// The reviewer's case: 10 % thick, 2 % camber. The thinnest Karman-Trefftz section with
+// trailing-edge angle tau is two circular arcs meeting at tau; with t = 0.10, f = 0.02 that is
+// tau = 2 [atan(t + 2f) - atan(2f - t)] = 2 [atan(0.14) + atan(0.06)] = 22.81 deg, and 90 % of
+// it, 20.53 deg, is accepted (shown rounded down: 20.5).
+#[test]
+fn trailing_edge_angle_too_large_for_the_thickness_is_located() {
+    for angle in ["25", "30", "20.6"] {
+        let e = error_of(&with_airfoil(&format!(
+            "karman_trefftz = {{ thickness = 10, camber = 2, trailing_edge_angle = {angle} }}"
+        )));
+        check(
+            &e,
+            "bad.toml:3:70: airfoils.a.karman_trefftz.trailing_edge_angle:",
+            &[
+                "too large",
+                "10 % thick",
+                "0 deg to 20.5 deg",
+                "up to 30 deg",
+            ],
+        );
+    }
+}
+
+#[test]
+fn trailing_edge_angles_at_the_edges_of_the_accepted_range_work() {
+    // Limits (90 % of the two-arc angle, worked out as above): 0.1 % thick, no camber: 0.206 deg;
+    // 0.1 % thick, 14.99 % camber: 0.189 deg; 15 % thick: 30.7 deg, so the file's 30 deg.
+    for shape in [
+        "karman_trefftz = { thickness = 10, camber = 2, trailing_edge_angle = 20.5 }",
+        "karman_trefftz = { thickness = 0.1, camber = 0, trailing_edge_angle = 0.2 }",
+        "karman_trefftz = { thickness = 0.1, camber = 14.99, trailing_edge_angle = 0.18 }",
+        "karman_trefftz = { thickness = 0.1, camber = 14.99, trailing_edge_angle = 0 }",
+        "karman_trefftz = { thickness = 15, trailing_edge_angle = 30 }",
+        "karman_trefftz = { thickness = 39.99, camber = 0, trailing_edge_angle = 30 }",
+        "karman_trefftz = { thickness = 39.99, camber = 14.99, trailing_edge_angle = 30 }",
+        "karman_trefftz = { thickness = 39.99, camber = 14.99, trailing_edge_angle = 0 }",
+        "joukowski = { thickness = 0.1, camber = 14.99 }",
+        "joukowski = { thickness = 39.99, camber = 14.99 }",
+        "joukowski = { thickness = 39.99 }",
+    ] {
+        section_works(shape);
+    }
+}
+
+#[test]
+fn thickness_and_camber_outside_the_range_are_located() {
+    let e = error_of(&with_airfoil("joukowski = { camber = 2 }"));
+    check(
+        &e,
+        "bad.toml:3:13: airfoils.a.joukowski.thickness:",
+        &["missing", "0.1% to less than 40%"],
+    );
+    let e = error_of(&with_airfoil(
+        "karman_trefftz = { thickness = 40, trailing_edge_angle = 10 }",
+    ));
+    check(
+        &e,
+        "bad.toml:3:32: airfoils.a.karman_trefftz.thickness:",
+        &["out of range", "0.1% to less than 40%"],
+    );
+    let e = error_of(&with_airfoil("joukowski = { thickness = 12, camber = 15 }"));
+    check(
+        &e,
+        "bad.toml:3:40: airfoils.a.joukowski.camber:",
+        &["out of range", "0% to less than 15%"],
+    );
+    let e = error_of(&with_airfoil(
+        "karman_trefftz = { thickness = 20, trailing_edge_angle = 30.5 }",
+    ));
+    check(
+        &e,
+        "bad.toml:3:58: airfoils.a.karman_trefftz.trailing_edge_angle:",
+        &["out of range", "0 deg to 30 deg"],
+    );
+}
+
+// The `section` command refuses the same shapes with the limit, and solves the edge.
+#[test]
+fn section_command_states_the_angle_limit() {
+    let run = |spec: &str| {
+        std::process::Command::new(env!("CARGO_BIN_EXE_trimline"))
+            .args(["section", spec, "--alpha", "0"])
+            .output()
+            .expect("binary runs")
+    };
+    let out = run("kt:10/2/25");
+    assert!(!out.status.success());
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("too large"), "{err}");
+    assert!(err.contains("0 to 20.53 deg"), "{err}");
+    let out = run("kt:10/2/20.5");
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+}

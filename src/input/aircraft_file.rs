@@ -138,13 +138,20 @@ const INCIDENCE_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const MASS_G: Bounds = Bounds::closed(0.0, 1_000_000.0);
 const BALLAST_MAX_G: Bounds = Bounds::positive(1_000_000.0);
 const CL_MAX: Bounds = Bounds::closed(0.3, 3.0);
+// Joukowski and Karman-Trefftz sections: what the circle-map shape solution accepts (less than
+// 40 % and 15 %), and no thinner than it is checked for (0.1 %; thinner is a sheet).
 const THICKNESS_PCT: Bounds = Bounds {
-    min: 0.0,
-    min_inclusive: false,
-    max: 40.0,
-    max_inclusive: true,
+    min: 100.0 * crate::section::circle_map::MIN_RELIABLE_THICKNESS_RATIO,
+    min_inclusive: true,
+    max: 100.0 * crate::section::circle_map::MAX_THICKNESS_RATIO,
+    max_inclusive: false,
 };
-const CAMBER_PCT: Bounds = Bounds::closed(0.0, 15.0);
+const CAMBER_PCT: Bounds = Bounds {
+    min: 0.0,
+    min_inclusive: true,
+    max: 100.0 * crate::section::circle_map::MAX_CAMBER_RATIO,
+    max_inclusive: false,
+};
 const TE_ANGLE_DEG: Bounds = Bounds::closed(0.0, 30.0);
 const ELEVATOR_PCT: Bounds = Bounds {
     min: 0.0,
@@ -673,7 +680,9 @@ impl Ctx<'_> {
         Ok((list, ids))
     }
 
-    /// `karman_trefftz = { thickness, camber, trailing_edge_angle }`.
+    /// `karman_trefftz = { thickness, camber, trailing_edge_angle }`. The largest angle depends
+    /// on thickness and camber: no Karman-Trefftz section is thinner than the two circular arcs
+    /// meeting at its trailing-edge angle (see [`crate::section::karman_trefftz`]).
     fn karman_trefftz(
         &self,
         k: &Spanned<raw::RawKarmanTrefftz>,
@@ -710,12 +719,35 @@ impl Ctx<'_> {
             Dimension::Angle,
             TE_ANGLE_DEG,
         )?;
-        let angle = self.quantity(
-            angle_q,
-            &format!("{path}.trailing_edge_angle"),
-            Dimension::Angle,
-            TE_ANGLE_DEG,
-        )?;
+        let angle_field = format!("{path}.trailing_edge_angle");
+        let angle = self.quantity(angle_q, &angle_field, Dimension::Angle, TE_ANGLE_DEG)?;
+        let limit_deg = crate::section::karman_trefftz::max_trailing_edge_angle_rad(
+            thickness_ratio,
+            camber_ratio,
+        )
+        .to_degrees()
+        .min(TE_ANGLE_DEG.max);
+        // Shown to 0.1 deg, rounded down, so that every value up to the one shown is accepted.
+        let shown_deg = (limit_deg * 10.0).floor() / 10.0;
+        if angle.to_degrees() > limit_deg {
+            return Err(self.err(
+                &angle_q.span(),
+                &angle_field,
+                format!(
+                    "{} deg is too large for a section {} % thick with {} % camber: a \
+                     Karman-Trefftz section this thin cannot have so wide a trailing edge",
+                    fmt_num_short(angle.to_degrees()),
+                    fmt_num_short(100.0 * thickness_ratio),
+                    fmt_num_short(100.0 * camber_ratio)
+                ),
+                Some(format!(
+                    "0 deg to {} deg for this thickness and camber; a thicker section allows \
+                     more (about 2 deg per % of thickness), up to {} deg",
+                    fmt_num(shown_deg),
+                    fmt_num(TE_ANGLE_DEG.max)
+                )),
+            ));
+        }
         Ok(AirfoilShape::KarmanTrefftz {
             thickness_ratio,
             camber_ratio,
