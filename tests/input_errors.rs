@@ -416,3 +416,34 @@ fn section_command_states_the_angle_limit() {
         String::from_utf8_lossy(&out.stderr)
     );
 }
+
+// --- Names must be unique: setups refer to them. ---
+
+#[test]
+fn duplicate_setup_names_are_refused_at_the_second() {
+    let setups = "max = 20\n[[setup]]\nname = \"lead\"\nballast = { nose = 5 }\n\
+                  [[setup]]\nname = \"lead\"\nballast = { nose = 10 }\n";
+    let e = error_of(&edit("max = 20\n", setups));
+    check(
+        &e,
+        "bad.toml:35:8: setup[1].name:",
+        &["`lead`", "setup[0]", "line 32", "--setup"],
+    );
+}
+
+#[test]
+fn duplicate_mass_and_ballast_names_are_refused() {
+    let e = error_of(&edit("name = \"wing\"", "name = \"battery\""));
+    check(
+        &e,
+        "bad.toml:20:8: mass[2].name:",
+        &["`battery`", "mass[1]", "line 16"],
+    );
+    // Names are compared as read: surrounding spaces do not make a new name.
+    let e = error_of(&edit("name = \"tail\"", "name = \" nose \""));
+    check(
+        &e,
+        "bad.toml:28:8: ballast[1].name:",
+        &["`nose`", "ballast[0]", "line 24"],
+    );
+}

@@ -247,6 +247,34 @@ impl Ctx<'_> {
         Ok(text)
     }
 
+    /// Refuses an entry of the list `table` (`mass`, `ballast`, `setup`) whose name an earlier
+    /// entry already has, at the second name. Names are compared as read (trimmed).
+    fn unique_names<'n>(
+        &self,
+        names: impl Iterator<Item = Option<&'n Spanned<String>>>,
+        table: &str,
+        why: &str,
+    ) -> Result<(), InputError> {
+        let mut seen: Vec<(&str, usize, Range<usize>)> = Vec::new();
+        for (i, name) in names.enumerate() {
+            let Some(name) = name else { continue };
+            let text = name.get_ref().trim();
+            if let Some((_, j, first)) = seen.iter().find(|(s, _, _)| *s == text) {
+                return Err(self.err(
+                    &name.span(),
+                    &format!("{table}[{i}].name"),
+                    format!(
+                        "`{text}` is already the name of {table}[{j}] (line {}); {why}",
+                        self.location(first).line
+                    ),
+                    Some(format!("a name that no other [[{table}]] entry has")),
+                ));
+            }
+            seen.push((text, i, name.span()));
+        }
+        Ok(())
+    }
+
     /// A quantity in SI, checked against `bounds` (given in the default unit).
     fn quantity(
         &self,
@@ -377,6 +405,11 @@ impl Ctx<'_> {
             .enumerate()
             .map(|(i, m)| self.mass_item(i, m))
             .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw.mass.iter().map(|m| m.get_ref().name.as_ref()),
+            "mass",
+            "setups refer to mass items by name",
+        )?;
         let total: f64 = masses.iter().map(|m| m.mass_kg).sum();
         if total <= 0.0 {
             return Err(self.err(
@@ -392,6 +425,11 @@ impl Ctx<'_> {
             .enumerate()
             .map(|(i, b)| self.ballast(i, b))
             .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw.ballast.iter().map(|b| b.get_ref().name.as_ref()),
+            "ballast",
+            "setups refer to ballast bays by name",
+        )?;
         let targets = match &raw.targets {
             None => Targets::default(),
             Some(t) => Targets {
@@ -475,6 +513,11 @@ impl Ctx<'_> {
             .enumerate()
             .map(|(i, s)| self.setup(i, s, &masses, &ballast_bays, &ids, stabiliser.is_some()))
             .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw.setup.iter().map(|s| s.get_ref().name.as_ref()),
+            "setup",
+            "`--setup NAME` could not choose the second one",
+        )?;
         Ok(Aircraft {
             name,
             notes: raw.notes.unwrap_or_default(),
