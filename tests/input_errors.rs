@@ -447,3 +447,19 @@ fn duplicate_mass_and_ballast_names_are_refused() {
         &["`nose`", "ballast[0]", "line 24"],
     );
 }
+
+// --- Grammar. ---
+
+#[test]
+fn one_weighing_support_is_singular() {
+    let e = error_of(&edit(
+        "max = 20\n",
+        "max = 20\n[[weighing]]\nx = 30\nreading = 50\n",
+    ));
+    check(
+        &e,
+        "bad.toml:31:1: weighing:",
+        &["1 support given", "2 or 3"],
+    );
+    assert!(!e.contains("supports given"), "{e}");
+}

@@ -494,7 +494,10 @@ impl Ctx<'_> {
             return Err(self.err(
                 &span,
                 "weighing",
-                format!("{} supports given", weighing.len()),
+                match weighing.len() {
+                    1 => "1 support given".to_string(),
+                    n => format!("{n} supports given"),
+                },
                 Some("2 or 3 [[weighing]] supports".into()),
             ));
         }
