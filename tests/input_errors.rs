@@ -463,3 +463,72 @@ fn one_weighing_support_is_singular() {
     );
     assert!(!e.contains("supports given"), "{e}");
 }
+
+// --- The standard atmosphere below sea level. ---
+
+// The file keeps a negative altitude, and the density there is the ISA one. Reference value
+// by integrating the hydrostatic equation dp/dh = -p g0 / (R T(h)), T = 288.15 K - 6.5 K/km h,
+// from sea level (101 325 Pa) down to -400 m with Runge-Kutta steps: independent of the closed
+// form the code uses. It gives 1.27274 kg/m^3 (and more than the 1.225 at sea level).
+#[test]
+fn altitude_below_sea_level_is_not_treated_as_zero() {
+    let text = edit("[wing]", "[air]\naltitude = -400\n[wing]");
+    let a = parse_aircraft(&text, "low.toml", None).unwrap();
+    let state = trimline::atmosphere::air_state(&a.air);
+
+    let (r, g0, lapse, t0) = (287.052_87, 9.806_65, 0.0065, 288.15);
+    let dpdh = |h: f64, p: f64| -p * g0 / (r * (t0 - lapse * h));
+    let (mut h, mut p) = (0.0, 101_325.0);
+    let n = 400;
+    let dh = -400.0 / n as f64;
+    for _ in 0..n {
+        let k1 = dpdh(h, p);
+        let k2 = dpdh(h + dh / 2.0, p + dh / 2.0 * k1);
+        let k3 = dpdh(h + dh / 2.0, p + dh / 2.0 * k2);
+        let k4 = dpdh(h + dh, p + dh * k3);
+        p += dh / 6.0 * (k1 + 2.0 * k2 + 2.0 * k3 + k4);
+        h += dh;
+    }
+    let rho = p / (r * (t0 - lapse * h));
+    assert!((rho - 1.27274).abs() < 1e-4, "reference {rho}");
+    assert!(
+        (state.density_kg_m3 - rho).abs() < 1e-6,
+        "density at -400 m: {} (ISA {rho})",
+        state.density_kg_m3
+    );
+    // Below the accepted range it is an error, not a silent clamp.
+    let e = error_of(&edit("[wing]", "[air]\naltitude = -600\n[wing]"));
+    check(&e, "bad.toml:5:12: air.altitude:", &["-500 m to 11000 m"]);
+}
+
+// --- The documentation states the ranges the code applies. ---
+
+#[test]
+fn chord_range_starts_at_5_mm_as_documented() {
+    let e = error_of(&edit("root_chord = 200", "root_chord = 0.21"));
+    check(
+        &e,
+        "bad.toml:5:14: wing.root_chord:",
+        &["out of range", "5 mm to 10000 mm"],
+    );
+    let e = error_of(&edit("root_chord = 200", "root_chord = 4.9"));
+    check(&e, "bad.toml:5:14: wing.root_chord:", &["out of range"]);
+    parse_aircraft(&edit("root_chord = 200", "root_chord = 5"), "ok.toml", None).unwrap();
+
+    let doc = std::fs::read_to_string(
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("aircraft/README.md"),
+    )
+    .unwrap();
+    let row = |key: &str| {
+        doc.lines()
+            .find(|l| l.starts_with(&format!("| `{key}` |")))
+            .unwrap_or_else(|| panic!("no row for {key}"))
+            .to_string()
+    };
+    assert!(row("wing.root_chord").ends_with("| 5 to 10 000 mm |"));
+    assert!(row("wing.panel[].root_chord").ends_with("| 5 to 10 000 mm |"));
+    assert!(row("wing.panel[].span").ends_with("| 5 to 30 000 mm |"));
+    assert!(row("air.altitude").ends_with("| −500 to 11 000 m |"));
+    assert!(!doc.contains("is *not* caught"));
+    assert!(!doc.contains("treated as 0"));
+}
