@@ -1,7 +1,7 @@
 //! Reading input files: the aircraft file (TOML), airfoil coordinate files, units.
 //!
 //! This is the only module that knows TOML and the file format. It reads in two stages: a raw
-//! mirror of the file ([`raw`], serde, unknown keys refused), then validation into
+//! mirror of the file (`raw`, serde, unknown keys refused), then validation into
 //! [`crate::model`] types ([`aircraft_file`]), with every error naming file, line, column, key
 //! and accepted range.
 

@@ -428,7 +428,7 @@ impl<M: CircleMap> CircleAirfoil<M> {
     }
 
     /// Greatest thickness and camber (fractions of chord), measured normal to the chord line
-    /// on [`SHAPE_SAMPLES`] surface points.
+    /// on 2000 sampled surface points.
     pub fn shape_ratios(&self) -> (f64, f64) {
         let pts = self.coordinates(SHAPE_SAMPLES);
         let le = pts
