@@ -1,4 +1,7 @@
-//! International Standard Atmosphere, troposphere (0 to 11 km geopotential altitude).
+//! International Standard Atmosphere, troposphere (500 m below sea level to 11 km geopotential
+//! altitude). The troposphere law holds below sea level unchanged: the 1976 standard defines
+//! its first layer from -5 km (geometric) upwards, so a negative altitude is computed, not
+//! clamped to 0 (-400 m gives 1.2727 kg/m^3).
 //!
 //! Temperature falls linearly at 6.5 K/km from 288.15 K; pressure follows the hydrostatic law
 //! for that lapse rate; density from the ideal-gas law. A temperature offset shifts the

@@ -138,13 +138,20 @@ const INCIDENCE_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const MASS_G: Bounds = Bounds::closed(0.0, 1_000_000.0);
 const BALLAST_MAX_G: Bounds = Bounds::positive(1_000_000.0);
 const CL_MAX: Bounds = Bounds::closed(0.3, 3.0);
+// Joukowski and Karman-Trefftz sections: what the circle-map shape solution accepts (less than
+// 40 % and 15 %), and no thinner than it is checked for (0.1 %; thinner is a sheet).
 const THICKNESS_PCT: Bounds = Bounds {
-    min: 0.0,
-    min_inclusive: false,
-    max: 40.0,
-    max_inclusive: true,
+    min: 100.0 * crate::section::circle_map::MIN_RELIABLE_THICKNESS_RATIO,
+    min_inclusive: true,
+    max: 100.0 * crate::section::circle_map::MAX_THICKNESS_RATIO,
+    max_inclusive: false,
 };
-const CAMBER_PCT: Bounds = Bounds::closed(0.0, 15.0);
+const CAMBER_PCT: Bounds = Bounds {
+    min: 0.0,
+    min_inclusive: true,
+    max: 100.0 * crate::section::circle_map::MAX_CAMBER_RATIO,
+    max_inclusive: false,
+};
 const TE_ANGLE_DEG: Bounds = Bounds::closed(0.0, 30.0);
 const ELEVATOR_PCT: Bounds = Bounds {
     min: 0.0,
@@ -169,16 +176,7 @@ const FUSELAGE_MM: Bounds = Bounds::positive(30_000.0);
 
 impl Ctx<'_> {
     fn location(&self, span: &Range<usize>) -> Location {
-        let offset = span.start.min(self.text.len());
-        let before = &self.text[..offset];
-        let line = before.matches('\n').count() + 1;
-        let line_start = before.rfind('\n').map(|i| i + 1).unwrap_or(0);
-        let column = self.text[line_start..offset].chars().count() + 1;
-        Location {
-            file: self.file.to_string(),
-            line,
-            column,
-        }
+        super::toml_error::location(self.text, self.file, span.start)
     }
 
     fn whole_file(&self) -> Location {
@@ -190,43 +188,7 @@ impl Ctx<'_> {
     }
 
     fn toml_error(&self, e: &toml::de::Error) -> InputError {
-        let location = match e.span() {
-            Some(span) => self.location(&span),
-            None => self.whole_file(),
-        };
-        let message = e.message().trim().to_string();
-        // Name the offending key where toml quotes it (`unknown field `spna``).
-        let names_a_field =
-            message.starts_with("unknown field") || message.starts_with("missing field");
-        let field = if names_a_field {
-            let key = message.split('`').nth(1).unwrap_or("syntax");
-            match e.span().and_then(|span| self.enclosing_table(span.start)) {
-                Some(table) if message.starts_with("unknown field") => format!("{table}.{key}"),
-                _ => key.to_string(),
-            }
-        } else {
-            "syntax".to_string()
-        };
-
-        let accepted = message.find("expected").map(|i| message[i..].to_string());
-        let problem = match message.find(", expected") {
-            Some(i) => message[..i].to_string(),
-            None => message.clone(),
-        };
-        InputError::new(location, field, problem, accepted)
-    }
-
-    /// The name of the `[table]` or `[[array]]` header above byte `offset`, if any.
-    fn enclosing_table(&self, offset: usize) -> Option<String> {
-        let before = &self.text[..offset.min(self.text.len())];
-        before.lines().rev().find_map(|line| {
-            let t = line.trim();
-            let inner = t
-                .strip_prefix("[[")
-                .and_then(|r| r.split("]]").next())
-                .or_else(|| t.strip_prefix('[').and_then(|r| r.split(']').next()))?;
-            Some(inner.trim().to_string())
-        })
+        super::toml_error::translate(self.text, self.file, e)
     }
 
     fn err(
@@ -240,6 +202,79 @@ impl Ctx<'_> {
         InputError::new(self.location(span), field, problem, accepted)
     }
 
+    /// A required quantity of the table at `table_span` (path `table`), or an error there naming
+    /// `table.key` and what it accepts.
+    fn required<'q>(
+        &self,
+        q: Option<&'q Quantity>,
+        table_span: &Range<usize>,
+        table: &str,
+        key: &str,
+        dim: Dimension,
+        bounds: Bounds,
+    ) -> Result<&'q Quantity, InputError> {
+        q.ok_or_else(|| {
+            self.err(
+                table_span,
+                &format!("{table}.{key}"),
+                format!("missing: `{key}` is required{}", in_table(table)),
+                Some(accepted_quantity(dim, bounds)),
+            )
+        })
+    }
+
+    /// A required, non-empty name of the table at `table_span` (path `table`), trimmed.
+    fn required_name(
+        &self,
+        name: Option<&Spanned<String>>,
+        table_span: &Range<usize>,
+        table: &str,
+    ) -> Result<String, InputError> {
+        let field = format!("{table}.name");
+        let accepted = || Some("any text in quotes, e.g. name = \"nose\"".to_string());
+        let Some(name) = name else {
+            return Err(self.err(
+                table_span,
+                &field,
+                format!("missing: `name` is required{}", in_table(table)),
+                accepted(),
+            ));
+        };
+        let text = name.get_ref().trim().to_string();
+        if text.is_empty() {
+            return Err(self.err(&name.span(), &field, "must not be empty", accepted()));
+        }
+        Ok(text)
+    }
+
+    /// Refuses an entry of the list `table` (`mass`, `ballast`, `setup`) whose name an earlier
+    /// entry already has, at the second name. Names are compared as read (trimmed).
+    fn unique_names<'n>(
+        &self,
+        names: impl Iterator<Item = Option<&'n Spanned<String>>>,
+        table: &str,
+        why: &str,
+    ) -> Result<(), InputError> {
+        let mut seen: Vec<(&str, usize, Range<usize>)> = Vec::new();
+        for (i, name) in names.enumerate() {
+            let Some(name) = name else { continue };
+            let text = name.get_ref().trim();
+            if let Some((_, j, first)) = seen.iter().find(|(s, _, _)| *s == text) {
+                return Err(self.err(
+                    &name.span(),
+                    &format!("{table}[{i}].name"),
+                    format!(
+                        "`{text}` is already the name of {table}[{j}] (line {}); {why}",
+                        self.location(first).line
+                    ),
+                    Some(format!("a name that no other [[{table}]] entry has")),
+                ));
+            }
+            seen.push((text, i, name.span()));
+        }
+        Ok(())
+    }
+
     /// A quantity in SI, checked against `bounds` (given in the default unit).
     fn quantity(
         &self,
@@ -249,18 +284,7 @@ impl Ctx<'_> {
         bounds: Bounds,
     ) -> Result<f64, InputError> {
         let span = q.span();
-        let accepted = || {
-            let units = if matches!(dim, Dimension::Plain) {
-                String::new()
-            } else {
-                format!(
-                    "; or a string with a unit ({}), e.g. \"{}\"",
-                    dim.accepted_units(),
-                    example_for(dim)
-                )
-            };
-            Some(format!("{}{units}", bounds.describe(dim)))
-        };
+        let accepted = || Some(accepted_quantity(dim, bounds));
         let si = match q.get_ref() {
             toml::Value::Integer(i) => super::units::from_default_unit(*i as f64, dim),
             toml::Value::Float(f) => {
@@ -308,18 +332,38 @@ impl Ctx<'_> {
     }
 
     fn aircraft(&self, raw: RawAircraft) -> Result<Aircraft, InputError> {
-        let name = raw.name.get_ref().trim().to_string();
+        let accepted_name = || Some("any text in quotes, e.g. name = \"My glider\"".into());
+        let Some(raw_name) = &raw.name else {
+            return Err(InputError::new(
+                self.whole_file(),
+                "name",
+                "missing: the aircraft needs a `name` at the top of the file, before any [table]",
+                accepted_name(),
+            ));
+        };
+        let name = raw_name.get_ref().trim().to_string();
         if name.is_empty() {
             return Err(self.err(
-                &raw.name.span(),
+                &raw_name.span(),
                 "name",
                 "must not be empty",
-                Some("any text".into()),
+                accepted_name(),
             ));
         }
         let air = self.air(raw.air.as_ref())?;
         let (airfoils, ids) = self.airfoils(&raw.airfoils)?;
-        let wing = self.wing(&raw.wing, &ids)?;
+        let Some(raw_wing) = &raw.wing else {
+            return Err(InputError::new(
+                self.whole_file(),
+                "wing",
+                "missing: there is no [wing] table",
+                Some(
+                    "a [wing] table with root_chord, airfoil and [[wing.panel]] or [wing.ellipse]"
+                        .into(),
+                ),
+            ));
+        };
+        let wing = self.wing(raw_wing, &ids)?;
         let stabiliser = match &raw.stabiliser {
             None => None,
             Some(s) => {
@@ -327,7 +371,7 @@ impl Ctx<'_> {
                 Some(self.stabiliser(span, s.get_ref(), &ids)?)
             }
         };
-        let elevons = match (&raw.wing.get_ref().elevons, &stabiliser) {
+        let elevons = match (&raw_wing.get_ref().elevons, &stabiliser) {
             (None, _) => None,
             (Some(e), Some(_)) => return Err(self.err(
                 &e.span(),
@@ -340,7 +384,7 @@ impl Ctx<'_> {
                         .into(),
                 ),
             )),
-            (Some(e), None) => Some(self.elevons(e.get_ref())?),
+            (Some(e), None) => Some(self.elevons(e)?),
         };
         let fuselage = raw
             .fuselage
@@ -359,8 +403,13 @@ impl Ctx<'_> {
             .mass
             .iter()
             .enumerate()
-            .map(|(i, m)| self.mass_item(i, m.get_ref()))
+            .map(|(i, m)| self.mass_item(i, m))
             .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw.mass.iter().map(|m| m.get_ref().name.as_ref()),
+            "mass",
+            "setups refer to mass items by name",
+        )?;
         let total: f64 = masses.iter().map(|m| m.mass_kg).sum();
         if total <= 0.0 {
             return Err(self.err(
@@ -374,8 +423,13 @@ impl Ctx<'_> {
             .ballast
             .iter()
             .enumerate()
-            .map(|(i, b)| self.ballast(i, b.get_ref()))
+            .map(|(i, b)| self.ballast(i, b))
             .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw.ballast.iter().map(|b| b.get_ref().name.as_ref()),
+            "ballast",
+            "setups refer to ballast bays by name",
+        )?;
         let targets = match &raw.targets {
             None => Targets::default(),
             Some(t) => Targets {
@@ -405,17 +459,30 @@ impl Ctx<'_> {
             .iter()
             .enumerate()
             .map(|(i, s)| {
+                let path = format!("weighing[{i}]");
+                let span = s.span();
                 let s = s.get_ref();
+                let x = self.required(
+                    s.x.as_ref(),
+                    &span,
+                    &path,
+                    "x",
+                    Dimension::Length,
+                    POSITION_MM,
+                )?;
+                let reading = self.required(
+                    s.reading.as_ref(),
+                    &span,
+                    &path,
+                    "reading",
+                    Dimension::Mass,
+                    MASS_G,
+                )?;
                 Ok(WeighingSupport {
-                    x_m: self.quantity(
-                        &s.x,
-                        &format!("weighing[{i}].x"),
-                        Dimension::Length,
-                        POSITION_MM,
-                    )?,
+                    x_m: self.quantity(x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
                     reading_kg: self.quantity(
-                        &s.reading,
-                        &format!("weighing[{i}].reading"),
+                        reading,
+                        &format!("{path}.reading"),
                         Dimension::Mass,
                         MASS_G,
                     )?,
@@ -427,7 +494,10 @@ impl Ctx<'_> {
             return Err(self.err(
                 &span,
                 "weighing",
-                format!("{} supports given", weighing.len()),
+                match weighing.len() {
+                    1 => "1 support given".to_string(),
+                    n => format!("{n} supports given"),
+                },
                 Some("2 or 3 [[weighing]] supports".into()),
             ));
         }
@@ -446,6 +516,11 @@ impl Ctx<'_> {
             .enumerate()
             .map(|(i, s)| self.setup(i, s, &masses, &ballast_bays, &ids, stabiliser.is_some()))
             .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw.setup.iter().map(|s| s.get_ref().name.as_ref()),
+            "setup",
+            "`--setup NAME` could not choose the second one",
+        )?;
         Ok(Aircraft {
             name,
             notes: raw.notes.unwrap_or_default(),
@@ -572,11 +647,20 @@ impl Ctx<'_> {
                 })?;
                 AirfoilShape::Naca(designation)
             } else if let Some(j) = &a.joukowski {
+                let table_span = j.span();
                 let j = j.get_ref();
+                let path = format!("{field}.joukowski");
                 AirfoilShape::Joukowski {
                     thickness_ratio: self.quantity(
-                        &j.thickness,
-                        &format!("{field}.joukowski.thickness"),
+                        self.required(
+                            j.thickness.as_ref(),
+                            &table_span,
+                            &path,
+                            "thickness",
+                            Dimension::Percent,
+                            THICKNESS_PCT,
+                        )?,
+                        &format!("{path}.thickness"),
                         Dimension::Percent,
                         THICKNESS_PCT,
                     )?,
@@ -590,29 +674,7 @@ impl Ctx<'_> {
                         .unwrap_or(0.0),
                 }
             } else if let Some(k) = &a.karman_trefftz {
-                let k = k.get_ref();
-                AirfoilShape::KarmanTrefftz {
-                    thickness_ratio: self.quantity(
-                        &k.thickness,
-                        &format!("{field}.karman_trefftz.thickness"),
-                        Dimension::Percent,
-                        THICKNESS_PCT,
-                    )?,
-                    camber_ratio: self
-                        .opt_quantity(
-                            k.camber.as_ref(),
-                            &format!("{field}.karman_trefftz.camber"),
-                            Dimension::Percent,
-                            CAMBER_PCT,
-                        )?
-                        .unwrap_or(0.0),
-                    trailing_edge_angle_rad: self.quantity(
-                        &k.trailing_edge_angle,
-                        &format!("{field}.karman_trefftz.trailing_edge_angle"),
-                        Dimension::Angle,
-                        TE_ANGLE_DEG,
-                    )?,
-                }
+                self.karman_trefftz(k, &format!("{field}.karman_trefftz"))?
             } else if let Some(c) = &a.coordinates {
                 self.coordinates_shape(c, &format!("{field}.coordinates"))?
             } else {
@@ -662,6 +724,81 @@ impl Ctx<'_> {
             });
         }
         Ok((list, ids))
+    }
+
+    /// `karman_trefftz = { thickness, camber, trailing_edge_angle }`. The largest angle depends
+    /// on thickness and camber: no Karman-Trefftz section is thinner than the two circular arcs
+    /// meeting at its trailing-edge angle (see [`crate::section::karman_trefftz`]).
+    fn karman_trefftz(
+        &self,
+        k: &Spanned<raw::RawKarmanTrefftz>,
+        path: &str,
+    ) -> Result<AirfoilShape, InputError> {
+        let table_span = k.span();
+        let k = k.get_ref();
+        let thickness_ratio = self.quantity(
+            self.required(
+                k.thickness.as_ref(),
+                &table_span,
+                path,
+                "thickness",
+                Dimension::Percent,
+                THICKNESS_PCT,
+            )?,
+            &format!("{path}.thickness"),
+            Dimension::Percent,
+            THICKNESS_PCT,
+        )?;
+        let camber_ratio = self
+            .opt_quantity(
+                k.camber.as_ref(),
+                &format!("{path}.camber"),
+                Dimension::Percent,
+                CAMBER_PCT,
+            )?
+            .unwrap_or(0.0);
+        let angle_q = self.required(
+            k.trailing_edge_angle.as_ref(),
+            &table_span,
+            path,
+            "trailing_edge_angle",
+            Dimension::Angle,
+            TE_ANGLE_DEG,
+        )?;
+        let angle_field = format!("{path}.trailing_edge_angle");
+        let angle = self.quantity(angle_q, &angle_field, Dimension::Angle, TE_ANGLE_DEG)?;
+        let limit_deg = crate::section::karman_trefftz::max_trailing_edge_angle_rad(
+            thickness_ratio,
+            camber_ratio,
+        )
+        .to_degrees()
+        .min(TE_ANGLE_DEG.max);
+        // Shown to 0.1 deg, rounded down, so that every value up to the one shown is accepted.
+        let shown_deg = (limit_deg * 10.0).floor() / 10.0;
+        if angle.to_degrees() > limit_deg {
+            return Err(self.err(
+                &angle_q.span(),
+                &angle_field,
+                format!(
+                    "{} deg is too large for a section {} % thick with {} % camber: a \
+                     Karman-Trefftz section this thin cannot have so wide a trailing edge",
+                    fmt_num_short(angle.to_degrees()),
+                    fmt_num_short(100.0 * thickness_ratio),
+                    fmt_num_short(100.0 * camber_ratio)
+                ),
+                Some(format!(
+                    "0 deg to {} deg for this thickness and camber; a thicker section allows \
+                     more (about 2 deg per % of thickness), up to {} deg",
+                    fmt_num(shown_deg),
+                    fmt_num(TE_ANGLE_DEG.max)
+                )),
+            ));
+        }
+        Ok(AirfoilShape::KarmanTrefftz {
+            thickness_ratio,
+            camber_ratio,
+            trailing_edge_angle_rad: angle,
+        })
     }
 
     fn coordinates_shape(
@@ -800,14 +937,14 @@ impl Ctx<'_> {
                 INCIDENCE_DEG,
             )?
             .unwrap_or(0.0);
-        let root_chord_q = raw.root_chord.as_ref().ok_or_else(|| {
-            self.err(
-                &table_span,
-                &format!("{path}.root_chord"),
-                "missing",
-                Some(CHORD_MM.describe(Dimension::Length)),
-            )
-        })?;
+        let root_chord_q = self.required(
+            raw.root_chord.as_ref(),
+            &table_span,
+            path,
+            "root_chord",
+            Dimension::Length,
+            CHORD_MM,
+        )?;
         let root_chord = self.quantity(
             root_chord_q,
             &format!("{path}.root_chord"),
@@ -897,8 +1034,21 @@ impl Ctx<'_> {
                 TIP_CHORD_MM,
             )?
             .unwrap_or(root_chord);
+        let panel_span = self.required(
+            p.span.as_ref(),
+            &span,
+            path,
+            "span",
+            Dimension::Length,
+            SPAN_MM,
+        )?;
         Ok(Panel {
-            span_m: self.quantity(&p.span, &format!("{path}.span"), Dimension::Length, SPAN_MM)?,
+            span_m: self.quantity(
+                panel_span,
+                &format!("{path}.span"),
+                Dimension::Length,
+                SPAN_MM,
+            )?,
             root_chord_m: root_chord,
             tip_chord_m: tip_chord,
             sweep_le_rad: self
@@ -946,9 +1096,17 @@ impl Ctx<'_> {
     ) -> Result<EllipticShape, InputError> {
         let span = e.span();
         let e = e.get_ref();
+        let semispan = self.required(
+            e.span.as_ref(),
+            &span,
+            &format!("{path}.ellipse"),
+            "span",
+            Dimension::Length,
+            SPAN_MM,
+        )?;
         Ok(EllipticShape {
             semispan_m: self.quantity(
-                &e.span,
+                semispan,
                 &format!("{path}.ellipse.span"),
                 Dimension::Length,
                 SPAN_MM,
@@ -982,28 +1140,55 @@ impl Ctx<'_> {
     }
 
     /// `[wing.elevons]`.
-    fn elevons(&self, e: &raw::RawElevons) -> Result<PitchControl, InputError> {
+    fn elevons(&self, e: &Spanned<raw::RawElevons>) -> Result<PitchControl, InputError> {
+        let path = "wing.elevons";
+        let span = e.span();
+        let e = e.get_ref();
+        let chord_q = self.required(
+            e.chord.as_ref(),
+            &span,
+            path,
+            "chord",
+            Dimension::Percent,
+            ELEVON_CHORD_PCT,
+        )?;
         let chord = self.quantity(
-            &e.chord,
+            chord_q,
             "wing.elevons.chord",
             Dimension::Percent,
             ELEVON_CHORD_PCT,
         )?;
+        let inboard_q = self.required(
+            e.inboard.as_ref(),
+            &span,
+            path,
+            "inboard",
+            Dimension::Percent,
+            SEMISPAN_PCT,
+        )?;
         let inboard = self.quantity(
-            &e.inboard,
+            inboard_q,
             "wing.elevons.inboard",
             Dimension::Percent,
             SEMISPAN_PCT,
         )?;
+        let outboard_q = self.required(
+            e.outboard.as_ref(),
+            &span,
+            path,
+            "outboard",
+            Dimension::Percent,
+            SEMISPAN_PCT,
+        )?;
         let outboard = self.quantity(
-            &e.outboard,
+            outboard_q,
             "wing.elevons.outboard",
             Dimension::Percent,
             SEMISPAN_PCT,
         )?;
         if outboard <= inboard {
             return Err(self.err(
-                &e.outboard.span(),
+                &outboard_q.span(),
                 "wing.elevons.outboard",
                 format!(
                     "the outboard end ({} %) must lie outboard of the inboard end ({} %)",
@@ -1074,8 +1259,8 @@ impl Ctx<'_> {
             return Err(self.err(
                 &span,
                 "stabiliser.x",
-                "missing: where is the stabiliser's root leading edge?",
-                Some(POSITION_MM.describe(Dimension::Length)),
+                "missing: `x` is required in [stabiliser] (where is its root leading edge?)",
+                Some(accepted_quantity(Dimension::Length, POSITION_MM)),
             ));
         }
         let throw = DEFAULT_ELEVATOR_THROW_DEG.to_radians();
@@ -1121,15 +1306,7 @@ impl Ctx<'_> {
         let path = format!("setup[{i}]");
         let span = s.span();
         let s = s.get_ref();
-        let name = s.name.get_ref().trim().to_string();
-        if name.is_empty() {
-            return Err(self.err(
-                &s.name.span(),
-                &format!("{path}.name"),
-                "must not be empty",
-                Some("any text".into()),
-            ));
-        }
+        let name = self.required_name(s.name.as_ref(), &span, &path)?;
         let find_item = |key: &str, table: &str, q: &Quantity| {
             masses.iter().position(|m| m.name == key).ok_or_else(|| {
                 let names: Vec<&str> = masses.iter().map(|m| m.name.as_str()).collect();
@@ -1244,35 +1421,45 @@ impl Ctx<'_> {
         Ok(Setup { name, changes })
     }
 
-    fn fuselage(&self, f: &raw::RawFuselage) -> Result<Fuselage, InputError> {
+    fn fuselage(&self, f: &Spanned<raw::RawFuselage>) -> Result<Fuselage, InputError> {
+        let span = f.span();
+        let f = f.get_ref();
+        let get = |q: Option<&Quantity>, key: &str, bounds: Bounds| {
+            let q = self.required(q, &span, "fuselage", key, Dimension::Length, bounds)?;
+            self.quantity(q, &format!("fuselage.{key}"), Dimension::Length, bounds)
+        };
         Ok(Fuselage {
-            nose_x_m: self.quantity(
-                &f.nose_x,
-                "fuselage.nose_x",
-                Dimension::Length,
-                POSITION_MM,
-            )?,
-            length_m: self.quantity(
-                &f.length,
-                "fuselage.length",
-                Dimension::Length,
-                FUSELAGE_MM,
-            )?,
-            max_width_m: self.quantity(
-                &f.width,
-                "fuselage.width",
-                Dimension::Length,
-                FUSELAGE_MM,
-            )?,
+            nose_x_m: get(f.nose_x.as_ref(), "nose_x", POSITION_MM)?,
+            length_m: get(f.length.as_ref(), "length", FUSELAGE_MM)?,
+            max_width_m: get(f.width.as_ref(), "width", FUSELAGE_MM)?,
         })
     }
 
-    fn mass_item(&self, i: usize, m: &raw::RawMass) -> Result<MassItem, InputError> {
+    fn mass_item(&self, i: usize, m: &Spanned<raw::RawMass>) -> Result<MassItem, InputError> {
         let path = format!("mass[{i}]");
+        let span = m.span();
+        let m = m.get_ref();
+        let name = self.required_name(m.name.as_ref(), &span, &path)?;
+        let mass = self.required(
+            m.mass.as_ref(),
+            &span,
+            &path,
+            "mass",
+            Dimension::Mass,
+            MASS_G,
+        )?;
+        let x = self.required(
+            m.x.as_ref(),
+            &span,
+            &path,
+            "x",
+            Dimension::Length,
+            POSITION_MM,
+        )?;
         Ok(MassItem {
-            name: m.name.get_ref().trim().to_string(),
-            mass_kg: self.quantity(&m.mass, &format!("{path}.mass"), Dimension::Mass, MASS_G)?,
-            x_m: self.quantity(&m.x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
+            name,
+            mass_kg: self.quantity(mass, &format!("{path}.mass"), Dimension::Mass, MASS_G)?,
+            x_m: self.quantity(x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
             z_m: self.opt_quantity(
                 m.z.as_ref(),
                 &format!("{path}.z"),
@@ -1282,11 +1469,30 @@ impl Ctx<'_> {
         })
     }
 
-    fn ballast(&self, i: usize, b: &raw::RawBallast) -> Result<BallastBay, InputError> {
+    fn ballast(&self, i: usize, b: &Spanned<raw::RawBallast>) -> Result<BallastBay, InputError> {
         let path = format!("ballast[{i}]");
+        let span = b.span();
+        let b = b.get_ref();
+        let name = self.required_name(b.name.as_ref(), &span, &path)?;
+        let x = self.required(
+            b.x.as_ref(),
+            &span,
+            &path,
+            "x",
+            Dimension::Length,
+            POSITION_MM,
+        )?;
+        let max = self.required(
+            b.max.as_ref(),
+            &span,
+            &path,
+            "max",
+            Dimension::Mass,
+            BALLAST_MAX_G,
+        )?;
         Ok(BallastBay {
-            name: b.name.get_ref().trim().to_string(),
-            x_m: self.quantity(&b.x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
+            name,
+            x_m: self.quantity(x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
             z_m: self.opt_quantity(
                 b.z.as_ref(),
                 &format!("{path}.z"),
@@ -1294,7 +1500,7 @@ impl Ctx<'_> {
                 POSITION_MM,
             )?,
             max_mass_kg: self.quantity(
-                &b.max,
+                max,
                 &format!("{path}.max"),
                 Dimension::Mass,
                 BALLAST_MAX_G,
@@ -1374,6 +1580,34 @@ impl Ctx<'_> {
             ));
         }
         Ok(out)
+    }
+}
+
+/// What a quantity accepts: its range in the default unit, and the units a string may carry.
+fn accepted_quantity(dim: Dimension, bounds: Bounds) -> String {
+    let units = if matches!(dim, Dimension::Plain) {
+        " (a bare number)".to_string()
+    } else {
+        format!(
+            "; or a string with a unit ({}), e.g. \"{}\"",
+            dim.accepted_units(),
+            example_for(dim)
+        )
+    };
+    format!("{}{units}", bounds.describe(dim))
+}
+
+/// " in every [[mass]] entry", " in [fuselage]", " in the karman_trefftz table" for a missing
+/// key's message, from its table's path (`mass[2]`, `fuselage`, `airfoils.a.karman_trefftz`).
+fn in_table(table: &str) -> String {
+    match table.rsplit_once('[') {
+        Some((array, _)) => format!(" in every [[{array}]] entry"),
+        None => match table.rsplit_once('.') {
+            Some((_, last)) if matches!(last, "joukowski" | "karman_trefftz") => {
+                format!(" in `{last} = {{ ... }}`")
+            }
+            _ => format!(" in [{table}]"),
+        },
     }
 }
 

@@ -1,5 +1,8 @@
 //! First stage of reading an aircraft file: a mirror of the TOML text, with every value's
 //! position kept so that validation errors can point at it. Unknown keys are refused here.
+//!
+//! Required keys are `Option`s all the same: validation reports a missing one at its table,
+//! with the full key path and the accepted range, which serde's own "missing field" cannot.
 
 use serde::Deserialize;
 use std::collections::BTreeMap;
@@ -12,7 +15,7 @@ pub type Quantity = Spanned<toml::Value>;
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawAircraft {
-    pub name: Spanned<String>,
+    pub name: Option<Spanned<String>>,
     #[serde(default)]
     pub notes: Option<String>,
     #[serde(default)]
@@ -21,11 +24,11 @@ pub struct RawAircraft {
     pub air: Option<RawAir>,
     #[serde(default)]
     pub airfoils: BTreeMap<String, Spanned<RawAirfoil>>,
-    pub wing: Spanned<RawSurface>,
+    pub wing: Option<Spanned<RawSurface>>,
     #[serde(default)]
     pub stabiliser: Option<Spanned<RawSurface>>,
     #[serde(default)]
-    pub fuselage: Option<RawFuselage>,
+    pub fuselage: Option<Spanned<RawFuselage>>,
     #[serde(default)]
     pub mass: Vec<Spanned<RawMass>>,
     #[serde(default)]
@@ -44,8 +47,8 @@ pub struct RawAircraft {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawSupport {
-    pub x: Quantity,
-    pub reading: Quantity,
+    pub x: Option<Quantity>,
+    pub reading: Option<Quantity>,
 }
 
 /// `[air]`
@@ -73,7 +76,7 @@ pub struct RawAirfoil {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawJoukowski {
-    pub thickness: Quantity,
+    pub thickness: Option<Quantity>,
     #[serde(default)]
     pub camber: Option<Quantity>,
 }
@@ -82,10 +85,10 @@ pub struct RawJoukowski {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawKarmanTrefftz {
-    pub thickness: Quantity,
+    pub thickness: Option<Quantity>,
     #[serde(default)]
     pub camber: Option<Quantity>,
-    pub trailing_edge_angle: Quantity,
+    pub trailing_edge_angle: Option<Quantity>,
 }
 
 /// `[wing]` and `[stabiliser]`. `role` and the `elevator_*` keys belong to the stabiliser
@@ -112,9 +115,9 @@ pub struct RawSurface {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawElevons {
-    pub chord: Quantity,
-    pub inboard: Quantity,
-    pub outboard: Quantity,
+    pub chord: Option<Quantity>,
+    pub inboard: Option<Quantity>,
+    pub outboard: Option<Quantity>,
     pub up: Option<Quantity>,
     pub down: Option<Quantity>,
 }
@@ -123,7 +126,7 @@ pub struct RawElevons {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawPanel {
-    pub span: Quantity,
+    pub span: Option<Quantity>,
     pub root_chord: Option<Quantity>,
     pub tip_chord: Option<Quantity>,
     pub sweep: Option<Quantity>,
@@ -136,7 +139,7 @@ pub struct RawPanel {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawEllipse {
-    pub span: Quantity,
+    pub span: Option<Quantity>,
     pub dihedral: Option<Quantity>,
     pub twist: Option<Quantity>,
     pub tip_airfoil: Option<Spanned<String>>,
@@ -146,18 +149,18 @@ pub struct RawEllipse {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawFuselage {
-    pub nose_x: Quantity,
-    pub length: Quantity,
-    pub width: Quantity,
+    pub nose_x: Option<Quantity>,
+    pub length: Option<Quantity>,
+    pub width: Option<Quantity>,
 }
 
 /// `[[mass]]`
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawMass {
-    pub name: Spanned<String>,
-    pub mass: Quantity,
-    pub x: Quantity,
+    pub name: Option<Spanned<String>>,
+    pub mass: Option<Quantity>,
+    pub x: Option<Quantity>,
     pub z: Option<Quantity>,
 }
 
@@ -165,10 +168,10 @@ pub struct RawMass {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawBallast {
-    pub name: Spanned<String>,
-    pub x: Quantity,
+    pub name: Option<Spanned<String>>,
+    pub x: Option<Quantity>,
     pub z: Option<Quantity>,
-    pub max: Quantity,
+    pub max: Option<Quantity>,
 }
 
 /// `[targets]`
@@ -192,7 +195,7 @@ pub struct RawLimits {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RawSetup {
-    pub name: Spanned<String>,
+    pub name: Option<Spanned<String>>,
     /// Ballast bay name -> mass added there.
     #[serde(default)]
     pub ballast: BTreeMap<String, Quantity>,

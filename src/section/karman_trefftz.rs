@@ -24,6 +24,35 @@ use std::f64::consts::PI;
 /// like wing sections).
 pub const MAX_TRAILING_EDGE_ANGLE_RAD: f64 = 1.0;
 
+/// Share of the two-arc angle ([`two_arc_angle_rad`]) accepted as trailing-edge angle. Close to
+/// the two-arc section the leading edge becomes sharp (its radius tends to zero) and the circle
+/// passes next to the map's second singular point; keeping a tenth away leaves a rounded
+/// leading edge and a well-conditioned shape solution.
+pub const TWO_ARC_ANGLE_SHARE: f64 = 0.9;
+
+/// Included trailing-edge angle of the thinnest Karman-Trefftz section of a given thickness and
+/// camber (fractions of chord), rad: `2 [atan(t + 2 f) - atan(2 f - t)]`.
+///
+/// When the circle passes through both singular points (`mu_x -> 0`), the argument of
+/// `(zeta - 1) / (zeta + 1)` is constant along each of its two arcs (inscribed angle), the power
+/// `n` keeps it so, and `w -> n (1 + w) / (1 - w)` takes those two rays to two circular arcs
+/// through `z = -n` and `z = n` that meet at both ends at the trailing-edge angle. Two circular
+/// arcs on a chord c that leave it at angles `d1 > d2` rise `(c / 2) tan(d / 2)` at mid-chord,
+/// so `t = (tan(d1 / 2) - tan(d2 / 2)) / 2`, `f = (tan(d1 / 2) + tan(d2 / 2)) / 4` and the angle
+/// `d1 - d2` is the formula above. Moving the circle off `zeta = -1` only thickens the section,
+/// so a larger angle than this has no Karman-Trefftz section of that thickness and camber.
+pub fn two_arc_angle_rad(thickness_ratio: f64, camber_ratio: f64) -> f64 {
+    2.0 * ((thickness_ratio + 2.0 * camber_ratio).atan()
+        - (2.0 * camber_ratio - thickness_ratio).atan())
+}
+
+/// Largest trailing-edge angle accepted for a thickness and camber (fractions of chord), rad:
+/// [`TWO_ARC_ANGLE_SHARE`] of [`two_arc_angle_rad`] (and below [`MAX_TRAILING_EDGE_ANGLE_RAD`]
+/// in any case). About 2 deg per percent of thickness for thin sections.
+pub fn max_trailing_edge_angle_rad(thickness_ratio: f64, camber_ratio: f64) -> f64 {
+    TWO_ARC_ANGLE_SHARE * two_arc_angle_rad(thickness_ratio, camber_ratio)
+}
+
 /// The Karman-Trefftz map with b = 1 and exponent n = 2 - tau / pi.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct KarmanTrefftzMap {
@@ -92,13 +121,25 @@ impl CircleAirfoil<KarmanTrefftzMap> {
     }
 
     /// The airfoil with the given greatest thickness and camber (fractions of chord) and
-    /// trailing-edge angle, found by solving for the circle centre.
+    /// trailing-edge angle, found by solving for the circle centre. The angle must not exceed
+    /// [`max_trailing_edge_angle_rad`] for that thickness and camber.
     pub fn from_shape(
         thickness_ratio: f64,
         camber_ratio: f64,
         tau_rad: f64,
     ) -> Result<Self, CircleMapError> {
         let map = KarmanTrefftzMap::new(tau_rad)?;
+        let max_rad = max_trailing_edge_angle_rad(thickness_ratio, camber_ratio);
+        // Thickness and camber out of range are reported by the shape solution below.
+        if max_rad.is_finite() && thickness_ratio > 0.0 && camber_ratio >= 0.0 && tau_rad > max_rad
+        {
+            return Err(CircleMapError::TrailingEdgeAngleForShape {
+                angle_rad: tau_rad,
+                thickness_ratio,
+                camber_ratio,
+                max_rad,
+            });
+        }
         CircleAirfoil::with_shape(move || map, thickness_ratio, camber_ratio)
     }
 }
@@ -144,6 +185,37 @@ mod tests {
         let zeta = C64::new(600.0, 800.0);
         let k = ((kt.z(zeta) - zeta) * zeta).re;
         assert_relative_eq!(k, kt.far_field_k(), epsilon = 1e-5);
+    }
+
+    // The two-arc limit, checked against the map itself: a circle through both singular points
+    // (mu_x -> 0) gives a section whose measured thickness and camber put `two_arc_angle_rad`
+    // at the map's trailing-edge angle. Tolerance 1e-4 rad: the circle is 1e-7 off zeta = -1
+    // and the shape is measured on sampled points.
+    #[test]
+    fn two_arc_angle_matches_the_map_at_its_limit() {
+        for (mu_y, tau_deg) in [(0.0, 10.0), (0.0, 25.0), (0.1, 15.0), (0.25, 30.0)] {
+            let tau = f64::to_radians(tau_deg);
+            let a = KarmanTrefftzAirfoil::from_circle(-1e-7, mu_y, tau).unwrap();
+            let (t, f) = a.shape_ratios();
+            assert_relative_eq!(two_arc_angle_rad(t, f), tau, epsilon = 1e-4);
+        }
+    }
+
+    // Up to the accepted share of the limit the shape is found; past it the angle is refused,
+    // with the limit in the error, rather than failing to converge.
+    #[test]
+    fn shape_solution_reaches_the_accepted_limit() {
+        for (t, f) in [(0.001, 0.0), (0.05, 0.1499), (0.1, 0.02), (0.12, 0.0)] {
+            let max = max_trailing_edge_angle_rad(t, f);
+            let a = KarmanTrefftzAirfoil::from_shape(t, f, max).unwrap();
+            let (tm, fm) = a.shape_ratios();
+            assert_relative_eq!(tm, t, epsilon = 1e-6 * t);
+            assert_relative_eq!(fm, f, epsilon = 1e-6 * t.max(f));
+            assert!(matches!(
+                KarmanTrefftzAirfoil::from_shape(t, f, max * 1.001),
+                Err(CircleMapError::TrailingEdgeAngleForShape { .. })
+            ));
+        }
     }
 
     #[test]
