@@ -539,3 +539,32 @@ fn trim_cl_times_static_margin_is_fixed_so_forward_cg_trims_faster() {
         ta.speed_m_s
     );
 }
+
+// Forward limit from elevon authority on a tailless wing: with the CG at that limit, full up
+// elevon just holds the trimmed stall (definition of the limit, as for an elevator;
+// tolerance 0.05 deg of elevon).
+#[test]
+fn elevon_forward_limit_is_where_full_up_holds_the_stall() {
+    let text = wing_with_elevons(20.0, 30.0, 95.0)
+        .replace("twist = 0", "twist = -4")
+        .replace("up = 15", "up = 4");
+    let ac = load(&text);
+    let a = analyse(&ac, &opts()).unwrap();
+    let f = a.full.as_ref().unwrap();
+    let x = f
+        .elevator_forward_limit_x_m
+        .expect("small elevon throw limits the forward CG");
+    assert!(x < f.neutral_point_x_m);
+    let mut at = ac.clone();
+    at.masses[0].x_m = x;
+    let b = analyse(&at, &opts()).unwrap();
+    let stall = b.full.as_ref().unwrap().stall.as_ref().unwrap();
+    assert!(stall.trimmed);
+    let full_up = -ac.elevons.unwrap().max_up_rad;
+    assert!(
+        (stall.elevator_rad - full_up).abs() < 0.05f64.to_radians(),
+        "{} vs {}",
+        stall.elevator_rad.to_degrees(),
+        full_up.to_degrees()
+    );
+}
