@@ -816,8 +816,11 @@ pub struct KeyFigures {
     pub static_margin: f64,
     /// Recommended CG band, m aft of the datum.
     pub band: CgBand,
-    /// Decalage (wing incidence minus stabiliser incidence), rad, when there is a stabiliser.
+    /// Decalage (front surface minus rear), rad, when there is a stabiliser.
     pub decalage_rad: Option<f64>,
+    /// Elevon deflection that trims a tailless wing at its design CL, rad (trailing edge down
+    /// positive), when it has elevons and one does.
+    pub elevon_trim_rad: Option<f64>,
     /// Trim CL, when trimmed.
     pub trim_cl: Option<f64>,
     /// Trim speed, m/s, when trimmed.
@@ -852,6 +855,11 @@ impl KeyFigures {
             static_margin: h.static_margin,
             band: a.band,
             decalage_rad: aircraft.decalage_rad(),
+            elevon_trim_rad: a
+                .full
+                .as_ref()
+                .and_then(|f| f.tailless)
+                .and_then(|t| t.elevon_to_trim_rad),
             trim_cl: h.trim.map(|t| t.cl),
             trim_speed_m_s: h.trim.map(|t| t.speed_m_s),
             stall_speed_m_s: h.stall_speed_m_s,

@@ -110,7 +110,9 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
     } else {
         let figures: Vec<KeyFigures> = columns.into_iter().map(|c| c.0).collect();
         super::emit(&format!(
-            "{}\nValues in brackets are differences from the first column; (=) means no change.\n",
+            "{}\nValues in brackets are differences from the first column; (=) means no change; \
+             n/a: the figure does not exist there (no stabiliser, no elevons, no trim, or no \
+             ballast bay that reaches the target).\n",
             trimline::output::compare::compare_table(&figures)
         ))?;
     }

@@ -87,6 +87,12 @@ const ROWS: &[Row] = &[
         value: |k| k.decalage_rad.map(f64::to_degrees),
     },
     Row {
+        label: "elevons to trim deg",
+        decimals: 1,
+        json: JsonNumber::Decimals(2),
+        value: |k| k.elevon_trim_rad.map(f64::to_degrees),
+    },
+    Row {
         label: "trim CL",
         decimals: 3,
         json: JsonNumber::Decimals(4),
@@ -129,6 +135,8 @@ const ROWS: &[Row] = &[
 /// unchanged, and "n/a" where a value does not exist.
 pub fn compare_cells(columns: &[KeyFigures]) -> Vec<(&'static str, Vec<String>)> {
     ROWS.iter()
+        // A figure that no configuration has (elevons on aircraft with a tail) is left out.
+        .filter(|row| columns.iter().any(|k| (row.value)(k).is_some()))
         .map(|row| {
             let base = columns.first().and_then(|k| (row.value)(k));
             let cells = columns
@@ -348,5 +356,29 @@ mod tests {
             .find(|(label, _)| *label == "neutral point mm from datum")
             .unwrap();
         assert_eq!(np.1[1], "102.2 (=)");
+    }
+
+    // A row no configuration has is left out of the table (elevons on tailed aircraft); it
+    // appears, with "n/a" where missing, as soon as one configuration has it.
+    #[test]
+    fn rows_no_configuration_has_are_left_out() {
+        let figures = |text: &str, name: &str| {
+            let aircraft = crate::input::parse_aircraft(text, name, None).unwrap();
+            let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+            KeyFigures::of(&aircraft, &a)
+        };
+        let tail = figures(include_str!("../../aircraft/larkspire-2000.toml"), "l.toml");
+        let wing = figures(include_str!("../../aircraft/skerrywing-900.toml"), "s.toml");
+        let has = |cells: &[(&str, Vec<String>)], label: &str| cells.iter().any(|c| c.0 == label);
+        let only_tail = compare_cells(&[tail.clone(), tail.clone()]);
+        assert!(!has(&only_tail, "elevons to trim deg"));
+        assert!(has(&only_tail, "decalage deg"));
+        let mixed = compare_cells(&[tail, wing]);
+        let row = mixed
+            .iter()
+            .find(|c| c.0 == "elevons to trim deg")
+            .expect("the flying wing has elevons");
+        assert_eq!(row.1[0], "n/a");
+        assert_ne!(row.1[1], "n/a");
     }
 }
