@@ -275,9 +275,13 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         Some(x) if x > margin_forward_x_m => (x, ForwardLimit::ElevatorAuthority),
         _ => (margin_forward_x_m, ForwardLimit::StaticMargin),
     };
+    let aft_x_m = np - aircraft.margin_limits.min_static_margin * mac;
+    // A control too weak to hold the stall even at the aft limit leaves no usable range: the
+    // band closes on its aft end and a danger says so (`cg-band-empty`).
+    let band_empty = forward_x_m > aft_x_m;
     let band = CgBand {
-        forward_x_m,
-        aft_x_m: np - aircraft.margin_limits.min_static_margin * mac,
+        forward_x_m: forward_x_m.min(aft_x_m),
+        aft_x_m,
         forward_limit,
     };
     let ballast = match aircraft.targets.static_margin {
@@ -335,7 +339,33 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         .as_ref()
         .map(|s| planform::tail_volume(&wing.geometry, &s.geometry));
 
-    balance_cautions(aircraft, &mass, &headline, &band, mac, &mut cautions);
+    if band_empty {
+        let control = aircraft.pitch_control_name();
+        cautions.push(Caution::new(
+            Level::Danger,
+            "cg-band-empty",
+            format!(
+                "Full up {control} cannot hold the wing at its stall even with the CG at the aft end \
+                 of the recommended range ({:.0} mm from the datum, static margin {:.0} %): there is no \
+                                  usable CG range. Give the {control} more throw or more chord before flying.",
+                aft_x_m * 1000.0,
+                100.0 * aircraft.margin_limits.min_static_margin
+            ),
+        ));
+    }
+    let elevons_trim_it = full
+        .as_ref()
+        .and_then(|f| f.tailless)
+        .is_some_and(|t| t.elevon_to_trim_rad.is_some() && t.elevon_within_throws);
+    balance_cautions(
+        aircraft,
+        &mass,
+        &headline,
+        &band,
+        mac,
+        elevons_trim_it,
+        &mut cautions,
+    );
     if let Some(f) = &full {
         full_model_cautions(
             aircraft,
@@ -476,6 +506,7 @@ fn balance_cautions(
     h: &Headline,
     band: &CgBand,
     mac_m: f64,
+    elevons_trim_it: bool,
     cautions: &mut Vec<Caution>,
 ) {
     let mac_mm = mac_m * 1000.0;
@@ -521,7 +552,10 @@ fn balance_cautions(
                  model cannot be flared or slowed properly"
             ),
             ForwardLimit::StaticMargin => {
-                format!("the aircraft will be nose-heavy, need more up {control} and fly faster")
+                format!(
+                    "the aircraft will be nose-heavy, need more {} and fly faster",
+                    nose_up_control(aircraft)
+                )
             }
         };
         cautions.push(Caution::new(
@@ -537,12 +571,19 @@ fn balance_cautions(
     }
     // With the incidences fixed, a CG further forward trims at a lower CL (faster): CL_trim =
     // Cm0 about the neutral point / static margin (Etkin & Reid, sec. 2.3).
-    let faster = if aircraft.stabiliser.is_some() {
-        "Reduce the decalage (stabiliser incidence closer to the wing's) or move the CG forward \
-         within the recommended band: nose weight makes it trim faster."
+    let rigging = if aircraft.stabiliser.is_some() {
+        "Reduce the decalage (stabiliser incidence closer to the wing's)"
     } else {
-        "Reduce the washout or reflex, or move the CG forward within the recommended band: nose \
-         weight makes it trim faster."
+        "Reduce the washout or reflex"
+    };
+    // Moving the CG forward is offered only where the band leaves room for it.
+    let faster = if mass.cg_x_m > band.forward_x_m + 5e-4 {
+        format!(
+            "{rigging}, or move the CG forward within the recommended band: nose weight makes it \
+             trim faster."
+        )
+    } else {
+        format!("{rigging}: the CG is already at or ahead of the recommended band.")
     };
     if let Some(t) = h.trim {
         if t.cl > h.cl_max {
@@ -566,7 +607,9 @@ fn balance_cautions(
                 ),
             ));
         }
-    } else if h.static_margin > 0.0 {
+    } else if h.static_margin > 0.0 && !elevons_trim_it {
+        // (A tailless wing that its elevons trim within their throws gets the tailless-trim
+        // note instead.)
         cautions.push(Caution::new(
             Level::Danger,
             "no-trim",
@@ -607,6 +650,18 @@ pub const TIP_STALL_PERCENT_SEMISPAN: f64 = 50.0;
 /// a change this large means the planform or the sections must change instead).
 pub const MAX_USEFUL_WASHOUT_CHANGE_DEG: f64 = 10.0;
 
+/// What gives nose-up pitch on this aircraft, in the builder's words.
+fn nose_up_control(aircraft: &Aircraft) -> &'static str {
+    match (&aircraft.stabiliser, &aircraft.elevons) {
+        (Some(s), _) if s.role == StabiliserRole::Canard => {
+            "nose-up canard elevator (trailing edge down)"
+        }
+        (Some(_), _) => "up elevator",
+        (None, Some(_)) => "up elevon",
+        (None, None) => "nose-up trim (reflex)",
+    }
+}
+
 /// `x` with a sign and `decimals` decimals, never "-0.000".
 fn signed(x: f64, decimals: usize) -> String {
     let s = format!("{x:+.decimals$}");
@@ -631,6 +686,12 @@ fn full_model_cautions(
     if let Some(loc) = &h.stall_location {
         let role = aircraft.stabiliser.as_ref().map(|s| s.role);
         let unstable = h.static_margin <= 0.0;
+        // Whether the tail carries an upload at the stall: then a forward CG relieves it.
+        let tail_uploaded = f
+            .stall
+            .as_ref()
+            .and_then(|s| s.result.surfaces.get(1))
+            .is_some_and(|s| s.cl > 0.0);
         match (loc.surface, role) {
             (0, Some(StabiliserRole::Canard)) => cautions.push(Caution::new(
                 Level::Danger,
@@ -659,12 +720,15 @@ fn full_model_cautions(
                                         "The tailplane reaches its cl_max before the wing (at {:.0} % of its semispan) when \
                      trimmed near the stall: pitch control would be lost. {}",
                     loc.percent_semispan,
-                    if unstable {
-                        "First move the CG forward of the neutral point (see static-margin-negative); \
-                         then check this again."
-                    } else {
-                        "Give the tail a larger area, a section with a higher cl_max, or move the CG \
-                         aft within the recommended band (less download needed)."
+                                        match (unstable, tail_uploaded) {
+                        (true, _) => "First move the CG forward of the neutral point (see \
+                                      static-margin-negative); then check this again.",
+                        (false, true) => "The tail is lifting there: give it a larger area or a \
+                                          section with a higher cl_max, or move the CG forward \
+                                          within the recommended band (less upload needed).",
+                        (false, false) => "Give the tail a larger area, a section with a higher \
+                                           cl_max, or move the CG aft within the recommended band \
+                                           (less download needed).",
                     }
                 ),
             )),
@@ -673,10 +737,15 @@ fn full_model_cautions(
     }
     if let Some(s) = aircraft.pitch_control() {
         if let Some(p) = f.elevator_schedule.iter().find(|p| !p.within_limits) {
-            let (need, have) = if p.elevator_rad < 0.0 {
-                ("up", s.max_up_rad)
-            } else {
-                ("down", s.max_down_rad)
+            let canard = aircraft
+                .stabiliser
+                .as_ref()
+                .is_some_and(|st| st.role == StabiliserRole::Canard);
+            let (need, have) = match (p.elevator_rad < 0.0, canard) {
+                (true, false) => ("up", s.max_up_rad),
+                (false, false) => ("down", s.max_down_rad),
+                (true, true) => ("trailing edge up (nose down)", s.max_up_rad),
+                (false, true) => ("trailing edge down (nose up)", s.max_down_rad),
             };
             let control = aircraft.pitch_control_name();
             let rigging = if aircraft.stabiliser.is_some() {
@@ -701,19 +770,29 @@ fn full_model_cautions(
     if let Some(t) = &f.tailless {
         let untrimmed = t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4;
         if let (true, true, Some(d)) = (untrimmed, t.elevon_within_throws, t.elevon_to_trim_rad) {
+            // Here the wing lacks nose-up moment at the design CL (a stable wing's moment falls
+            // with CL), so the fixes are more washout where it helps, or reflex.
+            let washout = t
+                .washout_change_rad
+                .map(f64::to_degrees)
+                .filter(|w| *w < 0.0 && w.abs() <= MAX_USEFUL_WASHOUT_CHANGE_DEG)
+                .map(|w| format!("About {:.1} deg more tip washout, or airfoils", w.abs()))
+                .unwrap_or_else(|| "Airfoils".to_string());
             cautions.push(Caution::new(
                 Level::Note,
                 "tailless-trim",
                 format!(
-                                        "With the elevons neutral this tailless wing does not trim at its design CL {:.2} \
+                    "With the elevons neutral this tailless wing does not trim at its design CL {:.2} \
                      (pitching moment {} there, {} at zero lift). It trims there with about {:.1} \
-                                          deg of {} elevon, within the throws; that much throw is then not available for \
-                     control. More washout or reflexed airfoils would trim it with the elevons neutral.",
-                                        t.design_cl,
+                     deg of {} elevon, within the throws; that much throw is then not available for \
+                                          control. {washout} with about {:.3} more reflex (cm_ac) would trim it \
+                     with the elevons neutral.",
+                    t.design_cl,
                     signed(t.cm_at_design, 3),
                     signed(t.cm_zero_lift, 3),
                     d.abs().to_degrees(),
-                    if d < 0.0 { "up" } else { "down" }
+                    if d < 0.0 { "up" } else { "down" },
+                    t.reflex_cm_change
                 ),
             ));
         } else if untrimmed {

@@ -439,6 +439,8 @@ fn elevon_trim_deflection_trims_the_wing_at_its_design_cl() {
         .find(|c| c.code == "tailless-trim")
         .expect("the neutral-elevon trim problem is still reported");
     assert_eq!(c.level, trimline::caution::Level::Note, "{}", c.message);
+    // ...and "no trim" is not claimed when the elevons trim it within their throws.
+    assert!(!a.cautions.iter().any(|c| c.code == "no-trim"));
     // The elevons also get a schedule over the speed range and trim the stall.
     assert!(!f.elevator_schedule.is_empty());
     assert!(f.stall.as_ref().is_some_and(|s| s.trimmed));
@@ -567,4 +569,96 @@ fn elevon_forward_limit_is_where_full_up_holds_the_stall() {
         stall.elevator_rad.to_degrees(),
         full_up.to_degrees()
     );
+}
+
+// A weaker elevator can only move the elevator-authority forward limit aft, never remove it
+// (the limit is where full up elevator just holds the stall: less throw needs a CG further
+// aft). When even the aft end of the band is out of its reach, the band closes on its aft end
+// and the `cg-band-empty` danger is raised.
+#[test]
+fn weaker_elevator_moves_the_forward_limit_aft_until_the_band_closes() {
+    let with = |chord: u32, up: f64| {
+        let ac = load(&GLIDER.replace(
+            "root_chord = 100",
+            &format!("root_chord = 100\nelevator_chord = {chord}\nelevator_up = {up}"),
+        ));
+        analyse(&ac, &opts()).unwrap()
+    };
+    let strong = with(20, 3.0);
+    let weak = with(20, 1.5);
+    let x_strong = strong
+        .full
+        .as_ref()
+        .unwrap()
+        .elevator_forward_limit_x_m
+        .unwrap();
+    let x_weak = weak
+        .full
+        .as_ref()
+        .unwrap()
+        .elevator_forward_limit_x_m
+        .expect("a weaker elevator still limits the forward CG");
+    assert!(x_weak > x_strong, "{x_weak} vs {x_strong}");
+    // No decalage and a tiny elevator with half a degree of up throw: out of reach everywhere.
+    let none = analyse(
+        &load(
+            &GLIDER
+                .replace(
+                    "x = 900\nz = 0\nincidence = 0",
+                    "x = 900\nz = 0\nincidence = 2",
+                )
+                .replace(
+                    "root_chord = 100",
+                    "root_chord = 100\nelevator_chord = 3\nelevator_up = 0.5",
+                ),
+        ),
+        &opts(),
+    )
+    .unwrap();
+    assert!(none.band.forward_x_m <= none.band.aft_x_m);
+    assert!(
+        none.cautions.iter().any(|c| c.code == "cg-band-empty"),
+        "{:?}",
+        none.cautions.iter().map(|c| c.code).collect::<Vec<_>>()
+    );
+    assert!(!strong.cautions.iter().any(|c| c.code == "cg-band-empty"));
+}
+
+// A tail that reaches its cl_max while carrying an upload is relieved by a CG further forward
+// (statics: the upload balances a CG behind the wing's lift); the caution must not advise the
+// opposite. Tail section cl_max 0.3 and the CG far aft make the tail lift near the stall.
+#[test]
+fn tail_stall_advice_follows_the_sign_of_the_tail_load() {
+    let text = GLIDER
+        .replace(
+            "naca = \"0009\"\ncl_max = 0.9",
+            "naca = \"0009\"\ncl_max = 0.3",
+        )
+        .replace("x = 60\n", "x = 95\n");
+    let a = analyse(&load(&text), &opts()).unwrap();
+    let f = a.full.as_ref().unwrap();
+    let stall = f.stall.as_ref().unwrap();
+    if let Some(c) = a.cautions.iter().find(|c| c.code == "tail-stalls-first") {
+        let tail_cl = stall.result.surfaces[1].cl;
+        if tail_cl > 0.0 {
+            assert!(c.message.contains("move the CG forward"), "{}", c.message);
+        } else {
+            assert!(c.message.contains("move the CG aft"), "{}", c.message);
+        }
+    } else {
+        panic!("expected the tail to stall first: {stall:?}");
+    }
+}
+
+// An unstable tailless wing (CG behind the neutral point) gets no washout, reflex or elevon
+// advice: no trimmed flight exists to rig for.
+#[test]
+fn unstable_tailless_wing_gets_no_rigging_advice() {
+    let text = wing_with_elevons(22.0, 20.0, 95.0).replace("x = 140", "x = 190");
+    let a = analyse(&load(&text), &opts()).unwrap();
+    assert!(a.headline.static_margin < 0.0);
+    let f = a.full.as_ref().unwrap();
+    assert!(f.tailless.is_none());
+    assert!(f.elevator_schedule.is_empty());
+    assert!(!a.cautions.iter().any(|c| c.code == "tailless-trim"));
 }

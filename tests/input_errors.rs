@@ -532,3 +532,17 @@ fn chord_range_starts_at_5_mm_as_documented() {
     assert!(!doc.contains("is *not* caught"));
     assert!(!doc.contains("treated as 0"));
 }
+
+#[test]
+fn bare_word_value_is_explained() {
+    // A word beginning with t or f reads to the parser as a misspelt true or false; the
+    // message must not offer `true` as the accepted value.
+    for word in ["tall", "flat"] {
+        let e = error_of(&BASE.replace("incidence = 1.5", &format!("incidence = {word}")));
+        assert!(e.starts_with("bad.toml:7:13:"), "{e}");
+        assert!(e.contains("wing.incidence"), "{e}");
+        assert!(e.contains("a bare word is not a value"), "{e}");
+        assert!(e.contains("text in quotes"), "{e}");
+        assert!(!e.contains("`true`") && !e.contains("`false`"), "{e}");
+    }
+}

@@ -649,6 +649,8 @@ fn plain_problem(head: &str) -> String {
         "unclosed table" => "a `[table]` heading is not closed".into(),
         "unclosed array table" => "a `[[table]]` heading is not closed".into(),
         "unclosed inline table" => "an inline table `{ ... }` is not closed on its line".into(),
+        // A bare word such as `TCL` or `yes`: the parser took it for a misspelt boolean.
+        "invalid boolean" | "invalid string" => "a bare word is not a value".into(),
         other => other.to_string(),
     }
 }
@@ -665,6 +667,9 @@ fn plain_expected(expected: &str) -> Option<String> {
             "`#`" => "a # comment".to_string(),
             "`\"`" | "`'`" => "a closing quote".to_string(),
             "`]`" | "`]]`" | "`}`" => format!("a closing {x}"),
+            "`true`" | "`false`" => {
+                "a number such as 12.5, or text in quotes such as \"12 mm\"".to_string()
+            }
             other => other.to_string(),
         })
         .collect();

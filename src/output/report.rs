@@ -346,6 +346,9 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             }
             None => match elevon_trim {
                 Some(t) => match t.elevon_to_trim_rad {
+                    Some(d) if d.to_degrees().abs() < 0.05 => {
+                        format!("neutral at CL {}", fmt(t.design_cl, 2))
+                    }
                     Some(d) => format!(
                         "{}\u{b0} {} at CL {}{}",
                         fmt(d.abs().to_degrees(), 1),
@@ -658,7 +661,10 @@ pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
                 aircraft,
                 a,
                 |cg_x_m| sweeper.trim_speed_m_s(cg_x_m),
-                "Lifting-line model re-trimmed at each CG position, same mass and incidences, neutral elevator.",
+                                &format!(
+                    "Lifting-line model re-trimmed at each CG position, same mass and incidences, {} neutral.",
+                    aircraft.pitch_control_name()
+                ),
             );
         }
     }

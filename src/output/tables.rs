@@ -253,10 +253,15 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             "static margin {} %",
             num(100.0 * aircraft.margin_limits.max_static_margin, 0)
         ),
-        ForwardLimit::ElevatorAuthority => format!(
-            "full up {} just holds the stall",
+        ForwardLimit::ElevatorAuthority if a.band.forward_x_m >= a.band.aft_x_m => format!(
+            "no range: full up {} cannot hold the stall (cg-band-empty)",
             aircraft.pitch_control_name()
         ),
+        ForwardLimit::ElevatorAuthority => {
+            let name = aircraft.pitch_control_name();
+            let verb = if name == "elevons" { "hold" } else { "holds" };
+            format!("full up {name} just {verb} the stall")
+        }
     };
     t.add_row(vec![
         "recommended CG, forward".to_string(),
@@ -306,6 +311,13 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
                 )
             }
         };
+        let outside =
+            b.target_x_m < a.band.forward_x_m - 5e-4 || b.target_x_m > a.band.aft_x_m + 5e-4;
+        let text = if outside {
+            format!("{text}; outside the recommended band")
+        } else {
+            text
+        };
         t.add_row(vec![
             format!("target CG, ballast in {}", b.bay),
             num(b.target_x_m * 1000.0, 1),
@@ -319,7 +331,13 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
                 "CG for the target trim speed".to_string(),
                 num(x * 1000.0, 1),
                 pct(x),
-                "with the present incidences".to_string(),
+                if x < a.band.forward_x_m - 5e-4 || x > a.band.aft_x_m + 5e-4 {
+                    "with the present incidences; outside the recommended band: change the \
+                     incidences instead"
+                        .to_string()
+                } else {
+                    "with the present incidences".to_string()
+                },
             ]),
             (None, Some(_)) => t.add_row(vec![
                 "CG for the target trim speed".to_string(),
@@ -589,9 +607,13 @@ fn spanwise_table(a: &Analysis) -> Option<Table> {
 fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
     let f = a.full.as_ref()?;
     let mut t = table(&["what", "value", "note"]);
-    if a.headline.static_margin <= 0.0 && aircraft.pitch_control().is_some() {
+    if a.headline.static_margin <= 0.0 {
         t.add_row(vec![
-            format!("decalage and {}", aircraft.pitch_control_name()),
+            if aircraft.stabiliser.is_some() {
+                format!("decalage and {}", aircraft.pitch_control_name())
+            } else {
+                "washout, reflex and elevon trim".to_string()
+            },
             "not solved".to_string(),
             "the CG is behind the neutral point: move it forward first".to_string(),
         ]);
@@ -623,16 +645,20 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
         let up = p.elevator_rad < 0.0;
         t.add_row(vec![
             format!("{control} at {} m/s", num(p.speed_m_s, 1)),
-            format!(
-                "{} deg {}",
-                num(p.elevator_rad.abs().to_degrees(), 1),
-                match (canard, up) {
-                    (false, true) => "up",
-                    (false, false) => "down",
-                    (true, true) => "TE up (nose down)",
-                    (true, false) => "TE down (nose up)",
-                }
-            ),
+            if p.elevator_rad.to_degrees().abs() < 0.05 {
+                "neutral".to_string()
+            } else {
+                format!(
+                    "{} deg {}",
+                    num(p.elevator_rad.abs().to_degrees(), 1),
+                    match (canard, up) {
+                        (false, true) => "up",
+                        (false, false) => "down",
+                        (true, true) => "TE up (nose down)",
+                        (true, false) => "TE down (nose up)",
+                    }
+                )
+            },
             if p.within_limits {
                 format!("CL {}", num(p.cl, 3))
             } else {
@@ -666,11 +692,15 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
             t.add_row(vec![
                 "elevons to trim there".into(),
                 tl.elevon_to_trim_rad.map_or("none found".into(), |d| {
-                    format!(
-                        "{} deg {}",
-                        num(d.abs().to_degrees(), 1),
-                        if d < 0.0 { "up" } else { "down" }
-                    )
+                    if d.to_degrees().abs() < 0.05 {
+                        "neutral".to_string()
+                    } else {
+                        format!(
+                            "{} deg {}",
+                            num(d.abs().to_degrees(), 1),
+                            if d < 0.0 { "up" } else { "down" }
+                        )
+                    }
                 }),
                 if tl.elevon_within_throws {
                     "instead of a washout change; within the throws".into()

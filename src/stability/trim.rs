@@ -187,7 +187,8 @@ pub struct FullStability {
     pub elevator_schedule: Vec<ElevatorPoint>,
     /// Top speed used for the schedule, m/s.
     pub top_speed_m_s: f64,
-    /// Tailless check (only for aircraft without a stabiliser).
+    /// Tailless check (only for aircraft without a stabiliser, and only with the CG ahead of
+    /// the neutral point: an unstable wing gets no rigging advice).
     pub tailless: Option<TaillessCheck>,
 }
 
@@ -367,7 +368,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
         }
     }
 
-    let tailless = if input.aircraft.stabiliser.is_some() {
+    let tailless = if input.aircraft.stabiliser.is_some() || !stable {
         None
     } else {
         let design_cl = input
@@ -466,15 +467,18 @@ fn elevator_limit(
     z: f64,
     fuselage_shift_m: f64,
 ) -> Option<f64> {
-    // Elevator needed at the stall with the CG at x (negative: trailing edge up).
+    // Margin of elevator left at the stall with the CG at x (negative: full up is not enough).
+    // Where no trimmed stall exists at all (far forward, the deflection needed runs past
+    // anything a flap can give), the elevator is taken as not enough: a weaker control must
+    // move the limit aft, never remove it.
     let needed = |x: f64| {
         system
             .trimmed_stall(base, TrimControl::Elevator, x + fuselage_shift_m, z)
             .ok()
-            .map(|s| s.control_rad - full_up_rad)
+            .map_or(-1.0, |s| s.control_rad - full_up_rad)
     };
     let (mut fwd, mut aft) = (neutral_point_x_m - mac_m, neutral_point_x_m - 0.01 * mac_m);
-    let (f_fwd, f_aft) = (needed(fwd)?, needed(aft)?);
+    let (f_fwd, f_aft) = (needed(fwd), needed(aft));
     if f_aft < 0.0 {
         // Even near the neutral point full up elevator does not reach the stall.
         return Some(aft);
@@ -485,10 +489,10 @@ fn elevator_limit(
     }
     for _ in 0..40 {
         let mid = 0.5 * (fwd + aft);
-        match needed(mid) {
-            Some(f) if f >= 0.0 => aft = mid,
-            Some(_) => fwd = mid,
-            None => return None,
+        if needed(mid) >= 0.0 {
+            aft = mid;
+        } else {
+            fwd = mid;
         }
     }
     Some(0.5 * (fwd + aft))

@@ -161,11 +161,10 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
     let big = Font::bold(30.0);
     let pad = 2.5;
     let ahead = d.cg_from_root_le_mm < -0.5;
-    let band_note = if d.band_from_root_le_mm.0 < -0.5 {
-        " (negative: ahead)"
-    } else {
-        ""
-    };
+    // Both ends ahead of the wing's leading edge (a canard): give them as distances ahead.
+    let band_ahead = d.band_from_root_le_mm.1 < -0.5;
+    let band_note = if band_ahead { " ahead" } else { "" };
+    let band_mm = |v: f64| if band_ahead { v.abs() } else { v };
     let mut lines: Vec<(String, Font)> = vec![
         (
             if ahead {
@@ -180,8 +179,8 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
         (
             format!(
                 "Recommended {} to {} mm{band_note}",
-                fmt(d.band_from_root_le_mm.0, 0),
-                fmt(d.band_from_root_le_mm.1, 0)
+                fmt(band_mm(d.band_from_root_le_mm.0), 0),
+                fmt(band_mm(d.band_from_root_le_mm.1), 0)
             ),
             Font::bold(8.0),
         ),
