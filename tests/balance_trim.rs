@@ -5,6 +5,7 @@
 use approx::assert_relative_eq;
 use trimline::analysis::{analyse, AnalysisOptions, Method};
 use trimline::input::parse_aircraft;
+use trimline::lifting_line::MultiSurfaceSystem;
 use trimline::model::Aircraft;
 use trimline::stability::trim::build_system;
 
@@ -54,6 +55,15 @@ fn with_cg(text: &str, x_mm: f64) -> Aircraft {
     load(&text.replace("x = 60\n", &format!("x = {x_mm}\n")))
 }
 
+/// The lifting-line system the analysis with `opts()` builds, for checks on its own solves.
+fn system_of(ac: &Aircraft, a: &trimline::analysis::Analysis) -> MultiSurfaceSystem {
+    let options = trimline::lifting_line::LiftingLineOptions {
+        stations_per_half_span: opts().stations_per_half_span,
+        ..Default::default()
+    };
+    build_system(ac, &a.sections, options).unwrap()
+}
+
 fn opts() -> AnalysisOptions {
     AnalysisOptions {
         panels: 120,
@@ -70,11 +80,7 @@ fn cm_slope_vanishes_at_the_neutral_point() {
     let a = analyse(&ac, &opts()).unwrap();
     let f = a.full.as_ref().expect("lifting line solved");
     assert_eq!(a.headline.method, Method::LiftingLine);
-    let options = trimline::lifting_line::LiftingLineOptions {
-        stations_per_half_span: 30,
-        ..Default::default()
-    };
-    let system = build_system(&ac, &a.sections, options).unwrap();
+    let system = system_of(&ac, &a);
     let base = system.condition(0.0);
     let z = ac.wing.root_le_z_m;
     let k = system
@@ -340,11 +346,7 @@ fn wing_with_elevons(chord_pct: f64, inboard: f64, outboard: f64) -> String {
 fn dcl_per_rad_elevon(text: &str) -> (f64, f64) {
     let ac = load(text);
     let a = analyse(&ac, &opts()).unwrap();
-    let options = trimline::lifting_line::LiftingLineOptions {
-        stations_per_half_span: 30,
-        ..Default::default()
-    };
-    let system = build_system(&ac, &a.sections, options).unwrap();
+    let system = system_of(&ac, &a);
     let base = system.condition(0.05);
     let mut deflected = base.clone();
     deflected.elevator_rad = 0.01;
@@ -414,11 +416,7 @@ fn elevon_trim_deflection_trims_the_wing_at_its_design_cl() {
     let d = t.elevon_to_trim_rad.expect("elevons trim it");
     assert!(d < 0.0, "up elevon (reflex) expected: {}", d.to_degrees());
     assert!(t.elevon_within_throws);
-    let options = trimline::lifting_line::LiftingLineOptions {
-        stations_per_half_span: 30,
-        ..Default::default()
-    };
-    let system = build_system(&ac, &a.sections, options).unwrap();
+    let system = system_of(&ac, &a);
     let x_cg = a.mass.cg_x_m;
     let z = ac.wing.root_le_z_m;
     let at = |alpha: f64| {

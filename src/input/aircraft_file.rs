@@ -223,6 +223,20 @@ impl Ctx<'_> {
         })
     }
 
+    /// A required quantity `table.key`, in SI, checked against `bounds`.
+    fn required_quantity(
+        &self,
+        q: Option<&Quantity>,
+        table_span: &Range<usize>,
+        table: &str,
+        key: &str,
+        dim: Dimension,
+        bounds: Bounds,
+    ) -> Result<f64, InputError> {
+        let q = self.required(q, table_span, table, key, dim, bounds)?;
+        self.quantity(q, &format!("{table}.{key}"), dim, bounds)
+    }
+
     /// A required, non-empty name of the table at `table_span` (path `table`), trimmed.
     fn required_name(
         &self,
@@ -462,27 +476,20 @@ impl Ctx<'_> {
                 let path = format!("weighing[{i}]");
                 let span = s.span();
                 let s = s.get_ref();
-                let x = self.required(
-                    s.x.as_ref(),
-                    &span,
-                    &path,
-                    "x",
-                    Dimension::Length,
-                    POSITION_MM,
-                )?;
-                let reading = self.required(
-                    s.reading.as_ref(),
-                    &span,
-                    &path,
-                    "reading",
-                    Dimension::Mass,
-                    MASS_G,
-                )?;
                 Ok(WeighingSupport {
-                    x_m: self.quantity(x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
-                    reading_kg: self.quantity(
-                        reading,
-                        &format!("{path}.reading"),
+                    x_m: self.required_quantity(
+                        s.x.as_ref(),
+                        &span,
+                        &path,
+                        "x",
+                        Dimension::Length,
+                        POSITION_MM,
+                    )?,
+                    reading_kg: self.required_quantity(
+                        s.reading.as_ref(),
+                        &span,
+                        &path,
+                        "reading",
                         Dimension::Mass,
                         MASS_G,
                     )?,
@@ -1144,7 +1151,7 @@ impl Ctx<'_> {
         let path = "wing.elevons";
         let span = e.span();
         let e = e.get_ref();
-        let chord_q = self.required(
+        let chord = self.required_quantity(
             e.chord.as_ref(),
             &span,
             path,
@@ -1152,23 +1159,11 @@ impl Ctx<'_> {
             Dimension::Percent,
             ELEVON_CHORD_PCT,
         )?;
-        let chord = self.quantity(
-            chord_q,
-            "wing.elevons.chord",
-            Dimension::Percent,
-            ELEVON_CHORD_PCT,
-        )?;
-        let inboard_q = self.required(
+        let inboard = self.required_quantity(
             e.inboard.as_ref(),
             &span,
             path,
             "inboard",
-            Dimension::Percent,
-            SEMISPAN_PCT,
-        )?;
-        let inboard = self.quantity(
-            inboard_q,
-            "wing.elevons.inboard",
             Dimension::Percent,
             SEMISPAN_PCT,
         )?;
@@ -1425,8 +1420,7 @@ impl Ctx<'_> {
         let span = f.span();
         let f = f.get_ref();
         let get = |q: Option<&Quantity>, key: &str, bounds: Bounds| {
-            let q = self.required(q, &span, "fuselage", key, Dimension::Length, bounds)?;
-            self.quantity(q, &format!("fuselage.{key}"), Dimension::Length, bounds)
+            self.required_quantity(q, &span, "fuselage", key, Dimension::Length, bounds)
         };
         Ok(Fuselage {
             nose_x_m: get(f.nose_x.as_ref(), "nose_x", POSITION_MM)?,
@@ -1440,26 +1434,24 @@ impl Ctx<'_> {
         let span = m.span();
         let m = m.get_ref();
         let name = self.required_name(m.name.as_ref(), &span, &path)?;
-        let mass = self.required(
-            m.mass.as_ref(),
-            &span,
-            &path,
-            "mass",
-            Dimension::Mass,
-            MASS_G,
-        )?;
-        let x = self.required(
-            m.x.as_ref(),
-            &span,
-            &path,
-            "x",
-            Dimension::Length,
-            POSITION_MM,
-        )?;
         Ok(MassItem {
             name,
-            mass_kg: self.quantity(mass, &format!("{path}.mass"), Dimension::Mass, MASS_G)?,
-            x_m: self.quantity(x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
+            mass_kg: self.required_quantity(
+                m.mass.as_ref(),
+                &span,
+                &path,
+                "mass",
+                Dimension::Mass,
+                MASS_G,
+            )?,
+            x_m: self.required_quantity(
+                m.x.as_ref(),
+                &span,
+                &path,
+                "x",
+                Dimension::Length,
+                POSITION_MM,
+            )?,
             z_m: self.opt_quantity(
                 m.z.as_ref(),
                 &format!("{path}.z"),
@@ -1474,7 +1466,7 @@ impl Ctx<'_> {
         let span = b.span();
         let b = b.get_ref();
         let name = self.required_name(b.name.as_ref(), &span, &path)?;
-        let x = self.required(
+        let x_m = self.required_quantity(
             b.x.as_ref(),
             &span,
             &path,
@@ -1482,7 +1474,7 @@ impl Ctx<'_> {
             Dimension::Length,
             POSITION_MM,
         )?;
-        let max = self.required(
+        let max_mass_kg = self.required_quantity(
             b.max.as_ref(),
             &span,
             &path,
@@ -1492,19 +1484,14 @@ impl Ctx<'_> {
         )?;
         Ok(BallastBay {
             name,
-            x_m: self.quantity(x, &format!("{path}.x"), Dimension::Length, POSITION_MM)?,
+            x_m,
             z_m: self.opt_quantity(
                 b.z.as_ref(),
                 &format!("{path}.z"),
                 Dimension::Length,
                 POSITION_MM,
             )?,
-            max_mass_kg: self.quantity(
-                max,
-                &format!("{path}.max"),
-                Dimension::Mass,
-                BALLAST_MAX_G,
-            )?,
+            max_mass_kg,
         })
     }
 
