@@ -1,10 +1,8 @@
 //! Validation of the downwash the multi-surface lifting line gives behind a wing and at a
 //! tail (Phillips and Snyder's horseshoe system, trailing legs along the free stream).
 
-mod common;
-
+use crate::common::{elliptic_wing, flat_plate, panel, surface, tapered_wing};
 use approx::assert_relative_eq;
-use common::{elliptic_wing, flat_plate, panel, surface, tapered_wing};
 use std::f64::consts::PI;
 use trimline::lifting_line::{LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput};
 use trimline::model::Surface;

@@ -1,10 +1,8 @@
 //! Validation of the numerical multi-surface lifting line (Phillips and Snyder, Journal of
 //! Aircraft 37(4), 2000) against closed forms and against the classical Glauert solution.
 
-mod common;
-
+use crate::common::{elliptic_wing, flat_plate, panel, section, surface, tapered_wing};
 use approx::assert_relative_eq;
-use common::{elliptic_wing, flat_plate, panel, section, surface, tapered_wing};
 use std::f64::consts::PI;
 use trimline::lifting_line::{
     classical::DEFAULT_TERMS, ClassicalWing, LiftingLineOptions, MultiSurfaceSystem, Reference,

@@ -2,10 +2,8 @@
 //! method on the flat-top section model (Phillips and Snyder, Journal of Aircraft 37(4), 2000,
 //! nonlinear section relation solved by Newton's method).
 
-mod common;
-
+use crate::common::{section, tapered_wing};
 use approx::assert_relative_eq;
-use common::{section, tapered_wing};
 use std::f64::consts::PI;
 use trimline::lifting_line::{
     LiftingLineError, LiftingLineOptions, MultiSurfaceSystem, Reference, SolveStatus, SurfaceInput,

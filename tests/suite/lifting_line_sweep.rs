@@ -1,10 +1,8 @@
 //! Validation of swept wings in the multi-surface lifting line against the classical sweep
 //! correction (Helmbold's equation as extended to sweep by Diederich, in the DATCOM form).
 
-mod common;
-
+use crate::common::{flat_plate, panel, surface};
 use approx::assert_relative_eq;
-use common::{flat_plate, panel, surface};
 use std::f64::consts::PI;
 use trimline::lifting_line::{LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput};
 

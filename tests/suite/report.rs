@@ -15,7 +15,7 @@ use trimline::output::pdf::Paper;
 use trimline::output::report::ReportSource;
 use trimline::output::report_file::{report_pdf, write_report, ReportError};
 
-const DEMO: &str = include_str!("../aircraft/larkspire-2000.toml");
+const DEMO: &str = include_str!("../../aircraft/larkspire-2000.toml");
 
 fn demo() -> Aircraft {
     parse_aircraft(DEMO, "larkspire-2000.toml", None).expect("the demo parses")

@@ -1,8 +1,6 @@
 //! Validation of the classical lifting line (Prandtl's equation, Glauert's Fourier solution)
 //! against published closed forms and independently computed Glauert values.
 
-mod common;
-
 use approx::assert_relative_eq;
 use std::f64::consts::PI;
 use trimline::lifting_line::{ClassicalStation, ClassicalWing};
