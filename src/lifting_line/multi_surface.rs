@@ -52,7 +52,7 @@
 //! half-span (its neutral point by about 0.2 % of the MAC). Dihedral alone does not do this:
 //! an unswept bound vortex induces no normal velocity on the other half. This is a property of the lifting-line model at a
 //! kink, not of the solver; the default station count gives lift slopes within about 5 % of
-//! the Helmbold-Diederich formula up to 30 deg of sweep (tests/lifting_line_sweep.rs; 16 % high
+//! the Helmbold-Diederich formula up to 30 deg of sweep (tests/suite/lifting_line_sweep.rs; 16 % high
 //! at 45 deg). The loading dips at the kink, so the Trefftz-plane span efficiency of a swept
 //! wing comes out low (about 0.57 at 30 deg, aspect ratio 8; the same wing unswept gives 0.94):
 //! treat induced drag of strongly swept wings as unreliable. Stations are not clustered at a
@@ -68,7 +68,7 @@
 //! (for a trailing leg, shared by two neighbouring horseshoes, the mean of their widths). Any smoothing shifts the downwash inside the sheet by
 //! an amount of first order in the core radius (it samples the field slightly off the sheet);
 //! with the default, a tail lying in the far wake of an elliptic wing sees 2 C_L/(pi A) within
-//! about 3 % (tests/lifting_line_downwash.rs), and the error falls as stations are added.
+//! about 3 % (tests/suite/lifting_line_downwash.rs), and the error falls as stations are added.
 //! Points off the wake plane by more than a station width are not affected.
 //!
 //! # References

@@ -124,7 +124,7 @@ pub struct CircleAirfoil<M: CircleMap> {
 /// Angular samples around the circle used to locate the leading edge and measure the shape.
 const SHAPE_SAMPLES: usize = 2000;
 
-/// Smallest thickness ratio the shape solution is checked for (see `tests/input_errors.rs`).
+/// Smallest thickness ratio the shape solution is checked for (see `tests/suite/input_errors.rs`).
 /// Thinner cambered sections with a trailing-edge angle near its limit may fail to converge:
 /// their thickness is below what the 2000 sampled surface points measure reliably on a
 /// cambered section (interpolation error about 1e-7 of the chord). The aircraft file accepts

@@ -64,7 +64,7 @@ pub enum GeometryError {
 /// poorly determined strengths: a cambered Joukowski section then comes out about 1 % high in
 /// cl at any panel count. With 3/4 full cosine the trailing-edge panels are about 0.4 / (N/2)
 /// long and the same section agrees within 0.1 %, while finite-angle and blunt trailing edges
-/// stay within about 0.25 % (a judgement from a convergence study; see tests/section_panel.rs).
+/// stay within about 0.25 % (a judgement from a convergence study; see tests/suite/section_panel.rs).
 pub const FULL_COSINE_WEIGHT: f64 = 0.75;
 
 /// Fewest panels accepted when re-panelling.

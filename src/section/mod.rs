@@ -47,7 +47,7 @@ pub struct SectionOptions {
 }
 
 impl Default for SectionOptions {
-    /// 200 panels: cl converged to about 0.1 % on smooth sections (see tests/section_panel.rs).
+    /// 200 panels: cl converged to about 0.1 % on smooth sections (see tests/suite/section_panel.rs).
     fn default() -> Self {
         SectionOptions { panels: 200 }
     }
