@@ -22,6 +22,7 @@
 
 pub mod classical;
 mod error;
+pub mod lattice;
 pub mod multi_surface;
 pub mod results;
 pub mod superposition;
@@ -31,7 +32,8 @@ pub use classical::{ClassicalSolution, ClassicalStation, ClassicalWing};
 pub use error::LiftingLineError;
 pub use multi_surface::{
     ElevatorEffect, FlightCondition, LiftingLineOptions, MultiSurfaceSystem, Reference,
-    SolveStatus, Station, SurfaceInput,
+    SolveStatus, Station, SurfaceInput, WingModel, DEFAULT_CHORDWISE_PANELS,
+    DEFAULT_STRIPS_PER_HALF_SPAN,
 };
 pub use results::{LiftingLineResult, StallStation, StationResult, SurfaceResult};
 pub use superposition::{LinearCoefficients, TrimControl, TrimPoint, TrimmedStall};

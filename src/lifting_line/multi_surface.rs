@@ -84,6 +84,7 @@ use std::ops::Range;
 use nalgebra::{DMatrix, DVector};
 
 use super::classical::{check_pivots, check_residual, check_vector_residual};
+use super::lattice;
 use super::results::{self, LiftingLineResult};
 use super::vortex::{
     horseshoe_velocity, segment_velocity, semi_infinite_velocity, trefftz_line_velocity, Vec3,
@@ -160,11 +161,29 @@ impl Reference {
     }
 }
 
+/// Which three-dimensional model gives the induced angles and the lift's chordwise centre.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum WingModel {
+    /// Vortex lattice with chordwise panels, condensed onto the strips
+    /// ([`super::lattice`]): right for sweep, low aspect ratio and the tail's downwash.
+    #[default]
+    VortexLattice,
+    /// Phillips-Snyder lifting line (one horseshoe per strip on the quarter-chord line):
+    /// the reference for straight wings of moderate to high aspect ratio.
+    LiftingLine,
+}
+
 /// Discretisation and solver settings.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct LiftingLineOptions {
-    /// Horseshoe vortices per half-span of each surface (2 to 500; default 40).
+    /// The three-dimensional model (default: the vortex lattice).
+    pub model: WingModel,
+    /// Strips (horseshoe vortices of the lifting line) per half-span of each surface (2 to
+    /// 500; default 40).
     pub stations_per_half_span: usize,
+    /// Chordwise lattice panels per strip (1 to 40; default 6; used by the vortex lattice
+    /// only).
+    pub chordwise_panels: usize,
     /// Direction of the trailing legs: the body x axis rotated nose-up by this angle, rad
     /// (default 0; |angle| < 1.5).
     pub wake_angle_rad: f64,
@@ -179,6 +198,9 @@ pub struct LiftingLineOptions {
     /// distance of the nearest control point from the kink, and clustering there makes that
     /// dependence stronger; see the module documentation).
     pub cluster_at_kinked_root: bool,
+    /// Space the strips evenly along the span instead of by the cosine rule (default false;
+    /// even spacing reproduces textbook lattice examples, the cosine rule converges faster).
+    pub uniform_spacing: bool,
     /// Largest number of Newton iterations for the stalled system (default 50).
     pub max_newton_iterations: usize,
     /// Newton convergence: largest residual relative to the largest circulation (default 1e-10).
@@ -188,16 +210,26 @@ pub struct LiftingLineOptions {
 impl Default for LiftingLineOptions {
     fn default() -> Self {
         LiftingLineOptions {
-            stations_per_half_span: 40,
+            model: WingModel::VortexLattice,
+            stations_per_half_span: DEFAULT_STRIPS_PER_HALF_SPAN,
+            chordwise_panels: DEFAULT_CHORDWISE_PANELS,
             wake_angle_rad: 0.0,
             self_core_fraction: 1e-2,
             wake_core_fraction: 0.25,
             cluster_at_kinked_root: false,
+            uniform_spacing: false,
             max_newton_iterations: 50,
             newton_relative_tolerance: 1e-10,
         }
     }
 }
+
+/// Default strips per half-span: the vortex lattice's neutral point is then converged to
+/// better than 0.2 % of the MAC on the example aircraft and on swept wings to 35 deg
+/// (tests/suite/lattice.rs doubles both counts).
+pub const DEFAULT_STRIPS_PER_HALF_SPAN: usize = 40;
+/// Default chordwise lattice panels per strip (see [`DEFAULT_STRIPS_PER_HALF_SPAN`]).
+pub const DEFAULT_CHORDWISE_PANELS: usize = 6;
 
 /// One station (horseshoe vortex) of the discretised aircraft.
 #[derive(Debug, Clone, PartialEq)]
@@ -232,6 +264,14 @@ pub struct Station {
     pub(crate) node_b: Vec3,
     pub(crate) control: Vec3,
     pub(crate) normal: Vec3,
+    /// Leading-edge points at the strip's two side edges (port-side edge first), m.
+    pub(crate) le_a: Vec3,
+    pub(crate) le_b: Vec3,
+    /// Streamwise chords at the two side edges, m.
+    pub(crate) chord_a_m: f64,
+    pub(crate) chord_b_m: f64,
+    /// Where the control point lies between the side edges (0 at `node_a`, 1 at `node_b`).
+    pub(crate) control_t: f64,
 }
 
 /// What the system knows about one surface.
@@ -333,8 +373,14 @@ pub struct MultiSurfaceSystem {
     pub(super) surfaces: Vec<SurfaceInfo>,
     pub(super) reference: Reference,
     options: LiftingLineOptions,
-    /// A_ij: normal velocity at control point i per unit circulation of horseshoe j.
+    /// A_ij: induced angle at strip i per unit circulation (/ speed) of strip j: the normal
+    /// velocity of horseshoe j for the lifting line, the condensed lattice's effective
+    /// induced angle for the vortex lattice.
     induced: DMatrix<f64>,
+    /// Vortex lattice only: x-moment of circulation beyond each strip's own x, per unit
+    /// circulation of each strip (the lift's chordwise centre; `None` for the lifting line,
+    /// whose lift acts on the quarter-chord line).
+    lift_x_offset: Option<DMatrix<f64>>,
     /// Trefftz-plane normal-wash at station i per unit circulation of horseshoe j.
     trefftz: DMatrix<f64>,
     /// Circulation per unit input: columns constant, alpha, elevator, incidence of each surface.
@@ -398,7 +444,8 @@ impl MultiSurfaceSystem {
         let mut surfaces = Vec::with_capacity(inputs.len());
         for (index, input) in inputs.iter().enumerate() {
             let start = stations.len();
-            discretise(input, index, &options, &mut stations)?;
+            let per_half = strips_per_half(&options, input.surface, inputs[0].surface);
+            discretise(input, index, &options, per_half, &mut stations)?;
             let g = planform::geometry(input.surface);
             surfaces.push(SurfaceInfo {
                 name: input.surface.name.clone(),
@@ -470,6 +517,19 @@ impl MultiSurfaceSystem {
                 quantity: "influence matrix",
             });
         }
+        let lift_x_offset = match options.model {
+            WingModel::LiftingLine => None,
+            WingModel::VortexLattice => {
+                let cores = lattice::Cores {
+                    self_fraction: options.self_core_fraction,
+                    wake_fraction: options.wake_core_fraction,
+                };
+                let c =
+                    lattice::condense(&stations, &mirror, options.chordwise_panels, &wake, cores)?;
+                induced = c.induced;
+                Some(c.lift_x_offset)
+            }
+        };
         let d = DVector::from_iterator(
             n,
             stations
@@ -519,6 +579,7 @@ impl MultiSurfaceSystem {
             reference,
             options,
             induced,
+            lift_x_offset,
             trefftz,
             units,
             unit_sums: Vec::new(),
@@ -530,6 +591,7 @@ impl MultiSurfaceSystem {
     fn compute_unit_sums(&self) -> Vec<Vec<UnitSums>> {
         let s_ref = self.reference.area_m2;
         let c_ref = self.reference.mac_m;
+        let offsets = self.lift_x_offsets(&self.units);
         self.surfaces
             .iter()
             .map(|info| {
@@ -541,7 +603,8 @@ impl MultiSurfaceSystem {
                             let g = self.units[(i, k)];
                             let lift = 2.0 * g * st.dy_m / s_ref;
                             sums.cl += lift;
-                            sums.mx -= lift * st.x_m / c_ref;
+                            sums.mx -=
+                                (lift * st.x_m + 2.0 * offsets[(i, k)] * st.dy_m / s_ref) / c_ref;
                             sums.mz -= lift * st.z_m / c_ref;
                             sums.sec += 2.0 * g * st.chord_m * (0.25 - st.section.x_ac_c) * st.dy_m
                                 / (s_ref * c_ref);
@@ -598,6 +661,15 @@ impl MultiSurfaceSystem {
 
     pub(crate) fn induced(&self) -> &DMatrix<f64> {
         &self.induced
+    }
+
+    /// x-moment of circulation beyond each strip's own x for the circulations in the columns
+    /// of `gamma` (m^2 per speed); zero for the lifting line.
+    pub(crate) fn lift_x_offsets(&self, gamma: &DMatrix<f64>) -> DMatrix<f64> {
+        match &self.lift_x_offset {
+            Some(p) => p * gamma,
+            None => DMatrix::zeros(gamma.nrows(), gamma.ncols()),
+        }
     }
 
     pub(crate) fn trefftz(&self) -> &DMatrix<f64> {
@@ -925,6 +997,9 @@ fn check_options(
             "2 to 500",
         );
     }
+    if !(1..=40).contains(&o.chordwise_panels) {
+        return invalid("chordwise_panels", o.chordwise_panels as f64, "1 to 40");
+    }
     if !(o.wake_angle_rad.is_finite() && o.wake_angle_rad.abs() < 1.5) {
         return invalid("wake_angle_rad", o.wake_angle_rad, "|angle| < 1.5 rad");
     }
@@ -967,6 +1042,35 @@ fn quarter_chord_point(surface: &Surface, s: f64) -> Vec3 {
     Vec3::new(st.x_le_m + 0.25 * st.chord_m, sign * st.y_m, st.z_m)
 }
 
+/// Strips per half-span of `surface`. The lifting line gives every surface the same count
+/// (its tail stations then line up with the wing's trailing legs, see the module
+/// documentation). The vortex lattice keeps the strip width of the first surface (normally
+/// the wing) on the others, with at least 8 strips (or the requested count, if smaller):
+/// a tail of a third of the wing's span then costs a third of the panels, and the lattice
+/// has no line vortices to line up.
+fn strips_per_half(options: &LiftingLineOptions, surface: &Surface, first: &Surface) -> usize {
+    let n = options.stations_per_half_span;
+    match options.model {
+        WingModel::LiftingLine => n,
+        WingModel::VortexLattice => {
+            let ratio = half_span_length_m(surface) / half_span_length_m(first);
+            let scaled = (n as f64 * ratio).round();
+            if scaled.is_finite() {
+                (scaled as usize).clamp(n.min(8), n)
+            } else {
+                n
+            }
+        }
+    }
+}
+
+/// Leading-edge point and streamwise chord at signed in-plane distance `s` (negative to port).
+fn leading_edge_point(surface: &Surface, s: f64) -> (Vec3, f64) {
+    let st = station_at(surface, s.abs());
+    let sign = if s < 0.0 { -1.0 } else { 1.0 };
+    (Vec3::new(st.x_le_m, sign * st.y_m, st.z_m), st.chord_m)
+}
+
 /// True when the quarter-chord line has a kink at the root (sweep or dihedral there).
 fn root_is_kinked(surface: &Surface) -> bool {
     let total = half_span_length_m(surface);
@@ -990,6 +1094,7 @@ fn segments(
     half_breaks: &[f64],
     split_at_root: bool,
     per_half: usize,
+    uniform: bool,
 ) -> Vec<(f64, f64, f64)> {
     use std::f64::consts::PI;
     // Cosine map of the starboard half: parameter t to span s, and back.
@@ -998,20 +1103,17 @@ fn segments(
     } else {
         (0.5, per_half.max(1))
     };
-    let at = |t: f64| {
-        if split_at_root {
-            total * 0.5 * (1.0 - (PI * t).cos())
-        } else {
-            -total * (PI * t).cos()
-        }
+    let at = |t: f64| match (uniform, split_at_root) {
+        (true, true) => total * t,
+        (true, false) => total * (2.0 * t - 1.0),
+        (false, true) => total * 0.5 * (1.0 - (PI * t).cos()),
+        (false, false) => -total * (PI * t).cos(),
     };
-    let param = |s: f64| {
-        let c = if split_at_root {
-            1.0 - 2.0 * s / total
-        } else {
-            -s / total
-        };
-        c.clamp(-1.0, 1.0).acos() / PI
+    let param = |s: f64| match (uniform, split_at_root) {
+        (true, true) => (s / total).clamp(0.0, 1.0),
+        (true, false) => (0.5 * (s / total + 1.0)).clamp(0.5, 1.0),
+        (false, true) => (1.0 - 2.0 * s / total).clamp(-1.0, 1.0).acos() / PI,
+        (false, false) => (-s / total).clamp(-1.0, 1.0).acos() / PI,
     };
     let mut nodes: Vec<f64> = (0..=m)
         .map(|k| at(t0 + (1.0 - t0) * k as f64 / m as f64))
@@ -1052,6 +1154,7 @@ fn discretise(
     input: &SurfaceInput<'_>,
     surface_index: usize,
     options: &LiftingLineOptions,
+    per_half: usize,
     out: &mut Vec<Station>,
 ) -> Result<(), LiftingLineError> {
     let surface = input.surface;
@@ -1111,10 +1214,13 @@ fn discretise(
         total,
         &half_breaks,
         split_at_root,
-        options.stations_per_half_span,
+        per_half,
+        options.uniform_spacing,
     ) {
         let a = quarter_chord_point(surface, s0);
         let b = quarter_chord_point(surface, s1);
+        let (le_a, chord_a_m) = leading_edge_point(surface, s0);
+        let (le_b, chord_b_m) = leading_edge_point(surface, s1);
         let t = (s_cp - s0) / (s1 - s0);
         let control = a + (b - a) * t;
         let st = station_at(surface, s_cp.abs());
@@ -1161,6 +1267,11 @@ fn discretise(
             node_b: b,
             control,
             normal,
+            le_a,
+            le_b,
+            chord_a_m,
+            chord_b_m,
+            control_t: t,
         });
     }
     Ok(())

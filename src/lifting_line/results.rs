@@ -17,7 +17,7 @@
 
 use std::f64::consts::PI;
 
-use nalgebra::DVector;
+use nalgebra::{DMatrix, DVector};
 
 use super::multi_surface::{
     trefftz_width_m, FlightCondition, MultiSurfaceSystem, SolveStatus, UnitSums,
@@ -163,6 +163,11 @@ pub(crate) fn assemble(
     let wake = system.wake_direction();
     let stations = system.stations();
     let induced = system.induced() * gamma;
+    let offsets = system.lift_x_offsets(&DMatrix::from_column_slice(
+        gamma.len(),
+        1,
+        gamma.as_slice(),
+    ));
     let trefftz = system.trefftz() * gamma;
 
     let table: Vec<StationResult> = stations
@@ -195,7 +200,7 @@ pub(crate) fn assemble(
             let st = &stations[i];
             let lift = 2.0 * gamma[i] * st.dy_m / s_ref;
             sums.cl += lift;
-            sums.mx -= lift * st.x_m / c_ref;
+            sums.mx -= (lift * st.x_m + 2.0 * offsets[(i, 0)] * st.dy_m / s_ref) / c_ref;
             sums.mz -= lift * st.z_m / c_ref;
             let cm_ac = st.section.cm_ac
                 + info.elevator.map_or(0.0, |e| {

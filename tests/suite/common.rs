@@ -80,3 +80,12 @@ pub fn elliptic_wing(aspect_ratio: f64, span_m: f64) -> Surface {
         }),
     }
 }
+
+/// Options that select the Phillips-Snyder lifting line (for the tests that check it against
+/// Glauert's classical solution), with the default discretisation otherwise.
+pub fn lifting_line_options() -> trimline::lifting_line::LiftingLineOptions {
+    trimline::lifting_line::LiftingLineOptions {
+        model: trimline::lifting_line::WingModel::LiftingLine,
+        ..trimline::lifting_line::LiftingLineOptions::default()
+    }
+}

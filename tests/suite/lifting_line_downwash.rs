@@ -4,7 +4,7 @@
 use crate::common::{elliptic_wing, flat_plate, panel, surface, tapered_wing};
 use approx::assert_relative_eq;
 use std::f64::consts::PI;
-use trimline::lifting_line::{LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput};
+use trimline::lifting_line::{MultiSurfaceSystem, Reference, SurfaceInput};
 use trimline::model::Surface;
 use trimline::section::SectionModel;
 
@@ -20,7 +20,7 @@ fn system(surfaces: &[&Surface], sections: &[SectionModel]) -> MultiSurfaceSyste
     MultiSurfaceSystem::new(
         &inputs,
         Reference::of_surface(surfaces[0]),
-        LiftingLineOptions::default(),
+        crate::common::lifting_line_options(),
     )
     .unwrap()
 }

@@ -14,7 +14,7 @@ use trimline::section::SectionModel;
 fn options(per_half: usize) -> LiftingLineOptions {
     LiftingLineOptions {
         stations_per_half_span: per_half,
-        ..LiftingLineOptions::default()
+        ..crate::common::lifting_line_options()
     }
 }
 

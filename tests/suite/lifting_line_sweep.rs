@@ -1,10 +1,10 @@
-//! Validation of swept wings in the multi-surface lifting line against the classical sweep
-//! correction (Helmbold's equation as extended to sweep by Diederich, in the DATCOM form).
+//! Validation of swept wings in the multi-surface lifting line (the Phillips-Snyder model, kept
+//! as a selectable reference) against the classical sweep correction (Helmbold-Diederich, DATCOM form).
 
 use crate::common::{flat_plate, panel, surface};
 use approx::assert_relative_eq;
 use std::f64::consts::PI;
-use trimline::lifting_line::{LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput};
+use trimline::lifting_line::{MultiSurfaceSystem, Reference, SurfaceInput};
 
 /// Lift slope of a constant-chord wing of aspect ratio 8 swept `sweep_deg` (leading edge,
 /// quarter chord and half chord alike), default discretisation.
@@ -21,7 +21,7 @@ fn swept_lift_slope(sweep_deg: f64) -> f64 {
     let sys = MultiSurfaceSystem::new(
         &input,
         Reference::of_surface(&wing),
-        LiftingLineOptions::default(),
+        crate::common::lifting_line_options(),
     )
     .unwrap();
     sys.solve(&sys.condition(0.05)).unwrap().lift_slope_per_rad

@@ -12,6 +12,7 @@ mod fuselage;
 mod geometry;
 mod input_errors;
 mod input_file;
+mod lattice;
 mod lifting_line_classical;
 mod lifting_line_downwash;
 mod lifting_line_multi;
