@@ -13,6 +13,7 @@ use crate::performance::drag::{self, BodyDragInput, SurfaceDragInput};
 use crate::performance::polar::{oswald_straight_wing, GlidePerformance, PolarInput};
 
 use crate::lifting_line::LiftingLineOptions;
+use crate::model::WingModel;
 use crate::planform::{self, PlanformGeometry, TailVolume};
 use crate::section::SectionModel;
 use crate::stability::classical::{self, ClassicalEstimate, EquivalentSurface, StabiliserPlace};
@@ -41,15 +42,16 @@ pub const WEIGHING_MASS_TOLERANCE: f64 = 0.05;
 pub struct AnalysisOptions {
     /// Panels for the vortex panel method, where it is used.
     pub panels: usize,
-    /// Lifting-line stations per half-span of each surface.
-    pub stations_per_half_span: usize,
+    /// Strips per half-span of the wing, overriding the file's `[numerics]` (`None`: the
+    /// file's, or the default).
+    pub stations_per_half_span: Option<usize>,
 }
 
 impl Default for AnalysisOptions {
     fn default() -> Self {
         AnalysisOptions {
             panels: 160,
-            stations_per_half_span: 40,
+            stations_per_half_span: None,
         }
     }
 }
@@ -96,6 +98,8 @@ pub struct BallastAdvice {
 /// Everything computed for one aircraft.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Analysis {
+    /// The wing model and resolution the figures come from.
+    pub numerics: crate::model::Numerics,
     /// The air at the file's altitude.
     pub air: AirState,
     /// Section models, parallel to `aircraft.airfoils`.
@@ -137,9 +141,10 @@ pub struct Analysis {
 /// Which model gave the headline figures.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Method {
-    /// The multi-surface lifting line.
-    LiftingLine,
-    /// The closed-form estimate (used only when the lifting line could not be solved).
+    /// The numerical model of all surfaces together (the vortex lattice, or the lifting line
+    /// when the file asks for it).
+    Numerical(WingModel),
+    /// The closed-form estimate (used only when the numerical model could not be solved).
     Classical,
 }
 
@@ -147,7 +152,7 @@ impl Method {
     /// Name used in tables and JSON.
     pub fn as_str(self) -> &'static str {
         match self {
-            Method::LiftingLine => "lifting-line",
+            Method::Numerical(m) => m.as_str(),
             Method::Classical => "classical",
         }
     }
@@ -381,6 +386,7 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
     reynolds_caution(reynolds_mac, speed, &mut cautions);
     cautions.push(safety_caution());
     Ok(Analysis {
+        numerics: numerics_used(aircraft, options),
         air,
         sections,
         wing_geometry: wing.geometry,
@@ -416,7 +422,7 @@ fn headline_of(
     };
     match full {
         Some(f) => Headline {
-            method: Method::LiftingLine,
+            method: Method::Numerical(aircraft.numerics.wing_model),
             neutral_point_x_m: f.neutral_point_x_m,
             static_margin: f.static_margin,
             trim: f.trim.as_ref().map(|t| TrimSummary {
@@ -853,22 +859,49 @@ fn full_model_cautions(
     }
     let diff = (f.neutral_point_x_m - est.neutral_point_x_m) / mac_m;
     if diff.abs() > MODELS_DISAGREE {
+        let model = match aircraft.numerics.wing_model {
+            WingModel::VortexLattice => "vortex-lattice",
+            WingModel::LiftingLine => "lifting-line",
+        };
+        let why = match aircraft.numerics.wing_model {
+            WingModel::VortexLattice => format!(
+                "The lattice models sweep, taper, twist, {}and where along the chord each strip \
+                 carries its lift; the closed form reduces the wing to a straight equivalent wing{}. \
+                 Neither models the fuselage's interference or a flexible wing.",
+                if aircraft.stabiliser.is_some() {
+                    "the stabiliser's place in the wake (downwash) "
+                } else {
+                    ""
+                },
+                if aircraft.stabiliser.is_some() {
+                    " with a simple downwash formula"
+                } else {
+                    ""
+                }
+            ),
+            WingModel::LiftingLine => "The lifting line puts each strip's lift on its quarter-chord line, which places \
+                 the neutral point of a swept or low-aspect-ratio surface too far aft; the closed form \
+                 reduces the wing to a straight equivalent wing."
+                .to_string(),
+        };
+        let advice = if diff > 0.0 {
+            format!(
+                "Until a glide test confirms the balance, keep the CG ahead of {:.0} mm, the aft end \
+                 of the band measured from the closed-form neutral point (the more forward, safer one).",
+                1000.0 * (est.neutral_point_x_m - aircraft.margin_limits.min_static_margin * mac_m)
+            )
+        } else {
+            "The band is measured from the more forward of the two, the safer one.".to_string()
+        };
         cautions.push(Caution::new(
             Level::Note,
             "models-disagree",
             format!(
-                                "The lifting-line neutral point lies {:.0} mm {} of the closed-form estimate ({:.1} % of MAC). \
-                                  The lifting line accounts for sweep, twist{} the real spanwise loading, which the closed \
-                 form does not; treat the difference as a measure of how uncertain the neutral point is, \
-                 and start the first flights at the forward end of the band.",
+                "The {model} neutral point lies {:.0} mm {} of the closed-form estimate ({:.1} % of MAC). \
+                 {why} {advice}",
                 (diff * mac_m * 1000.0).abs(),
                 if diff > 0.0 { "aft" } else { "forward" },
                 100.0 * diff.abs(),
-                                if aircraft.stabiliser.is_some() {
-                    ", the stabiliser's height in the wake and"
-                } else {
-                    " and"
-                }
             ),
         ));
     }
@@ -1091,12 +1124,27 @@ pub fn trim_input<'a>(
         cg_z_m: mass.cg_z_m.unwrap_or(aircraft.wing.root_le_z_m),
         density_kg_m3: air.density_kg_m3,
         fuselage_cm_alpha_per_rad,
-        options: LiftingLineOptions {
-            stations_per_half_span: options.stations_per_half_span,
-            ..LiftingLineOptions::default()
+        options: {
+            let n = numerics_used(aircraft, options);
+            LiftingLineOptions {
+                model: n.wing_model,
+                stations_per_half_span: n.strips_per_half_span,
+                chordwise_panels: n.chordwise_panels,
+                ..LiftingLineOptions::default()
+            }
         },
         target_speed_m_s: aircraft.targets.trim_speed_m_s,
         top_speed_m_s: aircraft.targets.top_speed_m_s,
+    }
+}
+
+/// The file's `[numerics]` with the options' override applied.
+fn numerics_used(aircraft: &Aircraft, options: &AnalysisOptions) -> crate::model::Numerics {
+    crate::model::Numerics {
+        strips_per_half_span: options
+            .stations_per_half_span
+            .unwrap_or(aircraft.numerics.strips_per_half_span),
+        ..aircraft.numerics
     }
 }
 

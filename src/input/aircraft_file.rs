@@ -7,8 +7,8 @@ use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel};
 use super::units::{parse_quantity, Dimension};
 use crate::model::{
     Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fuselage,
-    MarginLimits, MassItem, Panel, PitchControl, SectionMethod, Setup, Stabiliser, StabiliserRole,
-    Surface, SurfaceShape, Targets, WeighingSupport,
+    MarginLimits, MassItem, Numerics, Panel, PitchControl, SectionMethod, Setup, Stabiliser,
+    StabiliserRole, Surface, SurfaceShape, Targets, WeighingSupport, WingModel,
 };
 use std::collections::BTreeMap;
 use std::ops::Range;
@@ -173,6 +173,13 @@ const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
 const TEMP_OFFSET_K: Bounds = Bounds::closed(-60.0, 60.0);
 const DENSITY: Bounds = Bounds::closed(0.3, 1.5);
 const FUSELAGE_MM: Bounds = Bounds::positive(30_000.0);
+/// Strips per half-span of the wing (the lifting line's own limits).
+const STRIPS: Bounds = Bounds::closed(4.0, 500.0);
+/// Chordwise lattice panels per strip.
+const CHORDWISE: Bounds = Bounds::closed(1.0, 40.0);
+/// Lattice panels on each half of the wing that the file may ask for: the tail's strips come
+/// on top, within the lattice's own limit.
+const MAX_WING_HALF_PANELS: usize = 1500;
 
 impl Ctx<'_> {
     fn location(&self, span: &Range<usize>) -> Location {
@@ -468,6 +475,7 @@ impl Ctx<'_> {
             },
         };
         let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref())?;
+        let numerics = self.numerics(raw.numerics.as_ref())?;
         let weighing = raw
             .weighing
             .iter()
@@ -542,6 +550,7 @@ impl Ctx<'_> {
             ballast_bays,
             targets,
             margin_limits,
+            numerics,
             setups,
             weighing,
         })
@@ -1493,6 +1502,80 @@ impl Ctx<'_> {
             )?,
             max_mass_kg,
         })
+    }
+
+    fn numerics(&self, raw: Option<&raw::RawNumerics>) -> Result<Numerics, InputError> {
+        let mut out = Numerics::default();
+        let Some(n) = raw else {
+            return Ok(out);
+        };
+        if let Some(m) = &n.wing_model {
+            out.wing_model = match m.get_ref().trim().to_ascii_lowercase().as_str() {
+                "vortex-lattice" => WingModel::VortexLattice,
+                "lifting-line" => WingModel::LiftingLine,
+                other => {
+                    return Err(self.err(
+                        &m.span(),
+                        "numerics.wing_model",
+                        format!("unknown wing model `{other}`"),
+                        Some("vortex-lattice, lifting-line".into()),
+                    ))
+                }
+            };
+        }
+        let count = |q: Option<&Quantity>,
+                     field: &str,
+                     bounds: Bounds|
+         -> Result<Option<usize>, InputError> {
+            let Some(q) = q else { return Ok(None) };
+            let v = self
+                .opt_quantity(Some(q), field, Dimension::Plain, bounds)?
+                .unwrap_or_default();
+            if v.fract() != 0.0 {
+                return Err(self.err(
+                    &q.span(),
+                    field,
+                    format!("{v} is not a whole number"),
+                    Some(accepted_quantity(Dimension::Plain, bounds)),
+                ));
+            }
+            Ok(Some(v as usize))
+        };
+        if let Some(v) = count(
+            n.spanwise_strips.as_ref(),
+            "numerics.spanwise_strips",
+            STRIPS,
+        )? {
+            out.strips_per_half_span = v;
+        }
+        if let Some(v) = count(
+            n.chordwise_panels.as_ref(),
+            "numerics.chordwise_panels",
+            CHORDWISE,
+        )? {
+            out.chordwise_panels = v;
+        }
+        let half_panels = out.strips_per_half_span * out.chordwise_panels;
+        if out.wing_model == WingModel::VortexLattice && half_panels > MAX_WING_HALF_PANELS {
+            let span = n
+                .chordwise_panels
+                .as_ref()
+                .or(n.spanwise_strips.as_ref())
+                .map_or(0..0, |q| q.span());
+            return Err(self.err(
+                &span,
+                "numerics",
+                format!(
+                    "{} strips x {} chordwise panels = {half_panels} lattice panels on each half of the wing is too many",
+                    out.strips_per_half_span, out.chordwise_panels
+                ),
+                Some(format!(
+                    "at most {MAX_WING_HALF_PANELS} (the tail adds its share; {} is the limit for the whole half aircraft)",
+                    crate::lifting_line::lattice::MAX_HALF_PANELS
+                )),
+            ));
+        }
+        Ok(out)
     }
 
     fn limits(

@@ -41,6 +41,17 @@ pub struct RawAircraft {
     pub setup: Vec<Spanned<RawSetup>>,
     #[serde(default)]
     pub weighing: Vec<Spanned<RawSupport>>,
+    #[serde(default)]
+    pub numerics: Option<RawNumerics>,
+}
+
+/// `[numerics]`: the wing model and its resolution.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawNumerics {
+    pub wing_model: Option<Spanned<String>>,
+    pub spanwise_strips: Option<Quantity>,
+    pub chordwise_panels: Option<Quantity>,
 }
 
 /// `[[weighing]]`: one support of a weighing.

@@ -1,11 +1,15 @@
-//! The wing model: lifting-line theory for one wing (classical) and for all lifting surfaces
-//! together (numerical, multi-surface).
+//! The wing model: all lifting surfaces together on spanwise strips, with the induced angles
+//! from a vortex lattice (the default) or a lifting line, and the classical lifting line for
+//! one straight wing.
 //!
+//! - [`lattice`]: the horseshoe vortex lattice with chordwise panels, condensed onto the
+//!   strips so that each strip's section data decide its lift (the default model).
 //! - [`classical`]: Prandtl's lifting-line equation solved by Glauert's Fourier collocation,
 //!   for one straight unswept wing; the reference the numerical model is checked against.
 //! - [`vortex`]: Biot-Savart kernels (segment, semi-infinite leg, horseshoe, Trefftz pair).
-//! - [`multi_surface`]: the Phillips-Snyder numerical lifting line for wing and tail (or
-//!   canard) together, factored once per geometry, with unit solutions for fast trim.
+//! - [`multi_surface`]: the strip system of wing and tail (or canard) together, with the
+//!   lattice's or the Phillips-Snyder lifting line's induced angles, factored once per
+//!   geometry, with unit solutions for fast trim.
 //! - [`superposition`]: trim, neutral point and stall from the unit solutions (microseconds).
 //! - [`results`]: per-surface and total coefficients, the spanwise table and the stall station.
 //!

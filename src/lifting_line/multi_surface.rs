@@ -1,5 +1,9 @@
-//! Numerical lifting line for several lifting surfaces together (wing with tail or canard),
-//! after Phillips and Snyder.
+//! Strip system for several lifting surfaces together (wing with tail or canard): the
+//! Phillips-Snyder numerical lifting line, or the same strips with the induced-angle matrix
+//! and the lift's chordwise centre of the vortex lattice ([`super::lattice`], the default;
+//! chosen by [`LiftingLineOptions::model`]). The description below is the lifting line's; the
+//! lattice replaces A_ij by its condensed matrix and keeps everything else (section relation,
+//! unit solutions, Newton's method past cl_max).
 //!
 //! Each surface is cut spanwise, over both halves, into segments along its quarter-chord line.
 //! Every segment carries a horseshoe vortex: a bound vortex on the segment and two trailing
@@ -91,6 +95,7 @@ use super::vortex::{
 };
 use super::LiftingLineError;
 use crate::model::{Aircraft, Surface, SurfaceShape};
+pub use crate::model::{WingModel, DEFAULT_CHORDWISE_PANELS, DEFAULT_STRIPS_PER_HALF_SPAN};
 use crate::planform::{self, break_points_m, half_span_length_m, station_at};
 use crate::section::SectionModel;
 
@@ -161,22 +166,10 @@ impl Reference {
     }
 }
 
-/// Which three-dimensional model gives the induced angles and the lift's chordwise centre.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
-pub enum WingModel {
-    /// Vortex lattice with chordwise panels, condensed onto the strips
-    /// ([`super::lattice`]): right for sweep, low aspect ratio and the tail's downwash.
-    #[default]
-    VortexLattice,
-    /// Phillips-Snyder lifting line (one horseshoe per strip on the quarter-chord line):
-    /// the reference for straight wings of moderate to high aspect ratio.
-    LiftingLine,
-}
-
 /// Discretisation and solver settings.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct LiftingLineOptions {
-    /// The three-dimensional model (default: the vortex lattice).
+    /// The three-dimensional model (default: the vortex lattice, [`super::lattice`]).
     pub model: WingModel,
     /// Strips (horseshoe vortices of the lifting line) per half-span of each surface (2 to
     /// 500; default 40).
@@ -223,13 +216,6 @@ impl Default for LiftingLineOptions {
         }
     }
 }
-
-/// Default strips per half-span: the vortex lattice's neutral point is then converged to
-/// better than 0.2 % of the MAC on the example aircraft and on swept wings to 35 deg
-/// (tests/suite/lattice.rs doubles both counts).
-pub const DEFAULT_STRIPS_PER_HALF_SPAN: usize = 40;
-/// Default chordwise lattice panels per strip (see [`DEFAULT_STRIPS_PER_HALF_SPAN`]).
-pub const DEFAULT_CHORDWISE_PANELS: usize = 6;
 
 /// One station (horseshoe vortex) of the discretised aircraft.
 #[derive(Debug, Clone, PartialEq)]

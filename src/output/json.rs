@@ -234,11 +234,15 @@ pub struct SectionJson {
 /// `/stability`
 #[derive(Debug, Serialize)]
 pub struct StabilityJson {
-    /// Method of the figures below: `lifting-line` or `classical`.
+    /// Method of the figures below: `vortex-lattice`, `lifting-line` or `classical`.
     pub method: &'static str,
+    /// Strips per half-span of the wing in the numerical model.
+    pub spanwise_strips: usize,
+    /// Chordwise lattice panels per strip (1 for the lifting line).
+    pub chordwise_panels: usize,
     /// Closed-form neutral point (cross-check), m.
     pub classical_neutral_point_x_m: f64,
-    /// Lifting-line minus closed-form neutral point, percent MAC (0 when only the closed form ran).
+    /// Numerical-model minus closed-form neutral point, percent MAC (0 when only the closed form ran).
     pub neutral_point_difference_percent_mac: f64,
     /// m
     pub neutral_point_x_m: f64,
@@ -581,6 +585,11 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             .collect(),
         stability: StabilityJson {
             method: h.method.as_str(),
+            spanwise_strips: a.numerics.strips_per_half_span,
+            chordwise_panels: match a.numerics.wing_model {
+                crate::model::WingModel::VortexLattice => a.numerics.chordwise_panels,
+                crate::model::WingModel::LiftingLine => 1,
+            },
             classical_neutral_point_x_m: r(est.neutral_point_x_m, 5),
             neutral_point_difference_percent_mac: r(
                 100.0 * (h.neutral_point_x_m - est.neutral_point_x_m) / g.mac_m,
@@ -627,7 +636,7 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             cl_max: r(h.cl_max, 4),
             speed_m_s: r(h.stall_speed_m_s, 3),
             method: match h.method {
-                Method::LiftingLine => "critical-section",
+                Method::Numerical(_) => "critical-section",
                 Method::Classical => "classical",
             },
             surface: h.stall_location.as_ref().map(|l| l.surface_name),

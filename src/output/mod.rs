@@ -11,6 +11,32 @@ pub mod report_file;
 pub mod section;
 pub mod tables;
 
+/// The wing model in a few words for table notes: "vortex-lattice model", "lifting-line model".
+pub fn wing_model_name(n: &crate::model::Numerics) -> &'static str {
+    match n.wing_model {
+        crate::model::WingModel::VortexLattice => "vortex-lattice model",
+        crate::model::WingModel::LiftingLine => "lifting-line model",
+    }
+}
+
+/// The wing model with its resolution and sources, for the methods footer and the spanwise
+/// chart.
+pub fn wing_model_method(n: &crate::model::Numerics) -> String {
+    match n.wing_model {
+        crate::model::WingModel::VortexLattice => format!(
+            "vortex lattice, {} strips x {} chordwise panels on each half-wing (Katz and Plotkin, \
+             Low-Speed Aerodynamics, ch. 12), each strip's lift from its section's lift curve \
+             (decambering, Mukherjee and Gopalarathnam, J. Aircraft 43(3), 2006)",
+            n.strips_per_half_span, n.chordwise_panels
+        ),
+        crate::model::WingModel::LiftingLine => format!(
+            "numerical lifting line, {} stations on each half-wing (Phillips and Snyder, \
+             J. Aircraft 37(4), 2000)",
+            n.strips_per_half_span
+        ),
+    }
+}
+
 /// "12 mm aft of" or "12 mm ahead of" for a distance `dx_m` along x (positive aft), rounded to
 /// whole millimetres, for sentences such as "... the wing root leading edge".
 pub fn mm_aft_or_ahead(dx_m: f64) -> String {

@@ -555,6 +555,14 @@ fn top_view(aircraft: &Aircraft, a: &Analysis, target_x_m: Option<f64>) -> TopVi
     }
 }
 
+/// `text` with its first letter in upper case.
+fn capitalised(text: &str) -> String {
+    let mut c = text.chars();
+    c.next()
+        .map(|f| f.to_uppercase().chain(c).collect())
+        .unwrap_or_default()
+}
+
 /// The spanwise chart from the lifting-line solution: the wing's local cl against its local
 /// cl_max at trim and at the critical-section stall, with the station where stall begins.
 pub fn lifting_line_spanwise(a: &Analysis) -> Option<SpanwiseData> {
@@ -588,9 +596,11 @@ pub fn lifting_line_spanwise(a: &Analysis) -> Option<SpanwiseData> {
         .filter(|l| l.surface == 0)
         .map(|l| l.percent_semispan / 100.0);
     Some(SpanwiseData {
-        method: "Multi-surface lifting line (Phillips and Snyder, 2000); stall where the first \
-                 section reaches its cl max (critical-section method, conservative)."
-            .to_string(),
+        method: format!(
+            "All surfaces together: {}; stall where the first section reaches its cl max \
+             (critical-section method, conservative).",
+            super::wing_model_method(&a.numerics)
+        ),
         trim: f
             .trim
             .as_ref()
@@ -661,8 +671,9 @@ pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
                 aircraft,
                 a,
                 |cg_x_m| sweeper.trim_speed_m_s(cg_x_m),
-                                &format!(
-                    "Lifting-line model re-trimmed at each CG position, same mass and incidences, {} neutral.",
+                &format!(
+                    "{} re-trimmed at each CG position, same mass and incidences, {} neutral.",
+                    capitalised(super::wing_model_name(&a.numerics)),
                     aircraft.pitch_control_name()
                 ),
             );
@@ -773,9 +784,18 @@ fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
         sections.join("; ")
     )];
     let surfaces = match aircraft.stabiliser.as_ref().map(|s| s.role) {
-        Some(StabiliserRole::Tail) => "Wing and tail together: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000), tail in the wing's wake",
-        Some(StabiliserRole::Canard) => "Canard and wing together: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000), wing in the canard's wake",
-        None => "Tailless wing: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000)",
+        Some(StabiliserRole::Tail) => format!(
+            "Wing and tail together: {}, tail in the wing's wake",
+            super::wing_model_method(&aircraft.numerics)
+        ),
+        Some(StabiliserRole::Canard) => format!(
+            "Canard and wing together: {}, wing in the canard's wake",
+            super::wing_model_method(&aircraft.numerics)
+        ),
+        None => format!(
+            "Tailless wing: {}",
+            super::wing_model_method(&aircraft.numerics)
+        ),
     };
     let pitch = match aircraft.pitch_control() {
         Some(_) => format!(

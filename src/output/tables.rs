@@ -229,22 +229,32 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         num(h.neutral_point_x_m * 1000.0, 1),
         pct(h.neutral_point_x_m),
         match h.method {
-            Method::LiftingLine if aircraft.fuselage.is_some() => {
-                "lifting-line model with fuselage".to_string()
+            Method::Numerical(_) if aircraft.fuselage.is_some() => {
+                format!(
+                    "{} with fuselage",
+                    super::wing_model_name(&aircraft.numerics)
+                )
             }
-            Method::LiftingLine => "lifting-line model (no [fuselage] given)".to_string(),
+            Method::Numerical(_) => format!(
+                "{} (no [fuselage] given)",
+                super::wing_model_name(&aircraft.numerics)
+            ),
             Method::Classical => "closed-form estimate".to_string(),
         },
     ]);
-    if h.method == Method::LiftingLine {
+    if matches!(h.method, Method::Numerical(_)) {
         let c = &a.classical;
         t.add_row(vec![
             "neutral point, closed form".to_string(),
             num(c.neutral_point_x_m * 1000.0, 1),
             pct(c.neutral_point_x_m),
             format!(
-                "cross-check: {} mm from the lifting line",
-                num((c.neutral_point_x_m - h.neutral_point_x_m) * 1000.0, 1)
+                "cross-check: {} mm from the {}",
+                num((c.neutral_point_x_m - h.neutral_point_x_m) * 1000.0, 1),
+                match aircraft.numerics.wing_model {
+                    crate::model::WingModel::VortexLattice => "lattice",
+                    crate::model::WingModel::LiftingLine => "lifting line",
+                }
             ),
         ]);
     }
@@ -426,7 +436,7 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             ]);
         }
     }
-    let crit = if h.method == Method::LiftingLine {
+    let crit = if matches!(h.method, Method::Numerical(_)) {
         "aircraft CL max (first section to stall)"
     } else {
         "aircraft CL max (0.9 x section)"

@@ -58,7 +58,7 @@ fn with_cg(text: &str, x_mm: f64) -> Aircraft {
 /// The lifting-line system the analysis with `opts()` builds, for checks on its own solves.
 fn system_of(ac: &Aircraft, a: &trimline::analysis::Analysis) -> MultiSurfaceSystem {
     let options = trimline::lifting_line::LiftingLineOptions {
-        stations_per_half_span: opts().stations_per_half_span,
+        stations_per_half_span: opts().stations_per_half_span.unwrap(),
         ..Default::default()
     };
     build_system(ac, &a.sections, options).unwrap()
@@ -67,7 +67,7 @@ fn system_of(ac: &Aircraft, a: &trimline::analysis::Analysis) -> MultiSurfaceSys
 fn opts() -> AnalysisOptions {
     AnalysisOptions {
         panels: 120,
-        stations_per_half_span: 30,
+        stations_per_half_span: Some(30),
     }
 }
 
@@ -79,7 +79,10 @@ fn cm_slope_vanishes_at_the_neutral_point() {
     let ac = load(GLIDER);
     let a = analyse(&ac, &opts()).unwrap();
     let f = a.full.as_ref().expect("lifting line solved");
-    assert_eq!(a.headline.method, Method::LiftingLine);
+    assert_eq!(
+        a.headline.method,
+        Method::Numerical(trimline::model::WingModel::VortexLattice)
+    );
     let system = system_of(&ac, &a);
     let base = system.condition(0.0);
     let z = ac.wing.root_le_z_m;
@@ -291,7 +294,10 @@ fn unstable_aircraft_with_a_token_tail_is_still_analysed() {
         .replace("span = 250\ntip_chord = 100", "span = 5\ntip_chord = 5")
         .replace("x = 60\n", "x = 300\n");
     let a = analyse(&load(&text), &opts()).unwrap();
-    assert_eq!(a.headline.method, Method::LiftingLine);
+    assert_eq!(
+        a.headline.method,
+        Method::Numerical(trimline::model::WingModel::VortexLattice)
+    );
     assert!(a.headline.static_margin < 0.0);
     assert!(a.headline.trim.is_none());
     assert!(a.headline.stall_speed_m_s.is_finite());

@@ -7,6 +7,7 @@ use crate::common::{elliptic_wing, flat_plate, panel, section, surface};
 use approx::assert_relative_eq;
 use nalgebra::{DMatrix, DVector, Vector3};
 use std::f64::consts::PI;
+use trimline::analysis::analyse;
 use trimline::lifting_line::{
     LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput, WingModel,
 };
@@ -435,4 +436,59 @@ fn section_lift_slope_lowers_the_wing_lift_slope_as_the_lifting_line_does() {
         helm(5.7) / helm(2.0 * PI),
         max_relative = 1e-2
     );
+}
+
+#[test]
+fn shipped_flying_wing_is_stable_and_its_neutral_point_matches_the_independent_lattice() {
+    // Source: the independent ring lattice above (Katz & Plotkin, ch. 12), on the planform of
+    // aircraft/skerrywing-900.toml (one trapezoid: 240/130 mm chords, 450 mm semispan, 25 deg
+    // leading-edge sweep) with flat-plate sections on both models, so that only the 3-D
+    // model is compared: neutral points within 1 % of the MAC. Then the analysis of the file
+    // as shipped must give a positive static margin inside its [limits] band (4 to 10 %).
+    let text = std::fs::read_to_string("aircraft/skerrywing-900.toml").unwrap();
+    let ac = trimline::input::parse_aircraft(&text, "skerrywing-900.toml", None).unwrap();
+    let plates = vec![flat_plate(); ac.airfoils.len()];
+    let sys = trimline::stability::trim::build_system(&ac, &plates, LiftingLineOptions::default())
+        .unwrap();
+    let np = sys.neutral_point_x_m(&sys.condition(0.0), 0.0).unwrap();
+    let (b, cr, ct) = (0.9, 0.24, 0.13);
+    let area = 0.5 * b * (cr + ct);
+    let tan_qc = 25f64.to_radians().tan() - (cr - ct) / (4.0 * 0.5 * b);
+    let (np_ring, _) = ring_lattice(b * b / area, ct / cr, tan_qc.atan().to_degrees(), 48, 12);
+    let mac = 2.0 / 3.0 * cr * (1.0 + ct / cr + (ct / cr).powi(2)) / (1.0 + ct / cr);
+    let d = (np - 0.5 * b * np_ring) / mac;
+    assert!(d.abs() < 0.01, "{:.2} % MAC", 100.0 * d);
+    let a = analyse(&ac, &Default::default()).unwrap();
+    let sm = a.headline.static_margin;
+    assert!((0.04..=0.10).contains(&sm), "static margin {sm}");
+}
+
+#[test]
+fn numerics_table_chooses_the_model_and_refuses_what_it_cannot_solve() {
+    // The file's [numerics] (aircraft/README.md): the lifting line on request, the resolution
+    // reported back; an unknown model, a fractional count and an oversized lattice are located
+    // errors naming the accepted range.
+    let text = std::fs::read_to_string("aircraft/skerrywing-900.toml").unwrap();
+    let parse = |extra: &str| {
+        trimline::input::parse_aircraft(&format!("{text}\n[numerics]\n{extra}\n"), "w.toml", None)
+    };
+    let ll = parse("wing_model = \"lifting-line\"\nspanwise_strips = 24").unwrap();
+    let a = analyse(&ll, &Default::default()).unwrap();
+    assert_eq!(a.headline.method.as_str(), "lifting-line");
+    assert_eq!(a.numerics.strips_per_half_span, 24);
+    let e = parse("wing_model = \"panels\"").unwrap_err().to_string();
+    assert!(
+        e.contains("numerics.wing_model") && e.contains("vortex-lattice, lifting-line"),
+        "{e}"
+    );
+    assert!(e.contains("w.toml:"), "{e}");
+    let e = parse("chordwise_panels = 2.5").unwrap_err().to_string();
+    assert!(
+        e.contains("numerics.chordwise_panels") && e.contains("whole number"),
+        "{e}"
+    );
+    let e = parse("spanwise_strips = 400\nchordwise_panels = 40")
+        .unwrap_err()
+        .to_string();
+    assert!(e.contains("at most 1500"), "{e}");
 }

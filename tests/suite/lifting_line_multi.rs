@@ -368,6 +368,7 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
         },
         setups: vec![],
         weighing: vec![],
+        numerics: Default::default(),
     };
     let from_aircraft =
         MultiSurfaceSystem::from_aircraft(&aircraft, &sections, None, options(20)).unwrap();
