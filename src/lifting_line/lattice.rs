@@ -64,7 +64,7 @@ use std::f64::consts::PI;
 
 use super::classical::check_pivots;
 use super::multi_surface::Station;
-use super::vortex::{horseshoe_velocity, Vec3};
+use super::vortex::{segment_velocity, semi_infinite_velocity, Vec3};
 use super::LiftingLineError;
 
 /// Largest number of lattice panels on one half of the aircraft: the folded influence matrix
@@ -155,24 +155,77 @@ pub(crate) fn condense(
     // mirror image's.
     let mut k_fold = DMatrix::<f64>::zeros(np, np);
     let mut x_bound = vec![0.0; np];
-    for (j, sj) in stations.iter().enumerate() {
-        let base = rep_of[j] * n_c;
-        for k in 0..n_c {
+    // A trailing leg on a side edge shared by two strips uses the mean of their widths for
+    // its core, so that the two legs on that line (one from each strip's panel) cancel to
+    // their difference of strength, as the lifting line's shared legs do; a core taken from
+    // each strip's own width would leave a spurious field next to the line wherever
+    // neighbouring widths differ (a tail lying in the wing's wake sheet would see it).
+    let edge_width = |j: usize, side_a: bool| -> f64 {
+        let sj = &stations[j];
+        let neighbour = if side_a {
+            j.checked_sub(1)
+                .filter(|&i| stations[i].surface == sj.surface && stations[i].node_b == sj.node_a)
+        } else {
+            Some(j + 1).filter(|&i| {
+                i < n && stations[i].surface == sj.surface && stations[i].node_a == sj.node_b
+            })
+        };
+        neighbour.map_or(sj.width_m, |i| 0.5 * (sj.width_m + stations[i].width_m))
+    };
+    // Per strip and chordwise row: the bound segment, its x, and the cores of its two legs.
+    struct Element {
+        a: Vec3,
+        b: Vec3,
+        col: usize,
+        surface: usize,
+        width_m: f64,
+        width_a_m: f64,
+        width_b_m: f64,
+        /// The leg at `a` is the `b` leg of the previous element in this list (same line,
+        /// same start, same core): it is taken from there instead of evaluated again.
+        shares_a: bool,
+    }
+    let mut elements = Vec::with_capacity(n * n_c);
+    for k in 0..n_c {
+        for (j, sj) in stations.iter().enumerate() {
             let (a, b, xb) = bound(sj, k, n_c);
+            let col = rep_of[j] * n_c + k;
             if mirror[j] >= j {
-                x_bound[base + k] = xb;
+                x_bound[col] = xb;
             }
-            let col = base + k;
-            for (r, row) in rows.iter().enumerate() {
-                let fraction = if row.surface == sj.surface {
-                    cores.self_fraction
-                } else {
-                    cores.wake_fraction
-                };
-                let core = fraction * sj.width_m;
-                let v = horseshoe_velocity(&row.control, &a, &b, wake, core, core);
-                k_fold[(r, col)] += v.dot(&row.normal);
-            }
+            let shares_a = j > 0
+                && stations[j - 1].surface == sj.surface
+                && stations[j - 1].node_b == sj.node_a;
+            elements.push(Element {
+                a,
+                b,
+                col,
+                surface: sj.surface,
+                width_m: sj.width_m,
+                width_a_m: edge_width(j, true),
+                width_b_m: edge_width(j, false),
+                shares_a,
+            });
+        }
+    }
+    for (r, row) in rows.iter().enumerate() {
+        let mut previous_b_leg = Vec3::zeros();
+        for e in &elements {
+            let fraction = if row.surface == e.surface {
+                cores.self_fraction
+            } else {
+                cores.wake_fraction
+            };
+            let leg_a = if e.shares_a {
+                previous_b_leg
+            } else {
+                semi_infinite_velocity(&row.control, &e.a, wake, fraction * e.width_a_m)
+            };
+            let leg_b = semi_infinite_velocity(&row.control, &e.b, wake, fraction * e.width_b_m);
+            let v =
+                segment_velocity(&row.control, &e.a, &e.b, fraction * e.width_m) + leg_b - leg_a;
+            previous_b_leg = leg_b;
+            k_fold[(r, e.col)] += v.dot(&row.normal);
         }
     }
     if k_fold.iter().any(|v| !v.is_finite()) {

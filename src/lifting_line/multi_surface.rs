@@ -186,8 +186,9 @@ pub struct LiftingLineOptions {
     /// Core radius seen from another surface, as a fraction of the source segment width
     /// (default 0.25).
     pub wake_core_fraction: f64,
-    /// Cluster stations toward a kinked root (sweep or dihedral) as well as toward the tips
-    /// and panel joins (default false: at a swept root the discrete solution depends on the
+    /// Lifting line only: cluster stations toward a kinked root (sweep or dihedral) as well
+    /// as toward the tips and panel joins (the vortex lattice always does, which speeds its
+    /// convergence at a swept root; default false for the lifting line: at a swept root the discrete solution depends on the
     /// distance of the nearest control point from the kink, and clustering there makes that
     /// dependence stronger; see the module documentation).
     pub cluster_at_kinked_root: bool,
@@ -373,6 +374,11 @@ pub struct MultiSurfaceSystem {
     pub(super) units: DMatrix<f64>,
     /// unit_sums[surface][unit].
     pub(super) unit_sums: Vec<Vec<UnitSums>>,
+    /// The factored system folded on the symmetry plane, its representative stations and
+    /// each station's representative (for re-solving the constant column cheaply).
+    folded_lu: nalgebra::LU<f64, nalgebra::Dyn, nalgebra::Dyn>,
+    reps: Vec<usize>,
+    rep_of: Vec<usize>,
 }
 
 impl MultiSurfaceSystem {
@@ -560,6 +566,9 @@ impl MultiSurfaceSystem {
         let units = half.select_rows(rep_of.iter());
         check_residual(&matrix, &units, &rhs)?;
         let mut system = MultiSurfaceSystem {
+            folded_lu: lu,
+            reps,
+            rep_of,
             stations,
             surfaces,
             reference,
@@ -609,6 +618,52 @@ impl MultiSurfaceSystem {
                     .collect()
             })
             .collect()
+    }
+
+    /// The same system with each station's geometric angle changed by `change_rad(station)`
+    /// (a twist or incidence change that leaves the geometry of the vortex system alone: in
+    /// this small-angle model twist enters only as a boundary angle). The factored matrix is
+    /// reused: only the constant unit solution is solved again. `change_rad` must be mirror
+    /// symmetric (it is called with each station, whose `s_m` is negative to port).
+    pub fn with_angle_change(
+        &self,
+        change_rad: impl Fn(&Station) -> f64,
+    ) -> Result<MultiSurfaceSystem, LiftingLineError> {
+        let mut out = self.clone();
+        for st in &mut out.stations {
+            let d = change_rad(st);
+            if !(d.is_finite() && d.abs() < 1.5) {
+                return Err(LiftingLineError::InvalidInput {
+                    parameter: "geometric angle change",
+                    value: d,
+                    range: "finite, |value| < 1.5 rad",
+                });
+            }
+            st.geometric_angle_rad += d;
+        }
+        let rhs = DVector::from_iterator(
+            out.reps.len(),
+            out.reps.iter().map(|&i| {
+                let st = &out.stations[i];
+                0.5 * st.chord_m
+                    * st.section.cl_alpha_per_rad
+                    * (st.geometric_angle_rad - st.section.alpha_zero_lift_rad)
+            }),
+        );
+        let half = out
+            .folded_lu
+            .solve(&rhs)
+            .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
+        for (i, r) in out.rep_of.iter().enumerate() {
+            out.units[(i, UNIT_CONSTANT)] = half[*r];
+        }
+        if out.units.iter().any(|v| !v.is_finite()) {
+            return Err(LiftingLineError::NonFinite {
+                quantity: "re-solved constant unit solution",
+            });
+        }
+        out.unit_sums = out.compute_unit_sums();
+        Ok(out)
     }
 
     /// The stations, surface by surface, each from port tip to starboard tip.
@@ -1195,7 +1250,11 @@ fn discretise(
         half_breaks.sort_by(f64::total_cmp);
     }
     let semispan_y = station_at(surface, total).y_m;
-    let split_at_root = options.cluster_at_kinked_root && root_is_kinked(surface);
+    let cluster = match options.model {
+        WingModel::LiftingLine => options.cluster_at_kinked_root,
+        WingModel::VortexLattice => true,
+    };
+    let split_at_root = cluster && root_is_kinked(surface);
     for (s0, s1, s_cp) in segments(
         total,
         &half_breaks,

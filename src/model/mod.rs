@@ -189,7 +189,10 @@ impl Default for Numerics {
 /// Default strips per half-span: the vortex lattice's neutral point is then within 0.2 % of
 /// the MAC of the one with both counts doubled, on swept wings to 35 deg and on a wing with
 /// its tail (tests/suite/lattice.rs).
-pub const DEFAULT_STRIPS_PER_HALF_SPAN: usize = 40;
+pub const DEFAULT_STRIPS_PER_HALF_SPAN: usize = 24;
+/// Default stations per half-span of the lifting line, when the file chooses it (its own
+/// convergence study: tests/suite/lifting_line_multi.rs).
+pub const DEFAULT_LIFTING_LINE_STATIONS: usize = 40;
 /// Default chordwise lattice panels per strip (see [`DEFAULT_STRIPS_PER_HALF_SPAN`]).
 pub const DEFAULT_CHORDWISE_PANELS: usize = 6;
 

@@ -27,7 +27,7 @@ use crate::lifting_line::{
     ElevatorEffect, FlightCondition, LiftingLineError, LiftingLineOptions, LiftingLineResult,
     MultiSurfaceSystem, StationResult, TrimControl,
 };
-use crate::model::{Aircraft, StabiliserRole, SurfaceShape};
+use crate::model::{Aircraft, StabiliserRole};
 use crate::section::SectionModel;
 
 /// Standard gravity, m/s^2.
@@ -545,10 +545,19 @@ fn tailless_check(
     // Extra linear washout that zeroes the moment at the design CL: the moment is nearly linear
     // in twist (the trim angle moves a little with it), so a few secant steps, each rebuilding
     // the system with the new twist, converge it.
+    let half_span_m = crate::planform::half_span_length_m(&input.aircraft.wing);
     let cm_with = |extra_rad: f64| -> Option<f64> {
-        let mut washed = input.aircraft.clone();
-        add_linear_washout(&mut washed, extra_rad);
-        let sys = build_system(&washed, input.sections, input.options).ok()?;
+        // Linear extra washout, zero at the root and `extra_rad` at the tip (as
+        // `add_linear_washout` would put it in the file), on the factored system.
+        let sys = system
+            .with_angle_change(|st| {
+                if st.surface == 0 {
+                    extra_rad * st.s_m.abs() / half_span_m
+                } else {
+                    0.0
+                }
+            })
+            .ok()?;
         cm_at_cl(&sys, design_cl).ok()
     };
     let washout_change_rad = (|| {
@@ -584,7 +593,9 @@ fn tailless_check(
 }
 
 /// Add twist growing linearly from 0 at the root to `tip_rad` at the tip of the wing.
+#[cfg(test)]
 fn add_linear_washout(aircraft: &mut Aircraft, tip_rad: f64) {
+    use crate::model::SurfaceShape;
     match &mut aircraft.wing.shape {
         SurfaceShape::Panels(panels) => {
             let total: f64 = panels.iter().map(|p| p.span_m).sum();
@@ -658,5 +669,54 @@ impl<'a> TrimSweeper<'a> {
                 tp.cl,
             )
         })
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::lifting_line::LiftingLineOptions;
+
+    // The washout solve re-uses the factored system (`with_angle_change`) instead of building
+    // a new one from the washed geometry: twist enters this small-angle model only as a
+    // boundary angle, so both must give the same moment to round-off (exact law of the model).
+    #[test]
+    fn re_solved_washout_equals_a_rebuilt_system() {
+        let text = include_str!("../../aircraft/skerrywing-900.toml");
+        let ac = crate::input::parse_aircraft(text, "w.toml", None).unwrap();
+        let sections: Vec<SectionModel> = ac
+            .airfoils
+            .iter()
+            .map(|a| {
+                crate::section::section_model(a, &crate::section::SectionOptions { panels: 120 })
+                    .unwrap()
+                    .model
+            })
+            .collect();
+        let options = LiftingLineOptions::default();
+        let sys = build_system(&ac, &sections, options).unwrap();
+        let extra = -1.5f64.to_radians();
+        let half = crate::planform::half_span_length_m(&ac.wing);
+        let fast = sys
+            .with_angle_change(|st| {
+                if st.surface == 0 {
+                    extra * st.s_m.abs() / half
+                } else {
+                    0.0
+                }
+            })
+            .unwrap();
+        let mut washed = ac.clone();
+        add_linear_washout(&mut washed, extra);
+        let slow = build_system(&washed, &sections, options).unwrap();
+        for alpha in [0.0, 0.08] {
+            let (a, b) = (
+                fast.linear_coefficients(&fast.condition(alpha), 0.13, 0.0)
+                    .unwrap(),
+                slow.linear_coefficients(&slow.condition(alpha), 0.13, 0.0)
+                    .unwrap(),
+            );
+            assert!((a.cm - b.cm).abs() < 1e-10 && (a.cl - b.cl).abs() < 1e-10);
+        }
     }
 }

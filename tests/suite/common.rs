@@ -86,6 +86,7 @@ pub fn elliptic_wing(aspect_ratio: f64, span_m: f64) -> Surface {
 pub fn lifting_line_options() -> trimline::lifting_line::LiftingLineOptions {
     trimline::lifting_line::LiftingLineOptions {
         model: trimline::lifting_line::WingModel::LiftingLine,
+        stations_per_half_span: trimline::model::DEFAULT_LIFTING_LINE_STATIONS,
         ..trimline::lifting_line::LiftingLineOptions::default()
     }
 }
