@@ -5,9 +5,9 @@ use anyhow::Context;
 use clap::Args;
 use std::path::PathBuf;
 use trimline::analysis::{analyse, AnalysisOptions, KeyFigures};
+use trimline::output::fs::write_file;
 use trimline::output::pdf::compare_page::MAX_COLUMNS;
 use trimline::output::pdf::Paper;
-use trimline::output::report_file::write_atomically;
 
 /// Arguments of `compare`.
 #[derive(Debug, Args)]
@@ -29,6 +29,10 @@ pub struct CompareArgs {
     /// US Letter paper for the PDF instead of A4.
     #[arg(long)]
     pub letter: bool,
+    /// When the PDF's PATH is a symbolic link, write to the file it points to (refused
+    /// otherwise).
+    #[arg(long)]
+    pub follow_link: bool,
 }
 
 /// Every configuration to compare, analysed: key figures and source name.
@@ -96,8 +100,8 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
             Paper::A4
         };
         let bytes = trimline::output::pdf::comparison_report(&data, paper);
-        write_atomically(&path, &bytes)
-            .with_context(|| format!("writing the comparison to {}", path.display()))?;
+        write_file(&path, &bytes, &super::write_options(args.follow_link))
+            .context("writing the comparison PDF")?;
         eprintln!(
             "Wrote the comparison of {} setups to {}",
             columns.len(),

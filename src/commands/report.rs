@@ -8,7 +8,7 @@ use std::time::{SystemTime, UNIX_EPOCH};
 use trimline::input;
 use trimline::output::pdf::Paper;
 use trimline::output::report::{content_hash, ReportSource};
-use trimline::output::report_file::write_report;
+use trimline::output::report_file::write_report_with;
 
 use super::check::DEMO_TEXT;
 
@@ -26,6 +26,9 @@ pub struct ReportArgs {
     /// US Letter paper instead of A4.
     #[arg(long)]
     pub letter: bool,
+    /// When PATH is a symbolic link, write to the file it points to (refused otherwise).
+    #[arg(long)]
+    pub follow_link: bool,
 }
 
 /// Run `report`.
@@ -70,8 +73,14 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<()> {
     } else {
         Paper::A4
     };
-    let analysis = write_report(&aircraft, source, paper, &out)
-        .with_context(|| format!("making the report for {}", aircraft.name))?;
+    let analysis = write_report_with(
+        &aircraft,
+        source,
+        paper,
+        &out,
+        &super::write_options(args.follow_link),
+    )
+    .with_context(|| format!("making the report for {}", aircraft.name))?;
     super::emit(&summary(&aircraft, &analysis))?;
     super::emit(&format!(
         "Wrote the trim report for {} to {}\n",

@@ -8,6 +8,7 @@ mod balance_trim;
 mod cli_check;
 mod cli_compare;
 mod common;
+mod file_output;
 mod fuselage;
 mod geometry;
 mod input_errors;
