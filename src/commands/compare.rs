@@ -33,6 +33,9 @@ pub struct CompareArgs {
     /// otherwise).
     #[arg(long)]
     pub follow_link: bool,
+    /// Exit with code 0 even when a configuration raises a danger-level caution (otherwise 3).
+    #[arg(long)]
+    pub exit_zero_on_danger: bool,
 }
 
 /// Every configuration to compare, analysed: key figures and source name.
@@ -67,8 +70,9 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
 }
 
 /// Run `compare`.
-pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
+pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
     let columns = configurations(args)?;
+    let dangers: usize = columns.iter().map(|c| c.0.dangers).sum();
     if columns.len() < 2 {
         anyhow::bail!(
             "nothing to compare: give two or more aircraft files, or a file with [[setup]] tables"
@@ -120,5 +124,8 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
             trimline::output::compare::compare_table(&figures)
         ))?;
     }
-    Ok(())
+    Ok(super::Finish::from_dangers(
+        dangers,
+        args.exit_zero_on_danger,
+    ))
 }

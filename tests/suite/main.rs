@@ -11,6 +11,7 @@ mod common;
 mod file_output;
 mod fuselage;
 mod geometry;
+mod hostile_input;
 mod input_errors;
 mod input_file;
 mod lifting_line_classical;
