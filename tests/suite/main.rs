@@ -10,6 +10,7 @@ mod cli_compare;
 mod common;
 mod file_output;
 mod fuselage;
+mod fuzz_properties;
 mod geometry;
 mod hostile_input;
 mod input_errors;
