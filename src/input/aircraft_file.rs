@@ -715,7 +715,7 @@ impl Ctx<'_> {
                     &d.span(),
                     "air.density",
                     "give either a density or an altitude and temperature offset, not both",
-                    None,
+                    Some("density alone, or altitude and temperature_offset".into()),
                 ));
             }
             let rho = self.quantity(d, "air.density", Dimension::Density, DENSITY)?;
@@ -1130,7 +1130,9 @@ impl Ctx<'_> {
                     &e.span(),
                     &format!("{path}.ellipse"),
                     "a surface is either panels or an ellipse, not both",
-                    None,
+                    Some(format!(
+                        "[[{path}.panel]] tables or one [{path}.ellipse] table"
+                    )),
                 ))
             }
             (true, None) => {
@@ -1536,7 +1538,10 @@ impl Ctx<'_> {
                     &q.span(),
                     &format!("{path}.stabiliser_incidence"),
                     "this aircraft has no stabiliser",
-                    None,
+                    Some(
+                        "no stabiliser_incidence in a setup of an aircraft without [stabiliser]"
+                            .into(),
+                    ),
                 ));
             }
             changes.push(Change::StabiliserIncidence(self.quantity(
@@ -1871,7 +1876,13 @@ fn example_for(dim: Dimension) -> &'static str {
     }
 }
 
+/// A value for a message: up to 4 decimals, `-0` shown as `0`, and very large or very small
+/// magnitudes in exponent form (`1.000e300`), so a message never runs to hundreds of digits.
 fn fmt_num_short(v: f64) -> String {
+    let v = v + 0.0;
+    if v != 0.0 && !(1e-4..1e9).contains(&v.abs()) {
+        return format!("{v:.3e}");
+    }
     let s = format!("{v:.4}");
     let s = s.trim_end_matches('0').trim_end_matches('.');
     s.to_string()

@@ -6,8 +6,9 @@
 //!   mass-weighted mean position, x_cg = sum(m_i x_i) / sum(m_i); any textbook of statics,
 //!   e.g. Meriam & Kraige, "Engineering Mechanics: Statics", the centre-of-mass definition),
 //!   within 1e-12 relative (floating-point rounding only);
-//! - the order of the mass items does not matter, and shifting every item by d shifts the CG
-//!   by d (same definition), within 1e-9 m;
+//! - the order of the mass items does not matter, shifting every item by d shifts the CG
+//!   by d, and mirroring every item about the datum mirrors the CG (same definition),
+//!   within 1e-9 m;
 //! - the same aircraft written in millimetres and grams or in inches and ounces gives the
 //!   same CG and wing area (1 in = 25.4 mm exactly, 1 oz = 28.349523125 g exactly: NIST
 //!   Special Publication 811, Appendix B), within 1e-9 m and 1e-9 relative (the inch values
@@ -273,6 +274,15 @@ proptest! {
         let c0 = trimline::balance::mass_summary(&base.masses).unwrap().cg_x_m;
         let c1 = trimline::balance::mass_summary(&moved.masses).unwrap().cg_x_m;
         prop_assert!((c1 - (c0 + shift / 1000.0)).abs() < 1e-9, "{} + {} vs {}", c0, shift, c1);
+        // Mirrored about the datum (every x negated; the tail must then stay behind the
+        // wing, so only the masses move): the CG is mirrored too.
+        let mut m = p.clone();
+        for item in &mut m.masses {
+            item.1 = -item.1;
+        }
+        let mirrored = parse_aircraft(&file_text(&m, false), "m.toml", None).unwrap();
+        let cm = trimline::balance::mass_summary(&mirrored.masses).unwrap().cg_x_m;
+        prop_assert!((cm + c0).abs() < 1e-9, "{} vs {}", cm, c0);
     }
 
     #[test]

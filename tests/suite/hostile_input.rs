@@ -343,6 +343,14 @@ fn implausible_geometry_and_masses_are_refused_or_cautioned() {
         e.contains("wing loading") && e.contains("400 kg/m^2"),
         "{e}"
     );
+    // An absurd number is shown in exponent form, not in 300 digits, with its range.
+    let out = check_text("huge", &demo_with("altitude = 300", "altitude = 1e300"));
+    let e = err(&out);
+    assert!(
+        e.contains("1.000e300 m is out of range") && e.len() < 300,
+        "{e}"
+    );
+    assert!(e.contains("-500 m to 11000 m"), "{e}");
     // A 30 m fuselage on a 2 m model: possible to compute, cautioned.
     let out = check_text(
         "long-fuselage",
