@@ -109,7 +109,7 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
         eprintln!(
             "Wrote the comparison of {} setups to {}",
             columns.len(),
-            path.display()
+            trimline::printable::printable(&path.display().to_string())
         );
     }
     if args.json {

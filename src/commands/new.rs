@@ -4,6 +4,7 @@ use anyhow::Context;
 use clap::{Args, ValueEnum};
 use std::path::PathBuf;
 use trimline::output::fs::{write_file, Replace, WriteOptions};
+use trimline::printable::printable;
 
 /// Which example to start from.
 #[derive(Debug, Clone, Copy, ValueEnum)]
@@ -32,7 +33,7 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
     if std::fs::symlink_metadata(&args.path).is_ok() {
         anyhow::bail!(
             "{} already exists; choose another name (trimline new never overwrites a file)",
-            args.path.display()
+            printable(&args.path.display().to_string())
         );
     }
     let text = match args.from {
@@ -53,8 +54,8 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
     super::emit(&format!(
         "Wrote {}: edit the name, {parts}, airfoils and [[mass]] items (every key is \
          explained in aircraft/README.md), then run `trimline check {}`.\n",
-        args.path.display(),
-        args.path.display()
+        printable(&args.path.display().to_string()),
+        printable(&args.path.display().to_string())
     ))?;
     Ok(())
 }

@@ -9,6 +9,7 @@ use trimline::input;
 use trimline::output::pdf::Paper;
 use trimline::output::report::{content_hash, ReportSource};
 use trimline::output::report_file::write_report_with;
+use trimline::printable::printable;
 
 use super::check::DEMO_TEXT;
 
@@ -44,7 +45,7 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<super::Finish> {
             let aircraft = input::parse_aircraft(&text, &shown, Some(&base))?;
             let from_stdin = path.as_os_str() == "-";
             let name = match path.file_name() {
-                Some(n) if !from_stdin => n.to_string_lossy().into_owned(),
+                Some(n) if !from_stdin => printable(&n.to_string_lossy()).into_owned(),
                 _ => shown.clone(),
             };
             let stem = match path.file_stem() {
@@ -89,7 +90,7 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<super::Finish> {
     super::emit(&format!(
         "Wrote the trim report for {} to {}\n",
         aircraft.name,
-        trimline::printable::printable(&out.display().to_string())
+        printable(&out.display().to_string())
     ))?;
     Ok(super::Finish::from_dangers(
         super::dangers(&analysis),

@@ -9,6 +9,7 @@ use trimline::input::coordinates::read_coordinates_file;
 use trimline::model::{Airfoil, AirfoilShape, SectionMethod};
 use trimline::output::fs::write_file;
 use trimline::output::section::{render_tables, surface_csv, to_json, SectionReport};
+use trimline::printable::printable;
 use trimline::section::naca::NacaProfile;
 use trimline::section::{analyse_section, sweep, SectionOptions, SectionSolution};
 
@@ -208,12 +209,12 @@ fn parse_spec(spec: &str) -> anyhow::Result<(String, AirfoilShape, String)> {
     let (title, points) = read_coordinates_file(path)?;
     let stem = path
         .file_stem()
-        .map(|s| s.to_string_lossy().into_owned())
+        .map(|s| printable(&s.to_string_lossy()).into_owned())
         .unwrap_or_else(|| s.to_string());
     let title = title.unwrap_or(stem);
     let text = format!(
         "coordinates from {} ({} points)",
-        path.display(),
+        printable(&path.display().to_string()),
         points.len()
     );
     Ok((
