@@ -143,6 +143,14 @@ fn fmt_num(v: f64) -> String {
 
 // Accepted ranges, in the default units (mm, g, deg, percent). Chosen to cover models and
 // small full-size aircraft while catching slips such as metres typed for millimetres.
+// Where they come from (common practice, from memory, no single published table): the
+// largest sailplanes span about 30 m, so 30 000 mm of span (per panel) and positions within
+// 50 m of the datum cover every light aircraft; the smallest flying models (indoor, micro)
+// have chords of a few cm, so 5 mm is a floor that still catches "0.2" typed for metres;
+// 1 000 000 g (1 t) per mass item covers a light aircraft's heaviest item; sweep beyond
+// 60 deg, dihedral beyond 45 deg and twist or incidence beyond 15 deg are outside what a
+// lifting line means anything for. Values possible but unusual get a caution instead
+// (`crate::plausibility`), and the wing loading is checked below (MAX_WING_LOADING_KG_M2).
 const POSITION_MM: Bounds = Bounds::closed(-50_000.0, 50_000.0);
 const SPAN_MM: Bounds = Bounds::closed(5.0, 30_000.0);
 const CHORD_MM: Bounds = Bounds::closed(5.0, 10_000.0);

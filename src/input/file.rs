@@ -121,6 +121,18 @@ pub fn read_input_file(path: &Path, kind: FileKind) -> Result<String, InputError
     }
     let file = std::fs::File::open(path)
         .map_err(|e| refuse(format!("cannot be read: {e}"), accepted_kind()))?;
+    // The file opened is checked again, in case something else was put at the path
+    // between the look and the open.
+    match file.metadata() {
+        Ok(m) if m.is_file() => {}
+        Ok(m) => {
+            return Err(refuse(
+                format!("is {}, not a regular file; not read", kind_of(&m)),
+                accepted_kind(),
+            ))
+        }
+        Err(e) => return Err(refuse(format!("cannot be read: {e}"), accepted_kind())),
+    }
     read_limited(file, &name, kind)
 }
 
