@@ -351,6 +351,18 @@ fn implausible_geometry_and_masses_are_refused_or_cautioned() {
         "{e}"
     );
     assert!(e.contains("-500 m to 11000 m"), "{e}");
+    // A feather-light glider (a few grams in all): possible, cautioned on its wing loading.
+    let light: String = DEMO
+        .lines()
+        .map(|l| match l.strip_prefix("mass = ") {
+            Some(_) => "mass = 0.5".to_string(),
+            None => l.to_string(),
+        })
+        .collect::<Vec<_>>()
+        .join("\n");
+    let out = check_text("light", &light);
+    let table = String::from_utf8_lossy(&out.stdout);
+    assert!(table.contains("wing-loading-unusual"), "{}", err(&out));
     // A 30 m fuselage on a 2 m model: possible to compute, cautioned.
     let out = check_text(
         "long-fuselage",
@@ -381,4 +393,9 @@ fn exit_code_3_on_a_danger_unless_asked_otherwise() {
     );
     // The demo has no danger.
     assert_eq!(trimline(&["check"], &dir).status.code(), Some(0));
+    // compare: one configuration with a danger is enough.
+    let out = trimline(&["compare", "a.toml"], &dir);
+    assert_eq!(out.status.code(), Some(3), "{}", err(&out));
+    let out = trimline(&["compare", "a.toml", "--exit-zero-on-danger"], &dir);
+    assert_eq!(out.status.code(), Some(0), "{}", err(&out));
 }
