@@ -2,10 +2,10 @@
 //! unusual enough to be a slip or a risk, raised as cautions with their numbers.
 //!
 //! The ranges are common practice for models and light aircraft (from memory, not from one
-//! published table): wing loadings from about 0.1 kg/m^2 (indoor models) to about
-//! 150 kg/m^2 (light aircraft, fast jets models reach about 100); a fuselage up to about
-//! 1.5 times the wing span (sailplanes are far shorter, some jets and canards reach 1.5);
-//! a stabiliser within about 1.5 spans of the wing. Impossible values are refused earlier,
+//! published table): wing loadings from about 0.1 kg/m^2 (indoor models) through 2 to
+//! 15 kg/m^2 (outdoor models, jets at the top) to about 150 kg/m^2 (light aircraft); a
+//! fuselage up to about 1.5 times the wing span (sailplanes are far shorter, some jets and
+//! canards reach 1.5); a stabiliser within about 1.5 spans of the wing. Impossible values are refused earlier,
 //! by the reader, with an error.
 
 use crate::caution::{Caution, Level};

@@ -192,15 +192,16 @@ const ELEVON_CHORD_PCT: Bounds = Bounds {
 };
 const SEMISPAN_PCT: Bounds = Bounds::closed(0.0, 100.0);
 // Static margins, % of MAC: 0 to 40 covers every stable model and light aircraft (common
-// practice: 5 to 20 % with a tail, 3 to 10 % tailless; above 40 % the elevator cannot lift
-// the nose). Below 0 the aircraft is unstable: accepted only with
+// practice: 5 to 20 % with a tail, 3 to 10 % tailless; 40 % is far forward of any usual
+// forward limit, where the elevator runs out of authority at low speed). Below 0 the aircraft is unstable: accepted only with
 // `limits.negative_margin_intended = true`, down to -20 %, and then a danger caution.
 const MARGIN_PCT: Bounds = Bounds::closed(0.0, 40.0);
 const MARGIN_INTENDED_PCT: Bounds = Bounds::closed(-20.0, 40.0);
-/// Largest wing loading accepted, kg/m^2. Light aircraft reach about 150 kg/m^2 and models
-/// about 15 (gliders) to 100 (fast jets) kg/m^2 (from memory: common values in model and
-/// light-aircraft design texts); past 400 kg/m^2 the stall speed exceeds this tool's speed
-/// range, so such a file is almost certainly a unit slip.
+/// Largest wing loading accepted, kg/m^2. Models fly at about 2 to 15 kg/m^2 (thermal
+/// gliders 2 to 4, sport models 4 to 10, jets up to about 15) and light aircraft at about 40
+/// to 150 kg/m^2 (a four-seat tourer about 70) (from memory: common values in model and
+/// light-aircraft design practice); past 400 kg/m^2 the stall speed leaves this tool's
+/// speed range, so such a file is almost certainly a unit slip.
 pub const MAX_WING_LOADING_KG_M2: f64 = 400.0;
 const SPEED_M_S: Bounds = Bounds::positive(150.0);
 const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
