@@ -159,6 +159,21 @@ fn foreign_files_are_never_quoted_beyond_one_token() {
         assert_eq!(e.lines().count(), 1, "{e}");
         assert!(e.contains("a.toml"), "{e}");
     }
+    // The machine's own password file, where there is one, as aircraft and as coordinates.
+    if let Ok(real) = std::fs::read_to_string("/etc/passwd") {
+        let dir = scratch("etc-passwd");
+        for args in [
+            &["check", "/etc/passwd"][..],
+            &["section", "/etc/passwd"][..],
+        ] {
+            let out = trimline(args, &dir);
+            assert_eq!(out.status.code(), Some(1), "{args:?}");
+            let e = err(&out);
+            for line in real.lines().filter(|l| l.len() > 8) {
+                assert!(!e.contains(line), "{args:?} quoted a line: {e}");
+            }
+        }
+    }
     // Coordinates files: a long token is cut at 32 characters.
     let dir = scratch("foreign-coords");
     std::fs::write(
