@@ -384,6 +384,11 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         );
     }
     reynolds_caution(reynolds_mac, speed, &mut cautions);
+    cautions.extend(crate::plausibility::cautions(
+        aircraft,
+        &wing.geometry,
+        mass.total_kg,
+    ));
     cautions.push(safety_caution());
     Ok(Analysis {
         numerics: numerics_used(aircraft, options),

@@ -18,5 +18,7 @@ pub mod model;
 pub mod output;
 pub mod performance;
 pub mod planform;
+pub mod plausibility;
+pub mod printable;
 pub mod section;
 pub mod stability;

@@ -28,21 +28,35 @@ enum Command {
     Report(commands::report::ReportArgs),
 }
 
+/// Exit code when the command ran to the end but raised a danger-level caution.
+const EXIT_DANGER: u8 = 3;
+
 fn main() -> ExitCode {
     let cli = Cli::parse();
+    let clean = |r: anyhow::Result<()>| r.map(|()| commands::Finish::Clean);
     let result = match cli.command {
         Command::Check(args) => commands::check::run(&args),
         Command::Compare(args) => commands::compare::run(&args),
-        Command::New(args) => commands::new::run(&args),
-        Command::Section(args) => commands::section::run(&args),
+        Command::New(args) => clean(commands::new::run(&args)),
+        Command::Section(args) => clean(commands::section::run(&args)),
         Command::Report(args) => commands::report::run(&args),
     };
+    // Exit codes (README.md, "Exit codes"): 0 done, 1 an input, file or analysis error,
+    // 2 a command-line usage error (clap), 3 done but a danger-level caution was raised.
     match result {
-        Ok(()) => ExitCode::SUCCESS,
+        Ok(commands::Finish::Clean) => ExitCode::SUCCESS,
+        Ok(commands::Finish::Danger) => ExitCode::from(EXIT_DANGER),
         Err(err) => {
-            eprintln!("error: {err}");
+            // Anything quoted from a file or a path is shown with control characters escaped.
+            eprintln!(
+                "error: {}",
+                trimline::printable::printable(&err.to_string())
+            );
             for cause in err.chain().skip(1) {
-                eprintln!("  caused by: {cause}");
+                eprintln!(
+                    "  caused by: {}",
+                    trimline::printable::printable(&cause.to_string())
+                );
             }
             ExitCode::from(1)
         }

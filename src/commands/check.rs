@@ -15,7 +15,8 @@ pub const DEMO_NAME: &str = "<built-in demo: aircraft/larkspire-2000.toml>";
 /// Arguments of `check`.
 #[derive(Debug, Args)]
 pub struct CheckArgs {
-    /// Aircraft file (TOML); the built-in demo sailplane when omitted.
+    /// Aircraft file (TOML), or - for standard input; the built-in demo sailplane when
+    /// omitted.
     pub file: Option<PathBuf>,
     /// Print one JSON object (SI units) instead of tables.
     #[arg(long)]
@@ -23,6 +24,9 @@ pub struct CheckArgs {
     /// Analyse the named [[setup]] of the file instead of its base configuration.
     #[arg(long, value_name = "NAME")]
     pub setup: Option<String>,
+    /// Exit with code 0 even when a danger-level caution is raised (otherwise 3).
+    #[arg(long)]
+    pub exit_zero_on_danger: bool,
 }
 
 /// The aircraft with the named setup applied, or an error listing the setups there are.
@@ -49,8 +53,9 @@ pub fn with_setup(aircraft: Aircraft, setup: Option<&str>) -> anyhow::Result<Air
 pub fn load(file: Option<&PathBuf>) -> anyhow::Result<(Aircraft, String)> {
     match file {
         Some(path) => {
-            let aircraft = input::load_aircraft_file(path)?;
-            Ok((aircraft, path.display().to_string()))
+            let (text, shown, base) = input::aircraft_file::read_aircraft_text(path)?;
+            let aircraft = input::parse_aircraft(&text, &shown, Some(&base))?;
+            Ok((aircraft, shown))
         }
         None => {
             let aircraft = input::parse_aircraft(DEMO_TEXT, DEMO_NAME, None)?;
@@ -60,7 +65,7 @@ pub fn load(file: Option<&PathBuf>) -> anyhow::Result<(Aircraft, String)> {
 }
 
 /// Run `check`.
-pub fn run(args: &CheckArgs) -> anyhow::Result<()> {
+pub fn run(args: &CheckArgs) -> anyhow::Result<super::Finish> {
     let (aircraft, source) = load(args.file.as_ref())?;
     let aircraft = with_setup(aircraft, args.setup.as_deref())?;
 
@@ -74,5 +79,8 @@ pub fn run(args: &CheckArgs) -> anyhow::Result<()> {
             &aircraft, &analysis, &source,
         ))?;
     }
-    Ok(())
+    Ok(super::Finish::from_dangers(
+        super::dangers(&analysis),
+        args.exit_zero_on_danger,
+    ))
 }

@@ -5,9 +5,9 @@ use anyhow::Context;
 use clap::Args;
 use std::path::PathBuf;
 use trimline::analysis::{analyse, AnalysisOptions, KeyFigures};
+use trimline::output::fs::write_file;
 use trimline::output::pdf::compare_page::MAX_COLUMNS;
 use trimline::output::pdf::Paper;
-use trimline::output::report_file::write_atomically;
 
 /// Arguments of `compare`.
 #[derive(Debug, Args)]
@@ -29,6 +29,13 @@ pub struct CompareArgs {
     /// US Letter paper for the PDF instead of A4.
     #[arg(long)]
     pub letter: bool,
+    /// When the PDF's PATH is a symbolic link, write to the file it points to (refused
+    /// otherwise).
+    #[arg(long)]
+    pub follow_link: bool,
+    /// Exit with code 0 even when a configuration raises a danger-level caution (otherwise 3).
+    #[arg(long)]
+    pub exit_zero_on_danger: bool,
 }
 
 /// Every configuration to compare, analysed: key figures and source name.
@@ -63,8 +70,9 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
 }
 
 /// Run `compare`.
-pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
+pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
     let columns = configurations(args)?;
+    let dangers: usize = columns.iter().map(|c| c.0.dangers).sum();
     if columns.len() < 2 {
         anyhow::bail!(
             "nothing to compare: give two or more aircraft files, or a file with [[setup]] tables"
@@ -96,12 +104,12 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
             Paper::A4
         };
         let bytes = trimline::output::pdf::comparison_report(&data, paper);
-        write_atomically(&path, &bytes)
-            .with_context(|| format!("writing the comparison to {}", path.display()))?;
+        write_file(&path, &bytes, &super::write_options(args.follow_link))
+            .context("writing the comparison PDF")?;
         eprintln!(
             "Wrote the comparison of {} setups to {}",
             columns.len(),
-            path.display()
+            trimline::printable::printable(&path.display().to_string())
         );
     }
     if args.json {
@@ -116,5 +124,8 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
             trimline::output::compare::compare_table(&figures)
         ))?;
     }
-    Ok(())
+    Ok(super::Finish::from_dangers(
+        dangers,
+        args.exit_zero_on_danger,
+    ))
 }

@@ -6,6 +6,44 @@ pub mod new;
 pub mod report;
 pub mod section;
 
+/// How a command that ran to the end finished, for the exit code.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Finish {
+    /// Nothing to signal: exit 0.
+    Clean,
+    /// A danger-level caution was raised (and `--exit-zero-on-danger` was not given): exit 3.
+    Danger,
+}
+
+impl Finish {
+    /// `Danger` when `dangers` > 0 and the user did not ask for exit code 0 regardless.
+    pub fn from_dangers(dangers: usize, exit_zero_on_danger: bool) -> Finish {
+        if dangers > 0 && !exit_zero_on_danger {
+            Finish::Danger
+        } else {
+            Finish::Clean
+        }
+    }
+}
+
+/// Number of danger-level cautions of an analysis.
+pub fn dangers(analysis: &trimline::analysis::Analysis) -> usize {
+    analysis
+        .cautions
+        .iter()
+        .filter(|c| c.level == trimline::caution::Level::Danger)
+        .count()
+}
+
+/// How the commands write files: atomically, a symbolic link at the target refused unless
+/// `--follow-link` was given.
+pub fn write_options(follow_link: bool) -> trimline::output::fs::WriteOptions {
+    trimline::output::fs::WriteOptions {
+        follow_link,
+        ..trimline::output::fs::WriteOptions::default()
+    }
+}
+
 /// Write `text` to standard output. A reader that has gone away (a closed pipe, as in
 /// `trimline compare | head`) is not an error: the rest of the output is dropped quietly.
 pub fn emit(text: &str) -> anyhow::Result<()> {

@@ -3,7 +3,8 @@
 use anyhow::Context;
 use clap::{Args, ValueEnum};
 use std::path::PathBuf;
-use trimline::output::report_file::write_atomically;
+use trimline::output::fs::{write_file, Replace, WriteOptions};
+use trimline::printable::printable;
 
 /// Which example to start from.
 #[derive(Debug, Clone, Copy, ValueEnum)]
@@ -28,10 +29,11 @@ pub struct NewArgs {
 
 /// Run `new`.
 pub fn run(args: &NewArgs) -> anyhow::Result<()> {
-    if args.path.exists() {
+    // Anything at the path (a file, a link, even a dangling one) is left alone.
+    if std::fs::symlink_metadata(&args.path).is_ok() {
         anyhow::bail!(
             "{} already exists; choose another name (trimline new never overwrites a file)",
-            args.path.display()
+            printable(&args.path.display().to_string())
         );
     }
     let text = match args.from {
@@ -39,8 +41,12 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
         Kind::Trainer => include_str!("../../aircraft/wrenfield-1400.toml"),
         Kind::Wing => include_str!("../../aircraft/skerrywing-900.toml"),
     };
-    write_atomically(&args.path, text.as_bytes())
-        .with_context(|| format!("writing {}", args.path.display()))?;
+    let options = WriteOptions {
+        follow_link: false,
+        replace: Replace::Never,
+        create_folders: true,
+    };
+    write_file(&args.path, text.as_bytes(), &options).context("writing the new aircraft file")?;
     let parts = match args.from {
         Kind::Wing => "wing, elevons",
         Kind::Sailplane | Kind::Trainer => "wing, stabiliser",
@@ -48,8 +54,8 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
     super::emit(&format!(
         "Wrote {}: edit the name, {parts}, airfoils and [[mass]] items (every key is \
          explained in aircraft/README.md), then run `trimline check {}`.\n",
-        args.path.display(),
-        args.path.display()
+        printable(&args.path.display().to_string()),
+        printable(&args.path.display().to_string())
     ))?;
     Ok(())
 }

@@ -3,12 +3,13 @@
 
 use anyhow::Context;
 use clap::Args;
-use std::path::{Path, PathBuf};
+use std::path::PathBuf;
 use std::time::{SystemTime, UNIX_EPOCH};
 use trimline::input;
 use trimline::output::pdf::Paper;
 use trimline::output::report::{content_hash, ReportSource};
-use trimline::output::report_file::write_report;
+use trimline::output::report_file::write_report_with;
+use trimline::printable::printable;
 
 use super::check::DEMO_TEXT;
 
@@ -18,7 +19,8 @@ const DEMO_STEM: &str = "larkspire-2000";
 /// Arguments of `report`.
 #[derive(Debug, Args)]
 pub struct ReportArgs {
-    /// Aircraft file (TOML); the built-in demo sailplane when omitted.
+    /// Aircraft file (TOML), or - for standard input; the built-in demo sailplane when
+    /// omitted.
     pub file: Option<PathBuf>,
     /// Where to write the PDF (default: reports/<aircraft file stem>.pdf).
     #[arg(short = 'o', long = "output", value_name = "PATH")]
@@ -26,24 +28,30 @@ pub struct ReportArgs {
     /// US Letter paper instead of A4.
     #[arg(long)]
     pub letter: bool,
+    /// When PATH is a symbolic link, write to the file it points to (refused otherwise).
+    #[arg(long)]
+    pub follow_link: bool,
+    /// Exit with code 0 even when a danger-level caution is raised (otherwise 3, after the
+    /// report is written).
+    #[arg(long)]
+    pub exit_zero_on_danger: bool,
 }
 
 /// Run `report`.
-pub fn run(args: &ReportArgs) -> anyhow::Result<()> {
+pub fn run(args: &ReportArgs) -> anyhow::Result<super::Finish> {
     let (aircraft, text, file_name, stem) = match &args.file {
         Some(path) => {
-            let text = std::fs::read_to_string(path)
-                .with_context(|| format!("reading {}", path.display()))?;
-            let base = path.parent().map(Path::to_path_buf).unwrap_or_default();
-            let aircraft = input::parse_aircraft(&text, &path.display().to_string(), Some(&base))?;
-            let name = path
-                .file_name()
-                .map(|n| n.to_string_lossy().into_owned())
-                .unwrap_or_else(|| path.display().to_string());
-            let stem = path
-                .file_stem()
-                .map(|s| s.to_string_lossy().into_owned())
-                .unwrap_or_else(|| "report".to_string());
+            let (text, shown, base) = input::aircraft_file::read_aircraft_text(path)?;
+            let aircraft = input::parse_aircraft(&text, &shown, Some(&base))?;
+            let from_stdin = path.as_os_str() == "-";
+            let name = match path.file_name() {
+                Some(n) if !from_stdin => printable(&n.to_string_lossy()).into_owned(),
+                _ => shown.clone(),
+            };
+            let stem = match path.file_stem() {
+                Some(s) if !from_stdin => s.to_string_lossy().into_owned(),
+                _ => "standard-input".to_string(),
+            };
             (aircraft, text, name, stem)
         }
         None => {
@@ -70,15 +78,24 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<()> {
     } else {
         Paper::A4
     };
-    let analysis = write_report(&aircraft, source, paper, &out)
-        .with_context(|| format!("making the report for {}", aircraft.name))?;
+    let analysis = write_report_with(
+        &aircraft,
+        source,
+        paper,
+        &out,
+        &super::write_options(args.follow_link),
+    )
+    .with_context(|| format!("making the report for {}", aircraft.name))?;
     super::emit(&summary(&aircraft, &analysis))?;
     super::emit(&format!(
         "Wrote the trim report for {} to {}\n",
         aircraft.name,
-        out.display()
+        printable(&out.display().to_string())
     ))?;
-    Ok(())
+    Ok(super::Finish::from_dangers(
+        super::dangers(&analysis),
+        args.exit_zero_on_danger,
+    ))
 }
 
 /// A few lines of the key figures, for the terminal.

@@ -4,11 +4,12 @@
 
 use anyhow::{bail, Context};
 use clap::{Args, ValueEnum};
-use std::io::Write;
 use std::path::{Path, PathBuf};
 use trimline::input::coordinates::read_coordinates_file;
 use trimline::model::{Airfoil, AirfoilShape, SectionMethod};
+use trimline::output::fs::write_file;
 use trimline::output::section::{render_tables, surface_csv, to_json, SectionReport};
+use trimline::printable::printable;
 use trimline::section::naca::NacaProfile;
 use trimline::section::{analyse_section, sweep, SectionOptions, SectionSolution};
 
@@ -49,6 +50,10 @@ pub struct SectionArgs {
     /// Write x/c, y/c and Cp at the first angle of attack to this CSV file.
     #[arg(long, value_name = "PATH")]
     pub csv: Option<PathBuf>,
+    /// When the CSV's PATH is a symbolic link, write to the file it points to (refused
+    /// otherwise).
+    #[arg(long)]
+    pub follow_link: bool,
 }
 
 /// Most angles accepted in one table.
@@ -96,8 +101,12 @@ pub fn run(args: &SectionArgs) -> anyhow::Result<()> {
         {
             bail!("the surface pressures are not finite; the CSV was not written");
         }
-        write_atomically(path, &surface_csv(&surface))
-            .with_context(|| format!("writing {}", path.display()))?;
+        write_file(
+            path,
+            surface_csv(&surface).as_bytes(),
+            &super::write_options(args.follow_link),
+        )
+        .context("writing the CSV file")?;
     }
     if args.json {
         super::emit(&format!("{}\n", to_json(&report)?))?;
@@ -200,12 +209,12 @@ fn parse_spec(spec: &str) -> anyhow::Result<(String, AirfoilShape, String)> {
     let (title, points) = read_coordinates_file(path)?;
     let stem = path
         .file_stem()
-        .map(|s| s.to_string_lossy().into_owned())
+        .map(|s| printable(&s.to_string_lossy()).into_owned())
         .unwrap_or_else(|| s.to_string());
     let title = title.unwrap_or(stem);
     let text = format!(
         "coordinates from {} ({} points)",
-        path.display(),
+        printable(&path.display().to_string()),
         points.len()
     );
     Ok((
@@ -270,34 +279,6 @@ fn parse_alpha_list(text: &str) -> anyhow::Result<Vec<f64>> {
         bail!("angle of attack {a} deg is outside the accepted range -{MAX_ALPHA_DEG} to {MAX_ALPHA_DEG} deg");
     }
     Ok(out)
-}
-
-/// Writes `text` to a temporary file beside `path`, then renames it over `path`.
-fn write_atomically(path: &Path, text: &str) -> anyhow::Result<()> {
-    let dir = match path.parent() {
-        Some(d) if !d.as_os_str().is_empty() => d.to_path_buf(),
-        _ => PathBuf::from("."),
-    };
-    let name = path
-        .file_name()
-        .with_context(|| format!("'{}' is not a file name", path.display()))?;
-    let tmp = dir.join(format!(
-        ".{}.tmp{}",
-        name.to_string_lossy(),
-        std::process::id()
-    ));
-    let result = (|| -> anyhow::Result<()> {
-        let mut f =
-            std::fs::File::create(&tmp).with_context(|| format!("creating {}", tmp.display()))?;
-        f.write_all(text.as_bytes())?;
-        f.sync_all()?;
-        std::fs::rename(&tmp, path)?;
-        Ok(())
-    })();
-    if result.is_err() {
-        let _ = std::fs::remove_file(&tmp);
-    }
-    result
 }
 
 #[cfg(test)]

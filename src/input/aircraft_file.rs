@@ -3,6 +3,7 @@
 //! the accepted range.
 
 use super::error::{InputError, Location};
+use super::limits::*;
 use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel};
 use super::units::{parse_quantity, Dimension};
 use crate::model::{
@@ -10,6 +11,7 @@ use crate::model::{
     MarginLimits, MassItem, Numerics, Panel, PitchControl, SectionMethod, Setup, Stabiliser,
     StabiliserRole, Surface, SurfaceShape, Targets, WeighingSupport, WingModel,
 };
+use crate::printable::{printable, token};
 use std::collections::BTreeMap;
 use std::ops::Range;
 use std::path::{Path, PathBuf};
@@ -31,12 +33,26 @@ pub const DEFAULT_MAX_STATIC_MARGIN_CANARD: f64 = 0.15;
 /// Default greatest elevator deflection each way, deg (common practice for models).
 pub const DEFAULT_ELEVATOR_THROW_DEG: f64 = 15.0;
 
-/// Read an aircraft file from disk. Coordinate files named in it are read relative to its folder.
+/// Read an aircraft file from disk (`-`: standard input) through [`super::file`]. Coordinate
+/// files named in it are read relative to its folder (the current folder for standard input).
 pub fn load_aircraft_file(path: &Path) -> Result<Aircraft, InputError> {
-    let file = path.display().to_string();
-    let text = super::error::read_text_file(path)?;
-    let base = path.parent().map(Path::to_path_buf).unwrap_or_default();
+    let (text, file, base) = read_aircraft_text(path)?;
     parse_aircraft(&text, &file, Some(&base))
+}
+
+/// The text of an aircraft file (`-`: standard input), the name to show for it, and the
+/// folder its coordinate files are read from.
+pub fn read_aircraft_text(path: &Path) -> Result<(String, String, PathBuf), InputError> {
+    let text = super::file::read_input_file(path, super::file::AIRCRAFT_FILE)?;
+    if path.as_os_str() == "-" {
+        return Ok((text, super::file::STDIN_NAME.to_string(), PathBuf::new()));
+    }
+    let base = path.parent().map(Path::to_path_buf).unwrap_or_default();
+    Ok((
+        text,
+        printable(&path.display().to_string()).into_owned(),
+        base,
+    ))
 }
 
 /// Parse aircraft-file text. `file` names it in errors; `base_dir` is where relative coordinate
@@ -127,6 +143,14 @@ fn fmt_num(v: f64) -> String {
 
 // Accepted ranges, in the default units (mm, g, deg, percent). Chosen to cover models and
 // small full-size aircraft while catching slips such as metres typed for millimetres.
+// Where they come from (common practice, from memory, no single published table): the
+// largest sailplanes span about 30 m, so 30 000 mm of span (per panel) and positions within
+// 50 m of the datum cover every light aircraft; the smallest flying models (indoor, micro)
+// have chords of a few cm, so 5 mm is a floor that still catches "0.2" typed for metres;
+// 1 000 000 g (1 t) per mass item covers a light aircraft's heaviest item; sweep beyond
+// 60 deg, dihedral beyond 45 deg and twist or incidence beyond 15 deg are outside what a
+// lifting line means anything for. Values possible but unusual get a caution instead
+// (`crate::plausibility`), and the wing loading is checked below (MAX_WING_LOADING_KG_M2).
 const POSITION_MM: Bounds = Bounds::closed(-50_000.0, 50_000.0);
 const SPAN_MM: Bounds = Bounds::closed(5.0, 30_000.0);
 const CHORD_MM: Bounds = Bounds::closed(5.0, 10_000.0);
@@ -167,7 +191,18 @@ const ELEVON_CHORD_PCT: Bounds = Bounds {
     max_inclusive: false,
 };
 const SEMISPAN_PCT: Bounds = Bounds::closed(0.0, 100.0);
-const MARGIN_PCT: Bounds = Bounds::closed(-50.0, 80.0);
+// Static margins, % of MAC: 0 to 40 covers every stable model and light aircraft (common
+// practice: 5 to 20 % with a tail, 3 to 10 % tailless; 40 % is far forward of any usual
+// forward limit, where the elevator runs out of authority at low speed). Below 0 the aircraft is unstable: accepted only with
+// `limits.negative_margin_intended = true`, down to -20 %, and then a danger caution.
+const MARGIN_PCT: Bounds = Bounds::closed(0.0, 40.0);
+const MARGIN_INTENDED_PCT: Bounds = Bounds::closed(-20.0, 40.0);
+/// Largest wing loading accepted, kg/m^2. Models fly at about 2 to 15 kg/m^2 (thermal
+/// gliders 2 to 4, sport models 4 to 10, jets up to about 15) and light aircraft at about 40
+/// to 150 kg/m^2 (a four-seat tourer about 70) (from memory: common values in model and
+/// light-aircraft design practice); past 400 kg/m^2 the stall speed leaves this tool's
+/// speed range, so such a file is almost certainly a unit slip.
+pub const MAX_WING_LOADING_KG_M2: f64 = 400.0;
 const SPEED_M_S: Bounds = Bounds::positive(150.0);
 const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
 const TEMP_OFFSET_K: Bounds = Bounds::closed(-60.0, 60.0);
@@ -265,7 +300,27 @@ impl Ctx<'_> {
         if text.is_empty() {
             return Err(self.err(&name.span(), &field, "must not be empty", accepted()));
         }
-        Ok(text)
+        self.check_name_length(&text, &name.span(), &field)?;
+        Ok(printable(&text).into_owned())
+    }
+
+    /// Refuses a name longer than [`MAX_NAME_CHARS`].
+    fn check_name_length(
+        &self,
+        text: &str,
+        span: &Range<usize>,
+        field: &str,
+    ) -> Result<(), InputError> {
+        let n = text.chars().count();
+        if n > MAX_NAME_CHARS {
+            return Err(self.err(
+                span,
+                field,
+                format!("the name is {n} characters long"),
+                Some(format!("at most {MAX_NAME_CHARS} characters")),
+            ));
+        }
+        Ok(())
     }
 
     /// Refuses an entry of the list `table` (`mass`, `ballast`, `setup`) whose name an earlier
@@ -285,7 +340,8 @@ impl Ctx<'_> {
                     &name.span(),
                     &format!("{table}[{i}].name"),
                     format!(
-                        "`{text}` is already the name of {table}[{j}] (line {}); {why}",
+                        "`{}` is already the name of {table}[{j}] (line {}); {why}",
+                        token(text),
                         self.location(first).line
                     ),
                     Some(format!("a name that no other [[{table}]] entry has")),
@@ -328,13 +384,19 @@ impl Ctx<'_> {
         };
         let in_default = si / super::units::from_default_unit(1.0, dim);
         if !bounds.contains(in_default) {
+            let bare = matches!(q.get_ref(), toml::Value::Integer(_) | toml::Value::Float(_));
             return Err(self.err(
                 &span,
                 field,
                 format!(
-                    "{} {} is out of range",
+                    "{} {} is out of range{}",
                     fmt_num_short(in_default),
-                    dim.default_unit()
+                    dim.default_unit(),
+                    if bare {
+                        unit_slip_hint(in_default, dim, bounds)
+                    } else {
+                        String::new()
+                    }
                 ),
                 accepted(),
             ));
@@ -352,7 +414,75 @@ impl Ctx<'_> {
         q.map(|q| self.quantity(q, field, dim, bounds)).transpose()
     }
 
+    /// Refuses a list longer than `limit`, at its first entry past the limit.
+    fn count_limit<T>(
+        &self,
+        list: &[Spanned<T>],
+        limit: usize,
+        field: &str,
+        what: &str,
+    ) -> Result<(), InputError> {
+        match list.get(limit) {
+            None => Ok(()),
+            Some(extra) => Err(self.err(
+                &extra.span(),
+                &format!("{field}[{limit}]"),
+                format!("{} {what} given; the limit is {limit}", list.len()),
+                Some(format!("at most {limit} {what} (README.md, Limits)")),
+            )),
+        }
+    }
+
+    /// Every count limit of [`super::limits`], checked before any value is looked at, so a
+    /// huge file costs no more than reading it.
+    fn counts(&self, raw: &RawAircraft) -> Result<(), InputError> {
+        self.count_limit(&raw.mass, MAX_MASS_ITEMS, "mass", "[[mass]] items")?;
+        self.count_limit(
+            &raw.ballast,
+            MAX_BALLAST_BAYS,
+            "ballast",
+            "[[ballast]] bays",
+        )?;
+        self.count_limit(&raw.setup, MAX_SETUPS, "setup", "[[setup]] tables")?;
+        for (path, surface) in [("wing", &raw.wing), ("stabiliser", &raw.stabiliser)] {
+            if let Some(s) = surface {
+                self.count_limit(
+                    &s.get_ref().panel,
+                    MAX_PANELS_PER_SURFACE,
+                    &format!("{path}.panel"),
+                    &format!("[[{path}.panel]] entries"),
+                )?;
+            }
+        }
+        if let Some((name, a)) = raw.airfoils.iter().nth(MAX_AIRFOILS) {
+            return Err(self.err(
+                &a.span(),
+                &format!("airfoils.{}", token(name)),
+                format!(
+                    "{} airfoils given; the limit is {MAX_AIRFOILS}",
+                    raw.airfoils.len()
+                ),
+                Some(format!(
+                    "at most {MAX_AIRFOILS} [airfoils.NAME] tables (README.md, Limits)"
+                )),
+            ));
+        }
+        for (key, text) in [("notes", &raw.notes), ("datum", &raw.datum)] {
+            let n = text.as_ref().map_or(0, |t| t.chars().count());
+            if n > MAX_TEXT_CHARS {
+                return Err(InputError::new(
+                    self.whole_file(),
+                    key,
+                    format!("the text is {n} characters long"),
+                    Some(format!("at most {MAX_TEXT_CHARS} characters")),
+                ));
+            }
+        }
+        Ok(())
+    }
+
     fn aircraft(&self, raw: RawAircraft) -> Result<Aircraft, InputError> {
+        self.counts(&raw)?;
         let accepted_name = || Some("any text in quotes, e.g. name = \"My glider\"".into());
         let Some(raw_name) = &raw.name else {
             return Err(InputError::new(
@@ -371,6 +501,8 @@ impl Ctx<'_> {
                 accepted_name(),
             ));
         }
+        self.check_name_length(&name, &raw_name.span(), "name")?;
+        let name = printable(&name).into_owned();
         let air = self.air(raw.air.as_ref())?;
         let (airfoils, ids) = self.airfoils(&raw.airfoils)?;
         let Some(raw_wing) = &raw.wing else {
@@ -440,6 +572,25 @@ impl Ctx<'_> {
                 Some("a total mass above 0 g".into()),
             ));
         }
+        let area_m2 = crate::planform::geometry(&wing).area_m2;
+        if area_m2 > 0.0 && total / area_m2 > MAX_WING_LOADING_KG_M2 {
+            return Err(self.err(
+                &raw.mass[0].span(),
+                "mass",
+                format!(
+                    "the masses add up to {} g on a wing of {} dm^2: a wing loading of {} \
+                     kg/m^2, more than any aircraft this tool is for",
+                    fmt_num_short(1000.0 * total),
+                    fmt_num_short(100.0 * area_m2),
+                    fmt_num_short(total / area_m2)
+                ),
+                Some(format!(
+                    "a wing loading up to {} kg/m^2 (light aircraft reach about 150); bare \
+                     masses are in g and bare lengths in mm",
+                    fmt_num(MAX_WING_LOADING_KG_M2)
+                )),
+            ));
+        }
         let ballast_bays = raw
             .ballast
             .iter()
@@ -451,14 +602,23 @@ impl Ctx<'_> {
             "ballast",
             "setups refer to ballast bays by name",
         )?;
+        let intended = raw
+            .limits
+            .as_ref()
+            .and_then(|l| l.negative_margin_intended.as_ref())
+            .is_some_and(|b| *b.get_ref());
+        let margin_bounds = if intended {
+            MARGIN_INTENDED_PCT
+        } else {
+            MARGIN_PCT
+        };
         let targets = match &raw.targets {
             None => Targets::default(),
             Some(t) => Targets {
-                static_margin: self.opt_quantity(
+                static_margin: self.margin(
                     t.static_margin.as_ref(),
                     "targets.static_margin",
-                    Dimension::Percent,
-                    MARGIN_PCT,
+                    margin_bounds,
                 )?,
                 trim_speed_m_s: self.opt_quantity(
                     t.trim_speed.as_ref(),
@@ -474,8 +634,11 @@ impl Ctx<'_> {
                 )?,
             },
         };
-        let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref())?;
+        let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref(), margin_bounds)?;
         let numerics = self.numerics(raw.numerics.as_ref())?;
+        if let Some(s) = &stabiliser {
+            self.stabiliser_place(raw.stabiliser.as_ref(), s, &wing)?;
+        }
         let weighing = raw
             .weighing
             .iter()
@@ -538,8 +701,9 @@ impl Ctx<'_> {
         )?;
         Ok(Aircraft {
             name,
-            notes: raw.notes.unwrap_or_default(),
-            datum: raw.datum.unwrap_or_else(|| "wing root leading edge".into()),
+            notes: printable(&raw.notes.unwrap_or_default()).into_owned(),
+            datum: printable(&raw.datum.unwrap_or_else(|| "wing root leading edge".into()))
+                .into_owned(),
             air,
             airfoils,
             wing,
@@ -569,7 +733,7 @@ impl Ctx<'_> {
                     &d.span(),
                     "air.density",
                     "give either a density or an altitude and temperature offset, not both",
-                    None,
+                    Some("density alone, or altitude and temperature_offset".into()),
                 ));
             }
             let rho = self.quantity(d, "air.density", Dimension::Density, DENSITY)?;
@@ -725,7 +889,7 @@ impl Ctx<'_> {
                         return Err(self.err(
                             &m.span(),
                             &format!("{field}.method"),
-                            format!("unknown method `{other}`"),
+                            format!("unknown method `{}`", token(other)),
                             Some("exact, thin, panel".into()),
                         ))
                     }
@@ -733,7 +897,7 @@ impl Ctx<'_> {
             };
             ids.insert(name.clone(), AirfoilId(list.len()));
             list.push(Airfoil {
-                name: name.clone(),
+                name: printable(name).into_owned(),
                 shape,
                 cl_max,
                 method,
@@ -832,14 +996,18 @@ impl Ctx<'_> {
             ));
         };
         let path: PathBuf = base.join(c.get_ref());
-        let text = std::fs::read_to_string(&path).map_err(|e| {
-            self.err(
-                &span,
-                field,
-                format!("cannot read `{}`: {e}", path.display()),
-                Some("a path relative to the aircraft file".into()),
-            )
-        })?;
+        let text =
+            super::file::read_input_file(&path, super::file::COORDINATES_FILE).map_err(|e| {
+                self.err(
+                    &span,
+                    field,
+                    format!("cannot use the coordinates file: {e}"),
+                    Some(
+                        "a path relative to the aircraft file, naming a regular file of at most 1 MB"
+                            .into(),
+                    ),
+                )
+            })?;
         let (title, points) =
             super::coordinates::parse_coordinates(&text, &path.display().to_string())?;
         // Check the shape now, so that a bad file is reported at the key that names it.
@@ -856,7 +1024,7 @@ impl Ctx<'_> {
         })?;
         let title = title.unwrap_or_else(|| {
             path.file_stem()
-                .map(|s| s.to_string_lossy().into_owned())
+                .map(|s| printable(&s.to_string_lossy()).into_owned())
                 .unwrap_or_default()
         });
         Ok(AirfoilShape::Coordinates { title, points })
@@ -876,7 +1044,7 @@ impl Ctx<'_> {
                 self.err(
                     &n.span(),
                     field,
-                    format!("no airfoil named `{}`", n.get_ref()),
+                    format!("no airfoil named `{}`", token(n.get_ref())),
                     Some(if known.is_empty() {
                         "define it in an [airfoils.NAME] table".to_string()
                     } else {
@@ -980,7 +1148,9 @@ impl Ctx<'_> {
                     &e.span(),
                     &format!("{path}.ellipse"),
                     "a surface is either panels or an ellipse, not both",
-                    None,
+                    Some(format!(
+                        "[[{path}.panel]] tables or one [{path}.ellipse] table"
+                    )),
                 ))
             }
             (true, None) => {
@@ -1252,7 +1422,7 @@ impl Ctx<'_> {
                     return Err(self.err(
                         &r.span(),
                         "stabiliser.role",
-                        format!("unknown role `{other}`"),
+                        format!("unknown role `{}`", token(other)),
                         Some("tail, canard".into()),
                     ))
                 }
@@ -1312,27 +1482,30 @@ impl Ctx<'_> {
         let s = s.get_ref();
         let name = self.required_name(s.name.as_ref(), &span, &path)?;
         let find_item = |key: &str, table: &str, q: &Quantity| {
-            masses.iter().position(|m| m.name == key).ok_or_else(|| {
-                let names: Vec<&str> = masses.iter().map(|m| m.name.as_str()).collect();
-                self.err(
-                    &q.span(),
-                    &format!("{path}.{table}"),
-                    format!("no mass item named `{key}`"),
-                    Some(format!("one of: {}", names.join(", "))),
-                )
-            })
+            masses
+                .iter()
+                .position(|m| m.name == printable(key.trim()))
+                .ok_or_else(|| {
+                    let names: Vec<&str> = masses.iter().map(|m| m.name.as_str()).collect();
+                    self.err(
+                        &q.span(),
+                        &format!("{path}.{table}"),
+                        format!("no mass item named `{}`", token(key)),
+                        Some(format!("one of: {}", names.join(", "))),
+                    )
+                })
         };
         let mut changes = Vec::new();
         for (bay_name, q) in &s.ballast {
             let bay = bays
                 .iter()
-                .position(|b| &b.name == bay_name)
+                .position(|b| b.name == printable(bay_name.trim()))
                 .ok_or_else(|| {
                     let names: Vec<&str> = bays.iter().map(|b| b.name.as_str()).collect();
                     self.err(
                         &q.span(),
                         &format!("{path}.ballast"),
-                        format!("no ballast bay named `{bay_name}`"),
+                        format!("no ballast bay named `{}`", token(bay_name)),
                         Some(if names.is_empty() {
                             "define a [[ballast]] bay first".into()
                         } else {
@@ -1383,7 +1556,10 @@ impl Ctx<'_> {
                     &q.span(),
                     &format!("{path}.stabiliser_incidence"),
                     "this aircraft has no stabiliser",
-                    None,
+                    Some(
+                        "no stabiliser_incidence in a setup of an aircraft without [stabiliser]"
+                            .into(),
+                    ),
                 ));
             }
             changes.push(Change::StabiliserIncidence(self.quantity(
@@ -1402,7 +1578,7 @@ impl Ctx<'_> {
                 self.err(
                     &to.span(),
                     &format!("{path}.airfoils"),
-                    format!("no airfoil named `{from}`"),
+                    format!("no airfoil named `{}`", token(from)),
                     known(),
                 )
             })?;
@@ -1410,7 +1586,7 @@ impl Ctx<'_> {
                 self.err(
                     &to.span(),
                     &format!("{path}.airfoils.{from}"),
-                    format!("no airfoil named `{}`", to.get_ref()),
+                    format!("no airfoil named `{}`", token(to.get_ref())),
                     known(),
                 )
             })?;
@@ -1578,10 +1754,90 @@ impl Ctx<'_> {
         Ok(out)
     }
 
+    /// A static margin (limit or target): 0 to 40 %, or down to -20 % when the file says a
+    /// negative margin is meant; a negative one without that gets an error saying how.
+    fn margin(
+        &self,
+        q: Option<&Quantity>,
+        field: &str,
+        bounds: Bounds,
+    ) -> Result<Option<f64>, InputError> {
+        let Some(q) = q else { return Ok(None) };
+        let any = Bounds::closed(-1e12, 1e12);
+        match self.quantity(q, field, Dimension::Percent, any) {
+            Ok(v) if v < 0.0 && bounds.min >= 0.0 => Err(self.err(
+                &q.span(),
+                field,
+                format!(
+                    "{} % is a negative static margin: the CG behind the neutral point, an \
+                     unstable aircraft",
+                    fmt_num_short(100.0 * v)
+                ),
+                Some(format!(
+                    "{}; below 0 only with `negative_margin_intended = true` in [limits] \
+                     (for an unstable design flown with a stabilising system)",
+                    accepted_quantity(Dimension::Percent, MARGIN_PCT)
+                )),
+            )),
+            _ => self
+                .quantity(q, field, Dimension::Percent, bounds)
+                .map(Some),
+        }
+    }
+
+    /// A tail behind the wing, a canard ahead of it: a stabiliser whose root leading edge is
+    /// on the wrong side of the wing's is a slip in `x` or a missing `role`.
+    fn stabiliser_place(
+        &self,
+        raw: Option<&Spanned<raw::RawSurface>>,
+        s: &Stabiliser,
+        wing: &Surface,
+    ) -> Result<(), InputError> {
+        let (wing_x, stab_x) = (wing.root_le_x_m, s.surface.root_le_x_m);
+        let wrong = match s.role {
+            StabiliserRole::Tail => stab_x <= wing_x,
+            StabiliserRole::Canard => stab_x >= wing_x,
+        };
+        if !wrong {
+            return Ok(());
+        }
+        let span = raw
+            .and_then(|r| r.get_ref().x.as_ref().map(|q| q.span()))
+            .or_else(|| raw.map(|r| r.span()))
+            .unwrap_or(0..0);
+        let (problem, accepted) = match s.role {
+            StabiliserRole::Tail => (
+                format!(
+                    "the tail's root leading edge ({} mm) is not behind the wing's ({} mm); a \
+                     surface ahead of the wing is a canard",
+                    fmt_num_short(1000.0 * stab_x),
+                    fmt_num_short(1000.0 * wing_x)
+                ),
+                format!(
+                    "x more than wing.x ({} mm), or role = \"canard\" for a foreplane",
+                    fmt_num_short(1000.0 * wing_x)
+                ),
+            ),
+            StabiliserRole::Canard => (
+                format!(
+                    "the canard's root leading edge ({} mm) is not ahead of the wing's ({} mm)",
+                    fmt_num_short(1000.0 * stab_x),
+                    fmt_num_short(1000.0 * wing_x)
+                ),
+                format!(
+                    "x less than wing.x ({} mm), or role = \"tail\" for a tailplane",
+                    fmt_num_short(1000.0 * wing_x)
+                ),
+            ),
+        };
+        Err(self.err(&span, "stabiliser.x", problem, Some(accepted)))
+    }
+
     fn limits(
         &self,
         raw: Option<&raw::RawLimits>,
         stab: Option<&Stabiliser>,
+        bounds: Bounds,
     ) -> Result<MarginLimits, InputError> {
         let (dmin, dmax) = match stab.map(|s| s.role) {
             Some(StabiliserRole::Tail) => (
@@ -1604,17 +1860,15 @@ impl Ctx<'_> {
                 from_defaults: true,
             });
         };
-        let min = self.opt_quantity(
+        let min = self.margin(
             l.min_static_margin.as_ref(),
             "limits.min_static_margin",
-            Dimension::Percent,
-            MARGIN_PCT,
+            bounds,
         )?;
-        let max = self.opt_quantity(
+        let max = self.margin(
             l.max_static_margin.as_ref(),
             "limits.max_static_margin",
-            Dimension::Percent,
-            MARGIN_PCT,
+            bounds,
         )?;
         let out = MarginLimits {
             min_static_margin: min.unwrap_or(dmin),
@@ -1650,6 +1904,25 @@ impl Ctx<'_> {
             ));
         }
         Ok(out)
+    }
+}
+
+/// "; did you mean 2 m?" when a bare number out of range would be in range in the unit a
+/// thousand times larger (metres typed for millimetres, kilograms for grams).
+fn unit_slip_hint(v: f64, dim: Dimension, bounds: Bounds) -> String {
+    let bigger = match dim {
+        Dimension::Length => "m",
+        Dimension::Mass => "kg",
+        _ => return String::new(),
+    };
+    if v > 0.0 && bounds.contains(1000.0 * v) {
+        format!(
+            "; did you mean {} {bigger}? A bare number is in {}",
+            fmt_num_short(v),
+            dim.default_unit()
+        )
+    } else {
+        String::new()
     }
 }
 
@@ -1695,7 +1968,13 @@ fn example_for(dim: Dimension) -> &'static str {
     }
 }
 
+/// A value for a message: up to 4 decimals, `-0` shown as `0`, and very large or very small
+/// magnitudes in exponent form (`1.000e300`), so a message never runs to hundreds of digits.
 fn fmt_num_short(v: f64) -> String {
+    let v = v + 0.0;
+    if v != 0.0 && !(1e-4..1e9).contains(&v.abs()) {
+        return format!("{v:.3e}");
+    }
     let s = format!("{v:.4}");
     let s = s.trim_end_matches('0').trim_end_matches('.');
     s.to_string()

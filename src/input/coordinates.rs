@@ -3,10 +3,17 @@
 //! Accepted: numbers separated by spaces, tabs or one comma; an optional single title line
 //! first (any line that is not two numbers); blank lines anywhere. Every other line must hold
 //! exactly two finite numbers. The points keep the file's order and units; checking the shape
-//! (order round the airfoil, crossings, duplicates) is the section geometry's job.
+//! (order round the airfoil, crossings, duplicates) is the section geometry's job. At most
+//! [`MAX_COORDINATE_POINTS`] points; quoted tokens are cut short and escaped.
 
 use crate::input::error::{InputError, Location};
+use crate::printable::{printable, token};
 use std::path::Path;
+
+/// Most points accepted in one coordinates file. Published airfoil files hold 30 to 400
+/// points (common practice); the limit keeps the shape checks (whose self-crossing test
+/// compares every pair of segments) to a fraction of a second.
+pub const MAX_COORDINATE_POINTS: usize = 10_000;
 
 /// What a coordinates line may hold, for error messages.
 const ACCEPTED: &str = "two numbers per line, x then y, separated by spaces, tabs or a comma; \
@@ -29,8 +36,22 @@ pub fn parse_coordinates(
         let first_content = !seen_content;
         seen_content = true;
         match parse_pair(line) {
+            Ok(_) if points.len() == MAX_COORDINATE_POINTS => {
+                return Err(InputError::new(
+                    Location {
+                        file: file.to_string(),
+                        line: line_no,
+                        column: 1,
+                    },
+                    format!("line {line_no}"),
+                    format!("more than {MAX_COORDINATE_POINTS} points"),
+                    Some(format!(
+                        "at most {MAX_COORDINATE_POINTS} points (x y pairs)"
+                    )),
+                ))
+            }
             Ok(p) => points.push(p),
-            Err(_) if first_content => title = Some(line.trim().to_string()),
+            Err(_) if first_content => title = Some(printable(line.trim()).into_owned()),
             Err((column, problem)) => {
                 return Err(InputError::new(
                     Location {
@@ -67,7 +88,7 @@ pub fn parse_coordinates(
 /// Reads and parses a coordinates file.
 pub fn read_coordinates_file(path: &Path) -> Result<(Option<String>, Vec<[f64; 2]>), InputError> {
     let name = path.display().to_string();
-    let text = super::error::read_text_file(path)?;
+    let text = super::file::read_input_file(path, super::file::COORDINATES_FILE)?;
     parse_coordinates(&text, &name)
 }
 
@@ -101,13 +122,19 @@ fn parse_pair(line: &str) -> Result<[f64; 2], (usize, String)> {
     let mut values = [0.0; 2];
     for (k, &(at, tok)) in tokens.iter().enumerate() {
         if k >= 2 {
-            return Err((column(at), format!("unexpected third value '{tok}'")));
+            return Err((
+                column(at),
+                format!("unexpected third value '{}'", token(tok)),
+            ));
         }
         let v: f64 = tok
             .parse()
-            .map_err(|_| (column(at), format!("'{tok}' is not a number")))?;
+            .map_err(|_| (column(at), format!("'{}' is not a number", token(tok))))?;
         if !v.is_finite() {
-            return Err((column(at), format!("'{tok}' is not a finite number")));
+            return Err((
+                column(at),
+                format!("'{}' is not a finite number", token(tok)),
+            ));
         }
         values[k] = v;
     }

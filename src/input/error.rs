@@ -1,5 +1,7 @@
-//! Errors from reading input files, each naming where the problem is and what is accepted.
+//! Errors from reading input files, each naming where the problem is and what is accepted;
+//! shown with control characters escaped ([`crate::printable`]).
 
+use crate::printable::printable;
 use std::fmt;
 
 /// A position in an input file, 1-based.
@@ -16,16 +18,21 @@ pub struct Location {
 impl fmt::Display for Location {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         if self.line == 0 {
-            write!(f, "{}", self.file)
+            write!(f, "{}", printable(&self.file))
         } else {
-            write!(f, "{}:{}:{}", self.file, self.line, self.column)
+            write!(f, "{}:{}:{}", printable(&self.file), self.line, self.column)
         }
     }
 }
 
 /// Something wrong with an input file.
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
-#[error("{location}: {field}: {problem}{}", accepted_suffix(.accepted))]
+#[error(
+    "{location}: {}: {}{}",
+    printable(.field),
+    printable(.problem),
+    accepted_suffix(.accepted)
+)]
 pub struct InputError {
     /// Where.
     pub location: Location,
@@ -40,7 +47,7 @@ pub struct InputError {
 
 fn accepted_suffix(accepted: &Option<String>) -> String {
     match accepted {
-        Some(a) => format!(" (accepted: {a})"),
+        Some(a) => format!(" (accepted: {})", printable(a)),
         None => String::new(),
     }
 }
@@ -60,20 +67,4 @@ impl InputError {
             accepted,
         }
     }
-}
-
-/// Read a whole text file, or an [`InputError`] naming it (field `file`).
-pub fn read_text_file(path: &std::path::Path) -> Result<String, InputError> {
-    std::fs::read_to_string(path).map_err(|e| {
-        InputError::new(
-            Location {
-                file: path.display().to_string(),
-                line: 0,
-                column: 0,
-            },
-            "file",
-            format!("cannot be read: {e}"),
-            None,
-        )
-    })
 }

@@ -8,6 +8,8 @@
 pub mod aircraft_file;
 pub mod coordinates;
 pub mod error;
+pub mod file;
+pub mod limits;
 mod raw;
 mod toml_error;
 pub mod units;

@@ -200,6 +200,7 @@ pub struct RawTargets {
 pub struct RawLimits {
     pub min_static_margin: Option<Quantity>,
     pub max_static_margin: Option<Quantity>,
+    pub negative_margin_intended: Option<Spanned<bool>>,
 }
 
 /// `[[setup]]`: a named variation of the aircraft for comparisons.

@@ -8,6 +8,7 @@
 //! keys of the line up to the span, inline tables included.
 
 use super::error::{InputError, Location};
+use crate::printable::{first_word, token};
 use std::collections::BTreeMap;
 
 /// Tables of the aircraft file that are lists (`[[name]]`, one heading per entry).
@@ -76,7 +77,7 @@ pub(super) fn translate(text: &str, file: &str, e: &toml::de::Error) -> InputErr
     let issue = if head == "duplicate key" {
         src.duplicate_key(&ctx, span.unwrap_or(at..at))
     } else if let Some(key) = head.strip_prefix("unknown field ") {
-        let key = key.trim_matches('`');
+        let key = &token(key.trim_matches('`'));
         Issue {
             field: ctx.path_with(key),
             problem: format!("unknown key `{key}`"),
@@ -88,7 +89,7 @@ pub(super) fn translate(text: &str, file: &str, e: &toml::de::Error) -> InputErr
         }
     } else if let Some(key) = head.strip_prefix("missing field ") {
         // Required keys are checked after reading (see raw.rs); this is a fallback.
-        let key = key.trim_matches('`');
+        let key = &token(key.trim_matches('`'));
         Issue {
             field: ctx.path_with(key),
             problem: format!("missing: `{key}` is required here"),
@@ -354,7 +355,7 @@ impl<'a> Source<'a> {
 
     fn duplicate_key(&self, ctx: &Context, span: std::ops::Range<usize>) -> Issue {
         let span = span.start.min(self.text.len())..span.end.min(self.text.len());
-        let key = clean_key(self.text.get(span.clone()).unwrap_or(""));
+        let key = token(&clean_key(self.text.get(span.clone()).unwrap_or("")));
         let (line_start, _) = self.line_bounds(span.start);
         let here = self.headers.iter().find(|h| h.start == line_start);
         if let Some(h) = here {
@@ -496,7 +497,7 @@ impl<'a> Source<'a> {
     }
 
     fn bad_number(&self, ctx: &Context, head: &str, at: usize) -> Issue {
-        let value = self.value_text(ctx, at);
+        let value = first_word(&self.value_text(ctx, at));
         if ctx.leaf() == "naca" {
             let digits: String = value.chars().filter(char::is_ascii_digit).collect();
             return Issue {
@@ -526,7 +527,7 @@ impl<'a> Source<'a> {
     }
 
     fn unquoted(&self, ctx: &Context, at: usize) -> Issue {
-        let value = self.value_text(ctx, at);
+        let value = first_word(&self.value_text(ctx, at));
         if value.is_empty() {
             return Issue {
                 field: ctx.path(),
@@ -592,7 +593,7 @@ impl<'a> Source<'a> {
         }
         Issue {
             field: ctx.path(),
-            problem: format!("unexpected `{after}` after the value"),
+            problem: format!("unexpected `{}` after the value", unexpected_text(after)),
             accepted: Some("one `key = value` on each line; after a value only a # comment".into()),
         }
     }
@@ -674,4 +675,24 @@ fn plain_expected(expected: &str) -> Option<String> {
         })
         .collect();
     (!items.is_empty()).then(|| items.join(" or "))
+}
+
+/// What an error may quote of the text after a value: its first character and the word
+/// that follows it (`,5`, `mm`), cut as [`first_word`] cuts.
+fn unexpected_text(after: &str) -> String {
+    let mut chars = after.chars();
+    match chars.next() {
+        None => String::new(),
+        Some(c) if c.is_alphanumeric() => first_word(after),
+        Some(c) => {
+            let rest = chars.as_str();
+            let word = first_word(rest);
+            let lead = token(&c.to_string());
+            if rest.is_empty() || rest.starts_with(char::is_whitespace) {
+                format!("{lead}{}", if rest.trim().is_empty() { "" } else { "..." })
+            } else {
+                format!("{lead}{word}")
+            }
+        }
+    }
 }

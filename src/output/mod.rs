@@ -4,6 +4,7 @@
 //! into output shapes with units in every field name.
 
 pub mod compare;
+pub mod fs;
 pub mod json;
 pub mod pdf;
 pub mod report;

@@ -1,13 +1,13 @@
-//! Writing the trim report to a file: analyse, lay out, then write atomically (a temporary
-//! file in the destination folder, renamed over the destination), so an existing report is
-//! never left half-written and a failed analysis writes nothing.
+//! Writing the trim report to a file: analyse, lay out, then write through
+//! [`crate::output::fs`] (atomic, link-safe), so an existing report is never left
+//! half-written and a failed analysis writes nothing.
 
 use crate::analysis::{analyse, Analysis, AnalysisError, AnalysisOptions};
 use crate::model::Aircraft;
+use crate::output::fs::{write_file, WriteError, WriteOptions};
 use crate::output::pdf::{self, Paper};
 use crate::output::report::{self, ReportSource};
-use std::io::Write as _;
-use std::path::{Path, PathBuf};
+use std::path::Path;
 use thiserror::Error;
 
 /// Why a report could not be made.
@@ -17,14 +17,8 @@ pub enum ReportError {
     #[error(transparent)]
     Analysis(#[from] AnalysisError),
     /// The file could not be written; an existing file at the path is unchanged.
-    #[error("cannot write the report to {path}: {source}")]
-    Write {
-        /// Destination.
-        path: PathBuf,
-        /// The I/O error.
-        #[source]
-        source: std::io::Error,
-    },
+    #[error(transparent)]
+    Write(#[from] WriteError),
 }
 
 /// The report for `aircraft` as PDF bytes.
@@ -46,43 +40,26 @@ fn analysed_report(
     Ok((pdf::trim_report(&data, paper), analysis))
 }
 
-/// Analyse `aircraft` and write its report to `path` (folders created as needed); returns the
-/// analysis the report was made from.
+/// Analyse `aircraft` and write its report to `path` (folders created as needed, a symbolic
+/// link at `path` refused); returns the analysis the report was made from.
 pub fn write_report(
     aircraft: &Aircraft,
     source: ReportSource,
     paper: Paper,
     path: &Path,
 ) -> Result<Analysis, ReportError> {
-    let (bytes, analysis) = analysed_report(aircraft, source, paper)?;
-    write_atomically(path, &bytes).map_err(|source| ReportError::Write {
-        path: path.to_path_buf(),
-        source,
-    })?;
-    Ok(analysis)
+    write_report_with(aircraft, source, paper, path, &WriteOptions::default())
 }
 
-/// Write `bytes` to `path` through a temporary file in the same folder and a rename.
-pub fn write_atomically(path: &Path, bytes: &[u8]) -> std::io::Result<()> {
-    let dir = match path.parent() {
-        Some(p) if !p.as_os_str().is_empty() => p.to_path_buf(),
-        _ => PathBuf::from("."),
-    };
-    std::fs::create_dir_all(&dir)?;
-    let name = path
-        .file_name()
-        .map(|n| n.to_string_lossy().into_owned())
-        .unwrap_or_else(|| "report.pdf".to_string());
-    let tmp = dir.join(format!(".{name}.{}.tmp", std::process::id()));
-    let result = (|| {
-        let mut f = std::fs::File::create(&tmp)?;
-        f.write_all(bytes)?;
-        f.sync_all()?;
-        drop(f);
-        std::fs::rename(&tmp, path)
-    })();
-    if result.is_err() {
-        let _ = std::fs::remove_file(&tmp);
-    }
-    result
+/// [`write_report`] with the file-writing options given (see [`crate::output::fs`]).
+pub fn write_report_with(
+    aircraft: &Aircraft,
+    source: ReportSource,
+    paper: Paper,
+    path: &Path,
+    options: &WriteOptions,
+) -> Result<Analysis, ReportError> {
+    let (bytes, analysis) = analysed_report(aircraft, source, paper)?;
+    write_file(path, &bytes, options)?;
+    Ok(analysis)
 }

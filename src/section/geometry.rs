@@ -468,23 +468,38 @@ impl Spline {
     }
 }
 
+/// Sort-and-sweep along x: only segments whose x-ranges overlap are compared, so an airfoil
+/// (whose segments overlap in x only with the few on the other surface) costs O(n log n);
+/// the reader's point limit bounds the worst case. Returns the first crossing pair (i, j)
+/// in index order, as comparing every pair would.
 fn check_self_crossing(pts: &[[f64; 2]], closed: bool, tol: f64) -> Result<(), GeometryError> {
     // Segments i: pts[i] -> pts[i+1]; in a closed loop the first and last share a point.
     let segs = pts.len() - 1;
-    for i in 0..segs {
-        let (a, b) = (pts[i], pts[i + 1]);
-        for j in i + 1..segs {
-            let adjacent = j == i + 1 || (closed && i == 0 && j == segs - 1);
-            if adjacent {
+    let lo = |i: usize| pts[i][0].min(pts[i + 1][0]) - tol;
+    let hi = |i: usize| pts[i][0].max(pts[i + 1][0]) + tol;
+    let mut order: Vec<usize> = (0..segs).collect();
+    order.sort_by(|&a, &b| lo(a).total_cmp(&lo(b)));
+    let mut first: Option<(usize, usize)> = None;
+    for (k, &i) in order.iter().enumerate() {
+        let hi_i = hi(i);
+        for &j in &order[k + 1..] {
+            if lo(j) > hi_i {
+                break;
+            }
+            let (a, b) = (i.min(j), i.max(j));
+            let adjacent = b == a + 1 || (closed && a == 0 && b == segs - 1);
+            if adjacent || first.is_some_and(|f| f <= (a, b)) {
                 continue;
             }
-            let (c, d) = (pts[j], pts[j + 1]);
-            if segments_intersect(a, b, c, d, tol) {
-                return Err(GeometryError::SelfCrossing(i, j));
+            if segments_intersect(pts[a], pts[a + 1], pts[b], pts[b + 1], tol) {
+                first = Some((a, b));
             }
         }
     }
-    Ok(())
+    match first {
+        Some((i, j)) => Err(GeometryError::SelfCrossing(i, j)),
+        None => Ok(()),
+    }
 }
 
 fn segments_intersect(a: [f64; 2], b: [f64; 2], c: [f64; 2], d: [f64; 2], tol: f64) -> bool {
