@@ -7,7 +7,7 @@
 //! [`MAX_COORDINATE_POINTS`] points; quoted tokens are cut short and escaped.
 
 use crate::input::error::{InputError, Location};
-use crate::printable::{printable, token};
+use crate::printable::{first_word, printable, token};
 use std::path::Path;
 
 /// Most points accepted in one coordinates file. Published airfoil files hold 30 to 400
@@ -129,7 +129,7 @@ fn parse_pair(line: &str) -> Result<[f64; 2], (usize, String)> {
         }
         let v: f64 = tok
             .parse()
-            .map_err(|_| (column(at), format!("'{}' is not a number", token(tok))))?;
+            .map_err(|_| (column(at), format!("'{}' is not a number", first_word(tok))))?;
         if !v.is_finite() {
             return Err((
                 column(at),
