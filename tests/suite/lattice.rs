@@ -490,7 +490,7 @@ fn numerics_table_chooses_the_model_and_refuses_what_it_cannot_solve() {
     let e = parse("spanwise_strips = 400\nchordwise_panels = 40")
         .unwrap_err()
         .to_string();
-    assert!(e.contains("at most 1500"), "{e}");
+    assert!(e.contains("at most 600"), "{e}");
 }
 
 #[test]
