@@ -10,6 +10,7 @@ pub mod pdf;
 pub mod report;
 pub mod report_file;
 pub mod section;
+pub mod study;
 pub mod tables;
 
 /// The wing model in a few words for table notes: "vortex-lattice model", "lifting-line model".

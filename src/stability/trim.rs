@@ -230,6 +230,17 @@ fn speed_at(mass_kg: f64, density: f64, area_m2: f64, cl: f64) -> f64 {
 /// Run the full-model balance and trim.
 pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLineError> {
     let system = build_system(input.aircraft, input.sections, input.options)?;
+    full_stability_on(&system, input)
+}
+
+/// The full-model balance and trim on a system already built and factored for the input's
+/// aircraft (by [`build_system`], or one built once and changed by
+/// `MultiSurfaceSystem::with_angle_change` for other incidences): masses, CG and target
+/// speed come from `input`, the geometry from `system`.
+pub fn full_stability_on(
+    system: &MultiSurfaceSystem,
+    input: &TrimInput<'_>,
+) -> Result<FullStability, LiftingLineError> {
     let reference = system.reference();
     let c = reference.mac_m;
     let area = reference.area_m2;
@@ -282,7 +293,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
     let stall = stall_at(
-        &system,
+        system,
         &base,
         pitch_control.is_some(),
         eff(input.cg_x_m),
@@ -299,7 +310,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
         .is_some_and(|s| s.role == StabiliserRole::Canard);
     let elevator_forward_limit_x_m = match pitch_control {
         Some(p) if !is_canard => elevator_limit(
-            &system,
+            system,
             &base,
             -p.max_up_rad,
             neutral_point_x_m,
@@ -335,7 +346,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
                 });
             }
         }
-        cg_for_target_x_m = cg_for_cl(&system, &base, cl_t, z)
+        cg_for_target_x_m = cg_for_cl(system, &base, cl_t, z)
             .map(|x| x - fuselage_shift_m)
             .filter(|x| *x < neutral_point_x_m);
     }
@@ -377,7 +388,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
             .unwrap_or(TAILLESS_DESIGN_CL);
         Some(tailless_check(
             input,
-            &system,
+            system,
             design_cl,
             eff(input.cg_x_m),
             z,
