@@ -29,3 +29,4 @@ mod section_joukowski;
 mod section_panel;
 mod section_thin;
 mod stability_classical;
+mod study;
