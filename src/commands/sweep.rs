@@ -109,8 +109,31 @@ pub fn run(args: &SweepArgs) -> anyhow::Result<super::Finish> {
     Ok(super::Finish::Clean)
 }
 
+/// A study runs with a progress bar on standard error when that is a terminal and the run
+/// has taken longer than this (a shorter run finishes before a bar would be read).
+const PROGRESS_AFTER: std::time::Duration = std::time::Duration::from_secs(1);
+
 fn run_points(study: &Study<'_>) -> Vec<trimline::study::Point> {
-    (0..study.len()).map(|i| study.point(i)).collect()
+    use indicatif::{ProgressBar, ProgressDrawTarget, ProgressStyle};
+    use std::io::IsTerminal as _;
+    let on_terminal = std::io::stderr().is_terminal();
+    let bar = ProgressBar::with_draw_target(Some(study.len() as u64), ProgressDrawTarget::hidden());
+    if let Ok(style) = ProgressStyle::with_template("{bar:40} {pos}/{len} points, {eta} left") {
+        bar.set_style(style);
+    }
+    let start = std::time::Instant::now();
+    let shown = std::sync::atomic::AtomicBool::new(false);
+    let points = study.run(&|| {
+        bar.inc(1);
+        if on_terminal
+            && start.elapsed() > PROGRESS_AFTER
+            && !shown.swap(true, std::sync::atomic::Ordering::Relaxed)
+        {
+            bar.set_draw_target(ProgressDrawTarget::stderr());
+        }
+    });
+    bar.finish_and_clear();
+    points
 }
 
 /// Parse one `--vary` option into an axis in SI units.

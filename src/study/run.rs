@@ -193,6 +193,22 @@ impl<'a> Study<'a> {
         self.systems[k].as_ref()
     }
 
+    /// Every point, in order (index 0 first, the last axis fastest), computed in parallel
+    /// over the machine's cores; `on_point` is called once after each point (from any
+    /// thread), for a progress display. The result does not depend on the number of threads:
+    /// each point is computed on its own from shared, read-only data.
+    pub fn run(&self, on_point: &(dyn Fn() + Sync)) -> Vec<Point> {
+        use rayon::prelude::*;
+        (0..self.len())
+            .into_par_iter()
+            .map(|i| {
+                let p = self.point(i);
+                on_point();
+                p
+            })
+            .collect()
+    }
+
     /// Point `index` of the study.
     pub fn point(&self, index: usize) -> Point {
         let idx = self.value_indices(index);
