@@ -34,10 +34,11 @@ pub struct SweepArgs {
     /// Study the named [[setup]] of the file instead of its base configuration.
     #[arg(long, value_name = "NAME")]
     pub setup: Option<String>,
-    /// Print one JSON document (SI units) instead of the table.
+    /// Print one JSON document (units of check --json: SI, angles in deg, margin in %) instead
+    /// of the table.
     #[arg(long)]
     pub json: bool,
-    /// Also write every point to this CSV file (SI units).
+    /// Also write every point to this CSV file (same units as the JSON).
     #[arg(long, value_name = "PATH")]
     pub csv: Option<PathBuf>,
     /// When the CSV's PATH is a symbolic link, write to the file it points to (refused

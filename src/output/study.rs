@@ -1,6 +1,7 @@
 //! Output of a trade study (`trimline sweep`): the terminal table in the builder's units, and
-//! CSV and JSON in SI units (metres, kilograms, radians, m/s; margins as fractions of MAC),
-//! one row or object per point in the study's order.
+//! CSV and JSON in the convention of `check --json` (SI units, but angles in degrees and the
+//! static margin in percent of the MAC, each name ending in its unit), one row or object per
+//! point in the study's order.
 
 use crate::caution::Level;
 use crate::model::Aircraft;
@@ -10,7 +11,8 @@ use serde::{Deserialize, Serialize};
 
 /// The unit convention of the JSON and CSV, stated in the JSON document.
 pub const UNITS: &str =
-    "SI: lengths m, masses kg, angles rad, speeds m/s, static margin as a fraction of the MAC";
+    "as check --json: SI (lengths m, masses kg, speeds m/s) except angles in degrees and the \
+     static margin in percent of the MAC; each name ends in its unit";
 
 /// The name of an axis for headings: its key, with the bay's or item's name where it has one
 /// ("cg_x_m", "ballast_kg[nose]", "item_mass_kg[battery]").
@@ -156,7 +158,7 @@ pub fn table(aircraft: &Aircraft, axes: &[Axis], points: &[Point], target_speed:
 pub struct PointRecord {
     /// Position of the point in the study (0-based; the last axis varies fastest).
     pub index: usize,
-    /// The axis values, SI, one per axis.
+    /// The axis values, one per axis, in the units of the axes' names.
     pub values: Vec<f64>,
     /// "ok", or "error" when the chain could not run at this point.
     pub status: String,
@@ -168,8 +170,8 @@ pub struct PointRecord {
     pub cg_x_m: Option<f64>,
     /// Neutral point, m aft of the datum.
     pub neutral_point_x_m: Option<f64>,
-    /// Static margin, fraction of MAC.
-    pub static_margin: Option<f64>,
+    /// Static margin, percent of MAC.
+    pub static_margin_percent: Option<f64>,
     /// "trimmed" or "no-trim" (empty on an error).
     pub trim_status: String,
     /// Trim lift coefficient.
@@ -178,8 +180,8 @@ pub struct PointRecord {
     pub trim_speed_m_s: Option<f64>,
     /// "not-asked", "within-throws", "beyond-throws" or "no-trim".
     pub control_status: String,
-    /// Elevator (or elevons) to trim at the target speed, rad, trailing edge down positive.
-    pub control_at_target_rad: Option<f64>,
+    /// Elevator (or elevons) to trim at the target speed, deg, trailing edge down positive.
+    pub control_at_target_deg: Option<f64>,
     /// Stall speed, m/s.
     pub stall_speed_m_s: Option<f64>,
     /// Model that gave the figures.
@@ -188,26 +190,39 @@ pub struct PointRecord {
     pub cautions: String,
 }
 
-/// The records of `points`.
-pub fn records(points: &[Point]) -> Vec<PointRecord> {
+/// An axis value in the unit of its key (SI; angles in degrees).
+fn record_value(quantity: &Quantity, value_si: f64) -> f64 {
+    if quantity.is_incidence() {
+        value_si.to_degrees()
+    } else {
+        value_si
+    }
+}
+
+/// The records of `points` of a study over `axes`.
+pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
     points
         .iter()
         .enumerate()
         .map(|(index, p)| {
             let mut r = PointRecord {
                 index,
-                values: p.values.clone(),
+                values: axes
+                    .iter()
+                    .zip(&p.values)
+                    .map(|(a, &v)| record_value(&a.quantity, v))
+                    .collect(),
                 status: "ok".into(),
                 error: String::new(),
                 mass_kg: None,
                 cg_x_m: None,
                 neutral_point_x_m: None,
-                static_margin: None,
+                static_margin_percent: None,
                 trim_status: String::new(),
                 trim_cl: None,
                 trim_speed_m_s: None,
                 control_status: String::new(),
-                control_at_target_rad: None,
+                control_at_target_deg: None,
                 stall_speed_m_s: None,
                 method: String::new(),
                 cautions: String::new(),
@@ -217,7 +232,7 @@ pub fn records(points: &[Point]) -> Vec<PointRecord> {
                     r.mass_kg = Some(f.mass_kg);
                     r.cg_x_m = Some(f.cg_x_m);
                     r.neutral_point_x_m = Some(f.neutral_point_x_m);
-                    r.static_margin = Some(f.static_margin);
+                    r.static_margin_percent = Some(100.0 * f.static_margin);
                     match f.trim {
                         TrimOutcome::Trimmed { cl, speed_m_s } => {
                             r.trim_status = "trimmed".into();
@@ -230,7 +245,7 @@ pub fn records(points: &[Point]) -> Vec<PointRecord> {
                         ControlOutcome::NotAsked => "not-asked",
                         ControlOutcome::NoTrim => "no-trim",
                         ControlOutcome::Deflection { rad, within_throws } => {
-                            r.control_at_target_rad = Some(rad);
+                            r.control_at_target_deg = Some(rad.to_degrees());
                             if within_throws {
                                 "within-throws"
                             } else {
@@ -258,7 +273,7 @@ pub fn records(points: &[Point]) -> Vec<PointRecord> {
 pub struct AxisRecord {
     /// The quantity's label ("cg_x_m", "ballast_kg[nose]", ...).
     pub quantity: String,
-    /// Its values, SI.
+    /// Its values, in the unit its name ends in.
     pub values: Vec<f64>,
 }
 
@@ -295,10 +310,14 @@ pub fn document(
             .iter()
             .map(|a| AxisRecord {
                 quantity: axis_label(aircraft, &a.quantity),
-                values: a.values.clone(),
+                values: a
+                    .values
+                    .iter()
+                    .map(|&v| record_value(&a.quantity, v))
+                    .collect(),
             })
             .collect(),
-        points: records(points),
+        points: records(axes, points),
     }
 }
 
@@ -309,12 +328,12 @@ pub const CSV_COLUMNS: [&str; 14] = [
     "mass_kg",
     "cg_x_m",
     "neutral_point_x_m",
-    "static_margin",
+    "static_margin_percent",
     "trim_status",
     "trim_cl",
     "trim_speed_m_s",
     "control_status",
-    "control_at_target_rad",
+    "control_at_target_deg",
     "stall_speed_m_s",
     "method",
     "cautions",
@@ -346,7 +365,7 @@ pub fn csv(aircraft: &Aircraft, axes: &[Axis], points: &[Point]) -> String {
     header.extend(CSV_COLUMNS.iter().map(|s| s.to_string()));
     out.push_str(&header.join(","));
     out.push('\n');
-    for r in records(points) {
+    for r in records(axes, points) {
         let mut row = vec![r.index.to_string()];
         row.extend(r.values.iter().map(|v| number(Some(*v))));
         row.extend([
@@ -355,12 +374,12 @@ pub fn csv(aircraft: &Aircraft, axes: &[Axis], points: &[Point]) -> String {
             number(r.mass_kg),
             number(r.cg_x_m),
             number(r.neutral_point_x_m),
-            number(r.static_margin),
+            number(r.static_margin_percent),
             field(&r.trim_status),
             number(r.trim_cl),
             number(r.trim_speed_m_s),
             field(&r.control_status),
-            number(r.control_at_target_rad),
+            number(r.control_at_target_deg),
             number(r.stall_speed_m_s),
             field(&r.method),
             field(&r.cautions),

@@ -42,7 +42,8 @@ pub enum Quantity {
 }
 
 impl Quantity {
-    /// Short name used in column headings, CSV and JSON ("cg_x_m", "ballast_kg", ...).
+    /// Short name used in column headings, CSV and JSON ("cg_x_m", "ballast_kg", ...), with
+    /// the unit of the CSV and JSON (SI, but angles in degrees as in `check --json`).
     pub fn key(&self) -> &'static str {
         match self {
             Quantity::CgX => "cg_x_m",
@@ -50,8 +51,8 @@ impl Quantity {
             Quantity::ItemMass(_) => "item_mass_kg",
             Quantity::ItemX(_) => "item_x_m",
             Quantity::MassScale => "mass_scale",
-            Quantity::StabiliserIncidence => "stabiliser_incidence_rad",
-            Quantity::Decalage => "decalage_rad",
+            Quantity::StabiliserIncidence => "stabiliser_incidence_deg",
+            Quantity::Decalage => "decalage_deg",
         }
     }
 
