@@ -271,17 +271,19 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         &sections.models,
         lifting_line_options(aircraft, options),
     );
-    analyse_with(aircraft, &sections, system.as_ref(), options)
+    analyse_with(aircraft, &sections, system.as_ref(), None, options)
 }
 
 /// Run the chain on `aircraft` with its sections and its factored wing system already made
 /// (by [`section_set`] and `trim::build_system` of this aircraft, or of one that differs only
 /// in masses, with the incidence changes applied by `MultiSurfaceSystem::with_angle_change`);
-/// `system` is the build's error when it failed. Gives what [`analyse`] gives.
+/// `system` is the build's error when it failed; `memo` remembers the forward CG limit found
+/// on that system for later calls. Gives what [`analyse`] gives.
 pub fn analyse_with(
     aircraft: &Aircraft,
     section_set: &SectionSet,
     system: Result<&MultiSurfaceSystem, &LiftingLineError>,
+    memo: Option<&trim::ForwardLimitMemo>,
     options: &AnalysisOptions,
 ) -> Result<Analysis, AnalysisError> {
     let mut cautions = section_set.cautions.clone();
@@ -317,7 +319,7 @@ pub fn analyse_with(
     );
     let full = match system
         .map_err(Clone::clone)
-        .and_then(|system| trim::full_stability_on(system, &input))
+        .and_then(|system| trim::full_stability_on(system, &input, memo))
     {
         Ok(f) => Some(f),
         Err(e) => {

@@ -230,16 +230,47 @@ fn speed_at(mass_kg: f64, density: f64, area_m2: f64, cl: f64) -> f64 {
 /// Run the full-model balance and trim.
 pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLineError> {
     let system = build_system(input.aircraft, input.sections, input.options)?;
-    full_stability_on(&system, input)
+    full_stability_on(&system, input, None)
+}
+
+/// Forward CG limits already found on one system, remembered by what they depend on: the
+/// CG height (the moment reference's z), the control's full-up throw and the fuselage term.
+/// The limit does not depend on the CG's x or on the mass (the trimmed stall is solved in
+/// coefficients), so a study over CG positions and masses finds it once per system.
+#[derive(Debug, Default)]
+pub struct ForwardLimitMemo {
+    found: std::sync::Mutex<Vec<([u64; 3], Option<f64>)>>,
+}
+
+impl ForwardLimitMemo {
+    /// The remembered limit for `key`, or `compute()` (then remembered).
+    fn get_or(&self, key: [f64; 3], compute: impl FnOnce() -> Option<f64>) -> Option<f64> {
+        let key = key.map(f64::to_bits);
+        let known = self
+            .found
+            .lock()
+            .ok()
+            .and_then(|found| found.iter().find(|(k, _)| *k == key).map(|(_, v)| *v));
+        if let Some(v) = known {
+            return v;
+        }
+        let v = compute();
+        if let Ok(mut found) = self.found.lock() {
+            found.push((key, v));
+        }
+        v
+    }
 }
 
 /// The full-model balance and trim on a system already built and factored for the input's
 /// aircraft (by [`build_system`], or one built once and changed by
 /// `MultiSurfaceSystem::with_angle_change` for other incidences): masses, CG and target
-/// speed come from `input`, the geometry from `system`.
+/// speed come from `input`, the geometry from `system`. `memo`, when given, remembers the
+/// forward CG limit for other calls on the same system.
 pub fn full_stability_on(
     system: &MultiSurfaceSystem,
     input: &TrimInput<'_>,
+    memo: Option<&ForwardLimitMemo>,
 ) -> Result<FullStability, LiftingLineError> {
     let reference = system.reference();
     let c = reference.mac_m;
@@ -309,15 +340,23 @@ pub fn full_stability_on(
         .as_ref()
         .is_some_and(|s| s.role == StabiliserRole::Canard);
     let elevator_forward_limit_x_m = match pitch_control {
-        Some(p) if !is_canard => elevator_limit(
-            system,
-            &base,
-            -p.max_up_rad,
-            neutral_point_x_m,
-            c,
-            z,
-            fuselage_shift_m,
-        ),
+        Some(p) if !is_canard => {
+            let find = || {
+                elevator_limit(
+                    system,
+                    &base,
+                    -p.max_up_rad,
+                    neutral_point_x_m,
+                    c,
+                    z,
+                    fuselage_shift_m,
+                )
+            };
+            match memo {
+                Some(m) => m.get_or([z, p.max_up_rad, input.fuselage_cm_alpha_per_rad], find),
+                None => find(),
+            }
+        }
         _ => None,
     };
 

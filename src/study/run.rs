@@ -14,6 +14,7 @@ use crate::analysis::{self, Analysis, AnalysisError, AnalysisOptions, SectionSet
 use crate::caution::Level;
 use crate::lifting_line::{LiftingLineError, MultiSurfaceSystem, TrimControl};
 use crate::model::Aircraft;
+use crate::stability::trim::ForwardLimitMemo;
 
 /// Most points a study runs.
 pub const MAX_POINTS: usize = 10_000;
@@ -27,6 +28,9 @@ pub struct Study<'a> {
     /// The factored system for each value of the incidence axis (one entry when no axis
     /// changes an incidence), or the build's error.
     systems: Vec<Result<MultiSurfaceSystem, LiftingLineError>>,
+    /// The forward CG limits found on each system (the limit depends on the system and the
+    /// CG height only, not on the CG's x or the mass).
+    memos: Vec<ForwardLimitMemo>,
     /// Which axis changes an incidence, if any.
     incidence_axis: Option<usize>,
 }
@@ -130,12 +134,17 @@ impl<'a> Study<'a> {
             }
             _ => vec![built],
         };
+        let memos = systems
+            .iter()
+            .map(|_| ForwardLimitMemo::default())
+            .collect();
         Ok(Study {
             base,
             axes,
             options,
             sections,
             systems,
+            memos,
             incidence_axis,
         })
     }
@@ -181,16 +190,24 @@ impl<'a> Study<'a> {
     /// The full analysis of point `index` on the shared sections and system.
     pub fn analysis_at(&self, index: usize) -> Result<(Aircraft, Analysis), AnalysisError> {
         let aircraft = self.aircraft_at(index);
-        let system = self.system_at(index);
-        let a = analysis::analyse_with(&aircraft, &self.sections, system, &self.options)?;
+        let k = self.system_index(index);
+        let a = analysis::analyse_with(
+            &aircraft,
+            &self.sections,
+            self.systems[k].as_ref(),
+            Some(&self.memos[k]),
+            &self.options,
+        )?;
         Ok((aircraft, a))
     }
 
+    fn system_index(&self, index: usize) -> usize {
+        self.incidence_axis
+            .map_or(0, |axis| self.value_indices(index)[axis])
+    }
+
     fn system_at(&self, index: usize) -> Result<&MultiSurfaceSystem, &LiftingLineError> {
-        let k = self
-            .incidence_axis
-            .map_or(0, |axis| self.value_indices(index)[axis]);
-        self.systems[k].as_ref()
+        self.systems[self.system_index(index)].as_ref()
     }
 
     /// Every point, in order (index 0 first, the last axis fastest), computed in parallel
