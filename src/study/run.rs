@@ -7,7 +7,9 @@
 //! (tests/suite/study.rs checks this on random points against a full analysis). Masses only
 //! move the CG and the weight, which enter the trim and stall solves as the moment reference
 //! and the lift needed; an incidence enters the small-angle lattice only as a boundary angle
-//! (`MultiSurfaceSystem::with_angle_change`), so no point rebuilds the geometry.
+//! (`MultiSurfaceSystem::with_angle_change`), so no point rebuilds the geometry. The forward
+//! CG limit from elevator authority depends on the system and the CG height only, so it is
+//! found once per system and height (`trim::ForwardLimitMemo`).
 
 use super::axis::{apply, check_value, Axis, Quantity, StudyError};
 use crate::analysis::{self, Analysis, AnalysisError, AnalysisOptions, SectionSet};
