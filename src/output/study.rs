@@ -15,7 +15,7 @@ pub const UNITS: &str =
      static margin in percent of the MAC; each name ends in its unit";
 
 /// The name of an axis for headings: its key, with the bay's or item's name where it has one
-/// ("cg_x_m", "ballast_kg[nose]", "item_mass_kg[battery]").
+/// ("set_cg_x_m", "ballast_kg[nose]", "item_mass_kg[battery]").
 pub fn axis_label(aircraft: &Aircraft, quantity: &Quantity) -> String {
     let named = |name: &str| format!("{}[{}]", quantity.key(), crate::printable::printable(name));
     match quantity {
@@ -271,7 +271,7 @@ pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
 /// One axis in the JSON document.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct AxisRecord {
-    /// The quantity's label ("cg_x_m", "ballast_kg[nose]", ...).
+    /// The quantity's label ("set_cg_x_m", "ballast_kg[nose]", ...).
     pub quantity: String,
     /// Its values, in the unit its name ends in.
     pub values: Vec<f64>,

@@ -42,11 +42,11 @@ pub enum Quantity {
 }
 
 impl Quantity {
-    /// Short name used in column headings, CSV and JSON ("cg_x_m", "ballast_kg", ...), with
+    /// Short name used in column headings, CSV and JSON ("set_cg_x_m", "ballast_kg", ...), with
     /// the unit of the CSV and JSON (SI, but angles in degrees as in `check --json`).
     pub fn key(&self) -> &'static str {
         match self {
-            Quantity::CgX => "cg_x_m",
+            Quantity::CgX => "set_cg_x_m",
             Quantity::Ballast(_) => "ballast_kg",
             Quantity::ItemMass(_) => "item_mass_kg",
             Quantity::ItemX(_) => "item_x_m",

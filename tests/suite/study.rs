@@ -235,7 +235,15 @@ fn csv_and_json_read_back_to_the_same_figures() {
     assert_eq!(rows.len(), 1 + points.len());
     let header = &rows[0];
     assert_eq!(header[0], "index");
-    assert_eq!(header[1], "cg_x_m");
+    assert_eq!(header[1], "set_cg_x_m");
+    let mut names = header.clone();
+    names.sort();
+    names.dedup();
+    assert_eq!(
+        names.len(),
+        header.len(),
+        "column names are unique: {header:?}"
+    );
     assert_eq!(header[2], "decalage_deg");
     assert_eq!(&header[3..], &CSV_COLUMNS.map(String::from)[..]);
     let col = |name: &str| header.iter().position(|h| h == name).unwrap();
