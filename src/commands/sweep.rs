@@ -208,11 +208,16 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
             }
         }
     };
-    let values = parse_values(values).with_context(|| format!("--vary {shown}"))?;
-    Ok(Axis {
-        quantity,
-        values: values.into_iter().map(|v| v * to_si).collect(),
-    })
+    let values: Vec<f64> = parse_values(values)
+        .with_context(|| format!("--vary {shown}"))?
+        .into_iter()
+        .map(|v| v * to_si)
+        .collect();
+    for &v in &values {
+        trimline::study::check_value(aircraft, &quantity, v)
+            .with_context(|| format!("--vary {shown}"))?;
+    }
+    Ok(Axis { quantity, values })
 }
 
 /// Parse `start:stop:step` or `a,b,c` (the builder's units).

@@ -190,15 +190,6 @@ pub struct PointRecord {
     pub cautions: String,
 }
 
-/// An axis value in the unit of its key (SI; angles in degrees).
-fn record_value(quantity: &Quantity, value_si: f64) -> f64 {
-    if quantity.is_incidence() {
-        value_si.to_degrees()
-    } else {
-        value_si
-    }
-}
-
 /// The records of `points` of a study over `axes`.
 pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
     points
@@ -210,7 +201,7 @@ pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
                 values: axes
                     .iter()
                     .zip(&p.values)
-                    .map(|(a, &v)| record_value(&a.quantity, v))
+                    .map(|(a, &v)| a.quantity.in_key_unit(v))
                     .collect(),
                 status: "ok".into(),
                 error: String::new(),
@@ -313,7 +304,7 @@ pub fn document(
                 values: a
                     .values
                     .iter()
-                    .map(|&v| record_value(&a.quantity, v))
+                    .map(|&v| a.quantity.in_key_unit(v))
                     .collect(),
             })
             .collect(),

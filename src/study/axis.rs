@@ -56,6 +56,15 @@ impl Quantity {
         }
     }
 
+    /// A value (SI) in the unit the key ends in (degrees for angles, else unchanged).
+    pub fn in_key_unit(&self, value_si: f64) -> f64 {
+        if self.is_incidence() {
+            value_si.to_degrees()
+        } else {
+            value_si
+        }
+    }
+
     /// True for the quantities that change a surface's incidence (the wing system is then
     /// re-solved for the new boundary angles, not rebuilt).
     pub fn is_incidence(&self) -> bool {
@@ -118,7 +127,7 @@ pub enum StudyError {
     OutOfRange {
         /// The quantity's key.
         quantity: &'static str,
-        /// The value, SI.
+        /// The value, in the unit the quantity's key ends in.
         value: f64,
         /// The accepted range, in words.
         range: String,
@@ -137,7 +146,7 @@ pub enum StudyError {
 pub fn check_value(base: &Aircraft, quantity: &Quantity, value: f64) -> Result<(), StudyError> {
     let out = |range: String| StudyError::OutOfRange {
         quantity: quantity.key(),
-        value,
+        value: quantity.in_key_unit(value),
         range,
     };
     let not = |reason| StudyError::NotApplicable {
