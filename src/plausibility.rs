@@ -48,6 +48,25 @@ pub fn cautions(aircraft: &Aircraft, wing: &PlanformGeometry, mass_kg: f64) -> V
             ),
         ));
     }
+    if let Some(stab) = &aircraft.stabiliser {
+        if let Some(o) = crate::planform::plan_overlap(&aircraft.wing, &stab.surface) {
+            out.push(Caution::new(
+                Level::Warning,
+                "surfaces-overlap",
+                format!(
+                    "The {} overlaps the wing in the top view ({:.0} mm from the centre line, \
+                     {:.0} mm above or below it): the two are modelled as a biplane, each in the \
+                     other's field. If that is not the layout, check stabiliser.x and z.",
+                    match stab.role {
+                        crate::model::StabiliserRole::Tail => "tail",
+                        crate::model::StabiliserRole::Canard => "canard",
+                    },
+                    1000.0 * o.y_m,
+                    1000.0 * o.gap_m
+                ),
+            ));
+        }
+    }
     if wing.area_m2 > 0.0 && wing.span_m > 0.0 {
         let loading = mass_kg / wing.area_m2;
         let (lo, hi) = USUAL_WING_LOADING_KG_M2;

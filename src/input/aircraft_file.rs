@@ -208,6 +208,8 @@ const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
 const TEMP_OFFSET_K: Bounds = Bounds::closed(-60.0, 60.0);
 const DENSITY: Bounds = Bounds::closed(0.3, 1.5);
 const FUSELAGE_MM: Bounds = Bounds::positive(30_000.0);
+/// Surfaces overlapping in the top view closer than this many chords (vertically) intersect.
+const INTERSECTING_GAP_CHORDS: f64 = 0.1;
 /// Strips per half-span of the wing (four times the default; the lifting line's own limit is
 /// higher).
 const STRIPS: Bounds = Bounds::closed(4.0, 100.0);
@@ -1800,13 +1802,33 @@ impl Ctx<'_> {
             StabiliserRole::Tail => stab_x <= wing_x,
             StabiliserRole::Canard => stab_x >= wing_x,
         };
-        if !wrong {
-            return Ok(());
-        }
         let span = raw
             .and_then(|r| r.get_ref().x.as_ref().map(|q| q.span()))
             .or_else(|| raw.map(|r| r.span()))
             .unwrap_or(0..0);
+        if !wrong {
+            // Surfaces that overlap in the top view with less than a tenth of the chord
+            // between them intersect (or as good as): neither the wing model nor a real
+            // aircraft works like that.
+            return match crate::planform::plan_overlap(wing, &s.surface) {
+                Some(o) if o.gap_m < INTERSECTING_GAP_CHORDS * o.chord_m => Err(self.err(
+                    &span,
+                    "stabiliser.x",
+                    format!(
+                        "the stabiliser overlaps the wing in the top view {:.0} mm from the \
+                         centre line with only {:.1} mm between them: the two surfaces intersect",
+                        1000.0 * o.y_m,
+                        1000.0 * o.gap_m
+                    ),
+                    Some(format!(
+                        "a stabiliser clear of the wing's chord in the top view, or at least \
+                         {:.0} mm (a tenth of the chord there) above or below it (stabiliser.z)",
+                        (1000.0 * INTERSECTING_GAP_CHORDS * o.chord_m).ceil()
+                    )),
+                )),
+                _ => Ok(()),
+            };
+        }
         let (problem, accepted) = match s.role {
             StabiliserRole::Tail => (
                 format!(

@@ -534,3 +534,29 @@ fn tail_in_the_wing_wake_plane_is_stable_under_refinement() {
         assert!(((x - c) / mac).abs() < 0.005, "{a} {b} {c}");
     }
 }
+
+#[test]
+fn intersecting_surfaces_are_refused_and_overlapping_ones_cautioned() {
+    // Geometry (common practice): a stabiliser that shares the wing's chord in the top view
+    // with less than a tenth of the chord between them intersects the wing, a located error
+    // naming stabiliser.x and the way out; one further above is computed (a biplane, each in
+    // the other's field) with the surfaces-overlap warning; the shipped sailplane has neither.
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml").unwrap();
+    let moved = text.replacen("x = 800\n", "x = 120\n", 1);
+    let low = moved.replacen("z = 30\n", "z = 5\n", 1);
+    let e = trimline::input::parse_aircraft(&low, "o.toml", None)
+        .unwrap_err()
+        .to_string();
+    assert!(
+        e.contains("o.toml:") && e.contains("stabiliser.x") && e.contains("intersect"),
+        "{e}"
+    );
+    assert!(e.contains("above or below"), "{e}");
+    let high = trimline::input::parse_aircraft(&moved, "o.toml", None).unwrap();
+    let a = analyse(&high, &Default::default()).unwrap();
+    assert!(a.cautions.iter().any(|c| c.code == "surfaces-overlap"));
+    assert!(a.headline.static_margin.is_finite());
+    let shipped = trimline::input::parse_aircraft(&text, "l.toml", None).unwrap();
+    let a = analyse(&shipped, &Default::default()).unwrap();
+    assert!(a.cautions.iter().all(|c| c.code != "surfaces-overlap"));
+}
