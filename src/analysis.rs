@@ -205,6 +205,9 @@ pub enum ForwardLimit {
     StaticMargin,
     /// Elevator authority: further forward, full up elevator cannot hold the stall.
     ElevatorAuthority,
+    /// Tailplane stall: further forward, the tailplane reaches its negative cl limit before
+    /// the wing's stall can be reached.
+    TailStall,
 }
 
 /// Run the whole chain on `aircraft`.
@@ -243,6 +246,10 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         cg_x_m: mass.cg_x_m,
         density_kg_m3: air.density_kg_m3,
         fuselage_cm_alpha_per_rad,
+        stabiliser_dynamic_pressure_ratio: aircraft
+            .stabiliser
+            .as_ref()
+            .map_or(1.0, |s| s.dynamic_pressure_ratio),
     });
     let full = match trim::full_stability(&trim_input(
         aircraft,
@@ -270,9 +277,18 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
     let mac = wing.geometry.mac_m;
     let np = headline.neutral_point_x_m;
     let margin_forward_x_m = np - aircraft.margin_limits.max_static_margin * mac;
-    let elevator_limit = full.as_ref().and_then(|f| f.elevator_forward_limit_x_m);
+    let elevator_limit = full.as_ref().and_then(|f| {
+        f.elevator_forward_limit_x_m
+            .map(|x| (x, f.forward_limit_cause))
+    });
     let (forward_x_m, forward_limit) = match elevator_limit {
-        Some(x) if x > margin_forward_x_m => (x, ForwardLimit::ElevatorAuthority),
+        Some((x, cause)) if x > margin_forward_x_m => (
+            x,
+            match cause {
+                trim::ForwardLimitCause::ControlAuthority => ForwardLimit::ElevatorAuthority,
+                trim::ForwardLimitCause::StabiliserClMin => ForwardLimit::TailStall,
+            },
+        ),
         _ => (margin_forward_x_m, ForwardLimit::StaticMargin),
     };
     let aft_x_m = np - aircraft.margin_limits.min_static_margin * mac;
@@ -551,6 +567,10 @@ fn balance_cautions(
                 "further forward, full up {control} can no longer hold the wing at its stall, so the \
                  model cannot be flared or slowed properly"
             ),
+            ForwardLimit::TailStall => "further forward, the tailplane reaches its negative stall \
+                 (its download at cl_min) before the wing stalls, and pitch control is lost when \
+                 slowing down"
+                .to_string(),
             ForwardLimit::StaticMargin => {
                 format!(
                     "the aircraft will be nose-heavy, need more {} and fly faster",
@@ -692,7 +712,35 @@ fn full_model_cautions(
             .as_ref()
             .and_then(|s| s.result.surfaces.get(1))
             .is_some_and(|s| s.cl > 0.0);
+        let negative = f.stall.as_ref().and_then(|s| match s.limit {
+            trim::StallLimit::StabiliserClMin {
+                speed_otherwise_m_s,
+                ..
+            } => Some((s.speed_m_s, speed_otherwise_m_s)),
+            trim::StallLimit::ClMax => None,
+        });
         match (loc.surface, role) {
+            (1, _) if negative.is_some() => {
+                let (v_tail, v_wing) = negative.unwrap_or_default();
+                let surface = if role == Some(StabiliserRole::Canard) {
+                    "canard"
+                } else {
+                    "tailplane"
+                };
+                cautions.push(Caution::new(
+                    Level::Danger,
+                    "tail-stalls-first",
+                    format!(
+                        "The {surface} stalls first, downwards: slowing down with the elevator, it \
+                         reaches its negative cl limit (cl_min, at {:.0} % of its semispan) at {:.1} m/s, \
+                         before the wing would stall at {:.1} m/s. Below {:.1} m/s pitch control would be \
+                         lost, so that is the stall speed shown. Move the CG aft within the \
+                         recommended band (less download needed), or give the {surface} more area or \
+                         a section with a larger negative cl limit (or camber it for download).",
+                        loc.percent_semispan, v_tail, v_wing, v_tail
+                    ),
+                ));
+            }
             (0, Some(StabiliserRole::Canard)) => cautions.push(Caution::new(
                 Level::Danger,
                 "canard-stall-order",
@@ -766,6 +814,19 @@ fn full_model_cautions(
                 ),
             ));
         }
+    }
+    if let Some(p) = f.elevator_schedule.iter().find(|p| p.stabiliser_at_cl_min) {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "tail-stall-in-range",
+            format!(
+                "At {:.1} m/s, trimmed with {:.1} deg of elevator, the tailplane is at its negative cl \
+                 limit (cl_min): within the speed range it would stall downwards and pitch control \
+                 would be lost. Move the CG aft within the band or enlarge the tailplane.",
+                p.speed_m_s,
+                p.elevator_rad.to_degrees()
+            ),
+        ));
     }
     if let Some(t) = &f.tailless {
         let untrimmed = t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4;

@@ -160,6 +160,8 @@ const ELEVATOR_PCT: Bounds = Bounds {
     max_inclusive: false,
 };
 const ELEVATOR_THROW_DEG: Bounds = Bounds::closed(0.0, 45.0);
+/// Tail efficiency: 0.5 (deep in a wake) to 1.2 (in a propeller's slipstream).
+const DYNAMIC_PRESSURE_RATIO: Bounds = Bounds::closed(0.5, 1.2);
 const ELEVON_CHORD_PCT: Bounds = Bounds {
     min: 0.0,
     min_inclusive: false,
@@ -901,6 +903,10 @@ impl Ctx<'_> {
             ),
             ("elevator_up", r.elevator_up.as_ref().map(|v| v.span())),
             ("elevator_down", r.elevator_down.as_ref().map(|v| v.span())),
+            (
+                "dynamic_pressure_ratio",
+                r.dynamic_pressure_ratio.as_ref().map(|v| v.span()),
+            ),
         ];
         if let Some((key, Some(span))) = stabiliser_only.into_iter().find(|(_, s)| s.is_some()) {
             return Err(self.err(
@@ -1282,10 +1288,22 @@ impl Ctx<'_> {
             )?
             .unwrap_or(throw),
         );
+        let dynamic_pressure_ratio = self
+            .opt_quantity(
+                s.dynamic_pressure_ratio.as_ref(),
+                "stabiliser.dynamic_pressure_ratio",
+                Dimension::Plain,
+                DYNAMIC_PRESSURE_RATIO,
+            )?
+            .unwrap_or(match role {
+                StabiliserRole::Tail => crate::model::DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO,
+                StabiliserRole::Canard => crate::model::DEFAULT_CANARD_DYNAMIC_PRESSURE_RATIO,
+            });
         Ok(Stabiliser {
             role,
             surface,
             elevator,
+            dynamic_pressure_ratio,
         })
     }
 

@@ -108,6 +108,7 @@ pub struct RawSurface {
     pub elevator_chord: Option<Quantity>,
     pub elevator_up: Option<Quantity>,
     pub elevator_down: Option<Quantity>,
+    pub dynamic_pressure_ratio: Option<Quantity>,
     pub elevons: Option<Spanned<RawElevons>>,
 }
 

@@ -683,6 +683,10 @@ pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
                 cg_x_m,
                 density_kg_m3: a.air.density_kg_m3,
                 fuselage_cm_alpha_per_rad: fuselage,
+                stabiliser_dynamic_pressure_ratio: aircraft
+                    .stabiliser
+                    .as_ref()
+                    .map_or(1.0, |s| s.dynamic_pressure_ratio),
             })
             .trim
             .map(|t| t.speed_m_s)

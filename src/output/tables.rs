@@ -262,6 +262,12 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             let verb = if name == "elevons" { "hold" } else { "holds" };
             format!("full up {name} just {verb} the stall")
         }
+        ForwardLimit::TailStall if a.band.forward_x_m >= a.band.aft_x_m => {
+            "no range: the tailplane stalls downwards before the wing (cg-band-empty)".to_string()
+        }
+        ForwardLimit::TailStall => {
+            "the tailplane just reaches its negative stall at the wing's stall".to_string()
+        }
     };
     t.add_row(vec![
         "recommended CG, forward".to_string(),
