@@ -756,7 +756,8 @@ fn mass_rows(aircraft: &Aircraft, a: &Analysis) -> Vec<MassRow> {
     rows
 }
 
-fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
+/// Methods and their sources, one line each (the report's footer; `check` prints them too).
+pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     let mut used: Vec<SectionMethod> = a.sections.iter().map(|s| s.method).collect();
     used.sort_by_key(|m| m.as_str());
     used.dedup();
@@ -782,9 +783,31 @@ fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
         None => "Tailless wing: numerical lifting line (Phillips and Snyder, J. Aircraft 37(4), 2000)",
     };
     let pitch = match aircraft.pitch_control() {
-        Some(_) => format!(
-            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students)",
+        Some(p) if p.chord_fraction > 0.0 => format!(
+            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students) with the empirical plain-flap correction K' at large deflections (Roskam, Airplane Design Part VI, fig. 8.13; no gap loss modelled)",
             aircraft.pitch_control_name()
+        ),
+        Some(_) => "; all-moving stabiliser turned as a whole".to_string(),
+        None => String::new(),
+    };
+    let eta = match &aircraft.stabiliser {
+        Some(s) => format!(
+            "; {} dynamic-pressure ratio (tail efficiency) {:.2}{}",
+            if s.role == StabiliserRole::Canard {
+                "canard"
+            } else {
+                "tail"
+            },
+            s.dynamic_pressure_ratio,
+            if s.role == StabiliserRole::Tail
+                && (s.dynamic_pressure_ratio - crate::model::DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO)
+                    .abs()
+                    < 1e-12
+            {
+                " (default for a tail behind wing and fuselage; Etkin and Reid, Raymer)"
+            } else {
+                ""
+            }
         ),
         None => String::new(),
     };
@@ -798,10 +821,10 @@ fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
             .to_string(),
     );
     out.push(format!(
-        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){pitch}{fuselage}."
+        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){eta}{pitch}{fuselage}."
     ));
     out.extend([
-        "Stall: first section to reach its cl max (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
+        "Stall: first section to reach its cl max, or a stabiliser section its negative cl limit, on the trimmed path (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
         "Glide: drag build-up and parabolic polar (Raymer, Aircraft Design, ch. 12). Air: ISA (US Standard Atmosphere, 1976).",
     ]
     .iter()

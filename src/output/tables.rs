@@ -88,7 +88,11 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
     }
     out.push_str("\n\nCautions\n");
     out.push_str(&cautions_table(a).to_string());
-    out.push('\n');
+    out.push_str("\n\nMethods\n");
+    for line in crate::output::report::methods(aircraft, a) {
+        out.push_str(&wrap(&format!("- {line}"), 100));
+        out.push('\n');
+    }
     out
 }
 
