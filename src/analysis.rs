@@ -351,6 +351,18 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
     if let Some(w) = &weighed {
         weighing_caution(w, &mass, &mut cautions);
     }
+    let with_z = aircraft.masses.iter().filter(|m| m.z_m.is_some()).count();
+    if with_z > 0 && with_z < aircraft.masses.len() {
+        cautions.push(Caution::new(
+            Level::Note,
+            "vertical-cg-partial",
+            format!(
+                "{with_z} of the {} masses have a height (z); the vertical CG needs all of them, so it is \
+                 not used and moments are taken at the wing root's height. Give every mass a z to use it.",
+                aircraft.masses.len()
+            ),
+        ));
+    }
     let tail_volume = stabiliser
         .as_ref()
         .map(|s| planform::tail_volume(&wing.geometry, &s.geometry));
@@ -975,8 +987,40 @@ pub struct KeyFigures {
     pub dangers: usize,
     /// x of the wing root leading edge, m (to express positions as builders measure them).
     pub wing_root_le_x_m: f64,
+    /// x of the wing's MAC leading edge, m (the common reference of a comparison).
+    pub mac_le_x_m: f64,
+    /// What x = 0 is, in the builder's words (or [`COMMON_REFERENCE`] once moved there).
+    pub datum: String,
     /// Codes of the warnings and dangers raised, most serious first.
     pub caution_codes: Vec<(Level, &'static str)>,
+}
+
+/// The datum of key figures whose positions were moved to the wing's MAC leading edge.
+pub const COMMON_REFERENCE: &str = "the wing's MAC leading edge";
+
+/// Whether the configurations' datums differ (compared as written, ignoring case and
+/// surrounding spaces); when they do, every position of every configuration is moved to be
+/// measured from its own wing's MAC leading edge, so that the positions can be compared.
+/// Returns true when it moved them.
+pub fn to_common_reference(columns: &mut [KeyFigures]) -> bool {
+    let key = |k: &KeyFigures| k.datum.trim().to_lowercase();
+    let Some(first) = columns.first().map(key) else {
+        return false;
+    };
+    if columns.iter().all(|k| key(k) == first) {
+        return false;
+    }
+    for k in columns.iter_mut() {
+        let dx = k.mac_le_x_m;
+        k.cg_x_m -= dx;
+        k.neutral_point_x_m -= dx;
+        k.band.forward_x_m -= dx;
+        k.band.aft_x_m -= dx;
+        k.wing_root_le_x_m -= dx;
+        k.mac_le_x_m = 0.0;
+        k.datum = COMMON_REFERENCE.to_string();
+    }
+    true
 }
 
 impl KeyFigures {
@@ -1019,6 +1063,8 @@ impl KeyFigures {
                 .filter(|c| c.level == Level::Danger)
                 .count(),
             wing_root_le_x_m: aircraft.wing.root_le_x_m,
+            mac_le_x_m: g.mac_le_x_m,
+            datum: aircraft.datum.clone(),
             caution_codes: {
                 let mut codes: Vec<(Level, &'static str)> = a
                     .cautions

@@ -59,6 +59,12 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
             out.push((k, source.clone()));
         }
     }
+    let mut figures: Vec<KeyFigures> = out.iter().map(|c| c.0.clone()).collect();
+    if trimline::analysis::to_common_reference(&mut figures) {
+        for (c, k) in out.iter_mut().zip(figures) {
+            c.0 = k;
+        }
+    }
     Ok(out)
 }
 
@@ -109,8 +115,17 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
         super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
         let figures: Vec<KeyFigures> = columns.into_iter().map(|c| c.0).collect();
+        let reference = if figures
+            .first()
+            .is_some_and(|k| k.datum == trimline::analysis::COMMON_REFERENCE)
+        {
+            "The files measure x from different datums: every position here is measured from \
+             each aircraft's own wing MAC leading edge instead.\n"
+        } else {
+            ""
+        };
         super::emit(&format!(
-            "{}\nValues in brackets are differences from the first column; (=) means no change; \
+            "{}\n{reference}Values in brackets are differences from the first column; (=) means no change; \
              n/a: the figure does not exist there (no stabiliser, no elevons, no trim, or no \
              ballast bay that reaches the target).\n",
             trimline::output::compare::compare_table(&figures)

@@ -470,54 +470,7 @@ impl Ctx<'_> {
             },
         };
         let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref())?;
-        let weighing = raw
-            .weighing
-            .iter()
-            .enumerate()
-            .map(|(i, s)| {
-                let path = format!("weighing[{i}]");
-                let span = s.span();
-                let s = s.get_ref();
-                Ok(WeighingSupport {
-                    x_m: self.required_quantity(
-                        s.x.as_ref(),
-                        &span,
-                        &path,
-                        "x",
-                        Dimension::Length,
-                        POSITION_MM,
-                    )?,
-                    reading_kg: self.required_quantity(
-                        s.reading.as_ref(),
-                        &span,
-                        &path,
-                        "reading",
-                        Dimension::Mass,
-                        MASS_G,
-                    )?,
-                })
-            })
-            .collect::<Result<Vec<_>, InputError>>()?;
-        if weighing.len() == 1 || weighing.len() > 3 {
-            let span = raw.weighing[weighing.len() - 1].span();
-            return Err(self.err(
-                &span,
-                "weighing",
-                match weighing.len() {
-                    1 => "1 support given".to_string(),
-                    n => format!("{n} supports given"),
-                },
-                Some("2 or 3 [[weighing]] supports".into()),
-            ));
-        }
-        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
-            return Err(self.err(
-                &raw.weighing[0].span(),
-                "weighing",
-                "the readings add up to zero",
-                Some("readings above 0 g".into()),
-            ));
-        }
+        let weighing = self.weighing(&raw.weighing, "weighing")?;
 
         let setups = raw
             .setup
@@ -1307,6 +1260,63 @@ impl Ctx<'_> {
         })
     }
 
+    /// The supports of a weighing at `path` (`weighing`, or `setup[i].weighing`): none, or 2 or
+    /// 3 with readings adding up to more than zero.
+    fn weighing(
+        &self,
+        supports: &[Spanned<raw::RawSupport>],
+        path: &str,
+    ) -> Result<Vec<WeighingSupport>, InputError> {
+        let weighing = supports
+            .iter()
+            .enumerate()
+            .map(|(i, s)| {
+                let path = format!("{path}[{i}]");
+                let span = s.span();
+                let s = s.get_ref();
+                Ok(WeighingSupport {
+                    x_m: self.required_quantity(
+                        s.x.as_ref(),
+                        &span,
+                        &path,
+                        "x",
+                        Dimension::Length,
+                        POSITION_MM,
+                    )?,
+                    reading_kg: self.required_quantity(
+                        s.reading.as_ref(),
+                        &span,
+                        &path,
+                        "reading",
+                        Dimension::Mass,
+                        MASS_G,
+                    )?,
+                })
+            })
+            .collect::<Result<Vec<_>, InputError>>()?;
+        if weighing.len() == 1 || weighing.len() > 3 {
+            let span = supports[weighing.len() - 1].span();
+            return Err(self.err(
+                &span,
+                path,
+                match weighing.len() {
+                    1 => "1 support given".to_string(),
+                    n => format!("{n} supports given"),
+                },
+                Some(format!("2 or 3 [[{path}]] supports")),
+            ));
+        }
+        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
+            return Err(self.err(
+                &supports[0].span(),
+                path,
+                "the readings add up to zero",
+                Some("readings above 0 g".into()),
+            ));
+        }
+        Ok(weighing)
+    }
+
     fn setup(
         &self,
         i: usize,
@@ -1431,7 +1441,16 @@ impl Ctx<'_> {
         if changes.is_empty() {
             return Err(self.err(&span, &path, "the setup changes nothing", Some("one or more of ballast, mass_x, mass, wing_incidence, stabiliser_incidence, airfoils".into())));
         }
-        Ok(Setup { name, changes })
+        let weighing = if s.weighing.is_empty() {
+            None
+        } else {
+            Some(self.weighing(&s.weighing, &format!("{path}.weighing"))?)
+        };
+        Ok(Setup {
+            name,
+            changes,
+            weighing,
+        })
     }
 
     fn fuselage(&self, f: &Spanned<raw::RawFuselage>) -> Result<Fuselage, InputError> {

@@ -211,4 +211,7 @@ pub struct RawSetup {
     /// Airfoil name -> airfoil name to use instead, everywhere it appears.
     #[serde(default)]
     pub airfoils: BTreeMap<String, Spanned<String>>,
+    /// `[[setup.weighing]]`: a weighing of this setup.
+    #[serde(default)]
+    pub weighing: Vec<Spanned<RawSupport>>,
 }

@@ -134,6 +134,9 @@ const ROWS: &[Row] = &[
 /// configuration; later columns show their difference from the first in brackets, "(=)" when
 /// unchanged, and "n/a" where a value does not exist.
 pub fn compare_cells(columns: &[KeyFigures]) -> Vec<(&'static str, Vec<String>)> {
+    let from_mac_le = columns
+        .first()
+        .is_some_and(|k| k.datum == crate::analysis::COMMON_REFERENCE);
     ROWS.iter()
         // A figure that no configuration has (elevons on aircraft with a tail) is left out.
         .filter(|row| columns.iter().any(|k| (row.value)(k).is_some()))
@@ -167,9 +170,27 @@ pub fn compare_cells(columns: &[KeyFigures]) -> Vec<(&'static str, Vec<String>)>
                     },
                 )
                 .collect();
-            (row.label, cells)
+            (
+                if from_mac_le {
+                    relabel(row.label)
+                } else {
+                    row.label
+                },
+                cells,
+            )
         })
         .collect()
+}
+
+/// A row's label once positions are measured from the wing's MAC leading edge.
+fn relabel(label: &'static str) -> &'static str {
+    match label {
+        "CG mm from datum" => "CG mm aft of MAC LE",
+        "neutral point mm from datum" => "neutral point mm aft of MAC LE",
+        "CG band forward mm" => "CG band forward mm aft of MAC LE",
+        "CG band aft mm" => "CG band aft mm aft of MAC LE",
+        other => other,
+    }
 }
 
 /// The comparison table: one column per configuration; later columns show their difference
@@ -204,6 +225,10 @@ pub struct CompareColumnJson {
     pub figures: serde_json::Map<String, serde_json::Value>,
     /// Differences from the first configuration, same keys.
     pub difference_from_first: serde_json::Map<String, serde_json::Value>,
+    /// What the positions (keys ending in `mm` that say "from datum", and the band) are
+    /// measured from: the file's datum, or the wing's MAC leading edge when the files'
+    /// datums differ.
+    pub x_reference: String,
 }
 
 fn json_key(label: &str) -> String {
@@ -276,6 +301,7 @@ pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> 
                 source: source.clone(),
                 figures,
                 difference_from_first: diff,
+                x_reference: k.datum.clone(),
             }
         })
         .collect()

@@ -820,8 +820,16 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
         "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3)."
             .to_string(),
     );
+    let reference_height = match a.mass.cg_z_m {
+        Some(z) => format!(
+            "; moments about the CG at its height z = {:.0} mm (every mass has a z)",
+            z * 1000.0
+        ),
+        None => "; moments about the CG at the wing root's height (the vertical CG needs a z on every mass)"
+            .to_string(),
+    };
     out.push(format!(
-        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){eta}{pitch}{fuselage}."
+        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){reference_height}{eta}{pitch}{fuselage}."
     ));
     out.extend([
         "Stall: first section to reach its cl max, or a stabiliser section its negative cl limit, on the trimmed path (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",

@@ -25,6 +25,7 @@ mod section_cli;
 mod section_joukowski;
 mod section_panel;
 mod section_thin;
+mod setups_and_datums;
 mod stability_classical;
 mod tail_efficiency;
 mod tail_stall;
