@@ -406,7 +406,19 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
             &mut cautions,
         );
     }
-    reynolds_caution(reynolds_mac, speed, &mut cautions);
+    let tip_chord_m = planform::station_at(
+        &aircraft.wing,
+        TIP_REYNOLDS_STATION * planform::half_span_length_m(&aircraft.wing),
+    )
+    .chord_m;
+    reynolds_caution(
+        reynolds_mac,
+        speed,
+        air.reynolds(headline.stall_speed_m_s, tip_chord_m),
+        tip_chord_m,
+        headline.stall_speed_m_s,
+        &mut cautions,
+    );
     cautions.push(safety_caution());
     Ok(Analysis {
         air,
@@ -505,27 +517,48 @@ fn weighing_caution(w: &MassSummary, mass: &MassSummary, cautions: &mut Vec<Caut
     }
 }
 
-fn reynolds_caution(reynolds_mac: f64, speed: f64, cautions: &mut Vec<Caution>) {
-    if reynolds_mac < LOW_REYNOLDS_WARNING {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "reynolds-low",
-            format!(
-                "Reynolds number on the wing's mean chord at {speed:.1} m/s is only {reynolds_mac:.0}: \
-                 airfoils lose lift and gain drag sharply below about 50 000, so expect a higher stall \
-                 speed and poorer glide than estimated."
-            ),
-        ));
-    } else if reynolds_mac < LOW_REYNOLDS_NOTE {
-        cautions.push(Caution::new(
-            Level::Note,
-            "reynolds-low",
-            format!(
-                "Reynolds number on the wing's mean chord at {speed:.1} m/s is {reynolds_mac:.0}: \
-                 below about 100 000 section data and cl_max are uncertain; choose airfoils made for low Reynolds numbers."
-            ),
-        ));
-    }
+/// Fraction of the semispan where the wing's tip Reynolds number is taken (95 %: the outer
+/// sections that stall a tip; the very tip of an elliptic wing has no chord).
+pub const TIP_REYNOLDS_STATION: f64 = 0.95;
+
+/// The Reynolds caution: the wing's mean chord at `speed` (trim, or stall when there is no
+/// trim), and its tip (chord `tip_chord_m`) at the stall speed, where a tip stall starts.
+fn reynolds_caution(
+    reynolds_mac: f64,
+    speed: f64,
+    reynolds_tip_at_stall: f64,
+    tip_chord_m: f64,
+    stall_speed: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    use crate::caution::reynolds_text;
+    let worst = reynolds_mac.min(reynolds_tip_at_stall);
+    let level = if worst < LOW_REYNOLDS_WARNING {
+        Level::Warning
+    } else if worst < LOW_REYNOLDS_NOTE {
+        Level::Note
+    } else {
+        return;
+    };
+    let effect = if worst < LOW_REYNOLDS_WARNING {
+        "airfoils lose lift and gain drag sharply below about 50,000, so expect a higher stall \
+         speed, an earlier tip stall and a poorer glide than estimated"
+    } else {
+        "below about 100,000 section data and cl_max are uncertain; choose airfoils made for low \
+         Reynolds numbers"
+    };
+    cautions.push(Caution::new(
+        level,
+        "reynolds-low",
+        format!(
+            "Reynolds number on the wing's mean chord at {speed:.1} m/s is {}; at the tip ({:.0} mm \
+             chord, {:.0} % of the semispan) at the stall speed {stall_speed:.1} m/s it is {}: {effect}.",
+            reynolds_text(reynolds_mac),
+            tip_chord_m * 1000.0,
+            100.0 * TIP_REYNOLDS_STATION,
+            reynolds_text(reynolds_tip_at_stall),
+        ),
+    ));
 }
 
 fn balance_cautions(

@@ -401,7 +401,10 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             at_max(glide.min_sink.limited_by_cl_max)
         ),
     ));
-    out.push(kf("Reynolds number (MAC)", fmt(a.reynolds_mac, 0)));
+    out.push(kf(
+        "Reynolds number (MAC)",
+        crate::caution::reynolds_text(a.reynolds_mac),
+    ));
     out
 }
 
@@ -410,7 +413,10 @@ fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
         return "no target static margin set".to_string();
     };
     if a.ballast.is_empty() {
-        return format!("no ballast bay given (target {} % MAC)", fmt(100.0 * sm, 0));
+        return format!(
+            "no ballast bay given (target: {} % static margin)",
+            fmt(100.0 * sm, 0)
+        );
     }
     let parts: Vec<String> = a
         .ballast
@@ -429,7 +435,11 @@ fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
             BallastOutcome::WrongSide => format!("{}: cannot help", b.bay),
         })
         .collect();
-    format!("{} (for {} % MAC)", parts.join("; "), fmt(100.0 * sm, 0))
+    format!(
+        "{} for a {} % static margin",
+        parts.join("; "),
+        fmt(100.0 * sm, 0)
+    )
 }
 
 /// Outline of both halves of `surface` in the top view: leading edge from the port tip to the
@@ -784,7 +794,7 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     };
     let pitch = match aircraft.pitch_control() {
         Some(p) if p.chord_fraction > 0.0 => format!(
-            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students) with the empirical plain-flap correction K' at large deflections (Roskam, Airplane Design Part VI, fig. 8.13; no gap loss modelled)",
+            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students) and the plain-flap correction K' for large deflections (Roskam, Airplane Design VI, fig. 8.13; no gap)",
             aircraft.pitch_control_name()
         ),
         Some(_) => "; all-moving stabiliser turned as a whole".to_string(),
@@ -792,7 +802,7 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     };
     let eta = match &aircraft.stabiliser {
         Some(s) => format!(
-            "; {} dynamic-pressure ratio (tail efficiency) {:.2}{}",
+            "; {} dynamic-pressure ratio {:.2}{}",
             if s.role == StabiliserRole::Canard {
                 "canard"
             } else {
@@ -804,7 +814,7 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
                     .abs()
                     < 1e-12
             {
-                " (default for a tail behind wing and fuselage; Etkin and Reid, Raymer)"
+                " (default; Etkin and Reid, Raymer)"
             } else {
                 ""
             }
@@ -822,11 +832,10 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     );
     let reference_height = match a.mass.cg_z_m {
         Some(z) => format!(
-            "; moments about the CG at its height z = {:.0} mm (every mass has a z)",
+            "; moment reference at the CG's height z = {:.0} mm",
             z * 1000.0
         ),
-        None => "; moments about the CG at the wing root's height (the vertical CG needs a z on every mass)"
-            .to_string(),
+        None => "; moment reference at the wing root's height (not every mass has a z)".to_string(),
     };
     out.push(format!(
         "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){reference_height}{eta}{pitch}{fuselage}."

@@ -402,10 +402,11 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         if aircraft.stabiliser.is_some() {
             t.add_row(vec![
                 "stabiliser load at trim".into(),
-                format!(
-                    "{} g",
-                    num(ft.stabiliser_load_n / crate::atmosphere::G0 * 1000.0, 0)
-                ),
+                {
+                    // A load under 10 g keeps a decimal, so a small download never reads 0 g.
+                    let g = ft.stabiliser_load_n / crate::atmosphere::G0 * 1000.0;
+                    format!("{} g", num(g, if g.abs() < 10.0 { 1 } else { 0 }))
+                },
                 "negative: a download".into(),
             ]);
             let canard = aircraft
@@ -491,7 +492,7 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     ]);
     t.add_row(vec![
         "Reynolds number on MAC".into(),
-        num(a.reynolds_mac, 0),
+        crate::caution::reynolds_text(a.reynolds_mac),
         String::new(),
     ]);
     right_align(&mut t, 1..2);

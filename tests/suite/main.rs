@@ -29,3 +29,4 @@ mod setups_and_datums;
 mod stability_classical;
 mod tail_efficiency;
 mod tail_stall;
+mod wording;
