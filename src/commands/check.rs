@@ -23,6 +23,28 @@ pub struct CheckArgs {
     /// Analyse the named [[setup]] of the file instead of its base configuration.
     #[arg(long, value_name = "NAME")]
     pub setup: Option<String>,
+    /// Units of the tables: metric (mm, g) or imperial (in, oz). Speeds stay in m/s and
+    /// km/h; the cautions and the JSON keep their own units.
+    #[arg(long, value_enum, default_value_t = UnitChoice::Metric)]
+    pub unit_system: UnitChoice,
+}
+
+/// `--unit-system` values.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+pub enum UnitChoice {
+    /// mm, g, dm^2, g/dm^2.
+    Metric,
+    /// in, oz, in^2, oz/ft^2.
+    Imperial,
+}
+
+impl From<UnitChoice> for trimline::output::units::UnitSystem {
+    fn from(c: UnitChoice) -> Self {
+        match c {
+            UnitChoice::Metric => Self::Metric,
+            UnitChoice::Imperial => Self::Imperial,
+        }
+    }
 }
 
 /// The aircraft with the named setup applied, or an error listing the setups there are.
@@ -71,7 +93,10 @@ pub fn run(args: &CheckArgs) -> anyhow::Result<()> {
         super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
         super::emit(&trimline::output::tables::check_report(
-            &aircraft, &analysis, &source,
+            &aircraft,
+            &analysis,
+            &source,
+            args.unit_system.into(),
         ))?;
     }
     Ok(())

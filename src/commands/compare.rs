@@ -29,6 +29,10 @@ pub struct CompareArgs {
     /// US Letter paper for the PDF instead of A4.
     #[arg(long)]
     pub letter: bool,
+    /// Units of the table: metric (mm, g) or imperial (in, oz); the JSON and the PDF stay
+    /// metric (their keys and labels name their units).
+    #[arg(long, value_enum, default_value_t = super::check::UnitChoice::Metric)]
+    pub unit_system: super::check::UnitChoice,
 }
 
 /// Every configuration to compare, analysed: key figures and source name.
@@ -128,7 +132,7 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<()> {
             "{}\n{reference}Values in brackets are differences from the first column; (=) means no change; \
              n/a: the figure does not exist there (no stabiliser, no elevons, no trim, or no \
              ballast bay that reaches the target).\n",
-            trimline::output::compare::compare_table(&figures)
+            trimline::output::compare::compare_table_in(&figures, args.unit_system.into())
         ))?;
     }
     Ok(())

@@ -10,6 +10,7 @@ pub mod report;
 pub mod report_file;
 pub mod section;
 pub mod tables;
+pub mod units;
 
 /// "12 mm aft of" or "12 mm ahead of" for a distance `dx_m` along x (positive aft), rounded to
 /// whole millimetres, for sentences such as "... the wing root leading edge".
