@@ -184,6 +184,8 @@ const ELEVATOR_PCT: Bounds = Bounds {
     max_inclusive: false,
 };
 const ELEVATOR_THROW_DEG: Bounds = Bounds::closed(0.0, 45.0);
+/// Tail efficiency: 0.5 (deep in a wake) to 1.2 (in a propeller's slipstream).
+const DYNAMIC_PRESSURE_RATIO: Bounds = Bounds::closed(0.5, 1.2);
 const ELEVON_CHORD_PCT: Bounds = Bounds {
     min: 0.0,
     min_inclusive: false,
@@ -643,54 +645,7 @@ impl Ctx<'_> {
         if let Some(s) = &stabiliser {
             self.stabiliser_place(raw.stabiliser.as_ref(), s, &wing)?;
         }
-        let weighing = raw
-            .weighing
-            .iter()
-            .enumerate()
-            .map(|(i, s)| {
-                let path = format!("weighing[{i}]");
-                let span = s.span();
-                let s = s.get_ref();
-                Ok(WeighingSupport {
-                    x_m: self.required_quantity(
-                        s.x.as_ref(),
-                        &span,
-                        &path,
-                        "x",
-                        Dimension::Length,
-                        POSITION_MM,
-                    )?,
-                    reading_kg: self.required_quantity(
-                        s.reading.as_ref(),
-                        &span,
-                        &path,
-                        "reading",
-                        Dimension::Mass,
-                        MASS_G,
-                    )?,
-                })
-            })
-            .collect::<Result<Vec<_>, InputError>>()?;
-        if weighing.len() == 1 || weighing.len() > 3 {
-            let span = raw.weighing[weighing.len() - 1].span();
-            return Err(self.err(
-                &span,
-                "weighing",
-                match weighing.len() {
-                    1 => "1 support given".to_string(),
-                    n => format!("{n} supports given"),
-                },
-                Some("2 or 3 [[weighing]] supports".into()),
-            ));
-        }
-        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
-            return Err(self.err(
-                &raw.weighing[0].span(),
-                "weighing",
-                "the readings add up to zero",
-                Some("readings above 0 g".into()),
-            ));
-        }
+        let weighing = self.weighing(&raw.weighing, "weighing")?;
 
         let setups = raw
             .setup
@@ -1082,6 +1037,10 @@ impl Ctx<'_> {
             ),
             ("elevator_up", r.elevator_up.as_ref().map(|v| v.span())),
             ("elevator_down", r.elevator_down.as_ref().map(|v| v.span())),
+            (
+                "dynamic_pressure_ratio",
+                r.dynamic_pressure_ratio.as_ref().map(|v| v.span()),
+            ),
         ];
         if let Some((key, Some(span))) = stabiliser_only.into_iter().find(|(_, s)| s.is_some()) {
             return Err(self.err(
@@ -1465,11 +1424,80 @@ impl Ctx<'_> {
             )?
             .unwrap_or(throw),
         );
+        let dynamic_pressure_ratio = self
+            .opt_quantity(
+                s.dynamic_pressure_ratio.as_ref(),
+                "stabiliser.dynamic_pressure_ratio",
+                Dimension::Plain,
+                DYNAMIC_PRESSURE_RATIO,
+            )?
+            .unwrap_or(match role {
+                StabiliserRole::Tail => crate::model::DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO,
+                StabiliserRole::Canard => crate::model::DEFAULT_CANARD_DYNAMIC_PRESSURE_RATIO,
+            });
         Ok(Stabiliser {
             role,
             surface,
             elevator,
+            dynamic_pressure_ratio,
         })
+    }
+
+    /// The supports of a weighing at `path` (`weighing`, or `setup[i].weighing`): none, or 2 or
+    /// 3 with readings adding up to more than zero.
+    fn weighing(
+        &self,
+        supports: &[Spanned<raw::RawSupport>],
+        path: &str,
+    ) -> Result<Vec<WeighingSupport>, InputError> {
+        let weighing = supports
+            .iter()
+            .enumerate()
+            .map(|(i, s)| {
+                let path = format!("{path}[{i}]");
+                let span = s.span();
+                let s = s.get_ref();
+                Ok(WeighingSupport {
+                    x_m: self.required_quantity(
+                        s.x.as_ref(),
+                        &span,
+                        &path,
+                        "x",
+                        Dimension::Length,
+                        POSITION_MM,
+                    )?,
+                    reading_kg: self.required_quantity(
+                        s.reading.as_ref(),
+                        &span,
+                        &path,
+                        "reading",
+                        Dimension::Mass,
+                        MASS_G,
+                    )?,
+                })
+            })
+            .collect::<Result<Vec<_>, InputError>>()?;
+        if weighing.len() == 1 || weighing.len() > 3 {
+            let span = supports[weighing.len() - 1].span();
+            return Err(self.err(
+                &span,
+                path,
+                match weighing.len() {
+                    1 => "1 support given".to_string(),
+                    n => format!("{n} supports given"),
+                },
+                Some(format!("2 or 3 [[{path}]] supports")),
+            ));
+        }
+        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
+            return Err(self.err(
+                &supports[0].span(),
+                path,
+                "the readings add up to zero",
+                Some("readings above 0 g".into()),
+            ));
+        }
+        Ok(weighing)
     }
 
     fn setup(
@@ -1602,7 +1630,16 @@ impl Ctx<'_> {
         if changes.is_empty() {
             return Err(self.err(&span, &path, "the setup changes nothing", Some("one or more of ballast, mass_x, mass, wing_incidence, stabiliser_incidence, airfoils".into())));
         }
-        Ok(Setup { name, changes })
+        let weighing = if s.weighing.is_empty() {
+            None
+        } else {
+            Some(self.weighing(&s.weighing, &format!("{path}.weighing"))?)
+        };
+        Ok(Setup {
+            name,
+            changes,
+            weighing,
+        })
     }
 
     fn fuselage(&self, f: &Spanned<raw::RawFuselage>) -> Result<Fuselage, InputError> {

@@ -119,6 +119,7 @@ pub struct RawSurface {
     pub elevator_chord: Option<Quantity>,
     pub elevator_up: Option<Quantity>,
     pub elevator_down: Option<Quantity>,
+    pub dynamic_pressure_ratio: Option<Quantity>,
     pub elevons: Option<Spanned<RawElevons>>,
 }
 
@@ -222,4 +223,7 @@ pub struct RawSetup {
     /// Airfoil name -> airfoil name to use instead, everywhere it appears.
     #[serde(default)]
     pub airfoils: BTreeMap<String, Spanned<String>>,
+    /// `[[setup.weighing]]`: a weighing of this setup.
+    #[serde(default)]
+    pub weighing: Vec<Spanned<RawSupport>>,
 }

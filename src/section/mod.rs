@@ -18,6 +18,7 @@
 
 pub mod circle_map;
 pub mod flap;
+pub mod flap_correction;
 pub mod geometry;
 pub mod joukowski;
 pub mod karman_trefftz;

@@ -12,8 +12,10 @@
 //! - downwash gradient at the tail `d eps / d alpha = 2 a_w / (pi A)` (elliptic loading, far
 //!   wake);
 //! - neutral point, lift-weighted form, `x_n = (a_w x_w + k x_t) / (a_w + k)` with
-//!   `k = (S_t / S) a_t (1 - d eps / d alpha)` and tail efficiency 1; for a canard the
-//!   foreplane is taken outside the wing's flow field (k without the downwash factor);
+//!   `k = eta (S_t / S) a_t (1 - d eps / d alpha)` with the tail efficiency (dynamic-pressure
+//!   ratio) eta of the file; for a canard the foreplane is taken outside the wing's flow field
+//!   (k without the downwash factor);
+//! - the stabiliser's lift and moment in trim are eta times their free-stream values;
 //! - trim: total Cm about the CG (wing and stabiliser lift with their arms, plus their cm_ac)
 //!   is linear in the body angle; trim is where it is zero, and the trim speed follows from
 //!   `W = 1/2 rho V^2 S CL`;
@@ -152,6 +154,8 @@ pub struct EstimateInput<'a> {
     /// Fuselage contribution to dCm/dalpha, per rad (0 without a fuselage); see
     /// [`crate::stability::fuselage`].
     pub fuselage_cm_alpha_per_rad: f64,
+    /// Stabiliser dynamic-pressure ratio eta (tail efficiency; 1 without a stabiliser).
+    pub stabiliser_dynamic_pressure_ratio: f64,
 }
 
 /// Trim state from the closed-form estimate.
@@ -221,7 +225,7 @@ fn linear_model(input: &EstimateInput<'_>, x_ref_m: f64, downwash_gradient: f64)
     };
     if let Some((t, _)) = input.stabiliser {
         let a_t = t.lift_slope_per_rad;
-        let ratio = t.geometry.area_m2 / s;
+        let ratio = input.stabiliser_dynamic_pressure_ratio * t.geometry.area_m2 / s;
         // Downwash eps = (d eps/d alpha) CL_w / a_w.
         let e0 = downwash_gradient * clw0 / a_w;
         let ct0 = a_t * (t.incidence_rad - t.alpha_zero_lift_rad - e0);
@@ -248,7 +252,8 @@ pub fn estimate(input: &EstimateInput<'_>) -> ClassicalEstimate {
     let neutral_point_x_m = match input.stabiliser {
         None => w.x_ac_m,
         Some((t, _)) => {
-            let k = t.geometry.area_m2 / w.geometry.area_m2
+            let k = input.stabiliser_dynamic_pressure_ratio * t.geometry.area_m2
+                / w.geometry.area_m2
                 * t.lift_slope_per_rad
                 * (1.0 - downwash_gradient);
             (a_w * w.x_ac_m + k * t.x_ac_m) / (a_w + k)

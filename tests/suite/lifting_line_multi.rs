@@ -350,6 +350,7 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
             role: StabiliserRole::Tail,
             surface: tail.clone(),
             elevator: PitchControl::full_span(0.25, 0.3, 0.3),
+            dynamic_pressure_ratio: 1.0,
         }),
         elevons: None,
         fuselage: None,

@@ -73,6 +73,7 @@ fn run(
         cg_x_m,
         density_kg_m3: 1.225,
         fuselage_cm_alpha_per_rad: fuselage,
+        stabiliser_dynamic_pressure_ratio: 1.0,
     })
 }
 
