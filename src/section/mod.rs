@@ -16,6 +16,7 @@
 //!   never above `-cl_max / 4` (a judgement: negative stall of cambered sections comes at a
 //!   smaller |cl| than positive stall, but not at a positive one).
 
+pub mod boundary_layer;
 pub mod circle_map;
 pub mod flap;
 pub mod geometry;
@@ -24,7 +25,9 @@ pub mod karman_trefftz;
 pub mod model;
 pub mod naca;
 pub mod panel;
+pub mod polar;
 pub mod thin_airfoil;
+pub mod viscous;
 
 pub use flap::FlapEffect;
 pub use model::{ClMaxSource, SectionModel, DEFAULT_CL_MAX};

@@ -1,0 +1,197 @@
+//! A section polar: cl, cd and cm over angle of attack at one Reynolds number and transition
+//! setting, with the stall found from the viscous solution.
+//!
+//! The sweep ([`Polar::sweep`]) solves the viscous method at each angle given. Going up from
+//! the angle nearest zero lift, the first angle that is stalled (turbulent separation ahead of
+//! [`STALL_SEPARATION_X_C`] on either surface) or at which the coupling does not converge
+//! ends the positive branch; the same going down ends the negative branch. cl_max is the
+//! greatest cl of the converged, unstalled points of the positive branch and the stall angle
+//! is its angle (the peak of cl over the sweep, so the result depends on the angle step:
+//! 0.5 deg or finer is advised). Points outside the branches are kept with their status, so
+//! that output can say "past stall" or "did not converge" instead of a number.
+//!
+//! The failure of the direct coupling near separation is itself a sign of stall (Veldman
+//! 1981), but it is not a stall model: where the stall is found only because the coupling
+//! stopped converging, [`StallCause::NotConverged`] says so and callers should caution.
+//!
+//! # References
+//! - Veldman, A. E. P. (1981), AIAA Journal 19(1): direct iteration breaks down at separation.
+//! - Common practice: cl_max taken as the peak of the computed lift curve.
+
+#[cfg(doc)]
+use crate::section::viscous::STALL_SEPARATION_X_C;
+use crate::section::viscous::{ViscousError, ViscousPoint, ViscousSection};
+
+/// Status of one angle of a polar.
+#[derive(Debug, Clone, PartialEq)]
+pub enum PolarStatus {
+    /// Converged, attached enough to count.
+    Converged(ViscousPoint),
+    /// Converged, but the separation is past the stall criterion.
+    PastStall(ViscousPoint),
+    /// The coupling did not converge (the last residual is in the error).
+    NotConverged(ViscousError),
+    /// Beyond the first stalled or failed angle of its branch: not solved.
+    BeyondStall,
+}
+
+/// What ended the positive branch.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum StallCause {
+    /// The separation criterion.
+    Separation,
+    /// The coupling stopped converging.
+    NotConverged,
+    /// The sweep ended before either: cl_max is at the sweep's last angle (a lower bound).
+    EndOfSweep,
+}
+
+/// One angle of a polar.
+#[derive(Debug, Clone, PartialEq)]
+pub struct PolarEntry {
+    /// Angle of attack from the chord line, rad.
+    pub alpha_rad: f64,
+    /// Result.
+    pub status: PolarStatus,
+}
+
+/// A polar at one Reynolds number and N.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Polar {
+    /// Chord Reynolds number.
+    pub reynolds: f64,
+    /// Critical amplification factor.
+    pub n_crit: f64,
+    /// Entries in rising angle.
+    pub entries: Vec<PolarEntry>,
+    /// Greatest cl of the positive branch and its angle (rad), if any point converged.
+    pub cl_max: Option<(f64, f64)>,
+    /// Least cl of the negative branch and its angle (rad).
+    pub cl_min: Option<(f64, f64)>,
+    /// What ended the positive branch.
+    pub stall_cause: StallCause,
+}
+
+impl Polar {
+    /// Solves `section` at each of `alphas_rad` (sorted here) as described in the module
+    /// documentation.
+    pub fn sweep(section: &ViscousSection, alphas_rad: &[f64]) -> Polar {
+        let mut alphas: Vec<f64> = alphas_rad
+            .iter()
+            .copied()
+            .filter(|a| a.is_finite())
+            .collect();
+        alphas.sort_by(f64::total_cmp);
+        alphas.dedup();
+        let mut entries: Vec<PolarEntry> = alphas
+            .iter()
+            .map(|&alpha_rad| PolarEntry {
+                alpha_rad,
+                status: PolarStatus::BeyondStall,
+            })
+            .collect();
+        // Start at the angle nearest zero lift guess: the smallest |alpha|.
+        let start = (0..alphas.len())
+            .min_by(|&a, &b| alphas[a].abs().total_cmp(&alphas[b].abs()))
+            .unwrap_or(0);
+        let mut stall_cause = StallCause::EndOfSweep;
+        let mut solve_branch = |range: Vec<usize>, up: bool, entries: &mut Vec<PolarEntry>| {
+            for i in range {
+                let status = match section.solve(alphas[i]) {
+                    Ok(p) if p.is_stalled() => PolarStatus::PastStall(p),
+                    Ok(p) => PolarStatus::Converged(p),
+                    Err(e) => PolarStatus::NotConverged(e),
+                };
+                let stop = !matches!(status, PolarStatus::Converged(_));
+                if stop && up {
+                    stall_cause = if matches!(status, PolarStatus::PastStall(_)) {
+                        StallCause::Separation
+                    } else {
+                        StallCause::NotConverged
+                    };
+                }
+                entries[i].status = status;
+                if stop {
+                    break;
+                }
+            }
+        };
+        if !alphas.is_empty() {
+            solve_branch((start..alphas.len()).collect(), true, &mut entries);
+            solve_branch((0..start).rev().collect(), false, &mut entries);
+        }
+        let converged = |e: &PolarEntry| match &e.status {
+            PolarStatus::Converged(p) => Some((p.cl, e.alpha_rad)),
+            _ => None,
+        };
+        let cl_max = entries[start.min(entries.len())..]
+            .iter()
+            .filter_map(converged)
+            .max_by(|a, b| a.0.total_cmp(&b.0));
+        let cl_min = entries[..=start.min(entries.len().saturating_sub(1))]
+            .iter()
+            .filter_map(converged)
+            .min_by(|a, b| a.0.total_cmp(&b.0));
+        Polar {
+            reynolds: section.settings().reynolds,
+            n_crit: section.settings().n_crit,
+            entries,
+            cl_max,
+            cl_min,
+            stall_cause,
+        }
+    }
+
+    /// The converged, unstalled points in rising angle.
+    pub fn points(&self) -> impl Iterator<Item = &ViscousPoint> {
+        self.entries.iter().filter_map(|e| match &e.status {
+            PolarStatus::Converged(p) => Some(p),
+            _ => None,
+        })
+    }
+
+    /// Least drag coefficient over the converged points and its cl.
+    pub fn cd_min(&self) -> Option<(f64, f64)> {
+        self.points()
+            .map(|p| (p.cd, p.cl))
+            .min_by(|a, b| a.0.total_cmp(&b.0))
+    }
+
+    /// Lift slope (per rad) and zero-lift angle (rad) by a least-squares line through the
+    /// converged points with |cl| below `cl_limit`; `None` with fewer than two such points.
+    pub fn linear_fit(&self, cl_limit: f64) -> Option<(f64, f64)> {
+        let pts: Vec<(f64, f64)> = self
+            .points()
+            .filter(|p| p.cl.abs() <= cl_limit)
+            .map(|p| (p.alpha_rad, p.cl))
+            .collect();
+        if pts.len() < 2 {
+            return None;
+        }
+        let n = pts.len() as f64;
+        let (sx, sy) = pts.iter().fold((0.0, 0.0), |a, p| (a.0 + p.0, a.1 + p.1));
+        let (mx, my) = (sx / n, sy / n);
+        let sxx: f64 = pts.iter().map(|p| (p.0 - mx).powi(2)).sum();
+        let sxy: f64 = pts.iter().map(|p| (p.0 - mx) * (p.1 - my)).sum();
+        if sxx <= 0.0 {
+            return None;
+        }
+        let slope = sxy / sxx;
+        Some((slope, mx - my / slope))
+    }
+
+    /// cd at lift coefficient `cl` by linear interpolation between converged points (`None`
+    /// outside their range).
+    pub fn cd_at_cl(&self, cl: f64) -> Option<f64> {
+        let pts: Vec<&ViscousPoint> = self.points().collect();
+        pts.windows(2).find_map(|w| {
+            let (a, b) = (w[0], w[1]);
+            if (a.cl - cl) * (b.cl - cl) <= 0.0 && (b.cl - a.cl).abs() > 1e-12 {
+                let f = (cl - a.cl) / (b.cl - a.cl);
+                Some(a.cd + f * (b.cd - a.cd))
+            } else {
+                None
+            }
+        })
+    }
+}
