@@ -135,6 +135,14 @@ pub enum SectionError {
         /// The aerodynamic centre found, fraction of chord.
         x_ac_c: f64,
     },
+    /// The viscous method refused the settings or the shape.
+    #[error("airfoil '{airfoil}': {error}")]
+    Viscous {
+        /// Airfoil name.
+        airfoil: String,
+        /// Cause.
+        error: viscous::ViscousError,
+    },
     /// Flap-chord fraction not accepted.
     #[error(transparent)]
     Flap(#[from] flap::FlapError),
@@ -363,10 +371,55 @@ pub fn solve_section(
     options: &SectionOptions,
 ) -> Result<SectionSolution, SectionError> {
     let name = || airfoil.name.clone();
-    let geometry_err = |error| SectionError::Geometry {
-        airfoil: name(),
-        error,
-    };
+    let (exact, naca) = shape_solutions(airfoil)?;
+    if method == SectionMethod::Exact {
+        return exact
+            .map(SectionSolution::Exact)
+            .ok_or(SectionError::MethodNotAvailable {
+                airfoil: name(),
+                method: "exact",
+            });
+    }
+    if let (SectionMethod::Thin, Some(profile)) = (method, naca) {
+        return Ok(SectionSolution::Thin(ThinAirfoil::solve(&profile)));
+    }
+    if method == SectionMethod::Panel
+        && !(geometry::MIN_PANELS..=geometry::MAX_PANELS).contains(&options.panels)
+    {
+        return Err(SectionError::Panel {
+            airfoil: name(),
+            error: PanelError::Geometry(GeometryError::PanelCount(options.panels)),
+        });
+    }
+    let contour = build_contour(airfoil, &exact, &naca, options)?;
+    match method {
+        SectionMethod::Thin => {
+            let line =
+                SampledMeanLine::new(contour.mean_line(MEAN_LINE_STATIONS)).map_err(|error| {
+                    SectionError::MeanLine {
+                        airfoil: name(),
+                        error,
+                    }
+                })?;
+            Ok(SectionSolution::Thin(ThinAirfoil::solve(&line)))
+        }
+        _ => Ok(SectionSolution::Panel(
+            PanelSolution::solve(&contour, options.panels).map_err(|error| {
+                SectionError::Panel {
+                    airfoil: name(),
+                    error,
+                }
+            })?,
+        )),
+    }
+}
+
+/// The exact solution (Joukowski, Karman-Trefftz) or the NACA profile of an airfoil's shape,
+/// where it has one.
+fn shape_solutions(
+    airfoil: &Airfoil,
+) -> Result<(Option<ExactSolution>, Option<NacaProfile>), SectionError> {
+    let name = || airfoil.name.clone();
     let circle_err = |error| SectionError::CircleMap {
         airfoil: name(),
         error,
@@ -401,27 +454,22 @@ pub fn solve_section(
         }
         _ => None,
     };
-    if method == SectionMethod::Exact {
-        return exact
-            .map(SectionSolution::Exact)
-            .ok_or(SectionError::MethodNotAvailable {
-                airfoil: name(),
-                method: "exact",
-            });
-    }
-    if let (SectionMethod::Thin, Some(profile)) = (method, naca) {
-        return Ok(SectionSolution::Thin(ThinAirfoil::solve(&profile)));
-    }
-    if method == SectionMethod::Panel
-        && !(geometry::MIN_PANELS..=geometry::MAX_PANELS).contains(&options.panels)
-    {
-        return Err(SectionError::Panel {
-            airfoil: name(),
-            error: PanelError::Geometry(GeometryError::PanelCount(options.panels)),
-        });
-    }
+    Ok((exact, naca))
+}
+
+/// The checked contour of `airfoil` for the panel-based methods.
+fn build_contour(
+    airfoil: &Airfoil,
+    exact: &Option<ExactSolution>,
+    naca: &Option<NacaProfile>,
+    options: &SectionOptions,
+) -> Result<Contour, SectionError> {
+    let geometry_err = |error| SectionError::Geometry {
+        airfoil: airfoil.name.clone(),
+        error,
+    };
     let shape_points = (options.panels * SHAPE_POINTS_PER_PANEL).clamp(400, MAX_SHAPE_POINTS);
-    let raw: Vec<[f64; 2]> = match (&airfoil.shape, &exact, &naca) {
+    let raw: Vec<[f64; 2]> = match (&airfoil.shape, exact, naca) {
         (_, Some(ExactSolution::Joukowski(j)), _) => j.coordinates(shape_points),
         (_, Some(ExactSolution::KarmanTrefftz(k)), _) => k.coordinates(shape_points),
         (_, _, Some(profile)) => profile.coordinates(shape_points / 2),
@@ -429,34 +477,42 @@ pub fn solve_section(
         // Every shape is exact, NACA or coordinates; kept as an error rather than a panic.
         _ => return Err(geometry_err(GeometryError::Degenerate)),
     };
-    let contour = match naca {
+    match naca {
         // NACA coordinates have the leading edge of their chord line at the middle point. On
         // thick, strongly cambered sections the surface runs ahead of that point; their chord
         // then starts at the point farthest from the trailing edge, as for a file.
         Some(_) => Contour::with_leading_edge(&raw, raw.len() / 2).or_else(|_| Contour::new(&raw)),
         None => Contour::new(&raw),
     }
-    .map_err(geometry_err)?;
-    match method {
-        SectionMethod::Thin => {
-            let line =
-                SampledMeanLine::new(contour.mean_line(MEAN_LINE_STATIONS)).map_err(|error| {
-                    SectionError::MeanLine {
-                        airfoil: name(),
-                        error,
-                    }
-                })?;
-            Ok(SectionSolution::Thin(ThinAirfoil::solve(&line)))
+    .map_err(geometry_err)
+}
+
+/// The viscous polar of `airfoil` at `settings` (Reynolds number, N, panels) over
+/// `alphas_rad`: the boundary layer on the panel method ([`viscous`], [`polar`]).
+pub fn viscous_polar(
+    airfoil: &Airfoil,
+    settings: viscous::ViscousSettings,
+    alphas_rad: &[f64],
+) -> Result<polar::Polar, SectionError> {
+    let name = || airfoil.name.clone();
+    let (exact, naca) = shape_solutions(airfoil)?;
+    let contour = build_contour(
+        airfoil,
+        &exact,
+        &naca,
+        &SectionOptions {
+            panels: settings
+                .panels
+                .clamp(geometry::MIN_PANELS, geometry::MAX_PANELS),
+        },
+    )?;
+    let section = viscous::ViscousSection::new(&contour, settings).map_err(|error| {
+        SectionError::Viscous {
+            airfoil: name(),
+            error,
         }
-        _ => Ok(SectionSolution::Panel(
-            PanelSolution::solve(&contour, options.panels).map_err(|error| {
-                SectionError::Panel {
-                    airfoil: name(),
-                    error,
-                }
-            })?,
-        )),
-    }
+    })?;
+    Ok(polar::Polar::sweep(&section, alphas_rad))
 }
 
 /// Half-width of the angle step either side of zero lift used for the aerodynamic centre, rad.
