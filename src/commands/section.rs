@@ -24,6 +24,8 @@ pub enum MethodArg {
     Thin,
     /// Vortex panel method.
     Panel,
+    /// Panel method with the boundary layer, at the first Reynolds number of --re.
+    Viscous,
 }
 
 /// Arguments of `section`.
@@ -37,7 +39,8 @@ pub struct SectionArgs {
     /// e.g. -4,0,4 or -4:12:2 [default: -4:12:2].
     #[arg(long, allow_hyphen_values = true)]
     pub alpha: Option<String>,
-    /// Method; the default is exact for Joukowski and Karman-Trefftz sections, panel otherwise.
+    /// Method; the default is exact for Joukowski and Karman-Trefftz sections, panel otherwise
+    /// (viscous needs --re: its summary is at the first Reynolds number).
     #[arg(long, value_enum)]
     pub method: Option<MethodArg>,
     /// Number of panels for the panel method (16 to 1000; an odd number is raised by one).
@@ -176,7 +179,15 @@ fn airfoil_from_spec(spec: &str, args: &SectionArgs) -> anyhow::Result<(Airfoil,
         MethodArg::Exact => SectionMethod::Exact,
         MethodArg::Thin => SectionMethod::Thin,
         MethodArg::Panel => SectionMethod::Panel,
+        MethodArg::Viscous => SectionMethod::Viscous,
     });
+    let reynolds = match &args.re {
+        Some(list) => parse_re_list(list)
+            .context("reading --re")?
+            .first()
+            .copied(),
+        None => None,
+    };
     let (name, shape, text) = parse_spec(spec)?;
     Ok((
         Airfoil {
@@ -184,6 +195,8 @@ fn airfoil_from_spec(spec: &str, args: &SectionArgs) -> anyhow::Result<(Airfoil,
             shape,
             cl_max: args.cl_max,
             method,
+            reynolds,
+            transition_n: Some(args.transition_n),
         },
         text,
     ))

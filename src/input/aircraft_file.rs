@@ -10,6 +10,7 @@ use crate::model::{
     MarginLimits, MassItem, Panel, PitchControl, SectionMethod, Setup, Stabiliser, StabiliserRole,
     Surface, SurfaceShape, Targets, WeighingSupport,
 };
+use crate::section::registry;
 use std::collections::BTreeMap;
 use std::ops::Range;
 use std::path::{Path, PathBuf};
@@ -138,6 +139,9 @@ const INCIDENCE_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const MASS_G: Bounds = Bounds::closed(0.0, 1_000_000.0);
 const BALLAST_MAX_G: Bounds = Bounds::positive(1_000_000.0);
 const CL_MAX: Bounds = Bounds::closed(0.3, 3.0);
+// The viscous section method's accepted ranges (src/section/viscous.rs).
+const REYNOLDS: Bounds = Bounds::closed(1e4, 1e7);
+const TRANSITION_N: Bounds = Bounds::closed(1.0, 14.0);
 // Joukowski and Karman-Trefftz sections: what the circle-map shape solution accepts (less than
 // 40 % and 15 %), and no thinner than it is checked for (0.1 %; thinner is a sheet).
 const THICKNESS_PCT: Bounds = Bounds {
@@ -695,39 +699,58 @@ impl Ctx<'_> {
             )?;
             let method = match &a.method {
                 None => None,
-                Some(m) => Some(match m.get_ref().trim().to_ascii_lowercase().as_str() {
-                    "exact" => {
-                        if !matches!(
-                            shape,
-                            AirfoilShape::Joukowski { .. } | AirfoilShape::KarmanTrefftz { .. }
-                        ) {
-                            return Err(self.err(
-                                &m.span(),
-                                &format!("{field}.method"),
-                                "the exact method needs a joukowski or karman_trefftz airfoil",
-                                Some("thin, panel".into()),
-                            ));
-                        }
-                        SectionMethod::Exact
-                    }
-                    "thin" => SectionMethod::Thin,
-                    "panel" => SectionMethod::Panel,
-                    other => {
+                Some(m) => {
+                    let text = m.get_ref().trim().to_ascii_lowercase();
+                    let Some(info) = registry::by_name(&text) else {
                         return Err(self.err(
                             &m.span(),
                             &format!("{field}.method"),
-                            format!("unknown method `{other}`"),
-                            Some("exact, thin, panel".into()),
-                        ))
+                            format!("unknown method `{text}`"),
+                            Some(registry::names()),
+                        ));
+                    };
+                    if !registry::accepts(info.method, &shape) {
+                        return Err(self.err(
+                            &m.span(),
+                            &format!("{field}.method"),
+                            "the exact method needs a joukowski or karman_trefftz airfoil",
+                            Some("thin, panel, viscous".into()),
+                        ));
                     }
-                }),
+                    Some(info.method)
+                }
             };
+            let reynolds = self.opt_quantity(
+                a.reynolds.as_ref(),
+                &format!("{field}.reynolds"),
+                Dimension::Plain,
+                REYNOLDS,
+            )?;
+            let transition_n = self.opt_quantity(
+                a.transition_n.as_ref(),
+                &format!("{field}.transition_n"),
+                Dimension::Plain,
+                TRANSITION_N,
+            )?;
+            if method == Some(SectionMethod::Viscous) && reynolds.is_none() {
+                let span = a.method.as_ref().map(|m| m.span()).unwrap_or_default();
+                return Err(self.err(
+                    &span,
+                    &format!("{field}.reynolds"),
+                    "the viscous method needs the section's chord Reynolds number \
+                     (reynolds = ...; the station's own Reynolds number is not yet taken \
+                     from the trim speed)",
+                    Some("1e4 to 1e7, e.g. reynolds = 150000".into()),
+                ));
+            }
             ids.insert(name.clone(), AirfoilId(list.len()));
             list.push(Airfoil {
                 name: name.clone(),
                 shape,
                 cl_max,
                 method,
+                reynolds,
+                transition_n,
             });
         }
         Ok((list, ids))

@@ -487,6 +487,8 @@ mod tests {
                 cl_max: 1.2,
                 cl_min: -0.9,
                 cl_max_source: ClMaxSource::Given,
+                reynolds_number: None,
+                polar: None,
             },
             cautions: vec![],
         };

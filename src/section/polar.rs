@@ -194,4 +194,62 @@ impl Polar {
             }
         })
     }
+
+    /// cl at `alpha_rad` by linear interpolation between converged points (`None` outside
+    /// their range).
+    pub fn cl_at_alpha(&self, alpha_rad: f64) -> Option<f64> {
+        let pts: Vec<&ViscousPoint> = self.points().collect();
+        pts.windows(2).find_map(|w| {
+            let (a, b) = (w[0], w[1]);
+            if (a.alpha_rad..=b.alpha_rad).contains(&alpha_rad) {
+                let f = (alpha_rad - a.alpha_rad) / (b.alpha_rad - a.alpha_rad);
+                Some(a.cl + f * (b.cl - a.cl))
+            } else {
+                None
+            }
+        })
+    }
+}
+
+/// Polars of one section at several Reynolds numbers (same N), for cl(alpha) and cd(cl) at a
+/// Reynolds number between them: linear interpolation in log Re between the two polars that
+/// bracket it; `None` outside their range or where either polar has no converged value (no
+/// extrapolation).
+#[derive(Debug, Clone, PartialEq)]
+pub struct PolarFamily {
+    polars: Vec<std::sync::Arc<Polar>>,
+}
+
+impl PolarFamily {
+    /// The family, sorted by Reynolds number.
+    pub fn new(mut polars: Vec<std::sync::Arc<Polar>>) -> PolarFamily {
+        polars.sort_by(|a, b| a.reynolds.total_cmp(&b.reynolds));
+        PolarFamily { polars }
+    }
+
+    fn bracket(&self, reynolds: f64) -> Option<(&Polar, &Polar, f64)> {
+        let ps = &self.polars;
+        if ps.len() == 1 && (ps[0].reynolds - reynolds).abs() <= 1e-9 * reynolds {
+            return Some((&ps[0], &ps[0], 0.0));
+        }
+        ps.windows(2).find_map(|w| {
+            let (a, b) = (&w[0], &w[1]);
+            (a.reynolds <= reynolds && reynolds <= b.reynolds).then(|| {
+                let f = (reynolds / a.reynolds).ln() / (b.reynolds / a.reynolds).ln();
+                (a.as_ref(), b.as_ref(), f)
+            })
+        })
+    }
+
+    /// cl at `alpha_rad` and `reynolds`.
+    pub fn cl_at_alpha(&self, alpha_rad: f64, reynolds: f64) -> Option<f64> {
+        let (a, b, f) = self.bracket(reynolds)?;
+        Some((1.0 - f) * a.cl_at_alpha(alpha_rad)? + f * b.cl_at_alpha(alpha_rad)?)
+    }
+
+    /// cd at `cl` and `reynolds`.
+    pub fn cd_at_cl(&self, cl: f64, reynolds: f64) -> Option<f64> {
+        let (a, b, f) = self.bracket(reynolds)?;
+        Some((1.0 - f) * a.cd_at_cl(cl)? + f * b.cd_at_cl(cl)?)
+    }
 }

@@ -189,3 +189,72 @@ fn far_past_stall_is_a_typed_result_not_a_number() {
         Err(e) => panic!("unexpected {e}"),
     }
 }
+
+const VISCOUS_FILE: &str = r#"
+name = "Test glider"
+[airfoils.a]
+naca = "2412"
+method = "viscous"
+reynolds = 2e5
+transition_n = 7
+[wing]
+root_chord = 200
+airfoil = "a"
+[[wing.panel]]
+span = 600
+tip_chord = 150
+[[mass]]
+name = "all"
+mass = 400
+x = 60
+"#;
+
+#[test]
+fn aircraft_file_keys_give_a_viscous_section_model() {
+    // The file's method, Reynolds number and N reach the section model, which then carries
+    // its Reynolds number and polar; cl_max stays the conservative default, flagged, because
+    // the viscous cl_max is not validated (docs/section.md). The lift slope must fall below
+    // the inviscid panel value on the same section (the boundary layer's displacement).
+    use trimline::model::SectionMethod;
+    use trimline::section::{section_model, ClMaxSource, SectionOptions};
+    let a = trimline::input::parse_aircraft(VISCOUS_FILE, "v.toml", None).unwrap();
+    let airfoil = &a.airfoils[0];
+    assert_eq!(airfoil.method, Some(SectionMethod::Viscous));
+    assert_eq!(airfoil.reynolds, Some(2e5));
+    assert_eq!(airfoil.transition_n, Some(7.0));
+    let out = section_model(airfoil, &SectionOptions { panels: 160 }).unwrap();
+    let m = &out.model;
+    assert_eq!(m.method, SectionMethod::Viscous);
+    assert_eq!(m.reynolds_number, Some(2e5));
+    let polar = m.polar.as_ref().expect("polar carried");
+    approx::assert_relative_eq!(polar.n_crit, 7.0);
+    assert_eq!(m.cl_max_source, ClMaxSource::Default);
+    assert!(out.cautions.iter().any(|c| c.code == "cl-max-default"));
+    let inviscid = PanelSolution::solve(&naca("2412"), 160).unwrap();
+    assert!(m.cl_alpha_per_rad < inviscid.cl_alpha_per_rad());
+    // Same zero-lift angle as measured within the reading's 0.3 deg (REFERENCES.md).
+    assert!((m.alpha_zero_lift_rad.to_degrees() + 2.2).abs() < 0.3);
+}
+
+#[test]
+fn aircraft_file_viscous_keys_are_checked() {
+    let with = |a: &str, b: &str| VISCOUS_FILE.replace(a, b);
+    let err = |text: String| match trimline::input::parse_aircraft(&text, "v.toml", None) {
+        Ok(_) => panic!("expected an error"),
+        Err(e) => e.to_string(),
+    };
+    let e = err(with("reynolds = 2e5", "reynolds = 5e3"));
+    assert!(
+        e.contains("airfoils.a.reynolds") && e.contains("10000"),
+        "{e}"
+    );
+    let e = err(with("transition_n = 7", "transition_n = 20"));
+    assert!(e.contains("airfoils.a.transition_n"), "{e}");
+    let e = err(with("reynolds = 2e5\n", ""));
+    assert!(
+        e.contains("needs the section's chord Reynolds number"),
+        "{e}"
+    );
+    let e = err(with("method = \"viscous\"", "method = \"wet\""));
+    assert!(e.contains("exact, thin, panel, viscous"), "{e}");
+}
