@@ -253,3 +253,44 @@ impl PolarFamily {
         Some((1.0 - f) * a.cd_at_cl(cl)? + f * b.cd_at_cl(cl)?)
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::section::geometry::Contour;
+    use crate::section::naca::NacaProfile;
+    use crate::section::viscous::ViscousSettings;
+    use std::sync::Arc;
+
+    fn polar(re: f64) -> Arc<Polar> {
+        let raw = NacaProfile::parse("0012").unwrap().coordinates(200);
+        let c = Contour::with_leading_edge(&raw, raw.len() / 2).unwrap();
+        let s = ViscousSection::new(
+            &c,
+            ViscousSettings {
+                reynolds: re,
+                n_crit: 9.0,
+                panels: 100,
+            },
+        )
+        .unwrap();
+        let alphas: Vec<f64> = [0.0f64, 2.0, 4.0].iter().map(|d| d.to_radians()).collect();
+        Arc::new(Polar::sweep(&s, &alphas))
+    }
+
+    #[test]
+    fn family_interpolates_between_and_refuses_outside() {
+        // Linear interpolation in log Re: at an end it gives that polar's value; half-way in
+        // log Re (Re 4.47e5 between 2e5 and 1e6) the mean of the two (1e-12: rounding).
+        let (a, b) = (polar(2e5), polar(1e6));
+        let fam = PolarFamily::new(vec![b.clone(), a.clone()]);
+        let cd_a = a.cd_at_cl(0.2).unwrap();
+        let cd_b = b.cd_at_cl(0.2).unwrap();
+        assert!((fam.cd_at_cl(0.2, 2e5).unwrap() - cd_a).abs() < 1e-12);
+        let mid = (2e5f64 * 1e6).sqrt();
+        assert!((fam.cd_at_cl(0.2, mid).unwrap() - 0.5 * (cd_a + cd_b)).abs() < 1e-12);
+        assert!(fam.cd_at_cl(0.2, 3e6).is_none());
+        assert!(fam.cl_at_alpha(1f64.to_radians(), mid).is_some());
+        assert!(fam.cl_at_alpha(9f64.to_radians(), mid).is_none());
+    }
+}

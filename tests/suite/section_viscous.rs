@@ -92,6 +92,24 @@ fn lift_slope_falls_and_drag_rises_as_reynolds_number_falls() {
 }
 
 #[test]
+fn computed_cl_max_falls_with_reynolds_number() {
+    // Trend only: section cl_max falls as the Reynolds number falls (Abbott & von Doenhoff,
+    // Theory of Wing Sections, ch. 7, the scale effect on maximum lift; McGhee et al., NASA
+    // TM-4062, for the Eppler 387). The values themselves run high (docs/section.md) and are
+    // not checked here.
+    let alphas: Vec<f64> = deg(&(0..=20).map(f64::from).collect::<Vec<_>>());
+    let low = Polar::sweep(&section("0012", 2e5, 120), &alphas)
+        .cl_max
+        .unwrap()
+        .0;
+    let high = Polar::sweep(&section("0012", 2e6, 120), &alphas)
+        .cl_max
+        .unwrap()
+        .0;
+    assert!(low < high, "cl_max {low} at Re 2e5, {high} at 2e6");
+}
+
+#[test]
 fn michel_and_envelope_transition_agree_roughly() {
     // Michel's criterion (Michel 1951, as in Cebeci & Bradshaw, Momentum Transfer in Boundary
     // Layers, sec. 4.4) is a correlation of transition in quiet streams, the e^9 envelope
