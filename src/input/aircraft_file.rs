@@ -532,6 +532,15 @@ impl Ctx<'_> {
             "setup",
             "`--setup NAME` could not choose the second one",
         )?;
+        let mut airfoils = airfoils;
+        self.viscous_reynolds(
+            &raw.airfoils,
+            &mut airfoils,
+            &wing,
+            stabiliser.as_ref().map(|s| &s.surface),
+            &air,
+            &targets,
+        )?;
         Ok(Aircraft {
             name,
             notes: raw.notes.unwrap_or_default(),
@@ -549,6 +558,75 @@ impl Ctx<'_> {
             setups,
             weighing,
         })
+    }
+
+    /// The Reynolds number of each viscous airfoil that has none in the file: from the target
+    /// trim speed and the mean of the chords at the panel ends that use the airfoil (wing and
+    /// stabiliser), in the file's air. Without a target trim speed the file must give it.
+    fn viscous_reynolds(
+        &self,
+        raw: &BTreeMap<String, Spanned<raw::RawAirfoil>>,
+        airfoils: &mut [Airfoil],
+        wing: &Surface,
+        stabiliser: Option<&Surface>,
+        air: &Air,
+        targets: &Targets,
+    ) -> Result<(), InputError> {
+        for (index, airfoil) in airfoils.iter_mut().enumerate() {
+            if airfoil.method != Some(SectionMethod::Viscous) || airfoil.reynolds.is_some() {
+                continue;
+            }
+            let id = AirfoilId(index);
+            let mut chords = Vec::new();
+            for surface in std::iter::once(wing).chain(stabiliser) {
+                match &surface.shape {
+                    SurfaceShape::Panels(panels) => {
+                        for p in panels {
+                            if p.root_airfoil == id {
+                                chords.push(p.root_chord_m);
+                            }
+                            if p.tip_airfoil == id {
+                                chords.push(p.tip_chord_m);
+                            }
+                        }
+                    }
+                    SurfaceShape::Elliptic(e) => {
+                        if e.root_airfoil == id || e.tip_airfoil == id {
+                            chords.push(e.root_chord_m);
+                        }
+                    }
+                }
+            }
+            let field = format!("airfoils.{}.reynolds", airfoil.name);
+            let span = raw
+                .get(&airfoil.name)
+                .and_then(|a| a.get_ref().method.as_ref().map(|m| m.span()))
+                .unwrap_or_default();
+            let (Some(speed), false) = (targets.trim_speed_m_s, chords.is_empty()) else {
+                return Err(self.err(
+                    &span,
+                    &field,
+                    "the viscous method needs the section's chord Reynolds number: give \
+                     reynolds, or a [targets] trim_speed and use the airfoil on a surface",
+                    Some("1e4 to 1e7, e.g. reynolds = 150000".into()),
+                ));
+            };
+            let chord_m = chords.iter().sum::<f64>() / chords.len() as f64;
+            let re = crate::atmosphere::air_state(air).reynolds(speed, chord_m);
+            if !(REYNOLDS.contains(re)) {
+                return Err(self.err(
+                    &span,
+                    &field,
+                    format!(
+                        "the Reynolds number from the trim speed and the chord, {re:.0}, is \
+                         outside the range of the viscous method"
+                    ),
+                    Some("1e4 to 1e7; give reynolds for this airfoil".into()),
+                ));
+            }
+            airfoil.reynolds = Some(re);
+        }
+        Ok(())
     }
 
     fn air(&self, raw: Option<&raw::RawAir>) -> Result<Air, InputError> {
@@ -732,17 +810,6 @@ impl Ctx<'_> {
                 Dimension::Plain,
                 TRANSITION_N,
             )?;
-            if method == Some(SectionMethod::Viscous) && reynolds.is_none() {
-                let span = a.method.as_ref().map(|m| m.span()).unwrap_or_default();
-                return Err(self.err(
-                    &span,
-                    &format!("{field}.reynolds"),
-                    "the viscous method needs the section's chord Reynolds number \
-                     (reynolds = ...; the station's own Reynolds number is not yet taken \
-                     from the trim speed)",
-                    Some("1e4 to 1e7, e.g. reynolds = 150000".into()),
-                ));
-            }
             ids.insert(name.clone(), AirfoilId(list.len()));
             list.push(Airfoil {
                 name: name.clone(),

@@ -275,4 +275,18 @@ fn aircraft_file_viscous_keys_are_checked() {
     );
     let e = err(with("method = \"viscous\"", "method = \"wet\""));
     assert!(e.contains("exact, thin, panel, viscous"), "{e}");
+    let e = err(with("reynolds = 2e5\n", "") + "[targets]\ntrim_speed = 0.5\n");
+    assert!(e.contains("outside the range"), "{e}");
+}
+
+#[test]
+fn reynolds_number_defaults_from_the_trim_speed_and_the_chords() {
+    // Without `reynolds`, the file's target trim speed and the mean chord of the panel ends
+    // that use the airfoil (200 and 150 mm) give Re = V c / nu. Check value: sea-level ISA
+    // Re per (m/s * m) = 68,459 (US Standard Atmosphere 1976 with Sutherland's viscosity, see
+    // /work/shared/REFERENCES.md): 68,459 * 9 * 0.175 = 107,823; 0.05 % for the rounding.
+    let text = VISCOUS_FILE.replace("reynolds = 2e5\n", "") + "[targets]\ntrim_speed = 9\n";
+    let a = trimline::input::parse_aircraft(&text, "v.toml", None).unwrap();
+    let re = a.airfoils[0].reynolds.unwrap();
+    assert!((re / 107_823.0 - 1.0).abs() < 5e-4, "{re}");
 }
