@@ -16,9 +16,14 @@
 //!
 //! Lift from the circulation (Kutta-Joukowski), moment about the quarter chord by integrating
 //! the surface pressure `Cp = 1 - (Ue/U)^2`, drag by Squire-Young from the trailing-edge state
-//! of each surface. The wake is not modelled (its displacement is left out, and the
-//! trailing-edge state stands for it through Squire-Young): lift near stall and the moment are
-//! the least accurate outputs.
+//! of each surface. The wake is a straight line of source panels behind the trailing edge
+//! along the chord line whose mass defect falls from the sum of the two trailing-edge values
+//! to the far-wake momentum thickness over [`WAKE_DECAY_C`] (a prescribed decay, not a wake
+//! boundary layer). Three measures keep the direct iteration stable: the relaxation backs off
+//! when the change grows ([`MIN_RELAXATION`]), the source strengths are smoothed along each
+//! surface ([`SMOOTHING_PASSES`]), and the panel speed on the last panel before the trailing
+//! edge, which jumps at an open gap, is replaced by its neighbour's. Lift near stall and the
+//! moment are the least accurate outputs; separated flow is not modelled.
 //!
 //! Angles of attack from the chord line, rad; coefficients on the chord; cm positive nose up;
 //! transition and separation as x/c of the surface point.
