@@ -12,6 +12,7 @@ use crate::model::{
     StabiliserRole, Surface, SurfaceShape, Targets, WeighingSupport, WingModel,
 };
 use crate::printable::{printable, token};
+use crate::section::registry;
 use std::collections::BTreeMap;
 use std::ops::Range;
 use std::path::{Path, PathBuf};
@@ -162,6 +163,9 @@ const INCIDENCE_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const MASS_G: Bounds = Bounds::closed(0.0, 1_000_000.0);
 const BALLAST_MAX_G: Bounds = Bounds::positive(1_000_000.0);
 const CL_MAX: Bounds = Bounds::closed(0.3, 3.0);
+// The viscous section method's accepted ranges (src/section/viscous.rs).
+const REYNOLDS: Bounds = Bounds::closed(1e4, 1e7);
+const TRANSITION_N: Bounds = Bounds::closed(1.0, 14.0);
 // Joukowski and Karman-Trefftz sections: what the circle-map shape solution accepts (less than
 // 40 % and 15 %), and no thinner than it is checked for (0.1 %; thinner is a sheet).
 const THICKNESS_PCT: Bounds = Bounds {
@@ -658,6 +662,15 @@ impl Ctx<'_> {
             "setup",
             "`--setup NAME` could not choose the second one",
         )?;
+        let mut airfoils = airfoils;
+        self.viscous_reynolds(
+            &raw.airfoils,
+            &mut airfoils,
+            &wing,
+            stabiliser.as_ref().map(|s| &s.surface),
+            &air,
+            &targets,
+        )?;
         Ok(Aircraft {
             name,
             notes: printable(&raw.notes.unwrap_or_default()).into_owned(),
@@ -677,6 +690,75 @@ impl Ctx<'_> {
             setups,
             weighing,
         })
+    }
+
+    /// The Reynolds number of each viscous airfoil that has none in the file: from the target
+    /// trim speed and the mean of the chords at the panel ends that use the airfoil (wing and
+    /// stabiliser), in the file's air. Without a target trim speed the file must give it.
+    fn viscous_reynolds(
+        &self,
+        raw: &BTreeMap<String, Spanned<raw::RawAirfoil>>,
+        airfoils: &mut [Airfoil],
+        wing: &Surface,
+        stabiliser: Option<&Surface>,
+        air: &Air,
+        targets: &Targets,
+    ) -> Result<(), InputError> {
+        for (index, airfoil) in airfoils.iter_mut().enumerate() {
+            if airfoil.method != Some(SectionMethod::Viscous) || airfoil.reynolds.is_some() {
+                continue;
+            }
+            let id = AirfoilId(index);
+            let mut chords = Vec::new();
+            for surface in std::iter::once(wing).chain(stabiliser) {
+                match &surface.shape {
+                    SurfaceShape::Panels(panels) => {
+                        for p in panels {
+                            if p.root_airfoil == id {
+                                chords.push(p.root_chord_m);
+                            }
+                            if p.tip_airfoil == id {
+                                chords.push(p.tip_chord_m);
+                            }
+                        }
+                    }
+                    SurfaceShape::Elliptic(e) => {
+                        if e.root_airfoil == id || e.tip_airfoil == id {
+                            chords.push(e.root_chord_m);
+                        }
+                    }
+                }
+            }
+            let field = format!("airfoils.{}.reynolds", airfoil.name);
+            let span = raw
+                .get(&airfoil.name)
+                .and_then(|a| a.get_ref().method.as_ref().map(|m| m.span()))
+                .unwrap_or_default();
+            let (Some(speed), false) = (targets.trim_speed_m_s, chords.is_empty()) else {
+                return Err(self.err(
+                    &span,
+                    &field,
+                    "the viscous method needs the section's chord Reynolds number: give \
+                     reynolds, or a [targets] trim_speed and use the airfoil on a surface",
+                    Some("1e4 to 1e7, e.g. reynolds = 150000".into()),
+                ));
+            };
+            let chord_m = chords.iter().sum::<f64>() / chords.len() as f64;
+            let re = crate::atmosphere::air_state(air).reynolds(speed, chord_m);
+            if !(REYNOLDS.contains(re)) {
+                return Err(self.err(
+                    &span,
+                    &field,
+                    format!(
+                        "the Reynolds number from the trim speed and the chord, {re:.0}, is \
+                         outside the range of the viscous method"
+                    ),
+                    Some("1e4 to 1e7; give reynolds for this airfoil".into()),
+                ));
+            }
+            airfoil.reynolds = Some(re);
+        }
+        Ok(())
     }
 
     fn air(&self, raw: Option<&raw::RawAir>) -> Result<Air, InputError> {
@@ -827,39 +909,47 @@ impl Ctx<'_> {
             )?;
             let method = match &a.method {
                 None => None,
-                Some(m) => Some(match m.get_ref().trim().to_ascii_lowercase().as_str() {
-                    "exact" => {
-                        if !matches!(
-                            shape,
-                            AirfoilShape::Joukowski { .. } | AirfoilShape::KarmanTrefftz { .. }
-                        ) {
-                            return Err(self.err(
-                                &m.span(),
-                                &format!("{field}.method"),
-                                "the exact method needs a joukowski or karman_trefftz airfoil",
-                                Some("thin, panel".into()),
-                            ));
-                        }
-                        SectionMethod::Exact
-                    }
-                    "thin" => SectionMethod::Thin,
-                    "panel" => SectionMethod::Panel,
-                    other => {
+                Some(m) => {
+                    let text = m.get_ref().trim().to_ascii_lowercase();
+                    let Some(info) = registry::by_name(&text) else {
                         return Err(self.err(
                             &m.span(),
                             &format!("{field}.method"),
-                            format!("unknown method `{}`", token(other)),
-                            Some("exact, thin, panel".into()),
-                        ))
+                            format!("unknown method `{}`", token(&text)),
+                            Some(registry::names()),
+                        ));
+                    };
+                    if !registry::accepts(info.method, &shape) {
+                        return Err(self.err(
+                            &m.span(),
+                            &format!("{field}.method"),
+                            "the exact method needs a joukowski or karman_trefftz airfoil",
+                            Some("thin, panel, viscous".into()),
+                        ));
                     }
-                }),
+                    Some(info.method)
+                }
             };
+            let reynolds = self.opt_quantity(
+                a.reynolds.as_ref(),
+                &format!("{field}.reynolds"),
+                Dimension::Plain,
+                REYNOLDS,
+            )?;
+            let transition_n = self.opt_quantity(
+                a.transition_n.as_ref(),
+                &format!("{field}.transition_n"),
+                Dimension::Plain,
+                TRANSITION_N,
+            )?;
             ids.insert(name.clone(), AirfoilId(list.len()));
             list.push(Airfoil {
                 name: printable(name).into_owned(),
                 shape,
                 cl_max,
                 method,
+                reynolds,
+                transition_n,
             });
         }
         Ok((list, ids))

@@ -81,6 +81,8 @@ pub struct RawAirfoil {
     pub coordinates: Option<Spanned<String>>,
     pub cl_max: Option<Quantity>,
     pub method: Option<Spanned<String>>,
+    pub reynolds: Option<Quantity>,
+    pub transition_n: Option<Quantity>,
 }
 
 /// `joukowski = { thickness = 12, camber = 3 }` (percent of chord)

@@ -1339,6 +1339,8 @@ pub(crate) mod tests {
             cl_max,
             cl_min: -cl_max,
             cl_max_source: ClMaxSource::Given,
+            reynolds_number: None,
+            polar: None,
         }
     }
 

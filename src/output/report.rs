@@ -784,15 +784,7 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     used.dedup();
     let sections: Vec<&str> = used
         .iter()
-        .map(|m| match m {
-            SectionMethod::Exact => "exact conformal mapping (Milne-Thomson, Theoretical Aerodynamics)",
-            SectionMethod::Thin => {
-                "thin-airfoil theory (Abbott and von Doenhoff, Theory of Wing Sections, 1959, ch. 4)"
-            }
-            SectionMethod::Panel => {
-                "linear-strength vortex panels (Katz and Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001)"
-            }
-        })
+        .map(|m| crate::section::registry::info(*m).described_as)
         .collect();
     let mut out = vec![format!(
         "Airfoil sections: {}; section cl max as given in the file or a default.",

@@ -7,6 +7,8 @@
 //! critical-section stall estimate needs; it says nothing about the post-stall drop.
 
 use crate::model::SectionMethod;
+use crate::section::polar::Polar;
+use std::sync::Arc;
 
 /// Where a section's cl_max came from.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -22,7 +24,7 @@ pub enum ClMaxSource {
 pub const DEFAULT_CL_MAX: f64 = 1.0;
 
 /// Lift and moment characteristics of one airfoil section (2-D, incompressible).
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct SectionModel {
     /// Method that produced the numbers.
     pub method: SectionMethod,
@@ -40,6 +42,12 @@ pub struct SectionModel {
     pub cl_min: f64,
     /// Where `cl_max` came from.
     pub cl_max_source: ClMaxSource,
+    /// Chord Reynolds number the numbers were computed at (`None`: an inviscid method).
+    pub reynolds_number: Option<f64>,
+    /// The viscous polar behind the numbers, for a wing model that takes cl(alpha) and
+    /// cd(cl) per station (`None`: an inviscid method). Shared, not copied, between the
+    /// stations that use the same section.
+    pub polar: Option<Arc<Polar>>,
 }
 
 impl SectionModel {
@@ -95,6 +103,15 @@ impl SectionModel {
             } else {
                 ClMaxSource::Given
             },
+            reynolds_number: match (self.reynolds_number, other.reynolds_number) {
+                (Some(a), Some(b)) => Some(mix(a, b)),
+                (a, b) => a.or(b),
+            },
+            polar: if w < 0.5 {
+                self.polar.clone()
+            } else {
+                other.polar.clone()
+            },
         }
     }
 }
@@ -114,6 +131,8 @@ mod tests {
             cl_max: 1.0,
             cl_min: -1.0,
             cl_max_source: ClMaxSource::Given,
+            reynolds_number: None,
+            polar: None,
         }
     }
 

@@ -265,7 +265,7 @@ pub fn referred_to_free_stream(
         cm_ac: eta * section.cm_ac,
         cl_max: eta * section.cl_max,
         cl_min: eta * section.cl_min,
-        ..*section
+        ..section.clone()
     }
 }
 

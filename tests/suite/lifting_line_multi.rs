@@ -344,6 +344,8 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
             shape: AirfoilShape::Naca("0006".into()),
             cl_max: None,
             method: None,
+            reynolds: None,
+            transition_n: None,
         }],
         wing: wing.clone(),
         stabiliser: Some(Stabiliser {

@@ -31,6 +31,8 @@ fn section(alpha0_deg: f64, cm_ac: f64) -> SectionModel {
         cl_max: 1.2,
         cl_min: -0.8,
         cl_max_source: ClMaxSource::Given,
+        reynolds_number: None,
+        polar: None,
     }
 }
 
