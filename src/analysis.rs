@@ -122,6 +122,10 @@ pub struct Analysis {
     pub classical: ClassicalEstimate,
     /// Full lifting-line balance and trim, when it solved.
     pub full: Option<trim::FullStability>,
+    /// Spread (one standard deviation) of the neutral point from the inputs the tool cannot
+    /// know well, by linear sensitivities of the closed form
+    /// ([`crate::stability::uncertainty`], common-practice spreads).
+    pub neutral_point_spread: crate::stability::uncertainty::NeutralPointSpread,
     /// The headline figures (from `full` when present, else from `classical`).
     pub headline: Headline,
     /// Recommended CG band.
@@ -244,7 +248,7 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         StabiliserRole::Canard => StabiliserPlace::Canard,
     });
     let fuselage_cm_alpha_per_rad = fuselage_cm_alpha(aircraft, &wing);
-    let estimate = classical::estimate(&classical::EstimateInput {
+    let estimate_input = classical::EstimateInput {
         wing: &wing,
         stabiliser: stabiliser.as_ref().zip(place),
         mass_kg: mass.total_kg,
@@ -255,7 +259,13 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
             .stabiliser
             .as_ref()
             .map_or(1.0, |s| s.dynamic_pressure_ratio),
-    });
+        downwash_factor: 1.0,
+    };
+    let estimate = classical::estimate(&estimate_input);
+    let neutral_point_spread = crate::stability::uncertainty::linear_spread(
+        &estimate_input,
+        &crate::stability::uncertainty::COMMON_SPREADS,
+    );
     let full = match trim::full_stability(&trim_input(
         aircraft,
         &sections,
@@ -443,6 +453,7 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         stabiliser,
         classical: estimate,
         full,
+        neutral_point_spread,
         headline,
         band,
         ballast,

@@ -708,6 +708,7 @@ pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
                     .stabiliser
                     .as_ref()
                     .map_or(1.0, |s| s.dynamic_pressure_ratio),
+                downwash_factor: 1.0,
             })
             .trim
             .map(|t| t.speed_m_s)

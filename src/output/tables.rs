@@ -273,6 +273,29 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
             ),
         ]);
     }
+    let spread = 2.0 * a.neutral_point_spread.sigma_m;
+    if spread.is_finite() && spread > 0.0 {
+        let fwd_np = h.neutral_point_x_m - spread;
+        t.add_row(vec![
+            "neutral point, forward end of its range".to_string(),
+            u.length(fwd_np, 1),
+            pct(fwd_np),
+            format!(
+                "2 standard deviations ({} {mm}) of the inputs known least well (common-practice spreads)",
+                u.length(spread, 1)
+            ),
+        ]);
+        let aft = fwd_np - aircraft.margin_limits.min_static_margin * g.mac_m;
+        t.add_row(vec![
+            "aft CG limit against that end".to_string(),
+            u.length(aft, 1),
+            pct(aft),
+            format!(
+                "static margin {} % from the forward end of the neutral-point range",
+                num(100.0 * aircraft.margin_limits.min_static_margin, 0)
+            ),
+        ]);
+    }
     let forward_note = match a.band.forward_limit {
         ForwardLimit::StaticMargin => format!(
             "static margin {} %",

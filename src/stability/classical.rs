@@ -156,6 +156,9 @@ pub struct EstimateInput<'a> {
     pub fuselage_cm_alpha_per_rad: f64,
     /// Stabiliser dynamic-pressure ratio eta (tail efficiency; 1 without a stabiliser).
     pub stabiliser_dynamic_pressure_ratio: f64,
+    /// Multiplier on the downwash gradient 2 a_w / (pi A) (1 for the estimate itself; the
+    /// neutral-point uncertainty varies it, see [`super::uncertainty`]).
+    pub downwash_factor: f64,
 }
 
 /// Trim state from the closed-form estimate.
@@ -246,7 +249,9 @@ pub fn estimate(input: &EstimateInput<'_>) -> ClassicalEstimate {
     let w = input.wing;
     let a_w = w.lift_slope_per_rad;
     let downwash_gradient = match input.stabiliser {
-        Some((_, StabiliserPlace::Tail)) => 2.0 * a_w / (PI * w.geometry.aspect_ratio),
+        Some((_, StabiliserPlace::Tail)) => {
+            input.downwash_factor * 2.0 * a_w / (PI * w.geometry.aspect_ratio)
+        }
         _ => 0.0,
     };
     let neutral_point_x_m = match input.stabiliser {

@@ -23,6 +23,7 @@ mod lifting_line_downwash;
 mod lifting_line_multi;
 mod lifting_line_stall;
 mod lifting_line_sweep;
+mod np_uncertainty;
 mod performance;
 mod report;
 mod section_bad_input;

@@ -76,6 +76,7 @@ fn run(
         density_kg_m3: 1.225,
         fuselage_cm_alpha_per_rad: fuselage,
         stabiliser_dynamic_pressure_ratio: 1.0,
+        downwash_factor: 1.0,
     })
 }
 

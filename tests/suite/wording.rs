@@ -124,3 +124,28 @@ fn imperial_tables_are_the_metric_ones_in_inches_and_ounces() {
         "{compare}"
     );
 }
+
+// A tail load under 10 g keeps one decimal, so a small download never reads "0 g"; larger
+// loads are whole grams (their accuracy). The demo sailplane carries a fraction of a gram.
+#[test]
+fn small_tail_loads_keep_a_decimal() {
+    for file in [
+        "aircraft/larkspire-2000.toml",
+        "aircraft/wrenfield-1400.toml",
+    ] {
+        let text = trimline(&["check", file]);
+        let line = text
+            .lines()
+            .find(|l| l.contains("stabiliser load at trim"))
+            .unwrap();
+        let value = line
+            .split('┆')
+            .nth(1)
+            .unwrap()
+            .trim()
+            .trim_end_matches(" g");
+        let grams: f64 = value.parse().unwrap();
+        assert_eq!(value.contains('.'), grams.abs() < 10.0, "{line}");
+        assert_ne!(value.trim_start_matches('-'), "0", "{line}");
+    }
+}
