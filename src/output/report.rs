@@ -807,7 +807,7 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     };
     let pitch = match aircraft.pitch_control() {
         Some(p) if p.chord_fraction > 0.0 => format!(
-            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students) and the plain-flap correction K' for large deflections (Roskam, Airplane Design VI, fig. 8.13; no gap)",
+            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students) with the hinge-gap loss of 15 % (Raymer, Aircraft Design, 6th ed., sec. 16.3); the further loss at deflections beyond about 12 deg is not modelled, so the forward CG limit from full up throw is somewhat optimistic",
             aircraft.pitch_control_name()
         ),
         Some(_) => "; all-moving stabiliser turned as a whole".to_string(),

@@ -29,10 +29,11 @@
 //!
 //! Pitch-control deflections carry the empirical plain-flap correction of
 //! [`crate::section::flap_correction`]: the system is built with Glauert's linear effect per
-//! radian of *lift-equivalent* deflection `K'(delta) delta`; every deflection the system
-//! returns is turned back into the real deflection that produces it (the smallest one), and
-//! full throw is turned into the largest lift-equivalent deflection the throw can give. This
-//! is the chart's effectiveness at the deflection actually used, without iteration.
+//! radian of *lift-equivalent* deflection (factor times deflection); every deflection the
+//! system returns is turned back into the real deflection that produces it (the smallest
+//! one), and full throw is turned into the largest lift-equivalent deflection the throw can
+//! give. A deflection-dependent factor would then be used at the deflection actually needed,
+//! without iteration.
 //!
 //! # References
 //! - W. F. Phillips, D. O. Snyder, "Modern adaptation of Prandtl's classic lifting-line
@@ -269,7 +270,7 @@ pub fn referred_to_free_stream(
     }
 }
 
-/// The deflection the linear model uses for a real pitch-control deflection (the chart's K'
+/// The deflection the linear model uses for a real pitch-control deflection (the correction
 /// applied); an all-moving surface is not corrected.
 pub fn model_deflection_rad(control: &PitchControl, real_rad: f64) -> f64 {
     if control.chord_fraction > 0.0 {
