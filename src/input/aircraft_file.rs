@@ -158,6 +158,9 @@ const CHORD_MM: Bounds = Bounds::closed(5.0, 10_000.0);
 const TIP_CHORD_MM: Bounds = Bounds::closed(0.0, 10_000.0);
 const SWEEP_DEG: Bounds = Bounds::closed(-60.0, 60.0);
 const DIHEDRAL_DEG: Bounds = Bounds::closed(-45.0, 45.0);
+/// A stabiliser may be a V-tail: up to 60 deg each side (V-tails of sailplanes and models lie
+/// between about 30 and 50 deg; common practice).
+const STABILISER_DIHEDRAL_DEG: Bounds = Bounds::closed(-60.0, 60.0);
 const TWIST_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const INCIDENCE_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const MASS_G: Bounds = Bounds::closed(0.0, 1_000_000.0);
@@ -1303,7 +1306,11 @@ impl Ctx<'_> {
                     p.dihedral.as_ref(),
                     &format!("{path}.dihedral"),
                     Dimension::Angle,
-                    DIHEDRAL_DEG,
+                    if path.starts_with("stabiliser") {
+                        STABILISER_DIHEDRAL_DEG
+                    } else {
+                        DIHEDRAL_DEG
+                    },
                 )?
                 .unwrap_or(0.0),
             tip_twist_rad: self

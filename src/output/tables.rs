@@ -146,7 +146,38 @@ fn geometry_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
 }
 
 fn geometry_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
-    match (&a.tail_volume, &aircraft.stabiliser) {
+    let vee = match (&aircraft.stabiliser, &a.stabiliser) {
+        (Some(st), Some(eq)) => {
+            let true_area = crate::planform::true_area_m2(&st.surface);
+            let cos = if true_area > 0.0 {
+                (eq.geometry.area_m2 / true_area).min(1.0)
+            } else {
+                1.0
+            };
+            if cos < VEE_TAIL_COS {
+                format!(
+                    "\nThe stabiliser is a V-tail ({} deg mean dihedral): area {} {} in its own plane, \
+                     {} projected; in pitch it acts about as a flat tail of {} {} (area x cos^2, \
+                     Purser and Campbell, NACA Report 823); the lattice models the dihedral itself. \
+                     The volume coefficient below is on the projected area; on the pitch area it \
+                     is about {}. Yaw, a fin and the ruddervators' yaw use are not analysed.",
+                    num(cos.acos().to_degrees(), 0),
+                    u.area(true_area),
+                    u.area_unit(),
+                    u.area(eq.geometry.area_m2),
+                    u.area(eq.pitch_area_m2),
+                    u.area_unit(),
+                    a.tail_volume
+                        .as_ref()
+                        .map_or("-".to_string(), |tv| num(tv.coefficient * cos, 3)),
+                )
+            } else {
+                String::new()
+            }
+        }
+        _ => String::new(),
+    };
+    vee + &match (&a.tail_volume, &aircraft.stabiliser) {
         (Some(tv), Some(_)) => format!(
             "\nStabiliser arm {} {} (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
             u.length(tv.arm_m, 0),
@@ -157,6 +188,10 @@ fn geometry_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
         _ => "\nNo stabiliser: tailless.".to_string(),
     }
 }
+
+/// A stabiliser whose projected area is less than this share of its true area (a mean
+/// dihedral above about 10 deg) is described as a V-tail.
+const VEE_TAIL_COS: f64 = 0.985;
 
 fn sections_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     let mut t = table(&[

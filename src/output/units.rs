@@ -62,6 +62,14 @@ impl UnitSystem {
         }
     }
 
+    /// "dm^2" or "in^2".
+    pub fn area_unit(self) -> &'static str {
+        match self {
+            UnitSystem::Metric => "dm^2",
+            UnitSystem::Imperial => "in^2",
+        }
+    }
+
     /// A wing loading given in kg/m^2 (g/dm^2 or oz/ft^2, 1 decimal... 2 in ounces).
     pub fn loading(self, kg_m2: f64) -> String {
         match self {

@@ -424,3 +424,16 @@ pub fn plan_overlap(a: &Surface, b: &Surface) -> Option<PlanOverlap> {
     }
     best
 }
+
+/// Area of the surface in its own plane (both halves), m^2: each panel's span along its
+/// dihedral times its mean chord. Equals the projected area of a flat surface; a V-tail's is
+/// larger by 1 / cos(dihedral).
+pub fn true_area_m2(surface: &Surface) -> f64 {
+    match &surface.shape {
+        SurfaceShape::Panels(panels) => panels
+            .iter()
+            .map(|p| p.span_m * (p.root_chord_m + p.tip_chord_m))
+            .sum(),
+        SurfaceShape::Elliptic(e) => 0.5 * std::f64::consts::PI * e.root_chord_m * e.semispan_m,
+    }
+}

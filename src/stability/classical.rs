@@ -69,6 +69,13 @@ pub struct EquivalentSurface {
     pub lift_slope_per_rad: f64,
     /// x of the aerodynamic centre (MAC quarter chord), m.
     pub x_ac_m: f64,
+    /// Area that acts in pitch, m^2: the true (in-plane) area times cos^2 of the mean dihedral,
+    /// which is the projected area times the cosine (the V-tail projection of Purser and
+    /// Campbell, NACA Report 823, 1945); equal to the area of a flat surface.
+    pub pitch_area_m2: f64,
+    /// Helmbold lift slope on the true (in-plane) aspect ratio, per rad: the slope that goes
+    /// with [`EquivalentSurface::pitch_area_m2`].
+    pub pitch_lift_slope_per_rad: f64,
 }
 
 /// Helmbold's lift slope for aspect ratio `aspect_ratio` and section slope `a0_per_rad`, per rad.
@@ -105,6 +112,12 @@ pub fn equivalent_surface(surface: &Surface, sections: &[SectionModel]) -> Equiv
     }
     let safe = |n: f64, d: f64| if d > 0.0 { n / d } else { 0.0 };
     let section_cl_alpha = safe(slope, w_c);
+    // cos of the mean dihedral = projected area / true area (exact for one straight panel).
+    let true_area = planform::true_area_m2(surface);
+    let cos_dihedral = safe(geometry.area_m2, true_area).min(1.0);
+    let pitch_area = geometry.area_m2 * cos_dihedral;
+    let true_span = 2.0 * s_total;
+    let true_aspect_ratio = safe(true_span * true_span, true_area);
     EquivalentSurface {
         geometry,
         incidence_rad: surface.incidence_rad,
@@ -119,6 +132,8 @@ pub fn equivalent_surface(surface: &Surface, sections: &[SectionModel]) -> Equiv
         },
         lift_slope_per_rad: helmbold_lift_slope(section_cl_alpha, geometry.aspect_ratio),
         x_ac_m: geometry.mac_quarter_x_m(),
+        pitch_area_m2: pitch_area,
+        pitch_lift_slope_per_rad: helmbold_lift_slope(section_cl_alpha, true_aspect_ratio),
     }
 }
 
@@ -227,8 +242,8 @@ fn linear_model(input: &EstimateInput<'_>, x_ref_m: f64, downwash_gradient: f64)
         stab_cl_a: 0.0,
     };
     if let Some((t, _)) = input.stabiliser {
-        let a_t = t.lift_slope_per_rad;
-        let ratio = input.stabiliser_dynamic_pressure_ratio * t.geometry.area_m2 / s;
+        let a_t = t.pitch_lift_slope_per_rad;
+        let ratio = input.stabiliser_dynamic_pressure_ratio * t.pitch_area_m2 / s;
         // Downwash eps = (d eps/d alpha) CL_w / a_w.
         let e0 = downwash_gradient * clw0 / a_w;
         let ct0 = a_t * (t.incidence_rad - t.alpha_zero_lift_rad - e0);
@@ -257,9 +272,8 @@ pub fn estimate(input: &EstimateInput<'_>) -> ClassicalEstimate {
     let neutral_point_x_m = match input.stabiliser {
         None => w.x_ac_m,
         Some((t, _)) => {
-            let k = input.stabiliser_dynamic_pressure_ratio * t.geometry.area_m2
-                / w.geometry.area_m2
-                * t.lift_slope_per_rad
+            let k = input.stabiliser_dynamic_pressure_ratio * t.pitch_area_m2 / w.geometry.area_m2
+                * t.pitch_lift_slope_per_rad
                 * (1.0 - downwash_gradient);
             (a_w * w.x_ac_m + k * t.x_ac_m) / (a_w + k)
         }

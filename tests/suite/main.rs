@@ -36,4 +36,5 @@ mod setups_and_datums;
 mod stability_classical;
 mod tail_efficiency;
 mod tail_stall;
+mod vee_tail;
 mod wording;
