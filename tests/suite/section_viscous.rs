@@ -290,3 +290,48 @@ fn reynolds_number_defaults_from_the_trim_speed_and_the_chords() {
     let re = a.airfoils[0].reynolds.unwrap();
     assert!((re / 107_823.0 - 1.0).abs() < 5e-4, "{re}");
 }
+
+#[test]
+fn the_wing_model_follows_each_station_s_polar() {
+    // The strip relation of the wing model (lattice or lifting line) takes the section's lift
+    // curve per station: with a viscous polar, the solved circulations satisfy
+    // Gamma = (c/2) cl_polar(alpha_section) at every station (the model's own equation, to the
+    // Newton tolerance), where alpha_section is the station's angle with the induced angle;
+    // and because the polar is nonlinear, the full solve differs from the superposed linear
+    // one while staying within a few per cent of it at a small angle (law: the linear fit is
+    // the polar's slope near zero lift). Beyond the polar's last converged point the curve is
+    // held flat (a stall limit), as the flat-top model does at cl_max.
+    use trimline::lifting_line::{LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput};
+    use trimline::section::{section_model, SectionOptions};
+    let a = trimline::input::parse_aircraft(VISCOUS_FILE, "v.toml", None).unwrap();
+    let m = section_model(&a.airfoils[0], &SectionOptions { panels: 160 })
+        .unwrap()
+        .model;
+    let sections = [m.clone()];
+    let input = [SurfaceInput {
+        surface: &a.wing,
+        sections: &sections,
+        elevator: None,
+    }];
+    let sys = MultiSurfaceSystem::new(
+        &input,
+        Reference::of_surface(&a.wing),
+        LiftingLineOptions::default(),
+    )
+    .unwrap();
+    let r = sys.solve(&sys.condition(0.06)).unwrap();
+    assert!(matches!(
+        r.status,
+        trimline::lifting_line::SolveStatus::Converged { .. }
+    ));
+    for st in &r.stations {
+        let lp = m.lift_point(st.alpha_rad, 0.0);
+        assert!((st.cl - lp.cl).abs() < 1e-6, "{} vs {}", st.cl, lp.cl);
+    }
+    let lin = sys
+        .linear_coefficients(&sys.condition(0.06), 0.0, 0.0)
+        .unwrap();
+    assert!((r.cl / lin.cl - 1.0).abs() < 0.05, "{} vs {}", r.cl, lin.cl);
+    let far = m.lift_point(1.0, 0.0);
+    assert!(!far.attached && far.slope_per_rad == 0.0 && far.cl <= m.cl_max);
+}
