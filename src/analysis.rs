@@ -439,6 +439,15 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         &wing.geometry,
         mass.total_kg,
     ));
+    uncertain_aft_limit_caution(
+        aircraft,
+        headline.neutral_point_x_m,
+        2.0 * neutral_point_spread.sigma_m,
+        mac,
+        mass.cg_x_m,
+        band.aft_x_m,
+        &mut cautions,
+    );
     cautions.push(safety_caution());
     Ok(Analysis {
         numerics: numerics_used(aircraft, options),
@@ -1291,6 +1300,41 @@ pub fn trim_input<'a>(
         },
         target_speed_m_s: aircraft.targets.trim_speed_m_s,
         top_speed_m_s: aircraft.targets.top_speed_m_s,
+    }
+}
+
+/// A CG inside the recommended band but aft of the aft limit measured from the forward end of
+/// the neutral point's uncertainty range (`spread_m`, two standard deviations).
+fn uncertain_aft_limit_caution(
+    aircraft: &Aircraft,
+    neutral_point_x_m: f64,
+    spread_m: f64,
+    mac_m: f64,
+    cg_x_m: f64,
+    band_aft_x_m: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    if !(spread_m.is_finite() && spread_m > 0.0) {
+        return;
+    }
+    let limit = neutral_point_x_m - spread_m - aircraft.margin_limits.min_static_margin * mac_m;
+    if cg_x_m > limit && cg_x_m <= band_aft_x_m {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "cg-aft-of-uncertain-limit",
+            format!(
+                "The CG ({:.0} mm) is inside the recommended band but {:.0} mm aft of {:.0} mm, the \
+                 aft limit measured from the forward end of the neutral point's uncertainty range \
+                 ({:.0} mm ahead of it: two standard deviations from common-practice spreads of \
+                 tail efficiency, downwash, fuselage and section lift slopes). For the first \
+                 flights balance at {:.0} mm or further forward.",
+                1000.0 * cg_x_m,
+                1000.0 * (cg_x_m - limit),
+                1000.0 * limit,
+                1000.0 * spread_m,
+                1000.0 * limit
+            ),
+        ));
     }
 }
 

@@ -114,7 +114,7 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
             Paper::A4
         };
         let bytes = trimline::output::pdf::comparison_report(&data, paper);
-        write_file(&path, &bytes, &super::write_options(args.follow_link))
+        write_file(&path, &bytes, &super::pdf_write_options(args.follow_link))
             .context("writing the comparison PDF")?;
         eprintln!(
             "Wrote the comparison of {} setups to {}",

@@ -402,9 +402,8 @@ impl Ctx<'_> {
                 &span,
                 field,
                 format!(
-                    "{} {} is out of range{}",
-                    fmt_num_short(in_default),
-                    dim.default_unit(),
+                    "{} is out of range{}",
+                    format!("{} {}", fmt_num_short(in_default), dim.default_unit()).trim_end(),
                     if bare {
                         unit_slip_hint(in_default, dim, bounds)
                     } else {
@@ -1855,6 +1854,18 @@ impl Ctx<'_> {
             }
             Ok(Some(v as usize))
         };
+        if out.wing_model == WingModel::LiftingLine {
+            out.strips_per_half_span = crate::model::DEFAULT_LIFTING_LINE_STATIONS;
+            if let Some(q) = &n.chordwise_panels {
+                return Err(self.err(
+                    &q.span(),
+                    "numerics.chordwise_panels",
+                    "chordwise panels belong to the vortex lattice; the lifting line has one \
+                     vortex per strip",
+                    Some("leave it out, or wing_model = \"vortex-lattice\"".into()),
+                ));
+            }
+        }
         if let Some(v) = count(
             n.spanwise_strips.as_ref(),
             "numerics.spanwise_strips",
@@ -1884,8 +1895,7 @@ impl Ctx<'_> {
                     out.strips_per_half_span, out.chordwise_panels
                 ),
                 Some(format!(
-                    "at most {MAX_WING_HALF_PANELS} (the tail adds its share; {} is the limit for the whole half aircraft)",
-                    crate::lifting_line::lattice::MAX_HALF_PANELS
+                    "strips x chordwise panels at most {MAX_WING_HALF_PANELS} on each half of the wing"
                 )),
             ));
         }
