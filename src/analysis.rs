@@ -12,7 +12,7 @@ use crate::model::{Aircraft, StabiliserRole};
 use crate::performance::drag::{self, BodyDragInput, SurfaceDragInput};
 use crate::performance::polar::{oswald_straight_wing, GlidePerformance, PolarInput};
 
-use crate::lifting_line::LiftingLineOptions;
+use crate::lifting_line::{LiftingLineError, LiftingLineOptions, MultiSurfaceSystem};
 use crate::model::WingModel;
 use crate::planform::{self, PlanformGeometry, TailVolume};
 use crate::section::SectionModel;
@@ -219,11 +219,25 @@ pub enum ForwardLimit {
     TailStall,
 }
 
-/// Run the whole chain on `aircraft`.
-pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysis, AnalysisError> {
+/// The section models of an aircraft's airfoils, computed once and reusable for every
+/// configuration that keeps the airfoils (masses, CG, incidences may change).
+#[derive(Debug, Clone, PartialEq)]
+pub struct SectionSet {
+    /// Section models (the file's methods), parallel to `aircraft.airfoils`.
+    pub models: Vec<SectionModel>,
+    /// Thin-airfoil models for the closed-form cross-check, parallel likewise.
+    pub thin: Vec<SectionModel>,
+    /// Cautions the section methods raised, in airfoil order.
+    pub cautions: Vec<Caution>,
+}
+
+/// Compute the section models of every airfoil of `aircraft`.
+pub fn section_set(
+    aircraft: &Aircraft,
+    options: &AnalysisOptions,
+) -> Result<SectionSet, AnalysisError> {
     let mut cautions = Vec::new();
-    let air = atmosphere::air_state(&aircraft.air);
-    let mut sections = Vec::with_capacity(aircraft.airfoils.len());
+    let mut models = Vec::with_capacity(aircraft.airfoils.len());
     for airfoil in &aircraft.airfoils {
         let outcome = crate::section::section_model(
             airfoil,
@@ -231,17 +245,61 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
                 panels: options.panels,
             },
         )?;
-        sections.push(outcome.model);
+        models.push(outcome.model);
         cautions.extend(outcome.cautions);
     }
     // The closed-form cross-check uses thin-airfoil theory for every section (lift slope
     // 2 pi, zero-lift angle and moment from the mean line), independent of the panel method.
-    let thin_sections = thin_section_models(aircraft, options)?;
-    let wing = classical::equivalent_surface(&aircraft.wing, &thin_sections);
+    let thin = thin_section_models(aircraft, options)?;
+    Ok(SectionSet {
+        models,
+        thin,
+        cautions,
+    })
+}
+
+/// The lifting-line options an analysis of `aircraft` uses (the file's `[numerics]` with the
+/// options' override).
+pub fn lifting_line_options(aircraft: &Aircraft, options: &AnalysisOptions) -> LiftingLineOptions {
+    let n = numerics_used(aircraft, options);
+    LiftingLineOptions {
+        model: n.wing_model,
+        stations_per_half_span: n.strips_per_half_span,
+        chordwise_panels: n.chordwise_panels,
+        ..LiftingLineOptions::default()
+    }
+}
+
+/// Run the whole chain on `aircraft`.
+pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysis, AnalysisError> {
+    let sections = section_set(aircraft, options)?;
+    let system = trim::build_system(
+        aircraft,
+        &sections.models,
+        lifting_line_options(aircraft, options),
+    );
+    analyse_with(aircraft, &sections, system.as_ref(), options)
+}
+
+/// Run the chain on `aircraft` with its sections and its factored wing system already made
+/// (by [`section_set`] and `trim::build_system` of this aircraft, or of one that differs only
+/// in masses, with the incidence changes applied by `MultiSurfaceSystem::with_angle_change`);
+/// `system` is the build's error when it failed. Gives what [`analyse`] gives.
+pub fn analyse_with(
+    aircraft: &Aircraft,
+    section_set: &SectionSet,
+    system: Result<&MultiSurfaceSystem, &LiftingLineError>,
+    options: &AnalysisOptions,
+) -> Result<Analysis, AnalysisError> {
+    let mut cautions = section_set.cautions.clone();
+    let air = atmosphere::air_state(&aircraft.air);
+    let sections = &section_set.models;
+    let thin_sections = &section_set.thin;
+    let wing = classical::equivalent_surface(&aircraft.wing, thin_sections);
     let stabiliser = aircraft
         .stabiliser
         .as_ref()
-        .map(|s| classical::equivalent_surface(&s.surface, &thin_sections));
+        .map(|s| classical::equivalent_surface(&s.surface, thin_sections));
     let mass = balance::mass_summary(&aircraft.masses)?;
     let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
         StabiliserRole::Tail => StabiliserPlace::Tail,
@@ -266,14 +324,18 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         &estimate_input,
         &crate::stability::uncertainty::COMMON_SPREADS,
     );
-    let full = match trim::full_stability(&trim_input(
+    let input = trim_input(
         aircraft,
-        &sections,
+        sections,
         &mass,
         &air,
         fuselage_cm_alpha_per_rad,
         options,
-    )) {
+    );
+    let full = match system
+        .map_err(Clone::clone)
+        .and_then(|system| trim::full_stability_on(system, &input))
+    {
         Ok(f) => Some(f),
         Err(e) => {
             cautions.push(Caution::new(
@@ -452,7 +514,7 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
     Ok(Analysis {
         numerics: numerics_used(aircraft, options),
         air,
-        sections,
+        sections: sections.clone(),
         wing_geometry: wing.geometry,
         stabiliser_geometry: stabiliser.map(|s| s.geometry),
         tail_volume,
@@ -1289,15 +1351,7 @@ pub fn trim_input<'a>(
         cg_z_m: mass.cg_z_m.unwrap_or(aircraft.wing.root_le_z_m),
         density_kg_m3: air.density_kg_m3,
         fuselage_cm_alpha_per_rad,
-        options: {
-            let n = numerics_used(aircraft, options);
-            LiftingLineOptions {
-                model: n.wing_model,
-                stations_per_half_span: n.strips_per_half_span,
-                chordwise_panels: n.chordwise_panels,
-                ..LiftingLineOptions::default()
-            }
-        },
+        options: lifting_line_options(aircraft, options),
         target_speed_m_s: aircraft.targets.trim_speed_m_s,
         top_speed_m_s: aircraft.targets.top_speed_m_s,
     }

@@ -2,7 +2,8 @@
 //!
 //! Data flows one way through the modules:
 //! aircraft file ([`input`]) -> [`model`] -> [`section`] -> [`planform`] and
-//! [`lifting_line`] -> [`balance`], [`stability`] -> [`analysis`] -> [`output`].
+//! [`lifting_line`] -> [`balance`], [`stability`] -> [`analysis`] -> [`output`];
+//! [`study`] runs the chain over a grid of configurations.
 //!
 //! Everything between `input` and `output` is the numerical core: it does no I/O,
 //! prints nothing and works in SI units with angles in radians.
@@ -22,3 +23,4 @@ pub mod plausibility;
 pub mod printable;
 pub mod section;
 pub mod stability;
+pub mod study;

@@ -26,6 +26,9 @@ enum Command {
     Section(commands::section::SectionArgs),
     /// Write the one-page PDF trim report (A4, or US Letter with --letter).
     Report(commands::report::ReportArgs),
+    /// Trade study: static margin, trim, control at a target speed and stall over one or two
+    /// varied quantities (CG, ballast, a mass item, every mass, stabiliser incidence, decalage).
+    Sweep(commands::sweep::SweepArgs),
 }
 
 /// Exit code when the command ran to the end but raised a danger-level caution.
@@ -40,6 +43,7 @@ fn main() -> ExitCode {
         Command::New(args) => clean(commands::new::run(&args)),
         Command::Section(args) => clean(commands::section::run(&args)),
         Command::Report(args) => commands::report::run(&args),
+        Command::Sweep(args) => commands::sweep::run(&args),
     };
     // Exit codes (README.md, "Exit codes"): 0 done, 1 an input, file or analysis error,
     // 2 a command-line usage error (clap), 3 done but a danger-level caution was raised.

@@ -5,6 +5,7 @@ pub mod compare;
 pub mod new;
 pub mod report;
 pub mod section;
+pub mod sweep;
 
 /// How a command that ran to the end finished, for the exit code.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

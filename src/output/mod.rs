@@ -10,6 +10,7 @@ pub mod pdf;
 pub mod report;
 pub mod report_file;
 pub mod section;
+pub mod study;
 pub mod tables;
 pub mod units;
 

@@ -418,6 +418,17 @@ fn speed_at(mass_kg: f64, density: f64, area_m2: f64, cl: f64) -> f64 {
 /// Run the full-model balance and trim.
 pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLineError> {
     let system = build_system(input.aircraft, input.sections, input.options)?;
+    full_stability_on(&system, input)
+}
+
+/// The full-model balance and trim on a system already built and factored for the input's
+/// aircraft (by [`build_system`], or one built once and changed by
+/// `MultiSurfaceSystem::with_angle_change` for other incidences): masses, CG and target
+/// speed come from `input`, the geometry from `system`.
+pub fn full_stability_on(
+    system: &MultiSurfaceSystem,
+    input: &TrimInput<'_>,
+) -> Result<FullStability, LiftingLineError> {
     let reference = system.reference();
     let c = reference.mac_m;
     let area = reference.area_m2;
@@ -476,9 +487,9 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
     };
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
-    let map = StationMap::of(&system, &base)?;
+    let map = StationMap::of(system, &base)?;
     let stall = stall_at(
-        &system,
+        system,
         map.as_ref(),
         &base,
         pitch_control.is_some(),
@@ -496,7 +507,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
         .is_some_and(|s| s.role == StabiliserRole::Canard);
     let (elevator_forward_limit_x_m, forward_limit_cause) = match pitch_control {
         Some(p) if !is_canard => elevator_limit(
-            &system,
+            system,
             map.as_ref(),
             &base,
             model_full_up_rad(p),
@@ -533,7 +544,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
                 });
             }
         }
-        cg_for_target_x_m = cg_for_cl(&system, &base, cl_t, z)
+        cg_for_target_x_m = cg_for_cl(system, &base, cl_t, z)
             .map(|x| x - fuselage_shift_m)
             .filter(|x| *x < neutral_point_x_m);
     }
@@ -556,7 +567,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
                 {
                     let d = real_deflection_rad(control, tp.control_rad);
                     let stalled =
-                        stabiliser_at_cl_min(&system, &base, &tp, TrimControl::Elevator)?.is_some();
+                        stabiliser_at_cl_min(system, &base, &tp, TrimControl::Elevator)?.is_some();
                     elevator_schedule.push(ElevatorPoint {
                         speed_m_s: v,
                         cl,
@@ -578,7 +589,7 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
             .unwrap_or(TAILLESS_DESIGN_CL);
         Some(tailless_check(
             input,
-            &system,
+            system,
             design_cl,
             eff(input.cg_x_m),
             z,

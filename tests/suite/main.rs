@@ -34,6 +34,7 @@ mod section_thin;
 mod section_viscous;
 mod setups_and_datums;
 mod stability_classical;
+mod study;
 mod tail_efficiency;
 mod tail_stall;
 mod vee_tail;
