@@ -23,6 +23,8 @@ fn section(alpha0_rad: f64, cm_ac: f64) -> SectionModel {
         cl_max: 1.2,
         cl_min: -1.0,
         cl_max_source: ClMaxSource::Given,
+        reynolds_number: None,
+        polar: None,
     }
 }
 

@@ -122,6 +122,10 @@ pub struct Analysis {
     pub classical: ClassicalEstimate,
     /// Full lifting-line balance and trim, when it solved.
     pub full: Option<trim::FullStability>,
+    /// Spread (one standard deviation) of the neutral point from the inputs the tool cannot
+    /// know well, by linear sensitivities of the closed form
+    /// ([`crate::stability::uncertainty`], common-practice spreads).
+    pub neutral_point_spread: crate::stability::uncertainty::NeutralPointSpread,
     /// The headline figures (from `full` when present, else from `classical`).
     pub headline: Headline,
     /// Recommended CG band.
@@ -210,6 +214,9 @@ pub enum ForwardLimit {
     StaticMargin,
     /// Elevator authority: further forward, full up elevator cannot hold the stall.
     ElevatorAuthority,
+    /// Tailplane stall: further forward, the tailplane reaches its negative cl limit before
+    /// the wing's stall can be reached.
+    TailStall,
 }
 
 /// The section models of an aircraft's airfoils, computed once and reusable for every
@@ -301,14 +308,24 @@ pub fn analyse_with(
         StabiliserRole::Canard => StabiliserPlace::Canard,
     });
     let fuselage_cm_alpha_per_rad = fuselage_cm_alpha(aircraft, &wing);
-    let estimate = classical::estimate(&classical::EstimateInput {
+    let estimate_input = classical::EstimateInput {
         wing: &wing,
         stabiliser: stabiliser.as_ref().zip(place),
         mass_kg: mass.total_kg,
         cg_x_m: mass.cg_x_m,
         density_kg_m3: air.density_kg_m3,
         fuselage_cm_alpha_per_rad,
-    });
+        stabiliser_dynamic_pressure_ratio: aircraft
+            .stabiliser
+            .as_ref()
+            .map_or(1.0, |s| s.dynamic_pressure_ratio),
+        downwash_factor: 1.0,
+    };
+    let estimate = classical::estimate(&estimate_input);
+    let neutral_point_spread = crate::stability::uncertainty::linear_spread(
+        &estimate_input,
+        &crate::stability::uncertainty::COMMON_SPREADS,
+    );
     let input = trim_input(
         aircraft,
         sections,
@@ -339,9 +356,18 @@ pub fn analyse_with(
     let mac = wing.geometry.mac_m;
     let np = headline.neutral_point_x_m;
     let margin_forward_x_m = np - aircraft.margin_limits.max_static_margin * mac;
-    let elevator_limit = full.as_ref().and_then(|f| f.elevator_forward_limit_x_m);
+    let elevator_limit = full.as_ref().and_then(|f| {
+        f.elevator_forward_limit_x_m
+            .map(|x| (x, f.forward_limit_cause))
+    });
     let (forward_x_m, forward_limit) = match elevator_limit {
-        Some(x) if x > margin_forward_x_m => (x, ForwardLimit::ElevatorAuthority),
+        Some((x, cause)) if x > margin_forward_x_m => (
+            x,
+            match cause {
+                trim::ForwardLimitCause::ControlAuthority => ForwardLimit::ElevatorAuthority,
+                trim::ForwardLimitCause::StabiliserClMin => ForwardLimit::TailStall,
+            },
+        ),
         _ => (margin_forward_x_m, ForwardLimit::StaticMargin),
     };
     let aft_x_m = np - aircraft.margin_limits.min_static_margin * mac;
@@ -404,6 +430,18 @@ pub fn analyse_with(
     if let Some(w) = &weighed {
         weighing_caution(w, &mass, &mut cautions);
     }
+    let with_z = aircraft.masses.iter().filter(|m| m.z_m.is_some()).count();
+    if with_z > 0 && with_z < aircraft.masses.len() {
+        cautions.push(Caution::new(
+            Level::Note,
+            "vertical-cg-partial",
+            format!(
+                "{with_z} of the {} masses have a height (z); the vertical CG needs all of them, so it is \
+                 not used and moments are taken at the wing root's height. Give every mass a z to use it.",
+                aircraft.masses.len()
+            ),
+        ));
+    }
     let tail_volume = stabiliser
         .as_ref()
         .map(|s| planform::tail_volume(&wing.geometry, &s.geometry));
@@ -447,12 +485,33 @@ pub fn analyse_with(
             &mut cautions,
         );
     }
-    reynolds_caution(reynolds_mac, speed, &mut cautions);
+    let tip_chord_m = planform::station_at(
+        &aircraft.wing,
+        TIP_REYNOLDS_STATION * planform::half_span_length_m(&aircraft.wing),
+    )
+    .chord_m;
+    reynolds_caution(
+        reynolds_mac,
+        speed,
+        air.reynolds(headline.stall_speed_m_s, tip_chord_m),
+        tip_chord_m,
+        headline.stall_speed_m_s,
+        &mut cautions,
+    );
     cautions.extend(crate::plausibility::cautions(
         aircraft,
         &wing.geometry,
         mass.total_kg,
     ));
+    uncertain_aft_limit_caution(
+        aircraft,
+        headline.neutral_point_x_m,
+        2.0 * neutral_point_spread.sigma_m,
+        mac,
+        mass.cg_x_m,
+        band.aft_x_m,
+        &mut cautions,
+    );
     cautions.push(safety_caution());
     Ok(Analysis {
         numerics: numerics_used(aircraft, options),
@@ -467,6 +526,7 @@ pub fn analyse_with(
         stabiliser,
         classical: estimate,
         full,
+        neutral_point_spread,
         headline,
         band,
         ballast,
@@ -552,27 +612,48 @@ fn weighing_caution(w: &MassSummary, mass: &MassSummary, cautions: &mut Vec<Caut
     }
 }
 
-fn reynolds_caution(reynolds_mac: f64, speed: f64, cautions: &mut Vec<Caution>) {
-    if reynolds_mac < LOW_REYNOLDS_WARNING {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "reynolds-low",
-            format!(
-                "Reynolds number on the wing's mean chord at {speed:.1} m/s is only {reynolds_mac:.0}: \
-                 airfoils lose lift and gain drag sharply below about 50 000, so expect a higher stall \
-                 speed and poorer glide than estimated."
-            ),
-        ));
-    } else if reynolds_mac < LOW_REYNOLDS_NOTE {
-        cautions.push(Caution::new(
-            Level::Note,
-            "reynolds-low",
-            format!(
-                "Reynolds number on the wing's mean chord at {speed:.1} m/s is {reynolds_mac:.0}: \
-                 below about 100 000 section data and cl_max are uncertain; choose airfoils made for low Reynolds numbers."
-            ),
-        ));
-    }
+/// Fraction of the semispan where the wing's tip Reynolds number is taken (95 %: the outer
+/// sections that stall a tip; the very tip of an elliptic wing has no chord).
+pub const TIP_REYNOLDS_STATION: f64 = 0.95;
+
+/// The Reynolds caution: the wing's mean chord at `speed` (trim, or stall when there is no
+/// trim), and its tip (chord `tip_chord_m`) at the stall speed, where a tip stall starts.
+fn reynolds_caution(
+    reynolds_mac: f64,
+    speed: f64,
+    reynolds_tip_at_stall: f64,
+    tip_chord_m: f64,
+    stall_speed: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    use crate::caution::reynolds_text;
+    let worst = reynolds_mac.min(reynolds_tip_at_stall);
+    let level = if worst < LOW_REYNOLDS_WARNING {
+        Level::Warning
+    } else if worst < LOW_REYNOLDS_NOTE {
+        Level::Note
+    } else {
+        return;
+    };
+    let effect = if worst < LOW_REYNOLDS_WARNING {
+        "airfoils lose lift and gain drag sharply below about 50,000, so expect a higher stall \
+         speed, an earlier tip stall and a poorer glide than estimated"
+    } else {
+        "below about 100,000 section data and cl_max are uncertain; choose airfoils made for low \
+         Reynolds numbers"
+    };
+    cautions.push(Caution::new(
+        level,
+        "reynolds-low",
+        format!(
+            "Reynolds number on the wing's mean chord at {speed:.1} m/s is {}; at the tip ({:.0} mm \
+             chord, {:.0} % of the semispan) at the stall speed {stall_speed:.1} m/s it is {}: {effect}.",
+            reynolds_text(reynolds_mac),
+            tip_chord_m * 1000.0,
+            100.0 * TIP_REYNOLDS_STATION,
+            reynolds_text(reynolds_tip_at_stall),
+        ),
+    ));
 }
 
 fn balance_cautions(
@@ -626,6 +707,10 @@ fn balance_cautions(
                 "further forward, full up {control} can no longer hold the wing at its stall, so the \
                  model cannot be flared or slowed properly"
             ),
+            ForwardLimit::TailStall => "further forward, the tailplane reaches its negative stall \
+                 (its download at cl_min) before the wing stalls, and pitch control is lost when \
+                 slowing down"
+                .to_string(),
             ForwardLimit::StaticMargin => {
                 format!(
                     "the aircraft will be nose-heavy, need more {} and fly faster",
@@ -767,7 +852,35 @@ fn full_model_cautions(
             .as_ref()
             .and_then(|s| s.result.surfaces.get(1))
             .is_some_and(|s| s.cl > 0.0);
+        let negative = f.stall.as_ref().and_then(|s| match s.limit {
+            trim::StallLimit::StabiliserClMin {
+                speed_otherwise_m_s,
+                ..
+            } => Some((s.speed_m_s, speed_otherwise_m_s)),
+            trim::StallLimit::ClMax => None,
+        });
         match (loc.surface, role) {
+            (1, _) if negative.is_some() => {
+                let (v_tail, v_wing) = negative.unwrap_or_default();
+                let surface = if role == Some(StabiliserRole::Canard) {
+                    "canard"
+                } else {
+                    "tailplane"
+                };
+                cautions.push(Caution::new(
+                    Level::Danger,
+                    "tail-stalls-first",
+                    format!(
+                        "The {surface} stalls first, downwards: slowing down with the elevator, it \
+                         reaches its negative cl limit (cl_min, at {:.0} % of its semispan) at {:.1} m/s, \
+                         before the wing would stall at {:.1} m/s. Below {:.1} m/s pitch control would be \
+                         lost, so that is the stall speed shown. Move the CG aft within the \
+                         recommended band (less download needed), or give the {surface} more area or \
+                         a section with a larger negative cl limit (or camber it for download).",
+                        loc.percent_semispan, v_tail, v_wing, v_tail
+                    ),
+                ));
+            }
             (0, Some(StabiliserRole::Canard)) => cautions.push(Caution::new(
                 Level::Danger,
                 "canard-stall-order",
@@ -841,6 +954,19 @@ fn full_model_cautions(
                 ),
             ));
         }
+    }
+    if let Some(p) = f.elevator_schedule.iter().find(|p| p.stabiliser_at_cl_min) {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "tail-stall-in-range",
+            format!(
+                "At {:.1} m/s, trimmed with {:.1} deg of elevator, the tailplane is at its negative cl \
+                 limit (cl_min): within the speed range it would stall downwards and pitch control \
+                 would be lost. Move the CG aft within the band or enlarge the tailplane.",
+                p.speed_m_s,
+                p.elevator_rad.to_degrees()
+            ),
+        ));
     }
     if let Some(t) = &f.tailless {
         let untrimmed = t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4;
@@ -1016,8 +1142,40 @@ pub struct KeyFigures {
     pub dangers: usize,
     /// x of the wing root leading edge, m (to express positions as builders measure them).
     pub wing_root_le_x_m: f64,
+    /// x of the wing's MAC leading edge, m (the common reference of a comparison).
+    pub mac_le_x_m: f64,
+    /// What x = 0 is, in the builder's words (or [`COMMON_REFERENCE`] once moved there).
+    pub datum: String,
     /// Codes of the warnings and dangers raised, most serious first.
     pub caution_codes: Vec<(Level, &'static str)>,
+}
+
+/// The datum of key figures whose positions were moved to the wing's MAC leading edge.
+pub const COMMON_REFERENCE: &str = "the wing's MAC leading edge";
+
+/// Whether the configurations' datums differ (compared as written, ignoring case and
+/// surrounding spaces); when they do, every position of every configuration is moved to be
+/// measured from its own wing's MAC leading edge, so that the positions can be compared.
+/// Returns true when it moved them.
+pub fn to_common_reference(columns: &mut [KeyFigures]) -> bool {
+    let key = |k: &KeyFigures| k.datum.trim().to_lowercase();
+    let Some(first) = columns.first().map(key) else {
+        return false;
+    };
+    if columns.iter().all(|k| key(k) == first) {
+        return false;
+    }
+    for k in columns.iter_mut() {
+        let dx = k.mac_le_x_m;
+        k.cg_x_m -= dx;
+        k.neutral_point_x_m -= dx;
+        k.band.forward_x_m -= dx;
+        k.band.aft_x_m -= dx;
+        k.wing_root_le_x_m -= dx;
+        k.mac_le_x_m = 0.0;
+        k.datum = COMMON_REFERENCE.to_string();
+    }
+    true
 }
 
 impl KeyFigures {
@@ -1060,6 +1218,8 @@ impl KeyFigures {
                 .filter(|c| c.level == Level::Danger)
                 .count(),
             wing_root_le_x_m: aircraft.wing.root_le_x_m,
+            mac_le_x_m: g.mac_le_x_m,
+            datum: aircraft.datum.clone(),
             caution_codes: {
                 let mut codes: Vec<(Level, &'static str)> = a
                     .cautions
@@ -1196,6 +1356,41 @@ pub fn trim_input<'a>(
         options: lifting_line_options(aircraft, options),
         target_speed_m_s: aircraft.targets.trim_speed_m_s,
         top_speed_m_s: aircraft.targets.top_speed_m_s,
+    }
+}
+
+/// A CG inside the recommended band but aft of the aft limit measured from the forward end of
+/// the neutral point's uncertainty range (`spread_m`, two standard deviations).
+fn uncertain_aft_limit_caution(
+    aircraft: &Aircraft,
+    neutral_point_x_m: f64,
+    spread_m: f64,
+    mac_m: f64,
+    cg_x_m: f64,
+    band_aft_x_m: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    if !(spread_m.is_finite() && spread_m > 0.0) {
+        return;
+    }
+    let limit = neutral_point_x_m - spread_m - aircraft.margin_limits.min_static_margin * mac_m;
+    if cg_x_m > limit && cg_x_m <= band_aft_x_m {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "cg-aft-of-uncertain-limit",
+            format!(
+                "The CG ({:.0} mm) is inside the recommended band but {:.0} mm aft of {:.0} mm, the \
+                 aft limit measured from the forward end of the neutral point's uncertainty range \
+                 ({:.0} mm ahead of it: two standard deviations from common-practice spreads of \
+                 tail efficiency, downwash, fuselage and section lift slopes). For the first \
+                 flights balance at {:.0} mm or further forward.",
+                1000.0 * cg_x_m,
+                1000.0 * (cg_x_m - limit),
+                1000.0 * limit,
+                1000.0 * spread_m,
+                1000.0 * limit
+            ),
+        ));
     }
 }
 

@@ -5,6 +5,27 @@
 
 use std::fmt;
 
+/// A Reynolds number as a builder reads it: three significant figures with thousands
+/// separators (105,416 becomes "105,000"; 45,123 becomes "45,100"); the figures behind it are
+/// not known better than that (common practice).
+pub fn reynolds_text(re: f64) -> String {
+    if !re.is_finite() || re <= 0.0 {
+        return "0".to_string();
+    }
+    let magnitude = re.log10().floor() as i32;
+    let scale = 10f64.powi((magnitude - 2).max(0));
+    let rounded = ((re / scale).round() * scale) as u64;
+    let digits = rounded.to_string();
+    let mut out = String::new();
+    for (i, ch) in digits.chars().enumerate() {
+        if i > 0 && (digits.len() - i) % 3 == 0 {
+            out.push(',');
+        }
+        out.push(ch);
+    }
+    out
+}
+
 /// How serious a caution is.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord)]
 pub enum Level {
@@ -64,4 +85,19 @@ the weighing report and licensed airworthiness practice always take precedence."
 /// The standing safety caution as a [`Caution`] (code `safety-estimate-only`).
 pub fn safety_caution() -> Caution {
     Caution::new(Level::Note, "safety-estimate-only", SAFETY_MESSAGE)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn reynolds_numbers_read_to_three_figures() {
+        assert_eq!(reynolds_text(105_416.0), "105,000");
+        assert_eq!(reynolds_text(138_456.0), "138,000");
+        assert_eq!(reynolds_text(45_123.0), "45,100");
+        assert_eq!(reynolds_text(1_234_567.0), "1,230,000");
+        assert_eq!(reynolds_text(987.0), "987");
+        assert_eq!(reynolds_text(f64::NAN), "0");
+    }
 }

@@ -19,6 +19,10 @@ pub const MAX_USUAL_FUSELAGE_PER_SPAN: f64 = 1.5;
 /// A stabiliser farther than this many wing spans from the wing gets `proportions-unusual`.
 pub const MAX_USUAL_TAIL_ARM_PER_SPAN: f64 = 1.5;
 
+/// A positive static margin below this (1 % of MAC) is most likely a fraction typed for a
+/// percentage.
+pub const MARGIN_FRACTION_SLIP: f64 = 0.01;
+
 /// The plausibility cautions of `aircraft` with wing geometry `wing` and total mass
 /// `mass_kg`.
 pub fn cautions(aircraft: &Aircraft, wing: &PlanformGeometry, mass_kg: f64) -> Vec<Caution> {
@@ -47,6 +51,47 @@ pub fn cautions(aircraft: &Aircraft, wing: &PlanformGeometry, mass_kg: f64) -> V
                     }
             ),
         ));
+    }
+    // A margin typed as a fraction (0.10 for 10 %) reads as 0.1 % of MAC: a CG on the
+    // neutral point. Margins of model aircraft start at about 3 % (common practice).
+    for (what, value) in [
+        ("target static margin", aircraft.targets.static_margin),
+        (
+            "smallest static margin of [limits]",
+            (!limits.from_defaults).then_some(limits.min_static_margin),
+        ),
+    ] {
+        if let Some(m) = value.filter(|m| *m > 0.0 && *m < MARGIN_FRACTION_SLIP) {
+            out.push(Caution::new(
+                Level::Warning,
+                "margin-looks-like-a-fraction",
+                format!(
+                    "The {what} is {:.2} % of MAC, which puts the CG practically on the \
+                     neutral point. Margins are in percent of MAC: did you mean {:.0} %?",
+                    100.0 * m,
+                    10_000.0 * m
+                ),
+            ));
+        }
+    }
+    if let Some(stab) = &aircraft.stabiliser {
+        if let Some(o) = crate::planform::plan_overlap(&aircraft.wing, &stab.surface) {
+            out.push(Caution::new(
+                Level::Warning,
+                "surfaces-overlap",
+                format!(
+                    "The {} overlaps the wing in the top view ({:.0} mm from the centre line, \
+                     {:.0} mm above or below it): the two are modelled as a biplane, each in the \
+                     other's field. If that is not the layout, check stabiliser.x and z.",
+                    match stab.role {
+                        crate::model::StabiliserRole::Tail => "tail",
+                        crate::model::StabiliserRole::Canard => "canard",
+                    },
+                    1000.0 * o.y_m,
+                    1000.0 * o.gap_m
+                ),
+            ));
+        }
     }
     if wing.area_m2 > 0.0 && wing.span_m > 0.0 {
         let loading = mass_kg / wing.area_m2;

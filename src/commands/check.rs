@@ -27,6 +27,28 @@ pub struct CheckArgs {
     /// Exit with code 0 even when a danger-level caution is raised (otherwise 3).
     #[arg(long)]
     pub exit_zero_on_danger: bool,
+    /// Units of the tables: metric (mm, g) or imperial (in, oz). Speeds stay in m/s and
+    /// km/h; the cautions and the JSON keep their own units.
+    #[arg(long, value_enum, default_value_t = UnitChoice::Metric)]
+    pub unit_system: UnitChoice,
+}
+
+/// `--unit-system` values.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+pub enum UnitChoice {
+    /// mm, g, dm^2, g/dm^2.
+    Metric,
+    /// in, oz, in^2, oz/ft^2.
+    Imperial,
+}
+
+impl From<UnitChoice> for trimline::output::units::UnitSystem {
+    fn from(c: UnitChoice) -> Self {
+        match c {
+            UnitChoice::Metric => Self::Metric,
+            UnitChoice::Imperial => Self::Imperial,
+        }
+    }
 }
 
 /// The aircraft with the named setup applied, or an error listing the setups there are.
@@ -76,7 +98,10 @@ pub fn run(args: &CheckArgs) -> anyhow::Result<super::Finish> {
         super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
         super::emit(&trimline::output::tables::check_report(
-            &aircraft, &analysis, &source,
+            &aircraft,
+            &analysis,
+            &source,
+            args.unit_system.into(),
         ))?;
     }
     Ok(super::Finish::from_dangers(

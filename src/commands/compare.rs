@@ -36,6 +36,10 @@ pub struct CompareArgs {
     /// Exit with code 0 even when a configuration raises a danger-level caution (otherwise 3).
     #[arg(long)]
     pub exit_zero_on_danger: bool,
+    /// Units of the table: metric (mm, g) or imperial (in, oz); the JSON and the PDF stay
+    /// metric (their keys and labels name their units).
+    #[arg(long, value_enum, default_value_t = super::check::UnitChoice::Metric)]
+    pub unit_system: super::check::UnitChoice,
 }
 
 /// Every configuration to compare, analysed: key figures and source name.
@@ -64,6 +68,12 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
             let mut k = KeyFigures::of(&v, &a);
             k.name = column;
             out.push((k, source.clone()));
+        }
+    }
+    let mut figures: Vec<KeyFigures> = out.iter().map(|c| c.0.clone()).collect();
+    if trimline::analysis::to_common_reference(&mut figures) {
+        for (c, k) in out.iter_mut().zip(figures) {
+            c.0 = k;
         }
     }
     Ok(out)
@@ -104,7 +114,7 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
             Paper::A4
         };
         let bytes = trimline::output::pdf::comparison_report(&data, paper);
-        write_file(&path, &bytes, &super::write_options(args.follow_link))
+        write_file(&path, &bytes, &super::pdf_write_options(args.follow_link))
             .context("writing the comparison PDF")?;
         eprintln!(
             "Wrote the comparison of {} setups to {}",
@@ -117,11 +127,20 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
         super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
         let figures: Vec<KeyFigures> = columns.into_iter().map(|c| c.0).collect();
+        let reference = if figures
+            .first()
+            .is_some_and(|k| k.datum == trimline::analysis::COMMON_REFERENCE)
+        {
+            "The files measure x from different datums: every position here is measured from \
+             each aircraft's own wing MAC leading edge instead.\n"
+        } else {
+            ""
+        };
         super::emit(&format!(
-            "{}\nValues in brackets are differences from the first column; (=) means no change; \
+            "{}\n{reference}Values in brackets are differences from the first column; (=) means no change; \
              n/a: the figure does not exist there (no stabiliser, no elevons, no trim, or no \
              ballast bay that reaches the target).\n",
-            trimline::output::compare::compare_table(&figures)
+            trimline::output::compare::compare_table_in(&figures, args.unit_system.into())
         ))?;
     }
     Ok(super::Finish::from_dangers(

@@ -36,6 +36,15 @@ pub fn dangers(analysis: &trimline::analysis::Analysis) -> usize {
         .count()
 }
 
+/// How the commands write PDFs: as [`write_options`], and an existing file is replaced only if
+/// it is a PDF (an aircraft file given as the output by mistake is refused).
+pub fn pdf_write_options(follow_link: bool) -> trimline::output::fs::WriteOptions {
+    trimline::output::fs::WriteOptions {
+        replace_only_if_starts_with: Some(b"%PDF-"),
+        ..write_options(follow_link)
+    }
+}
+
 /// How the commands write files: atomically, a symbolic link at the target refused unless
 /// `--follow-link` was given.
 pub fn write_options(follow_link: bool) -> trimline::output::fs::WriteOptions {

@@ -45,6 +45,7 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
         follow_link: false,
         replace: Replace::Never,
         create_folders: true,
+        replace_only_if_starts_with: None,
     };
     write_file(&args.path, text.as_bytes(), &options).context("writing the new aircraft file")?;
     let parts = match args.from {

@@ -83,7 +83,7 @@ pub fn run(args: &ReportArgs) -> anyhow::Result<super::Finish> {
         source,
         paper,
         &out,
-        &super::write_options(args.follow_link),
+        &super::pdf_write_options(args.follow_link),
     )
     .with_context(|| format!("making the report for {}", aircraft.name))?;
     super::emit(&summary(&aircraft, &analysis))?;

@@ -8,10 +8,13 @@ use std::path::{Path, PathBuf};
 use trimline::input::coordinates::read_coordinates_file;
 use trimline::model::{Airfoil, AirfoilShape, SectionMethod};
 use trimline::output::fs::write_file;
-use trimline::output::section::{render_tables, surface_csv, to_json, SectionReport};
+use trimline::output::section::{
+    polar_csv, render_tables, render_viscous, surface_csv, to_json, SectionReport, ViscousReport,
+};
 use trimline::printable::printable;
 use trimline::section::naca::NacaProfile;
-use trimline::section::{analyse_section, sweep, SectionOptions, SectionSolution};
+use trimline::section::viscous::ViscousSettings;
+use trimline::section::{analyse_section, sweep, viscous_polar, SectionOptions, SectionSolution};
 
 /// Method choice on the command line.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
@@ -22,6 +25,8 @@ pub enum MethodArg {
     Thin,
     /// Vortex panel method.
     Panel,
+    /// Panel method with the boundary layer, at the first Reynolds number of --re.
+    Viscous,
 }
 
 /// Arguments of `section`.
@@ -35,7 +40,8 @@ pub struct SectionArgs {
     /// e.g. -4,0,4 or -4:12:2 [default: -4:12:2].
     #[arg(long, allow_hyphen_values = true)]
     pub alpha: Option<String>,
-    /// Method; the default is exact for Joukowski and Karman-Trefftz sections, panel otherwise.
+    /// Method; the default is exact for Joukowski and Karman-Trefftz sections, panel otherwise
+    /// (viscous needs --re: its summary is at the first Reynolds number).
     #[arg(long, value_enum)]
     pub method: Option<MethodArg>,
     /// Number of panels for the panel method (16 to 1000; an odd number is raised by one).
@@ -54,7 +60,44 @@ pub struct SectionArgs {
     /// otherwise).
     #[arg(long)]
     pub follow_link: bool,
+    /// Chord Reynolds numbers for viscous polars (boundary layer on the panel method), a
+    /// comma-separated list, e.g. 2e5 or 100000,200000,300000 (1e4 to 1e7).
+    #[arg(long, value_name = "LIST")]
+    pub re: Option<String>,
+    /// Transition setting for the viscous polars: the critical amplification factor N of the
+    /// e^N criterion (9 for calm air or a quiet tunnel, lower for turbulent air; 1 to 14).
+    #[arg(long, value_name = "N", default_value_t = 9.0)]
+    pub transition_n: f64,
+    /// Write the viscous polars (needs --re) to this CSV file.
+    #[arg(long, value_name = "PATH")]
+    pub polar_csv: Option<PathBuf>,
 }
+
+/// Parses the --re list.
+fn parse_re_list(text: &str) -> anyhow::Result<Vec<f64>> {
+    let accepted = "a comma-separated list of chord Reynolds numbers from 1e4 to 1e7, e.g. 2e5 or 100000,200000";
+    let mut out = Vec::new();
+    for item in text.split(',').map(str::trim).filter(|s| !s.is_empty()) {
+        let v: f64 = item
+            .parse()
+            .ok()
+            .filter(|v: &f64| v.is_finite())
+            .with_context(|| format!("'{item}' is not a number (accepted: {accepted})"))?;
+        if !(trimline::section::viscous::MIN_REYNOLDS..=trimline::section::viscous::MAX_REYNOLDS)
+            .contains(&v)
+        {
+            bail!("Reynolds number {item} is outside the accepted range 1e4 to 1e7");
+        }
+        out.push(v);
+    }
+    if out.is_empty() || out.len() > MAX_REYNOLDS_NUMBERS {
+        bail!("--re needs 1 to {MAX_REYNOLDS_NUMBERS} values (accepted: {accepted})");
+    }
+    Ok(out)
+}
+
+/// Most Reynolds numbers in one `section` run.
+const MAX_REYNOLDS_NUMBERS: usize = 10;
 
 /// Most angles accepted in one table.
 const MAX_ALPHAS: usize = 400;
@@ -77,13 +120,28 @@ pub fn run(args: &SectionArgs) -> anyhow::Result<()> {
         SectionSolution::Panel(p) => Some(p.panels()),
         _ => None,
     };
-    let report = SectionReport::new(
+    let mut report = SectionReport::new(
         &airfoil.name,
         &shape_text,
         panels,
         &analysis.outcome,
         &points,
     );
+    if args.polar_csv.is_some() && args.re.is_none() {
+        bail!("--polar-csv needs --re (the Reynolds numbers of the polars)");
+    }
+    if let Some(list) = &args.re {
+        for reynolds in parse_re_list(list).context("reading --re")? {
+            let settings = ViscousSettings {
+                reynolds,
+                n_crit: args.transition_n,
+                panels: args.panels,
+            };
+            let polar = viscous_polar(&airfoil, settings, &alphas_rad)
+                .with_context(|| format!("viscous polar of '{}' at Re {reynolds:.0}", args.spec))?;
+            report.viscous.push(ViscousReport::new(&polar));
+        }
+    }
     if !report.all_finite() {
         bail!(
             "the {} method gave a non-finite result for '{}'; try another method or panel count",
@@ -108,10 +166,22 @@ pub fn run(args: &SectionArgs) -> anyhow::Result<()> {
         )
         .context("writing the CSV file")?;
     }
+    if let Some(path) = &args.polar_csv {
+        write_file(
+            path,
+            polar_csv(&report.viscous).as_bytes(),
+            &super::write_options(args.follow_link),
+        )
+        .with_context(|| format!("writing {}", printable(&path.display().to_string())))?;
+    }
     if args.json {
         super::emit(&format!("{}\n", to_json(&report)?))?;
     } else {
-        super::emit(&render_tables(&report))?;
+        super::emit(&format!(
+            "{}{}",
+            render_tables(&report),
+            render_viscous(&report.viscous)
+        ))?;
     }
     Ok(())
 }
@@ -122,7 +192,15 @@ fn airfoil_from_spec(spec: &str, args: &SectionArgs) -> anyhow::Result<(Airfoil,
         MethodArg::Exact => SectionMethod::Exact,
         MethodArg::Thin => SectionMethod::Thin,
         MethodArg::Panel => SectionMethod::Panel,
+        MethodArg::Viscous => SectionMethod::Viscous,
     });
+    let reynolds = match &args.re {
+        Some(list) => parse_re_list(list)
+            .context("reading --re")?
+            .first()
+            .copied(),
+        None => None,
+    };
     let (name, shape, text) = parse_spec(spec)?;
     Ok((
         Airfoil {
@@ -130,6 +208,8 @@ fn airfoil_from_spec(spec: &str, args: &SectionArgs) -> anyhow::Result<(Airfoil,
             shape,
             cl_max: args.cl_max,
             method,
+            reynolds,
+            transition_n: Some(args.transition_n),
         },
         text,
     ))

@@ -12,6 +12,7 @@ use crate::model::{
     StabiliserRole, Surface, SurfaceShape, Targets, WeighingSupport, WingModel,
 };
 use crate::printable::{printable, token};
+use crate::section::registry;
 use std::collections::BTreeMap;
 use std::ops::Range;
 use std::path::{Path, PathBuf};
@@ -157,11 +158,17 @@ const CHORD_MM: Bounds = Bounds::closed(5.0, 10_000.0);
 const TIP_CHORD_MM: Bounds = Bounds::closed(0.0, 10_000.0);
 const SWEEP_DEG: Bounds = Bounds::closed(-60.0, 60.0);
 const DIHEDRAL_DEG: Bounds = Bounds::closed(-45.0, 45.0);
+/// A stabiliser may be a V-tail: up to 60 deg each side (V-tails of sailplanes and models lie
+/// between about 30 and 50 deg; common practice).
+const STABILISER_DIHEDRAL_DEG: Bounds = Bounds::closed(-60.0, 60.0);
 const TWIST_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const INCIDENCE_DEG: Bounds = Bounds::closed(-15.0, 15.0);
 const MASS_G: Bounds = Bounds::closed(0.0, 1_000_000.0);
 const BALLAST_MAX_G: Bounds = Bounds::positive(1_000_000.0);
 const CL_MAX: Bounds = Bounds::closed(0.3, 3.0);
+// The viscous section method's accepted ranges (src/section/viscous.rs).
+const REYNOLDS: Bounds = Bounds::closed(1e4, 1e7);
+const TRANSITION_N: Bounds = Bounds::closed(1.0, 14.0);
 // Joukowski and Karman-Trefftz sections: what the circle-map shape solution accepts (less than
 // 40 % and 15 %), and no thinner than it is checked for (0.1 %; thinner is a sheet).
 const THICKNESS_PCT: Bounds = Bounds {
@@ -184,6 +191,8 @@ const ELEVATOR_PCT: Bounds = Bounds {
     max_inclusive: false,
 };
 const ELEVATOR_THROW_DEG: Bounds = Bounds::closed(0.0, 45.0);
+/// Tail efficiency: 0.5 (deep in a wake) to 1.2 (in a propeller's slipstream).
+const DYNAMIC_PRESSURE_RATIO: Bounds = Bounds::closed(0.5, 1.2);
 const ELEVON_CHORD_PCT: Bounds = Bounds {
     min: 0.0,
     min_inclusive: false,
@@ -208,6 +217,8 @@ const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
 const TEMP_OFFSET_K: Bounds = Bounds::closed(-60.0, 60.0);
 const DENSITY: Bounds = Bounds::closed(0.3, 1.5);
 const FUSELAGE_MM: Bounds = Bounds::positive(30_000.0);
+/// Surfaces overlapping in the top view closer than this many chords (vertically) intersect.
+const INTERSECTING_GAP_CHORDS: f64 = 0.1;
 /// Strips per half-span of the wing (four times the default; the lifting line's own limit is
 /// higher).
 const STRIPS: Bounds = Bounds::closed(4.0, 100.0);
@@ -391,9 +402,8 @@ impl Ctx<'_> {
                 &span,
                 field,
                 format!(
-                    "{} {} is out of range{}",
-                    fmt_num_short(in_default),
-                    dim.default_unit(),
+                    "{} is out of range{}",
+                    format!("{} {}", fmt_num_short(in_default), dim.default_unit()).trim_end(),
                     if bare {
                         unit_slip_hint(in_default, dim, bounds)
                     } else {
@@ -641,54 +651,7 @@ impl Ctx<'_> {
         if let Some(s) = &stabiliser {
             self.stabiliser_place(raw.stabiliser.as_ref(), s, &wing)?;
         }
-        let weighing = raw
-            .weighing
-            .iter()
-            .enumerate()
-            .map(|(i, s)| {
-                let path = format!("weighing[{i}]");
-                let span = s.span();
-                let s = s.get_ref();
-                Ok(WeighingSupport {
-                    x_m: self.required_quantity(
-                        s.x.as_ref(),
-                        &span,
-                        &path,
-                        "x",
-                        Dimension::Length,
-                        POSITION_MM,
-                    )?,
-                    reading_kg: self.required_quantity(
-                        s.reading.as_ref(),
-                        &span,
-                        &path,
-                        "reading",
-                        Dimension::Mass,
-                        MASS_G,
-                    )?,
-                })
-            })
-            .collect::<Result<Vec<_>, InputError>>()?;
-        if weighing.len() == 1 || weighing.len() > 3 {
-            let span = raw.weighing[weighing.len() - 1].span();
-            return Err(self.err(
-                &span,
-                "weighing",
-                match weighing.len() {
-                    1 => "1 support given".to_string(),
-                    n => format!("{n} supports given"),
-                },
-                Some("2 or 3 [[weighing]] supports".into()),
-            ));
-        }
-        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
-            return Err(self.err(
-                &raw.weighing[0].span(),
-                "weighing",
-                "the readings add up to zero",
-                Some("readings above 0 g".into()),
-            ));
-        }
+        let weighing = self.weighing(&raw.weighing, "weighing")?;
 
         let setups = raw
             .setup
@@ -700,6 +663,15 @@ impl Ctx<'_> {
             raw.setup.iter().map(|s| s.get_ref().name.as_ref()),
             "setup",
             "`--setup NAME` could not choose the second one",
+        )?;
+        let mut airfoils = airfoils;
+        self.viscous_reynolds(
+            &raw.airfoils,
+            &mut airfoils,
+            &wing,
+            stabiliser.as_ref().map(|s| &s.surface),
+            &air,
+            &targets,
         )?;
         Ok(Aircraft {
             name,
@@ -720,6 +692,75 @@ impl Ctx<'_> {
             setups,
             weighing,
         })
+    }
+
+    /// The Reynolds number of each viscous airfoil that has none in the file: from the target
+    /// trim speed and the mean of the chords at the panel ends that use the airfoil (wing and
+    /// stabiliser), in the file's air. Without a target trim speed the file must give it.
+    fn viscous_reynolds(
+        &self,
+        raw: &BTreeMap<String, Spanned<raw::RawAirfoil>>,
+        airfoils: &mut [Airfoil],
+        wing: &Surface,
+        stabiliser: Option<&Surface>,
+        air: &Air,
+        targets: &Targets,
+    ) -> Result<(), InputError> {
+        for (index, airfoil) in airfoils.iter_mut().enumerate() {
+            if airfoil.method != Some(SectionMethod::Viscous) || airfoil.reynolds.is_some() {
+                continue;
+            }
+            let id = AirfoilId(index);
+            let mut chords = Vec::new();
+            for surface in std::iter::once(wing).chain(stabiliser) {
+                match &surface.shape {
+                    SurfaceShape::Panels(panels) => {
+                        for p in panels {
+                            if p.root_airfoil == id {
+                                chords.push(p.root_chord_m);
+                            }
+                            if p.tip_airfoil == id {
+                                chords.push(p.tip_chord_m);
+                            }
+                        }
+                    }
+                    SurfaceShape::Elliptic(e) => {
+                        if e.root_airfoil == id || e.tip_airfoil == id {
+                            chords.push(e.root_chord_m);
+                        }
+                    }
+                }
+            }
+            let field = format!("airfoils.{}.reynolds", airfoil.name);
+            let span = raw
+                .get(&airfoil.name)
+                .and_then(|a| a.get_ref().method.as_ref().map(|m| m.span()))
+                .unwrap_or_default();
+            let (Some(speed), false) = (targets.trim_speed_m_s, chords.is_empty()) else {
+                return Err(self.err(
+                    &span,
+                    &field,
+                    "the viscous method needs the section's chord Reynolds number: give \
+                     reynolds, or a [targets] trim_speed and use the airfoil on a surface",
+                    Some("1e4 to 1e7, e.g. reynolds = 150000".into()),
+                ));
+            };
+            let chord_m = chords.iter().sum::<f64>() / chords.len() as f64;
+            let re = crate::atmosphere::air_state(air).reynolds(speed, chord_m);
+            if !(REYNOLDS.contains(re)) {
+                return Err(self.err(
+                    &span,
+                    &field,
+                    format!(
+                        "the Reynolds number from the trim speed and the chord, {re:.0}, is \
+                         outside the range of the viscous method"
+                    ),
+                    Some("1e4 to 1e7; give reynolds for this airfoil".into()),
+                ));
+            }
+            airfoil.reynolds = Some(re);
+        }
+        Ok(())
     }
 
     fn air(&self, raw: Option<&raw::RawAir>) -> Result<Air, InputError> {
@@ -870,39 +911,47 @@ impl Ctx<'_> {
             )?;
             let method = match &a.method {
                 None => None,
-                Some(m) => Some(match m.get_ref().trim().to_ascii_lowercase().as_str() {
-                    "exact" => {
-                        if !matches!(
-                            shape,
-                            AirfoilShape::Joukowski { .. } | AirfoilShape::KarmanTrefftz { .. }
-                        ) {
-                            return Err(self.err(
-                                &m.span(),
-                                &format!("{field}.method"),
-                                "the exact method needs a joukowski or karman_trefftz airfoil",
-                                Some("thin, panel".into()),
-                            ));
-                        }
-                        SectionMethod::Exact
-                    }
-                    "thin" => SectionMethod::Thin,
-                    "panel" => SectionMethod::Panel,
-                    other => {
+                Some(m) => {
+                    let text = m.get_ref().trim().to_ascii_lowercase();
+                    let Some(info) = registry::by_name(&text) else {
                         return Err(self.err(
                             &m.span(),
                             &format!("{field}.method"),
-                            format!("unknown method `{}`", token(other)),
-                            Some("exact, thin, panel".into()),
-                        ))
+                            format!("unknown method `{}`", token(&text)),
+                            Some(registry::names()),
+                        ));
+                    };
+                    if !registry::accepts(info.method, &shape) {
+                        return Err(self.err(
+                            &m.span(),
+                            &format!("{field}.method"),
+                            "the exact method needs a joukowski or karman_trefftz airfoil",
+                            Some("thin, panel, viscous".into()),
+                        ));
                     }
-                }),
+                    Some(info.method)
+                }
             };
+            let reynolds = self.opt_quantity(
+                a.reynolds.as_ref(),
+                &format!("{field}.reynolds"),
+                Dimension::Plain,
+                REYNOLDS,
+            )?;
+            let transition_n = self.opt_quantity(
+                a.transition_n.as_ref(),
+                &format!("{field}.transition_n"),
+                Dimension::Plain,
+                TRANSITION_N,
+            )?;
             ids.insert(name.clone(), AirfoilId(list.len()));
             list.push(Airfoil {
                 name: printable(name).into_owned(),
                 shape,
                 cl_max,
                 method,
+                reynolds,
+                transition_n,
             });
         }
         Ok((list, ids))
@@ -1080,6 +1129,10 @@ impl Ctx<'_> {
             ),
             ("elevator_up", r.elevator_up.as_ref().map(|v| v.span())),
             ("elevator_down", r.elevator_down.as_ref().map(|v| v.span())),
+            (
+                "dynamic_pressure_ratio",
+                r.dynamic_pressure_ratio.as_ref().map(|v| v.span()),
+            ),
         ];
         if let Some((key, Some(span))) = stabiliser_only.into_iter().find(|(_, s)| s.is_some()) {
             return Err(self.err(
@@ -1252,7 +1305,11 @@ impl Ctx<'_> {
                     p.dihedral.as_ref(),
                     &format!("{path}.dihedral"),
                     Dimension::Angle,
-                    DIHEDRAL_DEG,
+                    if path.starts_with("stabiliser") {
+                        STABILISER_DIHEDRAL_DEG
+                    } else {
+                        DIHEDRAL_DEG
+                    },
                 )?
                 .unwrap_or(0.0),
             tip_twist_rad: self
@@ -1463,11 +1520,80 @@ impl Ctx<'_> {
             )?
             .unwrap_or(throw),
         );
+        let dynamic_pressure_ratio = self
+            .opt_quantity(
+                s.dynamic_pressure_ratio.as_ref(),
+                "stabiliser.dynamic_pressure_ratio",
+                Dimension::Plain,
+                DYNAMIC_PRESSURE_RATIO,
+            )?
+            .unwrap_or(match role {
+                StabiliserRole::Tail => crate::model::DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO,
+                StabiliserRole::Canard => crate::model::DEFAULT_CANARD_DYNAMIC_PRESSURE_RATIO,
+            });
         Ok(Stabiliser {
             role,
             surface,
             elevator,
+            dynamic_pressure_ratio,
         })
+    }
+
+    /// The supports of a weighing at `path` (`weighing`, or `setup[i].weighing`): none, or 2 or
+    /// 3 with readings adding up to more than zero.
+    fn weighing(
+        &self,
+        supports: &[Spanned<raw::RawSupport>],
+        path: &str,
+    ) -> Result<Vec<WeighingSupport>, InputError> {
+        let weighing = supports
+            .iter()
+            .enumerate()
+            .map(|(i, s)| {
+                let path = format!("{path}[{i}]");
+                let span = s.span();
+                let s = s.get_ref();
+                Ok(WeighingSupport {
+                    x_m: self.required_quantity(
+                        s.x.as_ref(),
+                        &span,
+                        &path,
+                        "x",
+                        Dimension::Length,
+                        POSITION_MM,
+                    )?,
+                    reading_kg: self.required_quantity(
+                        s.reading.as_ref(),
+                        &span,
+                        &path,
+                        "reading",
+                        Dimension::Mass,
+                        MASS_G,
+                    )?,
+                })
+            })
+            .collect::<Result<Vec<_>, InputError>>()?;
+        if weighing.len() == 1 || weighing.len() > 3 {
+            let span = supports[weighing.len() - 1].span();
+            return Err(self.err(
+                &span,
+                path,
+                match weighing.len() {
+                    1 => "1 support given".to_string(),
+                    n => format!("{n} supports given"),
+                },
+                Some(format!("2 or 3 [[{path}]] supports")),
+            ));
+        }
+        if !weighing.is_empty() && weighing.iter().map(|s| s.reading_kg).sum::<f64>() <= 0.0 {
+            return Err(self.err(
+                &supports[0].span(),
+                path,
+                "the readings add up to zero",
+                Some("readings above 0 g".into()),
+            ));
+        }
+        Ok(weighing)
     }
 
     fn setup(
@@ -1600,7 +1726,16 @@ impl Ctx<'_> {
         if changes.is_empty() {
             return Err(self.err(&span, &path, "the setup changes nothing", Some("one or more of ballast, mass_x, mass, wing_incidence, stabiliser_incidence, airfoils".into())));
         }
-        Ok(Setup { name, changes })
+        let weighing = if s.weighing.is_empty() {
+            None
+        } else {
+            Some(self.weighing(&s.weighing, &format!("{path}.weighing"))?)
+        };
+        Ok(Setup {
+            name,
+            changes,
+            weighing,
+        })
     }
 
     fn fuselage(&self, f: &Spanned<raw::RawFuselage>) -> Result<Fuselage, InputError> {
@@ -1719,6 +1854,18 @@ impl Ctx<'_> {
             }
             Ok(Some(v as usize))
         };
+        if out.wing_model == WingModel::LiftingLine {
+            out.strips_per_half_span = crate::model::DEFAULT_LIFTING_LINE_STATIONS;
+            if let Some(q) = &n.chordwise_panels {
+                return Err(self.err(
+                    &q.span(),
+                    "numerics.chordwise_panels",
+                    "chordwise panels belong to the vortex lattice; the lifting line has one \
+                     vortex per strip",
+                    Some("leave it out, or wing_model = \"vortex-lattice\"".into()),
+                ));
+            }
+        }
         if let Some(v) = count(
             n.spanwise_strips.as_ref(),
             "numerics.spanwise_strips",
@@ -1748,8 +1895,7 @@ impl Ctx<'_> {
                     out.strips_per_half_span, out.chordwise_panels
                 ),
                 Some(format!(
-                    "at most {MAX_WING_HALF_PANELS} (the tail adds its share; {} is the limit for the whole half aircraft)",
-                    crate::lifting_line::lattice::MAX_HALF_PANELS
+                    "strips x chordwise panels at most {MAX_WING_HALF_PANELS} on each half of the wing"
                 )),
             ));
         }
@@ -1800,13 +1946,33 @@ impl Ctx<'_> {
             StabiliserRole::Tail => stab_x <= wing_x,
             StabiliserRole::Canard => stab_x >= wing_x,
         };
-        if !wrong {
-            return Ok(());
-        }
         let span = raw
             .and_then(|r| r.get_ref().x.as_ref().map(|q| q.span()))
             .or_else(|| raw.map(|r| r.span()))
             .unwrap_or(0..0);
+        if !wrong {
+            // Surfaces that overlap in the top view with less than a tenth of the chord
+            // between them intersect (or as good as): neither the wing model nor a real
+            // aircraft works like that.
+            return match crate::planform::plan_overlap(wing, &s.surface) {
+                Some(o) if o.gap_m < INTERSECTING_GAP_CHORDS * o.chord_m => Err(self.err(
+                    &span,
+                    "stabiliser.x",
+                    format!(
+                        "the stabiliser overlaps the wing in the top view {:.0} mm from the \
+                         centre line with only {:.1} mm between them: the two surfaces intersect",
+                        1000.0 * o.y_m,
+                        1000.0 * o.gap_m
+                    ),
+                    Some(format!(
+                        "a stabiliser clear of the wing's chord in the top view, or at least \
+                         {:.0} mm (a tenth of the chord there) above or below it (stabiliser.z)",
+                        (1000.0 * INTERSECTING_GAP_CHORDS * o.chord_m).ceil()
+                    )),
+                )),
+                _ => Ok(()),
+            };
+        }
         let (problem, accepted) = match s.role {
             StabiliserRole::Tail => (
                 format!(

@@ -81,6 +81,8 @@ pub struct RawAirfoil {
     pub coordinates: Option<Spanned<String>>,
     pub cl_max: Option<Quantity>,
     pub method: Option<Spanned<String>>,
+    pub reynolds: Option<Quantity>,
+    pub transition_n: Option<Quantity>,
 }
 
 /// `joukowski = { thickness = 12, camber = 3 }` (percent of chord)
@@ -119,6 +121,7 @@ pub struct RawSurface {
     pub elevator_chord: Option<Quantity>,
     pub elevator_up: Option<Quantity>,
     pub elevator_down: Option<Quantity>,
+    pub dynamic_pressure_ratio: Option<Quantity>,
     pub elevons: Option<Spanned<RawElevons>>,
 }
 
@@ -222,4 +225,7 @@ pub struct RawSetup {
     /// Airfoil name -> airfoil name to use instead, everywhere it appears.
     #[serde(default)]
     pub airfoils: BTreeMap<String, Spanned<String>>,
+    /// `[[setup.weighing]]`: a weighing of this setup.
+    #[serde(default)]
+    pub weighing: Vec<Spanned<RawSupport>>,
 }

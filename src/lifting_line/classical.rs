@@ -552,6 +552,8 @@ mod tests {
             cl_max: 1.0,
             cl_min: -1.0,
             cl_max_source: ClMaxSource::Given,
+            reynolds_number: None,
+            polar: None,
         };
         let sections = [section];
         assert!(matches!(

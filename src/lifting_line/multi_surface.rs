@@ -839,9 +839,11 @@ impl MultiSurfaceSystem {
         let q = self.weights(cond)?;
         let (gamma, tangent) = self.linear_circulation(&q);
         let (geo, zero) = self.station_angles(cond);
+        // The superposed linear solution is exact unless a station passes a stall limit or
+        // follows a polar's curved lift curve.
         let beyond = self.stations.iter().zip(gamma.iter()).any(|(st, g)| {
             let cl = 2.0 * g / st.chord_m;
-            cl > st.section.cl_max || cl < st.section.cl_min
+            cl > st.section.cl_max || cl < st.section.cl_min || st.section.polar.is_some()
         });
         let (gamma, tangent, status) = if beyond {
             self.newton(gamma, &geo, &zero)?
@@ -851,7 +853,8 @@ impl MultiSurfaceSystem {
         results::assemble(self, cond, &gamma, &tangent, &geo, status)
     }
 
-    /// Newton's method on R(Gamma) = Gamma - (c/2) cl(alpha(Gamma)) with the flat-top cl.
+    /// Newton's method on R(Gamma) = Gamma - (c/2) cl(alpha(Gamma)) with each station's lift
+    /// curve ([`SectionModel::lift_point`]: the flat-top linear curve, or a viscous polar's).
     fn newton(
         &self,
         mut gamma: DVector<f64>,
@@ -859,27 +862,25 @@ impl MultiSurfaceSystem {
         zero: &DVector<f64>,
     ) -> Result<(DVector<f64>, DVector<f64>, SolveStatus), LiftingLineError> {
         let n = self.stations.len();
-        let eval = |g: &DVector<f64>| -> (DVector<f64>, Vec<bool>) {
+        // Residual, which rows are on the attached part of their lift curve, and each row's
+        // (c/2) dcl/dalpha there (the Jacobian's diagonal factor).
+        let eval = |g: &DVector<f64>| -> (DVector<f64>, Vec<bool>, DVector<f64>) {
             let alpha = geo + &self.induced * g;
             let mut r = DVector::zeros(n);
             let mut active = vec![true; n];
+            let mut d = DVector::zeros(n);
             for (i, st) in self.stations.iter().enumerate() {
-                let cl_lin = st.section.cl_alpha_per_rad * (alpha[i] - zero[i]);
-                let cl = cl_lin.clamp(st.section.cl_min, st.section.cl_max);
-                active[i] = cl_lin <= st.section.cl_max && cl_lin >= st.section.cl_min;
-                r[i] = g[i] - 0.5 * st.chord_m * cl;
+                let shift = zero[i] - st.section.alpha_zero_lift_rad;
+                let lp = st.section.lift_point(alpha[i], shift);
+                active[i] = lp.attached;
+                d[i] = 0.5 * st.chord_m * lp.slope_per_rad;
+                r[i] = g[i] - 0.5 * st.chord_m * lp.cl;
             }
-            (r, active)
+            (r, active, d)
         };
         let scale = gamma.amax().max(1e-9);
         let tol = self.options.newton_relative_tolerance * scale;
-        let d_full: DVector<f64> = DVector::from_iterator(
-            n,
-            self.stations
-                .iter()
-                .map(|s| 0.5 * s.chord_m * s.section.cl_alpha_per_rad),
-        );
-        let (mut r, mut active) = eval(&gamma);
+        let (mut r, mut active, mut d_full) = eval(&gamma);
         let mut res = r.amax();
         let mut iterations = 0;
         while res > tol {
@@ -902,12 +903,13 @@ impl MultiSurfaceSystem {
             let mut lambda = 1.0;
             loop {
                 let trial = &gamma + &step * lambda;
-                let (r_t, a_t) = eval(&trial);
+                let (r_t, a_t, d_t) = eval(&trial);
                 let res_t = r_t.amax();
                 if res_t < res || lambda < 1e-3 {
                     gamma = trial;
                     r = r_t;
                     active = a_t;
+                    d_full = d_t;
                     res = res_t;
                     break;
                 }
@@ -923,13 +925,11 @@ impl MultiSurfaceSystem {
         let j = system_matrix(&self.induced, &d_full, &active);
         let rhs = DVector::from_iterator(
             n,
-            self.stations.iter().zip(&active).map(|(s, a)| {
-                if *a {
-                    0.5 * s.chord_m * s.section.cl_alpha_per_rad * s.normal_z
-                } else {
-                    0.0
-                }
-            }),
+            self.stations
+                .iter()
+                .zip(&active)
+                .zip(d_full.iter())
+                .map(|((s, a), d)| if *a { d * s.normal_z } else { 0.0 }),
         );
         let lu = j.clone().lu();
         check_pivots(lu.u().diagonal().as_slice())?;
@@ -1339,6 +1339,8 @@ pub(crate) mod tests {
             cl_max,
             cl_min: -cl_max,
             cl_max_source: ClMaxSource::Given,
+            reynolds_number: None,
+            polar: None,
         }
     }
 

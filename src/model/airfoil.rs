@@ -13,6 +13,8 @@ pub enum SectionMethod {
     Thin,
     /// Linear-strength vortex panel method on the coordinates.
     Panel,
+    /// The panel method with an integral boundary layer at a Reynolds number (a polar).
+    Viscous,
 }
 
 impl SectionMethod {
@@ -22,6 +24,7 @@ impl SectionMethod {
             SectionMethod::Exact => "exact",
             SectionMethod::Thin => "thin",
             SectionMethod::Panel => "panel",
+            SectionMethod::Viscous => "viscous",
         }
     }
 }
@@ -68,4 +71,9 @@ pub struct Airfoil {
     pub cl_max: Option<f64>,
     /// Method requested; `None` chooses the default for the shape.
     pub method: Option<SectionMethod>,
+    /// Chord Reynolds number for the viscous method, when the builder gives one.
+    pub reynolds: Option<f64>,
+    /// Transition setting for the viscous method (critical amplification factor N), when
+    /// given; 9 otherwise.
+    pub transition_n: Option<f64>,
 }

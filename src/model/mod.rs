@@ -18,6 +18,7 @@ pub use airfoil::{Airfoil, AirfoilId, AirfoilShape, SectionMethod};
 pub use setup::{Change, Setup};
 pub use surface::{
     EllipticShape, Panel, PitchControl, Stabiliser, StabiliserRole, Surface, SurfaceShape,
+    DEFAULT_CANARD_DYNAMIC_PRESSURE_RATIO, DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO,
 };
 
 /// The air the aircraft flies in.

@@ -48,6 +48,10 @@ pub struct Setup {
     pub name: String,
     /// Changes, applied in order.
     pub changes: Vec<Change>,
+    /// A weighing of this setup (2 or 3 supports), when the builder weighed it. Without one,
+    /// a setup that changes the masses has no weighing (the base aircraft's weighing is of
+    /// other masses); a setup that changes only incidences or airfoils keeps the base's.
+    pub weighing: Option<Vec<super::WeighingSupport>>,
 }
 
 impl Setup {
@@ -56,6 +60,17 @@ impl Setup {
         let mut a = base.clone();
         a.name = format!("{} / {}", base.name, self.name);
         a.setups.clear();
+        let changes_masses = self.changes.iter().any(|c| {
+            matches!(
+                c,
+                Change::Ballast { .. } | Change::MoveItem { .. } | Change::ItemMass { .. }
+            )
+        });
+        match &self.weighing {
+            Some(w) => a.weighing = w.clone(),
+            None if changes_masses => a.weighing.clear(),
+            None => {}
+        }
         for change in &self.changes {
             match *change {
                 Change::Ballast { bay, mass_kg } => {

@@ -87,7 +87,21 @@ pub struct Stabiliser {
     pub surface: Surface,
     /// The elevator (over the whole span; chord share 0 for an all-moving surface).
     pub elevator: PitchControl,
+    /// Tail efficiency: dynamic pressure at the stabiliser over the free stream's (0.5 to 1.2;
+    /// below 1 in a fuselage's or wing's wake, above 1 in a propeller's slipstream). It
+    /// multiplies the stabiliser's lift and moment.
+    pub dynamic_pressure_ratio: f64,
 }
+
+/// Default dynamic-pressure ratio of a tail behind the wing and fuselage: 0.9 (Etkin & Reid,
+/// *Dynamics of Flight*, sec. 2.4, and Raymer, *Aircraft Design: A Conceptual Approach*,
+/// ch. 16, give about 0.9 for a conventional aft tail; from memory). Below 1 is the safe side
+/// for the neutral point and for elevator authority.
+pub const DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO: f64 = 0.9;
+
+/// Default dynamic-pressure ratio of a canard: 1.0 (it flies ahead of the wing, in the free
+/// stream; Raymer, ch. 16, from memory).
+pub const DEFAULT_CANARD_DYNAMIC_PRESSURE_RATIO: f64 = 1.0;
 
 /// A plain trailing-edge flap used for pitch: the elevator of a stabiliser, or the elevons of a
 /// tailless wing (moved together for pitch).

@@ -3,6 +3,7 @@
 
 use crate::analysis::KeyFigures;
 use crate::output::tables::num;
+use crate::output::units::UnitSystem;
 use comfy_table::{presets, Cell, CellAlignment, Table};
 use serde::Serialize;
 
@@ -134,54 +135,108 @@ const ROWS: &[Row] = &[
 /// configuration; later columns show their difference from the first in brackets, "(=)" when
 /// unchanged, and "n/a" where a value does not exist.
 pub fn compare_cells(columns: &[KeyFigures]) -> Vec<(&'static str, Vec<String>)> {
+    compare_cells_in(columns, UnitSystem::Metric)
+        .into_iter()
+        .map(|(label, cells, _)| (label, cells))
+        .collect()
+}
+
+/// Factor from a row's metric unit (the word of its label that names one) to `u`'s, and the
+/// decimals to add.
+fn unit_factor(label: &str, u: UnitSystem) -> (f64, usize) {
+    if u == UnitSystem::Metric {
+        return (1.0, 0);
+    }
+    for w in label.split(' ') {
+        match w {
+            "mm" => return (1.0 / 25.4, 1),
+            "g" => return (1.0 / 28.349_523_125, 1),
+            // g/dm^2 = 0.1 kg/m^2; kg/m^2 to oz/ft^2 is 0.3048^2 / 0.028349523125.
+            "g/dm^2" => return (0.1 * 0.3048 * 0.3048 / 0.028_349_523_125, 1),
+            _ => {}
+        }
+    }
+    (1.0, 0)
+}
+
+/// The comparison cells in units `u`: each row's label, its cells, and its label in `u`.
+pub fn compare_cells_in(
+    columns: &[KeyFigures],
+    u: UnitSystem,
+) -> Vec<(&'static str, Vec<String>, String)> {
+    let from_mac_le = columns
+        .first()
+        .is_some_and(|k| k.datum == crate::analysis::COMMON_REFERENCE);
     ROWS.iter()
         // A figure that no configuration has (elevons on aircraft with a tail) is left out.
         .filter(|row| columns.iter().any(|k| (row.value)(k).is_some()))
         .map(|row| {
-            let base = columns.first().and_then(|k| (row.value)(k));
+            let (factor, extra) = unit_factor(row.label, u);
+            let decimals = row.decimals + extra;
+            let value = |k: &KeyFigures| (row.value)(k).map(|v| v * factor);
+            let base = columns.first().and_then(value);
             let cells = columns
                 .iter()
                 .enumerate()
-                .map(
-                    |(i, k)| match ((row.value)(k).filter(|v| v.is_finite()), base) {
-                        (None, _) => "n/a".to_string(),
-                        (Some(v), _) if i == 0 => num(v, row.decimals),
-                        (Some(v), Some(b)) => {
-                            // The difference of the values as printed, so that "(=)" never
-                            // stands beside two numbers that print differently.
-                            let scale = 10f64.powi(row.decimals as i32);
-                            let d = (v * scale).round() / scale - (b * scale).round() / scale;
-                            let shown = num(d, row.decimals);
-                            if shown
-                                .trim_start_matches('-')
-                                .chars()
-                                .all(|c| c == '0' || c == '.')
-                            {
-                                format!("{} (=)", num(v, row.decimals))
-                            } else {
-                                let sign = if d > 0.0 { "+" } else { "" };
-                                format!("{} ({sign}{shown})", num(v, row.decimals))
-                            }
+                .map(|(i, k)| match (value(k).filter(|v| v.is_finite()), base) {
+                    (None, _) => "n/a".to_string(),
+                    (Some(v), _) if i == 0 => num(v, decimals),
+                    (Some(v), Some(b)) => {
+                        // The difference of the values as printed, so that "(=)" never
+                        // stands beside two numbers that print differently.
+                        let scale = 10f64.powi(decimals as i32);
+                        let d = (v * scale).round() / scale - (b * scale).round() / scale;
+                        let shown = num(d, decimals);
+                        if shown
+                            .trim_start_matches('-')
+                            .chars()
+                            .all(|c| c == '0' || c == '.')
+                        {
+                            format!("{} (=)", num(v, decimals))
+                        } else {
+                            let sign = if d > 0.0 { "+" } else { "" };
+                            format!("{} ({sign}{shown})", num(v, decimals))
                         }
-                        (Some(v), None) => num(v, row.decimals),
-                    },
-                )
+                    }
+                    (Some(v), None) => num(v, decimals),
+                })
                 .collect();
-            (row.label, cells)
+            let label = if from_mac_le {
+                relabel(row.label)
+            } else {
+                row.label
+            };
+            (label, cells, u.header(label))
         })
         .collect()
+}
+
+/// A row's label once positions are measured from the wing's MAC leading edge.
+fn relabel(label: &'static str) -> &'static str {
+    match label {
+        "CG mm from datum" => "CG mm aft of MAC LE",
+        "neutral point mm from datum" => "neutral point mm aft of MAC LE",
+        "CG band forward mm" => "CG band forward mm aft of MAC LE",
+        "CG band aft mm" => "CG band aft mm aft of MAC LE",
+        other => other,
+    }
 }
 
 /// The comparison table: one column per configuration; later columns show their difference
 /// from the first in brackets.
 pub fn compare_table(columns: &[KeyFigures]) -> Table {
+    compare_table_in(columns, UnitSystem::Metric)
+}
+
+/// The comparison table in units `u`.
+pub fn compare_table_in(columns: &[KeyFigures], u: UnitSystem) -> Table {
     let mut t = Table::new();
     t.load_style(presets::UTF8_FULL_CONDENSED);
     let mut header = vec![Cell::new("")];
     header.extend(columns.iter().map(|k| Cell::new(&k.name)));
     t.set_header(header);
-    for (label, cells) in compare_cells(columns) {
-        let mut row = vec![label.to_string()];
+    for (_, cells, label) in compare_cells_in(columns, u) {
+        let mut row = vec![label];
         row.extend(cells);
         t.add_row(row);
     }
@@ -204,6 +259,10 @@ pub struct CompareColumnJson {
     pub figures: serde_json::Map<String, serde_json::Value>,
     /// Differences from the first configuration, same keys.
     pub difference_from_first: serde_json::Map<String, serde_json::Value>,
+    /// What the positions (keys ending in `mm` that say "from datum", and the band) are
+    /// measured from: the file's datum, or the wing's MAC leading edge when the files'
+    /// datums differ.
+    pub x_reference: String,
 }
 
 fn json_key(label: &str) -> String {
@@ -276,6 +335,7 @@ pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> 
                 source: source.clone(),
                 figures,
                 difference_from_first: diff,
+                x_reference: k.datum.clone(),
             }
         })
         .collect()

@@ -45,6 +45,9 @@ pub struct WriteOptions {
     pub replace: Replace,
     /// Create missing folders above the target.
     pub create_folders: bool,
+    /// Replace an existing file only if it starts with these bytes (e.g. `%PDF-` for a PDF
+    /// the tool wrote before): an aircraft file given by mistake as the output is refused.
+    pub replace_only_if_starts_with: Option<&'static [u8]>,
 }
 
 impl Default for WriteOptions {
@@ -53,6 +56,7 @@ impl Default for WriteOptions {
             follow_link: false,
             replace: Replace::IfRegularFile,
             create_folders: true,
+            replace_only_if_starts_with: None,
         }
     }
 }
@@ -84,6 +88,17 @@ pub enum WriteError {
     Exists {
         /// Target.
         path: PathBuf,
+    },
+    /// The target exists and does not look like the kind of file being written.
+    #[error(
+        "{path} exists and is not {what}; not replaced (is it an input file given as the \
+         output?). Accepted: a new file name, or an existing file that is {what}"
+    )]
+    WrongKind {
+        /// Target.
+        path: PathBuf,
+        /// "a PDF", ...
+        what: &'static str,
     },
     /// An I/O step failed; the temporary file was removed.
     #[error("cannot write {path}: {action} failed: {source}")]
@@ -196,6 +211,24 @@ pub fn write_file(path: &Path, bytes: &[u8], options: &WriteOptions) -> Result<(
         });
     }
     let (target, existing) = resolve(path, options)?;
+    if let (Some(magic), Some(_)) = (options.replace_only_if_starts_with, existing.as_ref()) {
+        use std::io::Read as _;
+        let mut head = vec![0u8; magic.len()];
+        let starts = std::fs::File::open(&target)
+            .and_then(|mut f| f.read_exact(&mut head))
+            .is_ok()
+            && head == magic;
+        if !starts {
+            return Err(WriteError::WrongKind {
+                path: path.to_path_buf(),
+                what: if magic == b"%PDF-" {
+                    "a PDF"
+                } else {
+                    "the kind of file written"
+                },
+            });
+        }
+    }
     let dir = match target.parent() {
         Some(p) if !p.as_os_str().is_empty() => p.to_path_buf(),
         _ => PathBuf::from("."),

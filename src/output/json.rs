@@ -505,6 +505,7 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
                 forward_limit: match a.band.forward_limit {
                     ForwardLimit::StaticMargin => "static-margin",
                     ForwardLimit::ElevatorAuthority => "elevator-authority",
+                    ForwardLimit::TailStall => "tail-stall",
                 },
                 cg_position: band_pos,
             },

@@ -12,6 +12,7 @@ pub mod report_file;
 pub mod section;
 pub mod study;
 pub mod tables;
+pub mod units;
 
 /// The wing model in a few words for table notes: "vortex-lattice model", "lifting-line model".
 pub fn wing_model_name(n: &crate::model::Numerics) -> &'static str {

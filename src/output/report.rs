@@ -401,7 +401,10 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             at_max(glide.min_sink.limited_by_cl_max)
         ),
     ));
-    out.push(kf("Reynolds number (MAC)", fmt(a.reynolds_mac, 0)));
+    out.push(kf(
+        "Reynolds number (MAC)",
+        crate::caution::reynolds_text(a.reynolds_mac),
+    ));
     out
 }
 
@@ -410,7 +413,10 @@ fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
         return "no target static margin set".to_string();
     };
     if a.ballast.is_empty() {
-        return format!("no ballast bay given (target {} % MAC)", fmt(100.0 * sm, 0));
+        return format!(
+            "no ballast bay given (target: {} % static margin)",
+            fmt(100.0 * sm, 0)
+        );
     }
     let parts: Vec<String> = a
         .ballast
@@ -429,7 +435,11 @@ fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
             BallastOutcome::WrongSide => format!("{}: cannot help", b.bay),
         })
         .collect();
-    format!("{} (for {} % MAC)", parts.join("; "), fmt(100.0 * sm, 0))
+    format!(
+        "{} for a {} % static margin",
+        parts.join("; "),
+        fmt(100.0 * sm, 0)
+    )
 }
 
 /// Outline of both halves of `surface` in the top view: leading edge from the port tip to the
@@ -694,6 +704,11 @@ pub fn trim_sweep(aircraft: &Aircraft, a: &Analysis) -> TrimSweep {
                 cg_x_m,
                 density_kg_m3: a.air.density_kg_m3,
                 fuselage_cm_alpha_per_rad: fuselage,
+                stabiliser_dynamic_pressure_ratio: aircraft
+                    .stabiliser
+                    .as_ref()
+                    .map_or(1.0, |s| s.dynamic_pressure_ratio),
+                downwash_factor: 1.0,
             })
             .trim
             .map(|t| t.speed_m_s)
@@ -763,21 +778,14 @@ fn mass_rows(aircraft: &Aircraft, a: &Analysis) -> Vec<MassRow> {
     rows
 }
 
-fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
+/// Methods and their sources, one line each (the report's footer; `check` prints them too).
+pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     let mut used: Vec<SectionMethod> = a.sections.iter().map(|s| s.method).collect();
     used.sort_by_key(|m| m.as_str());
     used.dedup();
     let sections: Vec<&str> = used
         .iter()
-        .map(|m| match m {
-            SectionMethod::Exact => "exact conformal mapping (Milne-Thomson, Theoretical Aerodynamics)",
-            SectionMethod::Thin => {
-                "thin-airfoil theory (Abbott and von Doenhoff, Theory of Wing Sections, 1959, ch. 4)"
-            }
-            SectionMethod::Panel => {
-                "linear-strength vortex panels (Katz and Plotkin, Low-Speed Aerodynamics, 2nd ed., 2001)"
-            }
-        })
+        .map(|m| crate::section::registry::info(*m).described_as)
         .collect();
     let mut out = vec![format!(
         "Airfoil sections: {}; section cl max as given in the file or a default.",
@@ -798,9 +806,31 @@ fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
         ),
     };
     let pitch = match aircraft.pitch_control() {
-        Some(_) => format!(
-            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students)",
+        Some(p) if p.chord_fraction > 0.0 => format!(
+            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students) with the hinge-gap loss of 15 % (Raymer, Aircraft Design, 6th ed., sec. 16.3); the further loss at deflections beyond about 12 deg is not modelled, so the forward CG limit from full up throw is somewhat optimistic",
             aircraft.pitch_control_name()
+        ),
+        Some(_) => "; all-moving stabiliser turned as a whole".to_string(),
+        None => String::new(),
+    };
+    let eta = match &aircraft.stabiliser {
+        Some(s) => format!(
+            "; {} dynamic-pressure ratio {:.2}{}",
+            if s.role == StabiliserRole::Canard {
+                "canard"
+            } else {
+                "tail"
+            },
+            s.dynamic_pressure_ratio,
+            if s.role == StabiliserRole::Tail
+                && (s.dynamic_pressure_ratio - crate::model::DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO)
+                    .abs()
+                    < 1e-12
+            {
+                " (default; Etkin and Reid, Raymer)"
+            } else {
+                ""
+            }
         ),
         None => String::new(),
     };
@@ -813,11 +843,18 @@ fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
         "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3)."
             .to_string(),
     );
+    let reference_height = match a.mass.cg_z_m {
+        Some(z) => format!(
+            "; moment reference at the CG's height z = {:.0} mm",
+            z * 1000.0
+        ),
+        None => "; moment reference at the wing root's height (not every mass has a z)".to_string(),
+    };
     out.push(format!(
-        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){pitch}{fuselage}."
+        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){reference_height}{eta}{pitch}{fuselage}."
     ));
     out.extend([
-        "Stall: first section to reach its cl max (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
+        "Stall: first section to reach its cl max, or a stabiliser section its negative cl limit, on the trimmed path (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
         "Glide: drag build-up and parabolic polar (Raymer, Aircraft Design, ch. 12). Air: ISA (US Standard Atmosphere, 1976).",
     ]
     .iter()

@@ -2,6 +2,9 @@
 //! surface-pressure CSV. The serde mirror types live here; the core types have none.
 
 use crate::caution::Caution;
+use crate::section::boundary_layer::TransitionCause;
+use crate::section::polar::{Polar, PolarStatus, StallCause};
+use crate::section::viscous::ViscousPoint;
 use crate::section::{ClMaxSource, SectionOutcome, SurfacePressure, SweepPoint};
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Cell, CellAlignment, Table};
 use serde::Serialize;
@@ -39,6 +42,245 @@ pub struct SectionReport {
     pub points: Vec<PointReport>,
     /// Cautions.
     pub cautions: Vec<CautionReport>,
+    /// Viscous polars, one per Reynolds number asked for (`--re`); left out when none.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub viscous: Vec<ViscousReport>,
+}
+
+/// One viscous polar (boundary layer on the panel method) at one Reynolds number.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct ViscousReport {
+    /// Chord Reynolds number.
+    pub reynolds: f64,
+    /// Transition setting: critical amplification factor N.
+    pub transition_n: f64,
+    /// Zero-lift angle from a straight line through the converged points with |cl| <= 0.6, deg.
+    pub alpha_zero_lift_deg: Option<f64>,
+    /// Lift slope of that line, per deg.
+    pub cl_alpha_per_deg: Option<f64>,
+    /// Least drag coefficient over the converged points.
+    pub cd_min: Option<f64>,
+    /// cl at the least drag.
+    pub cl_at_cd_min: Option<f64>,
+    /// Greatest cl of the converged points below stall.
+    pub cl_max: Option<f64>,
+    /// Angle of that cl, deg.
+    pub stall_alpha_deg: Option<f64>,
+    /// What ended the lift curve: "separation", "not-converged" or "end-of-sweep".
+    pub stall_found_by: String,
+    /// The points.
+    pub points: Vec<ViscousPointReport>,
+}
+
+/// One angle of a viscous polar; the numbers are null where the point has none.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct ViscousPointReport {
+    /// Angle of attack, deg.
+    pub alpha_deg: f64,
+    /// "converged", "past-stall", "not-converged" or "not-solved" (beyond a stalled angle).
+    pub status: &'static str,
+    /// Lift coefficient.
+    pub cl: Option<f64>,
+    /// Profile drag coefficient.
+    pub cd: Option<f64>,
+    /// Moment coefficient about the quarter chord.
+    pub cm_quarter_chord: Option<f64>,
+    /// Upper-surface transition, x/c (null: laminar to the trailing edge).
+    pub transition_upper_x_c: Option<f64>,
+    /// Lower-surface transition, x/c.
+    pub transition_lower_x_c: Option<f64>,
+    /// "amplification", "laminar-separation" or null, upper surface.
+    pub transition_upper_by: Option<&'static str>,
+    /// Turbulent separation, most forward of both surfaces, x/c.
+    pub separation_x_c: Option<f64>,
+    /// Last residual of a point that did not converge.
+    pub residual: Option<f64>,
+}
+
+fn cause_name(c: TransitionCause) -> &'static str {
+    match c {
+        TransitionCause::Amplification => "amplification",
+        TransitionCause::LaminarSeparation => "laminar-separation",
+        TransitionCause::Trip => "trip",
+    }
+}
+
+impl ViscousReport {
+    /// Builds the report of one polar.
+    pub fn new(polar: &Polar) -> ViscousReport {
+        let fit = polar.linear_fit(0.6);
+        let point =
+            |alpha_deg: f64, status: &'static str, p: Option<&ViscousPoint>| ViscousPointReport {
+                alpha_deg,
+                status,
+                cl: p.map(|p| p.cl),
+                cd: p.map(|p| p.cd),
+                cm_quarter_chord: p.map(|p| p.cm_quarter_chord),
+                transition_upper_x_c: p.and_then(|p| p.upper.transition_x_c),
+                transition_lower_x_c: p.and_then(|p| p.lower.transition_x_c),
+                transition_upper_by: p.and_then(|p| p.upper.transition_cause.map(cause_name)),
+                separation_x_c: p.and_then(|p| p.separation_x_c()),
+                residual: None,
+            };
+        ViscousReport {
+            reynolds: polar.reynolds,
+            transition_n: polar.n_crit,
+            alpha_zero_lift_deg: fit.map(|f| f.1.to_degrees()),
+            cl_alpha_per_deg: fit.map(|f| f.0.to_radians()),
+            cd_min: polar.cd_min().map(|c| c.0),
+            cl_at_cd_min: polar.cd_min().map(|c| c.1),
+            cl_max: polar.cl_max.map(|c| c.0),
+            stall_alpha_deg: polar.cl_max.map(|c| c.1.to_degrees()),
+            stall_found_by: match polar.stall_cause {
+                StallCause::Separation => "separation",
+                StallCause::NotConverged => "not-converged",
+                StallCause::EndOfSweep => "end-of-sweep",
+            }
+            .to_string(),
+            points: polar
+                .entries
+                .iter()
+                .map(|e| {
+                    let a = e.alpha_rad.to_degrees();
+                    match &e.status {
+                        PolarStatus::Converged(p) => point(a, "converged", Some(p)),
+                        PolarStatus::PastStall(p) => point(a, "past-stall", Some(p)),
+                        PolarStatus::NotConverged(err) => ViscousPointReport {
+                            residual: match err {
+                                crate::section::viscous::ViscousError::NotConverged {
+                                    residual,
+                                    ..
+                                } => Some(*residual),
+                                _ => None,
+                            },
+                            ..point(a, "not-converged", None)
+                        },
+                        PolarStatus::BeyondStall => point(a, "not-solved", None),
+                    }
+                })
+                .collect(),
+        }
+    }
+
+    /// True when every number present is finite.
+    pub fn all_finite(&self) -> bool {
+        let ok = |v: Option<f64>| v.is_none_or(f64::is_finite);
+        [
+            self.alpha_zero_lift_deg,
+            self.cl_alpha_per_deg,
+            self.cd_min,
+            self.cl_max,
+        ]
+        .into_iter()
+        .all(ok)
+            && self.points.iter().all(|p| {
+                [
+                    p.cl,
+                    p.cd,
+                    p.cm_quarter_chord,
+                    p.transition_upper_x_c,
+                    p.transition_lower_x_c,
+                    p.separation_x_c,
+                    p.residual,
+                ]
+                .into_iter()
+                .all(ok)
+            })
+    }
+}
+
+fn opt(v: Option<f64>, digits: usize) -> String {
+    v.map_or_else(|| "-".to_string(), |v| fixed(v, digits))
+}
+
+/// The viscous polars as tables: a summary and the points of each.
+pub fn render_viscous(reports: &[ViscousReport]) -> String {
+    let mut out = String::new();
+    for r in reports {
+        let mut summary = Table::new();
+        summary.load_style(UTF8_FULL_CONDENSED);
+        summary.set_header(vec![
+            format!("Viscous, Re {:.0}, N {}", r.reynolds, r.transition_n),
+            "Value".into(),
+            "Unit".into(),
+        ]);
+        let rows: Vec<(&str, String, &str)> = vec![
+            ("Zero-lift angle", opt(r.alpha_zero_lift_deg, 2), "deg"),
+            ("Lift slope", opt(r.cl_alpha_per_deg, 4), "per deg"),
+            ("Least cd", opt(r.cd_min, 5), ""),
+            ("  at cl", opt(r.cl_at_cd_min, 3), ""),
+            ("cl_max", opt(r.cl_max, 3), ""),
+            ("  at alpha", opt(r.stall_alpha_deg, 1), "deg"),
+            ("Lift curve ended by", r.stall_found_by.clone(), ""),
+        ];
+        for (name, value, unit) in rows {
+            summary.add_row(vec![Cell::new(name), right(value), Cell::new(unit)]);
+        }
+        let mut t = Table::new();
+        t.load_style(UTF8_FULL_CONDENSED);
+        t.set_header(vec![
+            "alpha (deg)",
+            "cl",
+            "cd",
+            "cm c/4",
+            "transition upper x/c",
+            "transition lower x/c",
+            "separation x/c",
+            "state",
+        ]);
+        for p in &r.points {
+            t.add_row(vec![
+                right(fixed(p.alpha_deg, 1)),
+                right(opt(p.cl, 4)),
+                right(opt(p.cd, 5)),
+                right(opt(p.cm_quarter_chord, 4)),
+                right(opt(p.transition_upper_x_c, 3)),
+                right(opt(p.transition_lower_x_c, 3)),
+                right(opt(p.separation_x_c, 3)),
+                Cell::new(p.status),
+            ]);
+        }
+        out.push_str(&format!(
+            "{summary}
+{t}
+"
+        ));
+    }
+    if !reports.is_empty() {
+        out.push_str(
+            "Viscous: integral boundary layer (Thwaites, e^N envelope, Head) coupled to the panel \
+             method; cd by Squire-Young. cl_max here is the peak of the computed lift curve and \
+             runs high against wind-tunnel data (see docs/section.md): it is shown, not used.\n",
+        );
+    }
+    out
+}
+
+/// The viscous polars as CSV, one line per angle and Reynolds number; empty cells where a
+/// point has no number.
+pub fn polar_csv(reports: &[ViscousReport]) -> String {
+    let mut s = String::from(
+        "reynolds,transition_n,alpha_deg,state,cl,cd,cm_c4,transition_upper_x_c,transition_lower_x_c,separation_x_c\n",
+    );
+    let cell = |v: Option<f64>, d: usize| v.map_or_else(String::new, |v| format!("{v:.d$}"));
+    for r in reports {
+        for p in &r.points {
+            s.push_str(&format!(
+                "{:.0},{},{:.3},{},{},{},{},{},{},{}\n",
+                r.reynolds,
+                r.transition_n,
+                p.alpha_deg,
+                p.status,
+                cell(p.cl, 5),
+                cell(p.cd, 6),
+                cell(p.cm_quarter_chord, 5),
+                cell(p.transition_upper_x_c, 4),
+                cell(p.transition_lower_x_c, 4),
+                cell(p.separation_x_c, 4),
+            ));
+        }
+    }
+    s
 }
 
 /// One angle of attack.
@@ -113,6 +355,7 @@ impl SectionReport {
                 })
                 .collect(),
             cautions: outcome.cautions.iter().map(CautionReport::from).collect(),
+            viscous: Vec::new(),
         }
     }
 
@@ -128,6 +371,7 @@ impl SectionReport {
             self.cl_min,
         ];
         scalars.iter().all(|v| v.is_finite())
+            && self.viscous.iter().all(ViscousReport::all_finite)
             && self.points.iter().all(|p| {
                 p.alpha_deg.is_finite()
                     && p.cl.is_finite()
@@ -243,6 +487,8 @@ mod tests {
                 cl_max: 1.2,
                 cl_min: -0.9,
                 cl_max_source: ClMaxSource::Given,
+                reynolds_number: None,
+                polar: None,
             },
             cautions: vec![],
         };

@@ -5,14 +5,20 @@ use crate::analysis::{Analysis, ForwardLimit, Method};
 use crate::balance::BallastOutcome;
 use crate::caution::Level;
 use crate::model::{Aircraft, StabiliserRole};
+use crate::output::units::UnitSystem;
 use crate::section::ClMaxSource;
 use comfy_table::{presets, Cell, CellAlignment, Table};
 use std::fmt::Write as _;
 
 fn table(header: &[&str]) -> Table {
+    table_in(UnitSystem::Metric, header)
+}
+
+/// A table whose header words name metric units, printed in `u`.
+fn table_in(u: UnitSystem, header: &[&str]) -> Table {
     let mut t = Table::new();
     t.load_style(presets::UTF8_FULL_CONDENSED);
-    t.set_header(header.iter().map(Cell::new));
+    t.set_header(header.iter().map(|h| Cell::new(u.header(h))));
     t
 }
 
@@ -42,8 +48,9 @@ pub fn num(v: f64, d: usize) -> String {
     }
 }
 
-/// The whole human-readable `check` report.
-pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
+/// The whole human-readable `check` report, lengths and masses in `u` (the cautions keep
+/// the metric units they are written in).
+pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str, u: UnitSystem) -> String {
     let mut out = String::new();
     let _ = writeln!(out, "{}  ({source})", aircraft.name);
     if !aircraft.notes.trim().is_empty() {
@@ -56,25 +63,26 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
         num(a.air.density_kg_m3, 3)
     );
     out.push_str("Geometry\n");
-    out.push_str(&geometry_table(aircraft, a).to_string());
-    out.push_str(&geometry_footer(aircraft, a));
+    out.push_str(&geometry_table(aircraft, a, u).to_string());
+    out.push_str(&geometry_footer(aircraft, a, u));
     out.push_str("\n\nAirfoil sections\n");
     out.push_str(&sections_table(aircraft, a).to_string());
     out.push_str("\n\nMasses\n");
-    out.push_str(&mass_table(aircraft, a).to_string());
+    out.push_str(&mass_table(aircraft, a, u).to_string());
     let _ = write!(
         out,
-        "\nWing loading {} g/dm^2.",
-        num(a.wing_loading_kg_m2 * 10.0, 1)
+        "\nWing loading {} {}.",
+        u.loading(a.wing_loading_kg_m2),
+        u.header("g/dm^2")
     );
     out.push_str("\n\nBalance and stability\n");
-    out.push_str(&balance_table(aircraft, a).to_string());
+    out.push_str(&balance_table(aircraft, a, u).to_string());
     out.push('\n');
-    out.push_str(&cg_gauge(a, 60));
+    out.push_str(&cg_gauge(a, 60, u));
 
     out.push_str("\nTrim and stall\n");
-    out.push_str(&trim_table(aircraft, a).to_string());
-    if let Some(t) = spanwise_table(a) {
+    out.push_str(&trim_table(aircraft, a, u).to_string());
+    if let Some(t) = spanwise_table(a, u) {
         out.push_str("\n\nSpanwise loading of the wing (starboard half)\n");
         out.push_str(&t.to_string());
     }
@@ -88,32 +96,39 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str) -> String {
     }
     out.push_str("\n\nCautions\n");
     out.push_str(&cautions_table(a).to_string());
-    out.push('\n');
+    out.push_str("\n\nMethods\n");
+    for line in crate::output::report::methods(aircraft, a) {
+        out.push_str(&wrap(&format!("- {line}"), 100));
+        out.push('\n');
+    }
     out
 }
 
-fn geometry_table(aircraft: &Aircraft, a: &Analysis) -> Table {
-    let mut t = table(&[
-        "surface",
-        "area dm^2",
-        "span mm",
-        "aspect ratio",
-        "taper",
-        "MAC mm",
-        "MAC LE x mm",
-        "incidence deg",
-        "lift slope /rad",
-    ]);
+fn geometry_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
+    let mut t = table_in(
+        u,
+        &[
+            "surface",
+            "area dm^2",
+            "span mm",
+            "aspect ratio",
+            "taper",
+            "MAC mm",
+            "MAC LE x mm",
+            "incidence deg",
+            "lift slope /rad",
+        ],
+    );
     let mut row = |name: &str, s: &crate::stability::classical::EquivalentSurface| {
         let g = &s.geometry;
         t.add_row(vec![
             name.to_string(),
-            num(g.area_m2 * 100.0, 2),
-            num(g.span_m * 1000.0, 0),
+            u.area(g.area_m2),
+            u.length(g.span_m, 0),
             num(g.aspect_ratio, 2),
             num(g.taper, 2),
-            num(g.mac_m * 1000.0, 1),
-            num(g.mac_le_x_m * 1000.0, 1),
+            u.length(g.mac_m, 1),
+            u.length(g.mac_le_x_m, 1),
             num(s.incidence_rad.to_degrees(), 2),
             num(s.lift_slope_per_rad, 3),
         ]);
@@ -130,17 +145,53 @@ fn geometry_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     t
 }
 
-fn geometry_footer(aircraft: &Aircraft, a: &Analysis) -> String {
-    match (&a.tail_volume, &aircraft.stabiliser) {
+fn geometry_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
+    let vee = match (&aircraft.stabiliser, &a.stabiliser) {
+        (Some(st), Some(eq)) => {
+            let true_area = crate::planform::true_area_m2(&st.surface);
+            let cos = if true_area > 0.0 {
+                (eq.geometry.area_m2 / true_area).min(1.0)
+            } else {
+                1.0
+            };
+            if cos < VEE_TAIL_COS {
+                format!(
+                    "\nThe stabiliser is a V-tail ({} deg mean dihedral): area {} {} in its own plane, \
+                     {} projected; in pitch it acts about as a flat tail of {} {} (area x cos^2, \
+                     Purser and Campbell, NACA Report 823); the lattice models the dihedral itself. \
+                     The volume coefficient below is on the projected area; on the pitch area it \
+                     is about {}. Yaw, a fin and the ruddervators' yaw use are not analysed.",
+                    num(cos.acos().to_degrees(), 0),
+                    u.area(true_area),
+                    u.area_unit(),
+                    u.area(eq.geometry.area_m2),
+                    u.area(eq.pitch_area_m2),
+                    u.area_unit(),
+                    a.tail_volume
+                        .as_ref()
+                        .map_or("-".to_string(), |tv| num(tv.coefficient * cos, 3)),
+                )
+            } else {
+                String::new()
+            }
+        }
+        _ => String::new(),
+    };
+    vee + &match (&a.tail_volume, &aircraft.stabiliser) {
         (Some(tv), Some(_)) => format!(
-            "\nStabiliser arm {} mm (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
-            num(tv.arm_m * 1000.0, 0),
+            "\nStabiliser arm {} {} (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
+            u.length(tv.arm_m, 0),
+            u.length_unit(),
             num(tv.coefficient, 3),
                         num(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 2)
         ),
         _ => "\nNo stabiliser: tailless.".to_string(),
     }
 }
+
+/// A stabiliser whose projected area is less than this share of its true area (a mean
+/// dihedral above about 10 deg) is described as a V-tail.
+const VEE_TAIL_COS: f64 = 0.985;
 
 fn sections_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     let mut t = table(&[
@@ -171,62 +222,61 @@ fn sections_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     t
 }
 
-fn mass_table(aircraft: &Aircraft, a: &Analysis) -> Table {
-    let mut t = table(&["item", "mass g", "x mm", "z mm", "moment g*m"]);
+fn mass_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
+    let mut t = table_in(u, &["item", "mass g", "x mm", "z mm", "moment g*m"]);
     for m in &aircraft.masses {
         t.add_row(vec![
             m.name.clone(),
-            num(m.mass_kg * 1000.0, 1),
-            num(m.x_m * 1000.0, 1),
-            m.z_m
-                .map(|z| num(z * 1000.0, 1))
-                .unwrap_or_else(|| "-".into()),
-            num(m.mass_kg * 1000.0 * m.x_m, 2),
+            u.mass(m.mass_kg, 1),
+            u.length(m.x_m, 1),
+            m.z_m.map(|z| u.length(z, 1)).unwrap_or_else(|| "-".into()),
+            u.moment(m.mass_kg * m.x_m),
         ]);
     }
     t.add_row(vec![
         "total / CG".to_string(),
-        num(a.mass.total_kg * 1000.0, 1),
-        num(a.mass.cg_x_m * 1000.0, 1),
+        u.mass(a.mass.total_kg, 1),
+        u.length(a.mass.cg_x_m, 1),
         a.mass
             .cg_z_m
-            .map(|z| num(z * 1000.0, 1))
+            .map(|z| u.length(z, 1))
             .unwrap_or_else(|| "-".into()),
-        num(a.mass.total_kg * 1000.0 * a.mass.cg_x_m, 2),
+        u.moment(a.mass.total_kg * a.mass.cg_x_m),
     ]);
     right_align_from(&mut t, 1);
     t
 }
 
-fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
+fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
     let g = &a.wing_geometry;
     let h = &a.headline;
-    let mut t = table(&["quantity", "mm from datum", "% MAC", "note"]);
+    let mut t = table_in(u, &["quantity", "mm from datum", "% MAC", "note"]);
+    let (mm, g_) = (u.length_unit(), u.mass_unit());
     let pct = |x: f64| num(g.percent_mac(x), 1);
     t.add_row(vec![
         "CG".to_string(),
-        num(a.mass.cg_x_m * 1000.0, 1),
+        u.length(a.mass.cg_x_m, 1),
         pct(a.mass.cg_x_m),
         format!(
             "from the mass list; {} the wing root leading edge",
-            super::mm_aft_or_ahead(a.mass.cg_x_m - aircraft.wing.root_le_x_m)
+            u.aft_or_ahead(a.mass.cg_x_m - aircraft.wing.root_le_x_m)
         ),
     ]);
     if let Some(w) = &a.weighed {
         t.add_row(vec![
             "CG by weighing".to_string(),
-            num(w.cg_x_m * 1000.0, 1),
+            u.length(w.cg_x_m, 1),
             pct(w.cg_x_m),
             format!(
-                "{} g on the scales; static margin {} %",
-                num(w.total_kg * 1000.0, 0),
+                "{} {g_} on the scales; static margin {} %",
+                u.mass(w.total_kg, 0),
                 num(100.0 * (h.neutral_point_x_m - w.cg_x_m) / g.mac_m, 1)
             ),
         ]);
     }
     t.add_row(vec![
         "neutral point".to_string(),
-        num(h.neutral_point_x_m * 1000.0, 1),
+        u.length(h.neutral_point_x_m, 1),
         pct(h.neutral_point_x_m),
         match h.method {
             Method::Numerical(_) if aircraft.fuselage.is_some() => {
@@ -246,15 +296,38 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         let c = &a.classical;
         t.add_row(vec![
             "neutral point, closed form".to_string(),
-            num(c.neutral_point_x_m * 1000.0, 1),
+            u.length(c.neutral_point_x_m, 1),
             pct(c.neutral_point_x_m),
             format!(
-                "cross-check: {} mm from the {}",
-                num((c.neutral_point_x_m - h.neutral_point_x_m) * 1000.0, 1),
+                "cross-check: {} {mm} from the {}",
+                u.length(c.neutral_point_x_m - h.neutral_point_x_m, 1),
                 match aircraft.numerics.wing_model {
                     crate::model::WingModel::VortexLattice => "lattice",
                     crate::model::WingModel::LiftingLine => "lifting line",
                 }
+            ),
+        ]);
+    }
+    let spread = 2.0 * a.neutral_point_spread.sigma_m;
+    if spread.is_finite() && spread > 0.0 {
+        let fwd_np = h.neutral_point_x_m - spread;
+        t.add_row(vec![
+            "neutral point, forward end of its range".to_string(),
+            u.length(fwd_np, 1),
+            pct(fwd_np),
+            format!(
+                "2 standard deviations ({} {mm}) of the inputs known least well (common-practice spreads)",
+                u.length(spread, 1)
+            ),
+        ]);
+        let aft = fwd_np - aircraft.margin_limits.min_static_margin * g.mac_m;
+        t.add_row(vec![
+            "aft CG limit against that end".to_string(),
+            u.length(aft, 1),
+            pct(aft),
+            format!(
+                "static margin {} % from the forward end of the neutral-point range",
+                num(100.0 * aircraft.margin_limits.min_static_margin, 0)
             ),
         ]);
     }
@@ -272,16 +345,22 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
             let verb = if name == "elevons" { "hold" } else { "holds" };
             format!("full up {name} just {verb} the stall")
         }
+        ForwardLimit::TailStall if a.band.forward_x_m >= a.band.aft_x_m => {
+            "no range: the tailplane stalls downwards before the wing (cg-band-empty)".to_string()
+        }
+        ForwardLimit::TailStall => {
+            "the tailplane just reaches its negative stall at the wing's stall".to_string()
+        }
     };
     t.add_row(vec![
         "recommended CG, forward".to_string(),
-        num(a.band.forward_x_m * 1000.0, 1),
+        u.length(a.band.forward_x_m, 1),
         pct(a.band.forward_x_m),
         forward_note,
     ]);
     t.add_row(vec![
         "recommended CG, aft".to_string(),
-        num(a.band.aft_x_m * 1000.0, 1),
+        u.length(a.band.aft_x_m, 1),
         pct(a.band.aft_x_m),
         format!(
             "static margin {} %",
@@ -290,9 +369,9 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     ]);
     t.add_row(vec![
         "MAC leading edge".to_string(),
-        num(g.mac_le_x_m * 1000.0, 1),
+        u.length(g.mac_le_x_m, 1),
         "0.0".to_string(),
-        format!("MAC {} mm", num(g.mac_m * 1000.0, 1)),
+        format!("MAC {} {mm}", u.length(g.mac_m, 1)),
     ]);
     t.add_row(vec![
         "static margin".to_string(),
@@ -303,11 +382,11 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     for b in &a.ballast {
         let text = match b.outcome {
             BallastOutcome::NotNeeded => "none needed".to_string(),
-            BallastOutcome::Reachable { mass_kg } => format!("add {} g", num(mass_kg * 1000.0, 1)),
+            BallastOutcome::Reachable { mass_kg } => format!("add {} {g_}", u.mass(mass_kg, 1)),
             BallastOutcome::ExceedsBay { needed_kg, max_kg } => format!(
-                "needs {} g, bay holds {} g: cannot reach the target",
-                num(needed_kg * 1000.0, 1),
-                num(max_kg * 1000.0, 1)
+                "needs {} {g_}, bay holds {} {g_}: cannot reach the target",
+                u.mass(needed_kg, 1),
+                u.mass(max_kg, 1)
             ),
             BallastOutcome::WrongSide => {
                 let way = if b.target_x_m > a.mass.cg_x_m {
@@ -316,8 +395,8 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
                     "forward"
                 };
                 format!(
-                    "target {} mm {way} of the CG: this bay moves it the wrong way",
-                    num((b.target_x_m - a.mass.cg_x_m).abs() * 1000.0, 1)
+                    "target {} {mm} {way} of the CG: this bay moves it the wrong way",
+                    u.length((b.target_x_m - a.mass.cg_x_m).abs(), 1)
                 )
             }
         };
@@ -330,7 +409,7 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         };
         t.add_row(vec![
             format!("target CG, ballast in {}", b.bay),
-            num(b.target_x_m * 1000.0, 1),
+            u.length(b.target_x_m, 1),
             pct(b.target_x_m),
             text,
         ]);
@@ -339,7 +418,7 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         match (f.cg_for_target_x_m, aircraft.targets.trim_speed_m_s) {
             (Some(x), _) => t.add_row(vec![
                 "CG for the target trim speed".to_string(),
-                num(x * 1000.0, 1),
+                u.length(x, 1),
                 pct(x),
                 if x < a.band.forward_x_m - 5e-4 || x > a.band.aft_x_m + 5e-4 {
                     "with the present incidences; outside the recommended band: change the \
@@ -366,7 +445,7 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     t
 }
 
-fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
+fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
     let h = &a.headline;
     let mut t = table(&["quantity", "value", "unit"]);
     match h.trim {
@@ -402,10 +481,12 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
         if aircraft.stabiliser.is_some() {
             t.add_row(vec![
                 "stabiliser load at trim".into(),
-                format!(
-                    "{} g",
-                    num(ft.stabiliser_load_n / crate::atmosphere::G0 * 1000.0, 0)
-                ),
+                {
+                    // A load under 10 g keeps a decimal, so a small download never reads 0 g.
+                    let kg = ft.stabiliser_load_n / crate::atmosphere::G0;
+                    let decimals = if (kg * 1000.0).abs() < 10.0 { 1 } else { 0 };
+                    format!("{} {}", u.mass(kg, decimals), u.mass_unit())
+                },
                 "negative: a download".into(),
             ]);
             let canard = aircraft
@@ -491,7 +572,7 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     ]);
     t.add_row(vec![
         "Reynolds number on MAC".into(),
-        num(a.reynolds_mac, 0),
+        crate::caution::reynolds_text(a.reynolds_mac),
         String::new(),
     ]);
     right_align(&mut t, 1..2);
@@ -539,7 +620,7 @@ pub fn wrap(text: &str, width: usize) -> String {
 /// A one-line picture of the CG against the recommended band and the neutral point, nose to
 /// the left, followed by a legend line:
 /// `  61 mm [=====G=====]   N  99 mm`.
-pub fn cg_gauge(a: &Analysis, width: usize) -> String {
+pub fn cg_gauge(a: &Analysis, width: usize, u: UnitSystem) -> String {
     let cg = a.mass.cg_x_m;
     let np = a.headline.neutral_point_x_m;
     let (fwd, aft) = (a.band.forward_x_m, a.band.aft_x_m);
@@ -563,9 +644,10 @@ pub fn cg_gauge(a: &Analysis, width: usize) -> String {
     line[col(cg)] = 'G';
     let gauge: String = line.into_iter().collect();
     format!(
-        "{} mm {gauge} {} mm\nnose left; [ ] recommended CG band, G centre of gravity, N neutral point\n",
-        num(lo * 1000.0, 0),
-        num(hi * 1000.0, 0)
+        "{} {mm} {gauge} {} {mm}\nnose left; [ ] recommended CG band, G centre of gravity, N neutral point\n",
+        u.length(lo, 0),
+        u.length(hi, 0),
+        mm = u.length_unit()
     )
 }
 
@@ -580,7 +662,7 @@ fn sample<T>(items: &[T], rows: usize) -> Vec<&T> {
 }
 
 /// The wing's spanwise loading at trim and at the stall (lifting line only).
-fn spanwise_table(a: &Analysis) -> Option<Table> {
+fn spanwise_table(a: &Analysis, u: UnitSystem) -> Option<Table> {
     let f = a.full.as_ref()?;
     let stall = f.stall.as_ref()?;
     let at_stall = crate::stability::trim::wing_starboard(&stall.result);
@@ -588,22 +670,25 @@ fn spanwise_table(a: &Analysis) -> Option<Table> {
         .trim
         .as_ref()
         .map(|t| crate::stability::trim::wing_starboard(&t.result));
-    let mut t = table(&[
-        "% semispan",
-        "y mm",
-        "chord mm",
-        "cl at trim",
-        "cl/cl max at trim",
-        "cl/cl max at stall",
-    ]);
+    let mut t = table_in(
+        u,
+        &[
+            "% semispan",
+            "y mm",
+            "chord mm",
+            "cl at trim",
+            "cl/cl max at trim",
+            "cl/cl max at stall",
+        ],
+    );
     for st in sample(&at_stall, 9) {
         let trim_row = at_trim
             .as_ref()
             .and_then(|rows| rows.iter().find(|r| (r.y_m - st.y_m).abs() < 1e-9));
         t.add_row(vec![
             num(st.percent_semispan, 0),
-            num(st.y_m * 1000.0, 0),
-            num(st.chord_m * 1000.0, 0),
+            u.length(st.y_m, 0),
+            u.length(st.chord_m, 0),
             trim_row.map_or("-".into(), |r| num(r.cl, 3)),
             trim_row.map_or("-".into(), |r| num(r.cl_ratio, 2)),
             num(st.cl_ratio, 2),

@@ -16,15 +16,21 @@
 //!   never above `-cl_max / 4` (a judgement: negative stall of cambered sections comes at a
 //!   smaller |cl| than positive stall, but not at a positive one).
 
+pub mod boundary_layer;
+pub mod cache;
 pub mod circle_map;
 pub mod flap;
+pub mod flap_correction;
 pub mod geometry;
 pub mod joukowski;
 pub mod karman_trefftz;
 pub mod model;
 pub mod naca;
 pub mod panel;
+pub mod polar;
+pub mod registry;
 pub mod thin_airfoil;
+pub mod viscous;
 
 pub use flap::FlapEffect;
 pub use model::{ClMaxSource, SectionModel, DEFAULT_CL_MAX};
@@ -131,6 +137,30 @@ pub enum SectionError {
         method: &'static str,
         /// The aerodynamic centre found, fraction of chord.
         x_ac_c: f64,
+    },
+    /// The viscous method refused the settings or the shape.
+    #[error("airfoil '{airfoil}': {error}")]
+    Viscous {
+        /// Airfoil name.
+        airfoil: String,
+        /// Cause.
+        error: viscous::ViscousError,
+    },
+    /// The viscous method needs a Reynolds number.
+    #[error(
+        "airfoil '{airfoil}': the viscous method needs the chord Reynolds number (1e4 to 1e7)"
+    )]
+    ViscousNeedsReynolds {
+        /// Airfoil name.
+        airfoil: String,
+    },
+    /// Too few converged viscous points for the linear part of the lift curve.
+    #[error("airfoil '{airfoil}': the viscous polar converged at only {points} angles with |cl| <= 0.6; at least 3 are needed for the lift slope")]
+    ViscousTooFewPoints {
+        /// Airfoil name.
+        airfoil: String,
+        /// Converged points found.
+        points: usize,
     },
     /// Flap-chord fraction not accepted.
     #[error(transparent)]
@@ -300,6 +330,16 @@ pub fn analyse_section(
     let method = airfoil
         .method
         .unwrap_or_else(|| default_method(&airfoil.shape));
+    if method == SectionMethod::Viscous {
+        let solution = solve_section(airfoil, SectionMethod::Panel, options)?;
+        let settings = viscous_settings(airfoil, options)?;
+        let alphas: Vec<f64> = (MODEL_SWEEP_DEG.0..=MODEL_SWEEP_DEG.1)
+            .map(|d| (d as f64).to_radians())
+            .collect();
+        let polar = cache::PolarCache::shared().polar(airfoil, settings, &alphas)?;
+        let outcome = model_from_polar(airfoil, polar)?;
+        return Ok(SectionAnalysis { solution, outcome });
+    }
     let solution = solve_section(airfoil, method, options)?;
     let mut outcome = model_from_solution(airfoil, &solution)?;
     if method == SectionMethod::Panel {
@@ -319,6 +359,98 @@ pub fn analyse_section(
         }
     }
     Ok(SectionAnalysis { solution, outcome })
+}
+
+/// Angles of the polar behind a viscous section model, whole degrees from the chord line
+/// (1 deg steps; the sweep stops at the first stalled or failed angle).
+const MODEL_SWEEP_DEG: (i32, i32) = (-8, 20);
+
+/// Fewest converged points near zero lift for a viscous section model.
+const MIN_LINEAR_POINTS: usize = 3;
+
+/// |cl| up to which the viscous polar is taken as the linear part of the lift curve (a
+/// judgement: below the stall of any section the method treats).
+const LINEAR_CL_LIMIT: f64 = 0.6;
+
+/// The viscous settings of `airfoil`: its Reynolds number (required), its transition setting
+/// or N 9, and the panels of `options` (raised to the viscous minimum).
+fn viscous_settings(
+    airfoil: &Airfoil,
+    options: &SectionOptions,
+) -> Result<viscous::ViscousSettings, SectionError> {
+    let Some(reynolds) = airfoil.reynolds else {
+        return Err(SectionError::ViscousNeedsReynolds {
+            airfoil: airfoil.name.clone(),
+        });
+    };
+    Ok(viscous::ViscousSettings {
+        reynolds,
+        n_crit: airfoil
+            .transition_n
+            .unwrap_or(boundary_layer::envelope::DEFAULT_N_CRIT),
+        panels: options.panels.max(viscous::MIN_VISCOUS_PANELS),
+    })
+}
+
+/// The section model of `airfoil` from its viscous polar: zero-lift angle and lift slope from a
+/// straight line through the converged points with |cl| <= 0.6, the aerodynamic centre and
+/// cm_ac from a straight line of cm against cl over the same points, cl_max as given or the
+/// default (the polar's own cl_max is carried in the polar but not used: it runs high, see
+/// [`polar`]), the Reynolds number and the polar itself.
+pub fn model_from_polar(
+    airfoil: &Airfoil,
+    polar: std::sync::Arc<polar::Polar>,
+) -> Result<SectionOutcome, SectionError> {
+    let pts: Vec<(f64, f64)> = polar
+        .points()
+        .filter(|p| p.cl.abs() <= LINEAR_CL_LIMIT)
+        .map(|p| (p.cl, p.cm_quarter_chord))
+        .collect();
+    let fit = polar.linear_fit(LINEAR_CL_LIMIT);
+    let Some((slope, alpha0)) = fit.filter(|_| pts.len() >= MIN_LINEAR_POINTS) else {
+        return Err(SectionError::ViscousTooFewPoints {
+            airfoil: airfoil.name.clone(),
+            points: pts.len(),
+        });
+    };
+    let n = pts.len() as f64;
+    let (mcl, mcm) = pts
+        .iter()
+        .fold((0.0, 0.0), |a, p| (a.0 + p.0 / n, a.1 + p.1 / n));
+    let sxx: f64 = pts.iter().map(|p| (p.0 - mcl).powi(2)).sum();
+    let sxy: f64 = pts.iter().map(|p| (p.0 - mcl) * (p.1 - mcm)).sum();
+    let dcm_dcl = if sxx > 0.0 { sxy / sxx } else { 0.0 };
+    let cm_ac = mcm - dcm_dcl * mcl;
+    let x_ac_c = 0.25 - dcm_dcl;
+    let not_finite = |what| SectionError::NotFinite {
+        airfoil: airfoil.name.clone(),
+        method: "viscous",
+        what,
+    };
+    if !(slope.is_finite() && slope > 0.0) {
+        return Err(not_finite("lift slope"));
+    }
+    if !(alpha0.is_finite() && cm_ac.is_finite() && x_ac_c.is_finite()) {
+        return Err(not_finite("zero-lift angle or moment"));
+    }
+    let (cl_max, cl_max_source, cautions) = resolve_cl_max(airfoil)?;
+    let cl_at_zero_alpha = -slope * alpha0;
+    let cl_min = (-cl_max + 2.0 * cl_at_zero_alpha).min(-0.25 * cl_max);
+    Ok(SectionOutcome {
+        model: SectionModel {
+            method: SectionMethod::Viscous,
+            alpha_zero_lift_rad: alpha0,
+            cl_alpha_per_rad: slope,
+            cm_ac,
+            x_ac_c,
+            cl_max,
+            cl_min,
+            cl_max_source,
+            reynolds_number: Some(polar.reynolds),
+            polar: Some(polar),
+        },
+        cautions,
+    })
 }
 
 /// Thickness below which the panel method gets a caution (judgement: on thinner sections the
@@ -360,10 +492,55 @@ pub fn solve_section(
     options: &SectionOptions,
 ) -> Result<SectionSolution, SectionError> {
     let name = || airfoil.name.clone();
-    let geometry_err = |error| SectionError::Geometry {
-        airfoil: name(),
-        error,
-    };
+    let (exact, naca) = shape_solutions(airfoil)?;
+    if method == SectionMethod::Exact {
+        return exact
+            .map(SectionSolution::Exact)
+            .ok_or(SectionError::MethodNotAvailable {
+                airfoil: name(),
+                method: "exact",
+            });
+    }
+    if let (SectionMethod::Thin, Some(profile)) = (method, naca) {
+        return Ok(SectionSolution::Thin(ThinAirfoil::solve(&profile)));
+    }
+    if method == SectionMethod::Panel
+        && !(geometry::MIN_PANELS..=geometry::MAX_PANELS).contains(&options.panels)
+    {
+        return Err(SectionError::Panel {
+            airfoil: name(),
+            error: PanelError::Geometry(GeometryError::PanelCount(options.panels)),
+        });
+    }
+    let contour = build_contour(airfoil, &exact, &naca, options)?;
+    match method {
+        SectionMethod::Thin => {
+            let line =
+                SampledMeanLine::new(contour.mean_line(MEAN_LINE_STATIONS)).map_err(|error| {
+                    SectionError::MeanLine {
+                        airfoil: name(),
+                        error,
+                    }
+                })?;
+            Ok(SectionSolution::Thin(ThinAirfoil::solve(&line)))
+        }
+        _ => Ok(SectionSolution::Panel(
+            PanelSolution::solve(&contour, options.panels).map_err(|error| {
+                SectionError::Panel {
+                    airfoil: name(),
+                    error,
+                }
+            })?,
+        )),
+    }
+}
+
+/// The exact solution (Joukowski, Karman-Trefftz) or the NACA profile of an airfoil's shape,
+/// where it has one.
+fn shape_solutions(
+    airfoil: &Airfoil,
+) -> Result<(Option<ExactSolution>, Option<NacaProfile>), SectionError> {
+    let name = || airfoil.name.clone();
     let circle_err = |error| SectionError::CircleMap {
         airfoil: name(),
         error,
@@ -398,27 +575,22 @@ pub fn solve_section(
         }
         _ => None,
     };
-    if method == SectionMethod::Exact {
-        return exact
-            .map(SectionSolution::Exact)
-            .ok_or(SectionError::MethodNotAvailable {
-                airfoil: name(),
-                method: "exact",
-            });
-    }
-    if let (SectionMethod::Thin, Some(profile)) = (method, naca) {
-        return Ok(SectionSolution::Thin(ThinAirfoil::solve(&profile)));
-    }
-    if method == SectionMethod::Panel
-        && !(geometry::MIN_PANELS..=geometry::MAX_PANELS).contains(&options.panels)
-    {
-        return Err(SectionError::Panel {
-            airfoil: name(),
-            error: PanelError::Geometry(GeometryError::PanelCount(options.panels)),
-        });
-    }
+    Ok((exact, naca))
+}
+
+/// The checked contour of `airfoil` for the panel-based methods.
+fn build_contour(
+    airfoil: &Airfoil,
+    exact: &Option<ExactSolution>,
+    naca: &Option<NacaProfile>,
+    options: &SectionOptions,
+) -> Result<Contour, SectionError> {
+    let geometry_err = |error| SectionError::Geometry {
+        airfoil: airfoil.name.clone(),
+        error,
+    };
     let shape_points = (options.panels * SHAPE_POINTS_PER_PANEL).clamp(400, MAX_SHAPE_POINTS);
-    let raw: Vec<[f64; 2]> = match (&airfoil.shape, &exact, &naca) {
+    let raw: Vec<[f64; 2]> = match (&airfoil.shape, exact, naca) {
         (_, Some(ExactSolution::Joukowski(j)), _) => j.coordinates(shape_points),
         (_, Some(ExactSolution::KarmanTrefftz(k)), _) => k.coordinates(shape_points),
         (_, _, Some(profile)) => profile.coordinates(shape_points / 2),
@@ -426,34 +598,42 @@ pub fn solve_section(
         // Every shape is exact, NACA or coordinates; kept as an error rather than a panic.
         _ => return Err(geometry_err(GeometryError::Degenerate)),
     };
-    let contour = match naca {
+    match naca {
         // NACA coordinates have the leading edge of their chord line at the middle point. On
         // thick, strongly cambered sections the surface runs ahead of that point; their chord
         // then starts at the point farthest from the trailing edge, as for a file.
         Some(_) => Contour::with_leading_edge(&raw, raw.len() / 2).or_else(|_| Contour::new(&raw)),
         None => Contour::new(&raw),
     }
-    .map_err(geometry_err)?;
-    match method {
-        SectionMethod::Thin => {
-            let line =
-                SampledMeanLine::new(contour.mean_line(MEAN_LINE_STATIONS)).map_err(|error| {
-                    SectionError::MeanLine {
-                        airfoil: name(),
-                        error,
-                    }
-                })?;
-            Ok(SectionSolution::Thin(ThinAirfoil::solve(&line)))
+    .map_err(geometry_err)
+}
+
+/// The viscous polar of `airfoil` at `settings` (Reynolds number, N, panels) over
+/// `alphas_rad`: the boundary layer on the panel method ([`viscous`], [`polar`]).
+pub fn viscous_polar(
+    airfoil: &Airfoil,
+    settings: viscous::ViscousSettings,
+    alphas_rad: &[f64],
+) -> Result<polar::Polar, SectionError> {
+    let name = || airfoil.name.clone();
+    let (exact, naca) = shape_solutions(airfoil)?;
+    let contour = build_contour(
+        airfoil,
+        &exact,
+        &naca,
+        &SectionOptions {
+            panels: settings
+                .panels
+                .clamp(geometry::MIN_PANELS, geometry::MAX_PANELS),
+        },
+    )?;
+    let section = viscous::ViscousSection::new(&contour, settings).map_err(|error| {
+        SectionError::Viscous {
+            airfoil: name(),
+            error,
         }
-        _ => Ok(SectionSolution::Panel(
-            PanelSolution::solve(&contour, options.panels).map_err(|error| {
-                SectionError::Panel {
-                    airfoil: name(),
-                    error,
-                }
-            })?,
-        )),
-    }
+    })?;
+    Ok(polar::Polar::sweep(&section, alphas_rad))
 }
 
 /// Half-width of the angle step either side of zero lift used for the aerodynamic centre, rad.
@@ -461,6 +641,34 @@ const AC_STEP_RAD: f64 = 0.02;
 
 /// Largest cl_max accepted.
 const CL_MAX_LIMIT: f64 = 3.0;
+
+/// cl_max of `airfoil`: as given (checked), or the conservative default with its caution.
+fn resolve_cl_max(airfoil: &Airfoil) -> Result<(f64, ClMaxSource, Vec<Caution>), SectionError> {
+    let mut cautions = Vec::new();
+    let (cl_max, cl_max_source) = match airfoil.cl_max {
+        Some(v) if v.is_finite() && v > 0.0 && v <= CL_MAX_LIMIT => (v, ClMaxSource::Given),
+        Some(value) => {
+            return Err(SectionError::ClMax {
+                airfoil: airfoil.name.clone(),
+                value,
+            })
+        }
+        None => {
+            cautions.push(Caution::new(
+                Level::Warning,
+                "cl-max-default",
+                format!(
+                    "Airfoil '{}' has no cl_max; the conservative default {DEFAULT_CL_MAX:.1} is \
+                     assumed. Give the section's cl_max at your Reynolds number for a better \
+                     stall estimate.",
+                    airfoil.name
+                ),
+            ));
+            (DEFAULT_CL_MAX, ClMaxSource::Default)
+        }
+    };
+    Ok((cl_max, cl_max_source, cautions))
+}
 
 /// Reduces a solution to the section model of `airfoil` (see the module documentation).
 pub fn model_from_solution(
@@ -499,29 +707,7 @@ pub fn model_from_solution(
     if !cm_ac.is_finite() {
         return Err(not_finite("moment coefficient"));
     }
-    let mut cautions = Vec::new();
-    let (cl_max, cl_max_source) = match airfoil.cl_max {
-        Some(v) if v.is_finite() && v > 0.0 && v <= CL_MAX_LIMIT => (v, ClMaxSource::Given),
-        Some(value) => {
-            return Err(SectionError::ClMax {
-                airfoil: airfoil.name.clone(),
-                value,
-            })
-        }
-        None => {
-            cautions.push(Caution::new(
-                Level::Warning,
-                "cl-max-default",
-                format!(
-                    "Airfoil '{}' has no cl_max; the conservative default {DEFAULT_CL_MAX:.1} is \
-                     assumed. Give the section's cl_max at your Reynolds number for a better \
-                     stall estimate.",
-                    airfoil.name
-                ),
-            ));
-            (DEFAULT_CL_MAX, ClMaxSource::Default)
-        }
-    };
+    let (cl_max, cl_max_source, cautions) = resolve_cl_max(airfoil)?;
     let cl_at_zero_alpha = -slope * alpha0;
     let cl_min = (-cl_max + 2.0 * cl_at_zero_alpha).min(-0.25 * cl_max);
     Ok(SectionOutcome {
@@ -534,6 +720,8 @@ pub fn model_from_solution(
             cl_max,
             cl_min,
             cl_max_source,
+            reynolds_number: None,
+            polar: None,
         },
         cautions,
     })
@@ -591,6 +779,8 @@ mod tests {
             shape,
             cl_max: None,
             method,
+            reynolds: None,
+            transition_n: None,
         }
     }
 

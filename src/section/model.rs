@@ -7,6 +7,8 @@
 //! critical-section stall estimate needs; it says nothing about the post-stall drop.
 
 use crate::model::SectionMethod;
+use crate::section::polar::Polar;
+use std::sync::Arc;
 
 /// Where a section's cl_max came from.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -22,7 +24,7 @@ pub enum ClMaxSource {
 pub const DEFAULT_CL_MAX: f64 = 1.0;
 
 /// Lift and moment characteristics of one airfoil section (2-D, incompressible).
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct SectionModel {
     /// Method that produced the numbers.
     pub method: SectionMethod,
@@ -40,9 +42,91 @@ pub struct SectionModel {
     pub cl_min: f64,
     /// Where `cl_max` came from.
     pub cl_max_source: ClMaxSource,
+    /// Chord Reynolds number the numbers were computed at (`None`: an inviscid method).
+    pub reynolds_number: Option<f64>,
+    /// The viscous polar behind the numbers, for a wing model that takes cl(alpha) and
+    /// cd(cl) per station (`None`: an inviscid method). Shared, not copied, between the
+    /// stations that use the same section.
+    pub polar: Option<Arc<Polar>>,
+}
+
+impl LiftPoint {
+    /// Beyond the end of a polar the curve is held flat: detached when `beyond`.
+    fn clamp_attached(mut self, beyond: bool) -> Self {
+        if beyond {
+            self.attached = false;
+            self.slope_per_rad = 0.0;
+        }
+        self
+    }
+}
+
+/// One point of a section's lift curve as the wing model uses it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct LiftPoint {
+    /// Lift coefficient.
+    pub cl: f64,
+    /// Its slope dcl/dalpha there, per rad (zero on a stall limit).
+    pub slope_per_rad: f64,
+    /// False on a stall limit (cl held at cl_max or cl_min).
+    pub attached: bool,
 }
 
 impl SectionModel {
+    /// The lift curve the wing model's strip relation uses, at the section's angle of attack
+    /// `alpha_rad` from its chord line, with the zero-lift angle moved by `zero_shift_rad` (a
+    /// flap's effect). Without a polar: the linear curve with the flat-top stall. With a
+    /// viscous polar: its converged points interpolated linearly (moved by the same shift),
+    /// held flat beyond its last point on either side, and never above `cl_max` nor below
+    /// `cl_min` (the stall limits in force stay the ones the analysis states).
+    pub fn lift_point(&self, alpha_rad: f64, zero_shift_rad: f64) -> LiftPoint {
+        let limited = |cl: f64, slope: f64| {
+            if cl > self.cl_max {
+                LiftPoint {
+                    cl: self.cl_max,
+                    slope_per_rad: 0.0,
+                    attached: false,
+                }
+            } else if cl < self.cl_min {
+                LiftPoint {
+                    cl: self.cl_min,
+                    slope_per_rad: 0.0,
+                    attached: false,
+                }
+            } else {
+                LiftPoint {
+                    cl,
+                    slope_per_rad: slope,
+                    attached: true,
+                }
+            }
+        };
+        if let Some(p) = self.polar.as_deref() {
+            let pts: Vec<(f64, f64)> = p.points().map(|q| (q.alpha_rad, q.cl)).collect();
+            if pts.len() >= 2 {
+                let a = alpha_rad - zero_shift_rad;
+                let (first, last) = (pts[0], pts[pts.len() - 1]);
+                if a <= first.0 {
+                    return limited(first.1, 0.0).clamp_attached(a < first.0);
+                }
+                if a >= last.0 {
+                    return limited(last.1, 0.0).clamp_attached(a > last.0);
+                }
+                for w in pts.windows(2) {
+                    let ((a0, c0), (a1, c1)) = (w[0], w[1]);
+                    if a <= a1 && a1 > a0 {
+                        let slope = (c1 - c0) / (a1 - a0);
+                        return limited(c0 + slope * (a - a0), slope);
+                    }
+                }
+            }
+        }
+        limited(
+            self.cl_alpha_per_rad * (alpha_rad - zero_shift_rad - self.alpha_zero_lift_rad),
+            self.cl_alpha_per_rad,
+        )
+    }
+
     /// Lift coefficient at angle of attack `alpha_rad` (flat-top stall model).
     pub fn cl(&self, alpha_rad: f64) -> f64 {
         self.cl_linear(alpha_rad).clamp(self.cl_min, self.cl_max)
@@ -95,6 +179,15 @@ impl SectionModel {
             } else {
                 ClMaxSource::Given
             },
+            reynolds_number: match (self.reynolds_number, other.reynolds_number) {
+                (Some(a), Some(b)) => Some(mix(a, b)),
+                (a, b) => a.or(b),
+            },
+            polar: if w < 0.5 {
+                self.polar.clone()
+            } else {
+                other.polar.clone()
+            },
         }
     }
 }
@@ -114,6 +207,8 @@ mod tests {
             cl_max: 1.0,
             cl_min: -1.0,
             cl_max_source: ClMaxSource::Given,
+            reynolds_number: None,
+            polar: None,
         }
     }
 

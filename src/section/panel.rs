@@ -79,16 +79,34 @@ pub struct PanelPoint {
     pub cp: f64,
 }
 
-impl PanelSolution {
-    /// Re-panels `contour` with `panels` cosine-spaced panels and solves.
-    pub fn solve(contour: &Contour, panels: usize) -> Result<PanelSolution, PanelError> {
-        let nodes = contour.repanel(panels)?;
-        Self::solve_nodes(&nodes)
-    }
+/// The assembled linear-vortex panel equations of one contour, factored once: the geometry in
+/// the method's clockwise order (lower trailing edge -> lower surface -> leading edge -> upper
+/// surface -> upper trailing edge) and the LU factors of the influence matrix with its Kutta
+/// row. Shared by the inviscid solution and the viscous coupling, which adds the normal
+/// velocity of surface sources to the right-hand side.
+#[derive(Debug, Clone)]
+pub struct PanelSystem {
+    /// Panel corners, clockwise, N + 1.
+    pub(crate) nodes: Vec<[f64; 2]>,
+    /// Panel midpoints, clockwise.
+    pub(crate) midpoints: Vec<[f64; 2]>,
+    /// Unit tangents (node j to node j + 1).
+    pub(crate) tangents: Vec<[f64; 2]>,
+    /// Unit outward normals.
+    pub(crate) normals: Vec<[f64; 2]>,
+    /// Panel lengths.
+    pub(crate) lengths: Vec<f64>,
+    a: DMatrix<f64>,
+    lu: nalgebra::LU<f64, nalgebra::Dyn, nalgebra::Dyn>,
+}
 
-    /// Solves on the given nodes (contour order: trailing edge -> upper -> leading edge ->
-    /// lower -> trailing edge, chord fractions), taking them as the panel corners as they are.
-    pub fn solve_nodes(nodes_ccw: &[[f64; 2]]) -> Result<PanelSolution, PanelError> {
+/// Relative residual above which a panel solve is refused as ill-conditioned.
+const RESIDUAL_LIMIT: f64 = 1e-8;
+
+impl PanelSystem {
+    /// Builds and factors the equations on the given nodes (contour order: trailing edge ->
+    /// upper -> leading edge -> lower -> trailing edge, chord fractions).
+    pub fn assemble(nodes_ccw: &[[f64; 2]]) -> Result<PanelSystem, PanelError> {
         if nodes_ccw
             .iter()
             .any(|p| !p[0].is_finite() || !p[1].is_finite())
@@ -152,20 +170,115 @@ impl PanelSolution {
         }
         a[(n, 0)] = 1.0;
         a[(n, n)] = 1.0;
+        let lu = a.clone().lu();
+        Ok(PanelSystem {
+            nodes,
+            midpoints: mid,
+            tangents: tan,
+            normals: nor,
+            lengths: len,
+            a,
+            lu,
+        })
+    }
+
+    /// Number of panels.
+    pub fn panels(&self) -> usize {
+        self.lengths.len()
+    }
+
+    /// Solves for the node vortex strengths (N + 1 rows, clockwise) for each column of `rhs`
+    /// (minus the normal velocity at each midpoint, then 0 for the Kutta row), checking the
+    /// residual.
+    pub fn solve(&self, rhs: &DMatrix<f64>) -> Result<DMatrix<f64>, PanelError> {
+        let sol = self.lu.solve(rhs).ok_or(PanelError::Singular)?;
+        if sol.iter().any(|v| !v.is_finite()) {
+            return Err(PanelError::NotFinite);
+        }
+        let residual = (&self.a * &sol - rhs).norm() / rhs.norm().max(f64::MIN_POSITIVE);
+        if residual.is_nan() || residual >= RESIDUAL_LIMIT {
+            return Err(PanelError::IllConditioned(residual));
+        }
+        Ok(sol)
+    }
+
+    /// Normal velocity at each midpoint, on the inner side of the surface, induced by unit
+    /// constant-strength source panels (column j: panel j of strength 1), followed by one
+    /// column per extra source panel in `extra` (start point, unit tangent, length), which lie
+    /// off the surface. A source sheet's normal velocity jumps by its strength across the
+    /// sheet: on the inner side of its own panel it is -1/2 (Katz & Plotkin, sec. 10.2.1,
+    /// constant-strength source element).
+    pub fn source_normal_influence(&self, extra: &[([f64; 2], [f64; 2], f64)]) -> DMatrix<f64> {
+        let n = self.panels();
+        let mut b = DMatrix::<f64>::zeros(n, n + extra.len());
+        for i in 0..n {
+            let ni = self.normals[i];
+            for j in 0..n + extra.len() {
+                let g = if i == j {
+                    [-0.5 * ni[0], -0.5 * ni[1]]
+                } else if j < n {
+                    source_panel_velocity(
+                        self.nodes[j],
+                        self.tangents[j],
+                        self.lengths[j],
+                        self.midpoints[i],
+                    )
+                } else {
+                    let (p0, t, l) = extra[j - n];
+                    source_panel_velocity(p0, t, l, self.midpoints[i])
+                };
+                b[(i, j)] = g[0] * ni[0] + g[1] * ni[1];
+            }
+        }
+        b
+    }
+}
+
+/// Velocity at `point` induced by a straight source panel of unit strength from `start` along
+/// the unit `tangent`, `length` long: in the panel frame `u = ln(r1^2/r2^2) / (4 pi)`, `w =
+/// (theta_2 - theta_1) / (2 pi)` (Katz & Plotkin, sec. 10.2.1), the left normal being +w.
+/// Not for points on the panel itself.
+pub fn source_panel_velocity(
+    start: [f64; 2],
+    tangent: [f64; 2],
+    length: f64,
+    point: [f64; 2],
+) -> [f64; 2] {
+    let inv2pi = 0.5 / PI;
+    let nn = [-tangent[1], tangent[0]];
+    let d = [point[0] - start[0], point[1] - start[1]];
+    let (x, z) = (
+        d[0] * tangent[0] + d[1] * tangent[1],
+        d[0] * nn[0] + d[1] * nn[1],
+    );
+    let l = length;
+    let r1sq = x * x + z * z;
+    let r2sq = (x - l) * (x - l) + z * z;
+    let dtheta = (z * l).atan2(x * (x - l) + z * z);
+    let (u, w) = (inv2pi * 0.5 * (r1sq / r2sq).ln(), inv2pi * dtheta);
+    [u * tangent[0] + w * nn[0], u * tangent[1] + w * nn[1]]
+}
+
+impl PanelSolution {
+    /// Re-panels `contour` with `panels` cosine-spaced panels and solves.
+    pub fn solve(contour: &Contour, panels: usize) -> Result<PanelSolution, PanelError> {
+        let nodes = contour.repanel(panels)?;
+        Self::solve_nodes(&nodes)
+    }
+
+    /// Solves on the given nodes (contour order: trailing edge -> upper -> leading edge ->
+    /// lower -> trailing edge, chord fractions), taking them as the panel corners as they are.
+    pub fn solve_nodes(nodes_ccw: &[[f64; 2]]) -> Result<PanelSolution, PanelError> {
+        let sys = PanelSystem::assemble(nodes_ccw)?;
+        let n = sys.panels();
+        let (nor, len) = (&sys.normals, &sys.lengths);
+        let mid = &sys.midpoints;
         let mut rhs = DMatrix::<f64>::zeros(n + 1, 2);
         for i in 0..n {
             rhs[(i, 0)] = -nor[i][0];
             rhs[(i, 1)] = -nor[i][1];
         }
-        let lu = a.clone().lu();
-        let sol = lu.solve(&rhs).ok_or(PanelError::Singular)?;
-        if sol.iter().any(|v| !v.is_finite()) {
-            return Err(PanelError::NotFinite);
-        }
-        let residual = (&a * &sol - &rhs).norm() / rhs.norm().max(f64::MIN_POSITIVE);
-        if residual.is_nan() || residual >= 1e-8 {
-            return Err(PanelError::IllConditioned(residual));
-        }
+        let sol = sys.solve(&rhs)?;
         let gx: DVector<f64> = sol.column(0).into_owned();
         let gy: DVector<f64> = sol.column(1).into_owned();
         let circulation =

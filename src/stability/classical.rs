@@ -12,8 +12,10 @@
 //! - downwash gradient at the tail `d eps / d alpha = 2 a_w / (pi A)` (elliptic loading, far
 //!   wake);
 //! - neutral point, lift-weighted form, `x_n = (a_w x_w + k x_t) / (a_w + k)` with
-//!   `k = (S_t / S) a_t (1 - d eps / d alpha)` and tail efficiency 1; for a canard the
-//!   foreplane is taken outside the wing's flow field (k without the downwash factor);
+//!   `k = eta (S_t / S) a_t (1 - d eps / d alpha)` with the tail efficiency (dynamic-pressure
+//!   ratio) eta of the file; for a canard the foreplane is taken outside the wing's flow field
+//!   (k without the downwash factor);
+//! - the stabiliser's lift and moment in trim are eta times their free-stream values;
 //! - trim: total Cm about the CG (wing and stabiliser lift with their arms, plus their cm_ac)
 //!   is linear in the body angle; trim is where it is zero, and the trim speed follows from
 //!   `W = 1/2 rho V^2 S CL`;
@@ -67,6 +69,13 @@ pub struct EquivalentSurface {
     pub lift_slope_per_rad: f64,
     /// x of the aerodynamic centre (MAC quarter chord), m.
     pub x_ac_m: f64,
+    /// Area that acts in pitch, m^2: the true (in-plane) area times cos^2 of the mean dihedral,
+    /// which is the projected area times the cosine (the V-tail projection of Purser and
+    /// Campbell, NACA Report 823, 1945); equal to the area of a flat surface.
+    pub pitch_area_m2: f64,
+    /// Helmbold lift slope on the true (in-plane) aspect ratio, per rad: the slope that goes
+    /// with [`EquivalentSurface::pitch_area_m2`].
+    pub pitch_lift_slope_per_rad: f64,
 }
 
 /// Helmbold's lift slope for aspect ratio `aspect_ratio` and section slope `a0_per_rad`, per rad.
@@ -103,6 +112,12 @@ pub fn equivalent_surface(surface: &Surface, sections: &[SectionModel]) -> Equiv
     }
     let safe = |n: f64, d: f64| if d > 0.0 { n / d } else { 0.0 };
     let section_cl_alpha = safe(slope, w_c);
+    // cos of the mean dihedral = projected area / true area (exact for one straight panel).
+    let true_area = planform::true_area_m2(surface);
+    let cos_dihedral = safe(geometry.area_m2, true_area).min(1.0);
+    let pitch_area = geometry.area_m2 * cos_dihedral;
+    let true_span = 2.0 * s_total;
+    let true_aspect_ratio = safe(true_span * true_span, true_area);
     EquivalentSurface {
         geometry,
         incidence_rad: surface.incidence_rad,
@@ -117,6 +132,8 @@ pub fn equivalent_surface(surface: &Surface, sections: &[SectionModel]) -> Equiv
         },
         lift_slope_per_rad: helmbold_lift_slope(section_cl_alpha, geometry.aspect_ratio),
         x_ac_m: geometry.mac_quarter_x_m(),
+        pitch_area_m2: pitch_area,
+        pitch_lift_slope_per_rad: helmbold_lift_slope(section_cl_alpha, true_aspect_ratio),
     }
 }
 
@@ -152,6 +169,11 @@ pub struct EstimateInput<'a> {
     /// Fuselage contribution to dCm/dalpha, per rad (0 without a fuselage); see
     /// [`crate::stability::fuselage`].
     pub fuselage_cm_alpha_per_rad: f64,
+    /// Stabiliser dynamic-pressure ratio eta (tail efficiency; 1 without a stabiliser).
+    pub stabiliser_dynamic_pressure_ratio: f64,
+    /// Multiplier on the downwash gradient 2 a_w / (pi A) (1 for the estimate itself; the
+    /// neutral-point uncertainty varies it, see [`super::uncertainty`]).
+    pub downwash_factor: f64,
 }
 
 /// Trim state from the closed-form estimate.
@@ -220,8 +242,8 @@ fn linear_model(input: &EstimateInput<'_>, x_ref_m: f64, downwash_gradient: f64)
         stab_cl_a: 0.0,
     };
     if let Some((t, _)) = input.stabiliser {
-        let a_t = t.lift_slope_per_rad;
-        let ratio = t.geometry.area_m2 / s;
+        let a_t = t.pitch_lift_slope_per_rad;
+        let ratio = input.stabiliser_dynamic_pressure_ratio * t.pitch_area_m2 / s;
         // Downwash eps = (d eps/d alpha) CL_w / a_w.
         let e0 = downwash_gradient * clw0 / a_w;
         let ct0 = a_t * (t.incidence_rad - t.alpha_zero_lift_rad - e0);
@@ -242,14 +264,16 @@ pub fn estimate(input: &EstimateInput<'_>) -> ClassicalEstimate {
     let w = input.wing;
     let a_w = w.lift_slope_per_rad;
     let downwash_gradient = match input.stabiliser {
-        Some((_, StabiliserPlace::Tail)) => 2.0 * a_w / (PI * w.geometry.aspect_ratio),
+        Some((_, StabiliserPlace::Tail)) => {
+            input.downwash_factor * 2.0 * a_w / (PI * w.geometry.aspect_ratio)
+        }
         _ => 0.0,
     };
     let neutral_point_x_m = match input.stabiliser {
         None => w.x_ac_m,
         Some((t, _)) => {
-            let k = t.geometry.area_m2 / w.geometry.area_m2
-                * t.lift_slope_per_rad
+            let k = input.stabiliser_dynamic_pressure_ratio * t.pitch_area_m2 / w.geometry.area_m2
+                * t.pitch_lift_slope_per_rad
                 * (1.0 - downwash_gradient);
             (a_w * w.x_ac_m + k * t.x_ac_m) / (a_w + k)
         }

@@ -7,3 +7,4 @@
 pub mod classical;
 pub mod fuselage;
 pub mod trim;
+pub mod uncertainty;

@@ -11,7 +11,29 @@
 //!
 //! The aircraft's maximum lift is the trimmed C_L at which the first station of any surface
 //! reaches its section cl_max (the critical-section method): conservative, since the rest of
-//! the span could still gain lift.
+//! the span could still gain lift. The stabiliser's negative limit counts too: when trimming
+//! towards the wing's stall drives a station of the stabiliser down to its section cl_min
+//! first (a heavy download at a forward CG), the stall speed is where that happens, and the
+//! forward CG limit is where the stabiliser just reaches cl_min at the wing's stall.
+//!
+//! Tail efficiency (the dynamic-pressure ratio eta of [`crate::model::Stabiliser`]) enters by
+//! referring the stabiliser's section data to the free stream's dynamic pressure: its cl_max,
+//! cl_min and cm_ac are multiplied by eta, and its section lift slope is lowered so that the
+//! stabiliser's own finite-span lift slope is eta times its value (Prandtl's relation
+//! 1/a_3D = 1/a_0 + 1/(pi A) solved for the section slope; scaling the section slope by eta
+//! alone would lower the 3-D slope by less, since the surface's own induced angle would fall
+//! with it). The stabiliser's lift, moment, downwash response and stall limits are then eta
+//! times their free-stream values, as in the textbook tail term `eta (S_t/S) a_t (1 - d eps/d
+//! alpha)`. The surfaces' own unit solutions are not touched, so this works with any solver
+//! behind [`MultiSurfaceSystem`] that takes section lift slopes.
+//!
+//! Pitch-control deflections carry the empirical plain-flap correction of
+//! [`crate::section::flap_correction`]: the system is built with Glauert's linear effect per
+//! radian of *lift-equivalent* deflection (factor times deflection); every deflection the
+//! system returns is turned back into the real deflection that produces it (the smallest
+//! one), and full throw is turned into the largest lift-equivalent deflection the throw can
+//! give. A deflection-dependent factor would then be used at the deflection actually needed,
+//! without iteration.
 //!
 //! # References
 //! - W. F. Phillips, D. O. Snyder, "Modern adaptation of Prandtl's classic lifting-line
@@ -25,9 +47,10 @@
 
 use crate::lifting_line::{
     ElevatorEffect, FlightCondition, LiftingLineError, LiftingLineOptions, LiftingLineResult,
-    MultiSurfaceSystem, StationResult, TrimControl,
+    MultiSurfaceSystem, Reference, StationResult, SurfaceInput, TrimControl, TrimPoint,
 };
-use crate::model::{Aircraft, StabiliserRole};
+use crate::model::{Aircraft, PitchControl, StabiliserRole};
+use crate::section::flap_correction;
 use crate::section::SectionModel;
 
 /// Standard gravity, m/s^2.
@@ -111,8 +134,34 @@ pub struct FullStall {
     pub elevator_rad: f64,
     /// True when the stall state was trimmed with the elevator.
     pub trimmed: bool,
+    /// Which limit sets the stall.
+    pub limit: StallLimit,
     /// The full solution at the stall angle (spanwise cl against cl_max).
     pub result: LiftingLineResult,
+}
+
+/// What limits the slowest trimmed flight.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum StallLimit {
+    /// A station of some surface reaches its cl_max (the critical-section stall).
+    ClMax,
+    /// A station of the stabiliser reaches its negative limit cl_min first, before any
+    /// station reaches cl_max; the positive stall would have come at these figures.
+    StabiliserClMin {
+        /// C_L at which the first station would reach cl_max.
+        cl_max_otherwise: f64,
+        /// The speed of that stall, m/s.
+        speed_otherwise_m_s: f64,
+    },
+}
+
+/// What sets the forward CG limit found from pitch control.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum ForwardLimitCause {
+    /// Full up elevator (or elevon) just holds the stall there.
+    ControlAuthority,
+    /// The stabiliser just reaches its negative limit cl_min at the stall there.
+    StabiliserClMin,
 }
 
 /// One point of the elevator schedule.
@@ -126,6 +175,8 @@ pub struct ElevatorPoint {
     pub elevator_rad: f64,
     /// True when the deflection is within the elevator's throws.
     pub within_limits: bool,
+    /// True when the stabiliser is at its negative limit (cl_min) in that trimmed state.
+    pub stabiliser_at_cl_min: bool,
 }
 
 /// The stabiliser incidence that trims at a target speed with neutral elevator.
@@ -177,8 +228,11 @@ pub struct FullStability {
     pub trim: Option<FullTrim>,
     /// Critical-section stall.
     pub stall: Option<FullStall>,
-    /// CG at which full up elevator just holds the stall: the forward limit pilots meet, m.
+    /// CG at which full up elevator just holds the stall, or the stabiliser just reaches its
+    /// negative limit there, whichever is further aft: the forward limit pilots meet, m.
     pub elevator_forward_limit_x_m: Option<f64>,
+    /// What sets that limit.
+    pub forward_limit_cause: ForwardLimitCause,
     /// Stabiliser incidence for the target speed.
     pub decalage_for_target: Option<DecalageSolve>,
     /// CG that trims at the target speed with the present incidences, m.
@@ -192,9 +246,69 @@ pub struct FullStability {
     pub tailless: Option<TaillessCheck>,
 }
 
+/// A section's data referred to the free stream's dynamic pressure for a surface working at
+/// `eta` times it, on a surface of aspect ratio `aspect_ratio` (see the module doc): cl limits
+/// and cm_ac times eta, the lift slope lowered so that the surface's finite-span slope is eta
+/// times its own. eta = 1 returns the section unchanged.
+pub fn referred_to_free_stream(
+    section: &SectionModel,
+    eta: f64,
+    aspect_ratio: f64,
+) -> SectionModel {
+    let a0 = section.cl_alpha_per_rad;
+    let a = if aspect_ratio > 0.0 && a0 > 0.0 && eta > 0.0 {
+        1.0 / (1.0 / (eta * a0) + (1.0 / eta - 1.0) / (std::f64::consts::PI * aspect_ratio))
+    } else {
+        eta * a0
+    };
+    SectionModel {
+        cl_alpha_per_rad: a,
+        cm_ac: eta * section.cm_ac,
+        cl_max: eta * section.cl_max,
+        cl_min: eta * section.cl_min,
+        ..section.clone()
+    }
+}
+
+/// The deflection the linear model uses for a real pitch-control deflection (the correction
+/// applied); an all-moving surface is not corrected.
+pub fn model_deflection_rad(control: &PitchControl, real_rad: f64) -> f64 {
+    if control.chord_fraction > 0.0 {
+        flap_correction::effective_deflection_rad(control.chord_fraction, real_rad)
+    } else {
+        real_rad
+    }
+}
+
+/// The real deflection that gives the linear model's deflection `model_rad` (the smallest
+/// one); beyond the chart's 60 deg its last factor is held.
+pub fn real_deflection_rad(control: &PitchControl, model_rad: f64) -> f64 {
+    if control.chord_fraction > 0.0 {
+        flap_correction::deflection_for_effective_rad(control.chord_fraction, model_rad)
+            .unwrap_or_else(|| {
+                let top = flap_correction::CHART_MAX_DEFLECTION_DEG.to_radians();
+                model_rad / flap_correction::lift_effectiveness_factor(control.chord_fraction, top)
+            })
+    } else {
+        model_rad
+    }
+}
+
+/// The largest trailing-edge-up deflection of the linear model that full up throw gives, rad
+/// (a negative number).
+fn model_full_up_rad(control: &PitchControl) -> f64 {
+    if control.chord_fraction > 0.0 {
+        -flap_correction::max_effective_deflection_rad(control.chord_fraction, control.max_up_rad)
+    } else {
+        -control.max_up_rad
+    }
+}
+
 /// Build the lifting-line system of an aircraft with its pitch control, the stabiliser's
-/// elevator or a tailless wing's elevons (Glauert plain flap; the flap theory moment is about
-/// the quarter chord, which is where the section models carry it).
+/// elevator or a tailless wing's elevons (Glauert plain flap per radian of lift-equivalent
+/// deflection; the flap theory moment is about the quarter chord, which is where the section
+/// models carry it), and the stabiliser referred to the free stream by its dynamic-pressure
+/// ratio.
 pub fn build_system(
     aircraft: &Aircraft,
     sections: &[SectionModel],
@@ -214,7 +328,81 @@ pub fn build_system(
             ..effect
         })
     });
-    MultiSurfaceSystem::from_aircraft(aircraft, sections, elevator, options)
+    let stabiliser_sections: Vec<SectionModel> = match &aircraft.stabiliser {
+        Some(stab) => {
+            let aspect_ratio = crate::planform::geometry(&stab.surface).aspect_ratio;
+            sections
+                .iter()
+                .map(|s| referred_to_free_stream(s, stab.dynamic_pressure_ratio, aspect_ratio))
+                .collect()
+        }
+        None => Vec::new(),
+    };
+    let mut inputs = vec![SurfaceInput {
+        surface: &aircraft.wing,
+        sections,
+        elevator: if aircraft.stabiliser.is_none() {
+            elevator
+        } else {
+            None
+        },
+    }];
+    if let Some(stab) = &aircraft.stabiliser {
+        let eta = stab.dynamic_pressure_ratio;
+        inputs.push(SurfaceInput {
+            surface: &stab.surface,
+            sections: &stabiliser_sections,
+            elevator: elevator.map(|e| ElevatorEffect {
+                dcm_ac_per_rad_deflection: eta * e.dcm_ac_per_rad_deflection,
+                ..e
+            }),
+        });
+    }
+    MultiSurfaceSystem::new(&inputs, Reference::of_surface(&aircraft.wing), options)
+}
+
+/// Least margin of the stabiliser's stations above their negative limit in `result`
+/// (cl - cl_min, free-stream based); `None` without a stabiliser. A station held at cl_min
+/// by the flat-top model shows zero.
+fn stabiliser_negative_margin(
+    system: &MultiSurfaceSystem,
+    result: &LiftingLineResult,
+) -> Option<(f64, usize)> {
+    result
+        .stations
+        .iter()
+        .zip(system.stations())
+        .enumerate()
+        .filter(|(_, (r, _))| r.surface == 1)
+        .map(|(i, (r, s))| (r.cl - s.section.cl_min, i))
+        .min_by(|a, b| a.0.total_cmp(&b.0))
+}
+
+/// Margin below which a stabiliser station counts as at its negative limit (the flat-top
+/// model holds it exactly at cl_min once there; 1e-9 is round-off).
+const AT_LIMIT: f64 = 1e-9;
+
+/// Whether the stabiliser is at or past its negative limit in the trimmed state `tp`.
+fn stabiliser_at_cl_min(
+    system: &MultiSurfaceSystem,
+    base: &FlightCondition,
+    tp: &TrimPoint,
+    control: TrimControl,
+) -> Result<Option<usize>, LiftingLineError> {
+    let mut cond = base.clone();
+    cond.alpha_rad = tp.alpha_rad;
+    match control {
+        TrimControl::Elevator => cond.elevator_rad = tp.control_rad,
+        TrimControl::Incidence(s) => {
+            if let Some(v) = cond.incidence_change_rad.get_mut(s) {
+                *v = tp.control_rad;
+            }
+        }
+    }
+    let result = system.solve(&cond)?;
+    Ok(stabiliser_negative_margin(system, &result)
+        .filter(|(m, _)| *m <= AT_LIMIT)
+        .map(|(_, i)| i))
 }
 
 /// CL at speed `v` for weight `m g` on area `s`.
@@ -233,18 +421,21 @@ pub fn full_stability(input: &TrimInput<'_>) -> Result<FullStability, LiftingLin
     full_stability_on(&system, input, None)
 }
 
+/// A forward CG limit from pitch control (m aft of the datum, or none) and what sets it.
+type ForwardLimit = (Option<f64>, ForwardLimitCause);
+
 /// Forward CG limits already found on one system, remembered by what they depend on: the
 /// CG height (the moment reference's z), the control's full-up throw and the fuselage term.
 /// The limit does not depend on the CG's x or on the mass (the trimmed stall is solved in
 /// coefficients), so a study over CG positions and masses finds it once per system.
 #[derive(Debug, Default)]
 pub struct ForwardLimitMemo {
-    found: std::sync::Mutex<Vec<([u64; 3], Option<f64>)>>,
+    found: std::sync::Mutex<Vec<([u64; 3], ForwardLimit)>>,
 }
 
 impl ForwardLimitMemo {
     /// The remembered limit for `key`, or `compute()` (then remembered).
-    fn get_or(&self, key: [f64; 3], compute: impl FnOnce() -> Option<f64>) -> Option<f64> {
+    fn get_or(&self, key: [f64; 3], compute: impl FnOnce() -> ForwardLimit) -> ForwardLimit {
         let key = key.map(f64::to_bits);
         let known = self
             .found
@@ -278,6 +469,11 @@ pub fn full_stability_on(
     let z = input.cg_z_m;
     let base = system.condition(0.0);
     let pitch_control = input.aircraft.pitch_control();
+    let eta = input
+        .aircraft
+        .stabiliser
+        .as_ref()
+        .map_or(1.0, |s| s.dynamic_pressure_ratio);
 
     let coeffs = system.linear_coefficients(&base, input.cg_x_m, z)?;
     let cl_alpha = coeffs.cl_alpha_per_rad;
@@ -310,7 +506,9 @@ pub fn full_stability_on(
                 alpha_rad: tp.alpha_rad,
                 cl: result.cl,
                 speed_m_s: speed,
-                stabiliser_cl: stab.map_or(0.0, |s| s.cl_own_area),
+                // The system's stabiliser coefficients are on the free stream's dynamic
+                // pressure; its own cl is on the dynamic pressure it meets.
+                stabiliser_cl: stab.map_or(0.0, |s| s.cl_own_area) / eta,
                 stabiliser_load_n: stab.map_or(0.0, |s| s.cl * q * area),
                 span_efficiency: result.span_efficiency,
                 downwash_rad,
@@ -323,8 +521,10 @@ pub fn full_stability_on(
     };
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
+    let map = StationMap::of(system, &base)?;
     let stall = stall_at(
         system,
+        map.as_ref(),
         &base,
         pitch_control.is_some(),
         eff(input.cg_x_m),
@@ -339,13 +539,15 @@ pub fn full_stability_on(
         .stabiliser
         .as_ref()
         .is_some_and(|s| s.role == StabiliserRole::Canard);
-    let elevator_forward_limit_x_m = match pitch_control {
+    let (elevator_forward_limit_x_m, forward_limit_cause) = match pitch_control {
         Some(p) if !is_canard => {
+            let full_up_rad = model_full_up_rad(p);
             let find = || {
                 elevator_limit(
                     system,
+                    map.as_ref(),
                     &base,
-                    -p.max_up_rad,
+                    full_up_rad,
                     neutral_point_x_m,
                     c,
                     z,
@@ -353,11 +555,11 @@ pub fn full_stability_on(
                 )
             };
             match memo {
-                Some(m) => m.get_or([z, p.max_up_rad, input.fuselage_cm_alpha_per_rad], find),
+                Some(m) => m.get_or([z, full_up_rad, input.fuselage_cm_alpha_per_rad], find),
                 None => find(),
             }
         }
-        _ => None,
+        _ => (None, ForwardLimitCause::ControlAuthority),
     };
 
     // Solves for a target speed: only for a stable aircraft (with the CG behind the neutral
@@ -406,12 +608,15 @@ pub fn full_stability_on(
                 if let Ok(tp) =
                     system.trim_for_cl(&base, TrimControl::Elevator, cl, eff(input.cg_x_m), z)
                 {
-                    let d = tp.control_rad;
+                    let d = real_deflection_rad(control, tp.control_rad);
+                    let stalled =
+                        stabiliser_at_cl_min(system, &base, &tp, TrimControl::Elevator)?.is_some();
                     elevator_schedule.push(ElevatorPoint {
                         speed_m_s: v,
                         cl,
                         elevator_rad: d,
                         within_limits: control.within_throws(d),
+                        stabiliser_at_cl_min: stalled,
                     });
                 }
             }
@@ -442,6 +647,7 @@ pub fn full_stability_on(
         trim,
         stall,
         elevator_forward_limit_x_m,
+        forward_limit_cause,
         decalage_for_target,
         cg_for_target_x_m,
         elevator_schedule,
@@ -450,9 +656,192 @@ pub fn full_stability_on(
     })
 }
 
+/// The first limit met on the trimmed path.
+struct TrimmedLimit {
+    /// The trimmed state there.
+    point: TrimPoint,
+    /// Its full solution.
+    result: LiftingLineResult,
+    /// The station at its limit (index in the system's stations).
+    station: usize,
+    /// True when that is a stabiliser station at cl_min (otherwise a station at cl_max).
+    negative: bool,
+}
+
+/// Step of the scan along the trimmed path, in C_L (0.1: a stall is then bracketed within
+/// 0.1 and bisected; trimmed lift coefficients of models stay below about 2).
+const TRIM_PATH_CL_STEP: f64 = 0.1;
+/// Highest trimmed C_L scanned.
+const TRIM_PATH_CL_TOP: f64 = 4.0;
+
+/// Section cl of every station as a linear function of the angle of attack and the pitch
+/// control, `cl_i = c0_i + ca_i alpha + cd_i delta` (exact below the stall limits: the
+/// lifting-line equations are linear there), found from three solves; lets the trimmed path
+/// be searched without a full solve at every step.
+struct StationMap {
+    c0: Vec<f64>,
+    ca: Vec<f64>,
+    cd: Vec<f64>,
+}
+
+impl StationMap {
+    /// The map of `system` about `base`, or `None` when a sample solve is not in the linear
+    /// range (then the search solves each state in full).
+    fn of(
+        system: &MultiSurfaceSystem,
+        base: &FlightCondition,
+    ) -> Result<Option<StationMap>, LiftingLineError> {
+        const STEP_RAD: f64 = 0.01;
+        let r0 = system.solve(base)?;
+        let mut ca_cond = base.clone();
+        ca_cond.alpha_rad += STEP_RAD;
+        let ra = system.solve(&ca_cond)?;
+        let mut cd_cond = base.clone();
+        cd_cond.elevator_rad += STEP_RAD;
+        let rd = system.solve(&cd_cond)?;
+        let linear = crate::lifting_line::SolveStatus::Linear;
+        if r0.status != linear || ra.status != linear || rd.status != linear {
+            return Ok(None);
+        }
+        let cl = |r: &LiftingLineResult| r.stations.iter().map(|s| s.cl).collect::<Vec<_>>();
+        let (c_0, c_a, c_d) = (cl(&r0), cl(&ra), cl(&rd));
+        let (alpha0, delta0) = (base.alpha_rad, base.elevator_rad);
+        let ca: Vec<f64> = c_a
+            .iter()
+            .zip(&c_0)
+            .map(|(a, b)| (a - b) / STEP_RAD)
+            .collect();
+        let cd: Vec<f64> = c_d
+            .iter()
+            .zip(&c_0)
+            .map(|(a, b)| (a - b) / STEP_RAD)
+            .collect();
+        let c0 = c_0
+            .iter()
+            .zip(ca.iter().zip(&cd))
+            .map(|(c, (a, d))| c - a * alpha0 - d * delta0)
+            .collect();
+        Ok(Some(StationMap { c0, ca, cd }))
+    }
+}
+
+/// A station at its limit: its index, and true for a stabiliser station at cl_min.
+type Limit = (usize, bool);
+
+/// The station at its limit in a state with station lift coefficients `cls`: the one furthest
+/// past its cl_max (`false`), else, when `count_negative`, the stabiliser station furthest
+/// past its cl_min (`true`); `None` within the limits.
+fn limit_in(
+    system: &MultiSurfaceSystem,
+    cls: &[f64],
+    count_negative: bool,
+) -> Option<(usize, bool)> {
+    let stations = system.stations();
+    let pos = cls
+        .iter()
+        .zip(stations)
+        .enumerate()
+        .map(|(i, (cl, s))| (cl / s.section.cl_max, i))
+        .max_by(|a, b| a.0.total_cmp(&b.0))
+        .filter(|(r, _)| *r >= 1.0 - AT_LIMIT);
+    if let Some((_, i)) = pos {
+        return Some((i, false));
+    }
+    if !count_negative {
+        return None;
+    }
+    cls.iter()
+        .zip(stations)
+        .enumerate()
+        .filter(|(_, (_, s))| s.surface == 1)
+        .map(|(i, (cl, s))| (cl - s.section.cl_min, i))
+        .min_by(|a, b| a.0.total_cmp(&b.0))
+        .filter(|(m, _)| *m <= AT_LIMIT)
+        .map(|(_, i)| (i, true))
+}
+
+/// The first limit met as the trimmed C_L rises from zero (the aircraft slowing down, trimmed
+/// by the elevator about `x_ref`): a station of any surface at its cl_max, or, when
+/// `count_negative`, a stabiliser station at its cl_min. Only positive trimmed lift is
+/// searched, which is the flight range (a scan over the angle of attack would also meet
+/// limits at negative lift that are never flown).
+fn first_trimmed_limit(
+    system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
+    base: &FlightCondition,
+    x_ref: f64,
+    z: f64,
+    count_negative: bool,
+) -> Result<Option<TrimmedLimit>, LiftingLineError> {
+    let condition = |tp: &TrimPoint| {
+        let mut cond = base.clone();
+        cond.alpha_rad = tp.alpha_rad;
+        cond.elevator_rad = tp.control_rad;
+        cond
+    };
+    // The trimmed state at `cl` and the station at its limit there, if any.
+    let state = |cl: f64| -> Result<Option<(TrimPoint, Option<Limit>)>, LiftingLineError> {
+        let point = match system.trim_for_cl(base, TrimControl::Elevator, cl, x_ref, z) {
+            Ok(tp) => tp,
+            Err(LiftingLineError::NoTrim { .. }) => return Ok(None),
+            Err(e) => return Err(e),
+        };
+        let cls: Vec<f64> = match map {
+            Some(m) => (0..m.c0.len())
+                .map(|i| m.c0[i] + m.ca[i] * point.alpha_rad + m.cd[i] * point.control_rad)
+                .collect(),
+            None => system
+                .solve(&condition(&point))?
+                .stations
+                .iter()
+                .map(|s| s.cl)
+                .collect(),
+        };
+        Ok(Some((point, limit_in(system, &cls, count_negative))))
+    };
+    let finish = |point: TrimPoint, (station, negative): (usize, bool)| {
+        Ok(Some(TrimmedLimit {
+            result: system.solve(&condition(&point))?,
+            point,
+            station,
+            negative,
+        }))
+    };
+    let steps = (TRIM_PATH_CL_TOP / TRIM_PATH_CL_STEP).round() as usize;
+    let mut lo: Option<f64> = None;
+    for k in 1..=steps {
+        let cl = k as f64 * TRIM_PATH_CL_STEP;
+        let Some((point, limit)) = state(cl)? else {
+            continue;
+        };
+        let Some(limit) = limit else {
+            lo = Some(cl);
+            continue;
+        };
+        let Some(mut lo) = lo else {
+            // Already at a limit at the lowest lift scanned.
+            return finish(point, limit);
+        };
+        let (mut hi, mut found) = (cl, (point, limit));
+        for _ in 0..40 {
+            let mid = 0.5 * (lo + hi);
+            match state(mid)? {
+                Some((p, Some(l))) => {
+                    hi = mid;
+                    found = (p, l);
+                }
+                _ => lo = mid,
+            }
+        }
+        return finish(found.0, found.1);
+    }
+    Ok(None)
+}
+
 /// The stall state with the moment reference at `x_ref` (already shifted for the fuselage).
 fn stall_at(
     system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
     base: &FlightCondition,
     trimmed_by_elevator: bool,
     x_ref: f64,
@@ -460,36 +849,48 @@ fn stall_at(
     input: &TrimInput<'_>,
 ) -> Result<Option<FullStall>, LiftingLineError> {
     let area = system.reference().area_m2;
-    let trimmed_stall = if trimmed_by_elevator {
-        match system.trimmed_stall(base, TrimControl::Elevator, x_ref, z) {
-            Ok(s) => Some(s),
-            // No trimmed stall within the elevator's reach (an unstable or badly rigged
-            // aircraft): fall back to the stall with the elevator neutral.
-            Err(
-                LiftingLineError::StallNotFound { .. }
-                | LiftingLineError::NoTrim { .. }
-                | LiftingLineError::InvalidInput { .. },
-            ) => None,
-            Err(e) => return Err(e),
-        }
+    let control = input.aircraft.pitch_control();
+    let real = |model_rad: f64| control.map_or(model_rad, |p| real_deflection_rad(p, model_rad));
+    let speed = |cl: f64| speed_at(input.mass_kg, input.density_kg_m3, area, cl);
+    // Trimmed with the elevator (or elevons) where there is one; where no trimmed stall
+    // exists within the flight range (an unstable or badly rigged aircraft), the stall with
+    // the elevator neutral is shown instead.
+    let trimmed = if trimmed_by_elevator {
+        first_trimmed_limit(system, map, base, x_ref, z, true)?
     } else {
         None
     };
-    let (cond, station, trimmed) = if let Some(s) = trimmed_stall {
-        let mut cond = base.clone();
-        cond.alpha_rad = s.alpha_rad;
-        cond.elevator_rad = s.control_rad;
-        (cond, s.station, true)
-    } else {
-        match system.first_stall_alpha_rad(base)? {
-            Some((alpha, station)) => {
-                let mut cond = base.clone();
-                cond.alpha_rad = alpha;
-                (cond, station, false)
+    if let Some(t) = trimmed {
+        let st = &system.stations()[t.station];
+        let limit = if t.negative {
+            // The positive stall it pre-empts, for the caution.
+            let otherwise = first_trimmed_limit(system, map, base, x_ref, z, false)?;
+            let cl = otherwise.map_or(f64::NAN, |o| o.result.cl);
+            StallLimit::StabiliserClMin {
+                cl_max_otherwise: cl,
+                speed_otherwise_m_s: speed(cl),
             }
-            None => return Ok(None),
+        } else {
+            StallLimit::ClMax
+        };
+        if t.result.cl > 0.0 && limit_is_finite(&limit) {
+            return Ok(Some(FullStall {
+                cl_max: t.result.cl,
+                speed_m_s: speed(t.result.cl),
+                surface: st.surface,
+                percent_semispan: st.percent_semispan,
+                elevator_rad: real(t.point.control_rad),
+                trimmed: true,
+                limit,
+                result: t.result,
+            }));
         }
+    }
+    let Some((alpha, station)) = system.first_stall_alpha_rad(base)? else {
+        return Ok(None);
     };
+    let mut cond = base.clone();
+    cond.alpha_rad = alpha;
     let result = system.solve(&cond)?;
     if result.cl <= 0.0 {
         return Ok(None);
@@ -497,55 +898,76 @@ fn stall_at(
     let st = &system.stations()[station];
     Ok(Some(FullStall {
         cl_max: result.cl,
-        speed_m_s: speed_at(input.mass_kg, input.density_kg_m3, area, result.cl),
+        speed_m_s: speed(result.cl),
         surface: st.surface,
         percent_semispan: st.percent_semispan,
-        elevator_rad: cond.elevator_rad,
-        trimmed,
+        elevator_rad: real(cond.elevator_rad),
+        trimmed: false,
+        limit: StallLimit::ClMax,
         result,
     }))
 }
 
+/// False when the pre-empted positive stall could not be found (no NaN reaches output: the
+/// negative-stall state is then not reported as such).
+fn limit_is_finite(limit: &StallLimit) -> bool {
+    match limit {
+        StallLimit::ClMax => true,
+        StallLimit::StabiliserClMin {
+            cl_max_otherwise,
+            speed_otherwise_m_s,
+        } => cl_max_otherwise.is_finite() && speed_otherwise_m_s.is_finite(),
+    }
+}
+
 /// The CG (effective moment reference) at which the elevator needed to hold the stall equals
-/// `full_up_rad`; searched between one MAC ahead of the neutral point and the neutral point.
+/// `full_up_rad` (the linear model's deflection), or at which the stabiliser just reaches its
+/// negative limit at the stall, whichever is further aft; searched between one MAC ahead of
+/// the neutral point and the neutral point.
+#[allow(clippy::too_many_arguments)]
 fn elevator_limit(
     system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
     base: &FlightCondition,
     full_up_rad: f64,
     neutral_point_x_m: f64,
     mac_m: f64,
     z: f64,
     fuselage_shift_m: f64,
-) -> Option<f64> {
-    // Margin of elevator left at the stall with the CG at x (negative: full up is not enough).
-    // Where no trimmed stall exists at all (far forward, the deflection needed runs past
-    // anything a flap can give), the elevator is taken as not enough: a weaker control must
-    // move the limit aft, never remove it.
-    let needed = |x: f64| {
-        system
-            .trimmed_stall(base, TrimControl::Elevator, x + fuselage_shift_m, z)
-            .ok()
-            .map_or(-1.0, |s| s.control_rad - full_up_rad)
+) -> (Option<f64>, ForwardLimitCause) {
+    // Whether the stall can be held with the CG at x, and if not, why. Where no trimmed stall
+    // exists at all (far forward, the deflection needed runs past anything a flap can give),
+    // the elevator is taken as not enough: a weaker control must move the limit aft, never
+    // remove it. A solve that fails counts as not held (the safe side).
+    let held = |x: f64| -> Result<(), ForwardLimitCause> {
+        match first_trimmed_limit(system, map, base, x + fuselage_shift_m, z, true) {
+            Ok(Some(t)) if t.negative => Err(ForwardLimitCause::StabiliserClMin),
+            Ok(Some(t)) if t.point.control_rad >= full_up_rad => Ok(()),
+            _ => Err(ForwardLimitCause::ControlAuthority),
+        }
     };
     let (mut fwd, mut aft) = (neutral_point_x_m - mac_m, neutral_point_x_m - 0.01 * mac_m);
-    let (f_fwd, f_aft) = (needed(fwd), needed(aft));
-    if f_aft < 0.0 {
-        // Even near the neutral point full up elevator does not reach the stall.
-        return Some(aft);
+    if let Err(cause) = held(aft) {
+        // Even near the neutral point the stall cannot be held.
+        return (Some(aft), cause);
     }
-    if f_fwd >= 0.0 {
-        // Elevator power is not the limit anywhere within a MAC of the neutral point.
-        return None;
-    }
-    for _ in 0..40 {
+    let mut cause = match held(fwd) {
+        // Pitch control is not the limit anywhere within a MAC of the neutral point.
+        Ok(()) => return (None, ForwardLimitCause::ControlAuthority),
+        Err(c) => c,
+    };
+    // 30 halvings of a MAC: far below a millimetre.
+    for _ in 0..30 {
         let mid = 0.5 * (fwd + aft);
-        if needed(mid) >= 0.0 {
-            aft = mid;
-        } else {
-            fwd = mid;
+        match held(mid) {
+            Ok(()) => aft = mid,
+            Err(c) => {
+                fwd = mid;
+                cause = c;
+            }
         }
     }
-    Some(0.5 * (fwd + aft))
+    (Some(0.5 * (fwd + aft)), cause)
 }
 
 /// The moment reference x at which the aircraft trims at `cl` with the controls of `base`
@@ -585,6 +1007,10 @@ fn tailless_check(
             .map(|tp| tp.control_rad)
             .filter(|d| d.is_finite() && d.abs() < std::f64::consts::FRAC_PI_2)
     });
+    let elevon_to_trim_rad = match (input.aircraft.elevons.as_ref(), elevon_to_trim_rad) {
+        (Some(p), Some(d)) => Some(real_deflection_rad(p, d)),
+        _ => None,
+    };
     let elevon_within_throws = match (input.aircraft.elevons, elevon_to_trim_rad) {
         (Some(p), Some(d)) => p.within_throws(d),
         _ => false,

@@ -425,9 +425,11 @@ fn elevon_trim_deflection_trims_the_wing_at_its_design_cl() {
     let system = system_of(&ac, &a);
     let x_cg = a.mass.cg_x_m;
     let z = ac.wing.root_le_z_m;
+    // The system works in lift-equivalent deflection (the plain-flap chart's K' applied).
+    let model_d = trimline::stability::trim::model_deflection_rad(ac.elevons.as_ref().unwrap(), d);
     let at = |alpha: f64| {
         let mut c = system.condition(alpha);
-        c.elevator_rad = d;
+        c.elevator_rad = model_d;
         system.solve(&c).unwrap()
     };
     // CL and Cm are linear in alpha here: find where CL is the design CL, check Cm there.

@@ -16,6 +16,8 @@ pub fn section(a0: f64, alpha0_rad: f64, cl_max: f64) -> SectionModel {
         cl_max,
         cl_min: -cl_max,
         cl_max_source: ClMaxSource::Given,
+        reynolds_number: None,
+        polar: None,
     }
 }
 

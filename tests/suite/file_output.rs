@@ -71,7 +71,9 @@ fn a_planted_link_is_refused_by_every_writer_and_its_target_is_untouched() {
         );
         assert!(temporaries(&dir).is_empty(), "{args:?}");
     }
-    // Asked for, the link is followed: the file it points to gets the report, the link stays.
+    // Asked for, the link is followed: the file it points to gets the report, the link stays
+    // (a PDF replaces only a file that is already a PDF, so the target is one here).
+    std::fs::write(&victim, b"%PDF-1.3 an older report").unwrap();
     let out = trimline(&["report", "-o", "link", "--follow-link"], &dir);
     assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
     assert!(std::fs::read(&victim).unwrap().starts_with(b"%PDF-"));
@@ -188,4 +190,45 @@ fn new_never_overwrites_and_a_read_write_cycle_leaves_no_temporary() {
     assert_eq!(out.status.code(), Some(1));
     assert_eq!(std::fs::read(dir.join("plane.toml")).unwrap(), first);
     assert!(temporaries(&dir).is_empty());
+}
+
+#[test]
+fn an_aircraft_file_given_as_the_pdf_output_is_not_replaced() {
+    // Found by a new-user trial: `compare --pdf FILE.toml` took the aircraft file as the PDF's
+    // path (the option's value is optional) and replaced it with the PDF. A PDF output now
+    // replaces only a file that is already a PDF; the aircraft file stays as it was, exit 1.
+    let dir = tempfile::tempdir().unwrap();
+    let toml = dir.path().join("k.toml");
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml").unwrap();
+    std::fs::write(&toml, &text).unwrap();
+    let bin = env!("CARGO_BIN_EXE_trimline");
+    let out = std::process::Command::new(bin)
+        .args(["compare", "--pdf"])
+        .arg(&toml)
+        .output()
+        .unwrap();
+    assert_eq!(out.status.code(), Some(1));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("is not a PDF"));
+    assert_eq!(std::fs::read_to_string(&toml).unwrap(), text);
+    let out = std::process::Command::new(bin)
+        .arg("report")
+        .arg(&toml)
+        .arg("-o")
+        .arg(&toml)
+        .output()
+        .unwrap();
+    assert_eq!(out.status.code(), Some(1));
+    assert_eq!(std::fs::read_to_string(&toml).unwrap(), text);
+    // An existing PDF is replaced as before.
+    let pdf = dir.path().join("k.pdf");
+    for _ in 0..2 {
+        let out = std::process::Command::new(bin)
+            .arg("report")
+            .arg(&toml)
+            .arg("-o")
+            .arg(&pdf)
+            .output()
+            .unwrap();
+        assert!(out.status.success());
+    }
 }

@@ -209,7 +209,12 @@ fn assert_well_formed_error(
 /// Run the whole chain on a parsed aircraft; its text and JSON must be finite.
 fn analyse_and_render(aircraft: &trimline::model::Aircraft) -> Result<(), TestCaseError> {
     if let Ok(a) = analyse(aircraft, &AnalysisOptions::default()) {
-        let text = trimline::output::tables::check_report(aircraft, &a, "fuzz.toml");
+        let text = trimline::output::tables::check_report(
+            aircraft,
+            &a,
+            "fuzz.toml",
+            trimline::output::units::UnitSystem::Metric,
+        );
         // A name from the file may itself read "nan" (a mutation puts it there).
         let mut names = vec![aircraft.name.as_str(), &aircraft.notes, &aircraft.datum];
         names.extend(aircraft.masses.iter().map(|m| m.name.as_str()));

@@ -123,3 +123,67 @@ fn table_output_matches_the_golden_file() {
         "table changed.\n--- expected\n{expected}\n--- got\n{stdout}"
     );
 }
+
+#[test]
+fn viscous_polars_in_json_tables_and_csv() {
+    // Values: NACA 0012 at Re 1e6, 0 deg: no lift (symmetry) and a profile drag between the
+    // smooth-model value at Re 6e6 (about 0.006, Abbott & von Doenhoff appendix IV, from
+    // memory) and the laminar-bubble drag of model Reynolds numbers (about 0.012 at Re 2e5,
+    // the same charts' trend, from memory): 0.006 to 0.0095 at Re 1e6.
+    let dir = std::env::temp_dir().join(format!("trimline-polar-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let csv = dir.join("polar.csv");
+    let (code, stdout, stderr) = run(&[
+        "section",
+        "naca0012",
+        "--json",
+        "--alpha",
+        "0,4",
+        "--panels",
+        "160",
+        "--re",
+        "1e6,2e5",
+        "--polar-csv",
+        csv.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{stderr}");
+    let v: Value = serde_json::from_str(&stdout).expect("valid JSON");
+    let polars = v["viscous"].as_array().expect("viscous array");
+    assert_eq!(polars.len(), 2);
+    approx::assert_relative_eq!(polars[0]["reynolds"].as_f64().unwrap(), 1e6);
+    approx::assert_relative_eq!(polars[0]["transition_n"].as_f64().unwrap(), 9.0);
+    let p0 = &polars[0]["points"][0];
+    assert_eq!(p0["status"], "converged");
+    assert!(p0["cl"].as_f64().unwrap().abs() < 1e-6);
+    let cd = p0["cd"].as_f64().unwrap();
+    assert!((0.006..0.0095).contains(&cd), "cd {cd}");
+    assert!(p0["transition_upper_x_c"].as_f64().is_some());
+    let text = std::fs::read_to_string(&csv).unwrap();
+    let mut lines = text.lines();
+    assert_eq!(
+        lines.next().unwrap(),
+        "reynolds,transition_n,alpha_deg,state,cl,cd,cm_c4,transition_upper_x_c,transition_lower_x_c,separation_x_c"
+    );
+    assert_eq!(lines.count(), 4);
+    let (code, stdout, _) = run(&["section", "naca0012", "--alpha", "2", "--re", "2e5"]);
+    assert_eq!(code, 0);
+    assert!(stdout.contains("Viscous, Re 200000, N 9"), "{stdout}");
+    assert!(stdout.contains("transition upper x/c"), "{stdout}");
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn viscous_bad_settings_are_refused_with_the_range() {
+    let (code, _, stderr) = run(&["section", "naca0012", "--re", "5e3"]);
+    assert_eq!(code, 1, "{stderr}");
+    assert!(stderr.contains("1e4 to 1e7"), "{stderr}");
+    let (code, _, stderr) = run(&["section", "naca0012", "--re", "2e5", "--transition-n", "20"]);
+    assert_eq!(code, 1, "{stderr}");
+    assert!(stderr.contains("1 to 14"), "{stderr}");
+    let (code, _, stderr) = run(&["section", "naca0012", "--re", "2e5", "--panels", "40"]);
+    assert_eq!(code, 1, "{stderr}");
+    assert!(stderr.contains("too coarse"), "{stderr}");
+    let (code, _, stderr) = run(&["section", "naca0012", "--polar-csv", "x.csv"]);
+    assert_eq!(code, 1, "{stderr}");
+    assert!(stderr.contains("needs --re"), "{stderr}");
+}

@@ -148,6 +148,8 @@ fn mean_line_from_a_coordinates_file() {
         },
         cl_max: Some(1.2),
         method: Some(SectionMethod::Thin),
+        reynolds: None,
+        transition_n: None,
     };
     let m = section_model(&airfoil, &SectionOptions::default())
         .unwrap()

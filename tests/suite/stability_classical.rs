@@ -31,6 +31,8 @@ fn section(alpha0_deg: f64, cm_ac: f64) -> SectionModel {
         cl_max: 1.2,
         cl_min: -0.8,
         cl_max_source: ClMaxSource::Given,
+        reynolds_number: None,
+        polar: None,
     }
 }
 
@@ -73,6 +75,8 @@ fn run(
         cg_x_m,
         density_kg_m3: 1.225,
         fuselage_cm_alpha_per_rad: fuselage,
+        stabiliser_dynamic_pressure_ratio: 1.0,
+        downwash_factor: 1.0,
     })
 }
 

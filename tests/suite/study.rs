@@ -49,8 +49,18 @@ fn assert_points_match_check(base: &Aircraft, axes: Vec<Axis>) {
         let slow = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
         let source = "point";
         let (a, b) = (
-            trimline::output::tables::check_report(&aircraft, &fast, source),
-            trimline::output::tables::check_report(&aircraft, &slow, source),
+            trimline::output::tables::check_report(
+                &aircraft,
+                &fast,
+                source,
+                trimline::output::units::UnitSystem::Metric,
+            ),
+            trimline::output::tables::check_report(
+                &aircraft,
+                &slow,
+                source,
+                trimline::output::units::UnitSystem::Metric,
+            ),
         );
         assert_eq!(a, b, "point {i}: tables differ");
         let (a, b) = (

@@ -154,7 +154,9 @@ pub fn spanwise_chart(c: &mut Canvas, area: Frame, data: &SpanwiseData) {
 }
 
 /// Trim speed against CG position over the recommended band (hatched), with the stall speed
-/// (dotted) and the present CG (dash-dot line and balance symbol).
+/// (dotted) and the present CG (dash-dot line and balance symbol). Trim speeds below the stall
+/// speed cannot be flown: that part of the curve is drawn thin and dashed and named in the
+/// legend.
 pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
     let speeds: Vec<f64> = data
         .points
@@ -180,8 +182,18 @@ pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
     let band_pen = Pen::solid(0.35).with_grey(0.45);
     let edge_pen = Pen::solid(0.6).with_dash(Dash::Dashed);
     let cg_pen = Pen::solid(0.6).with_dash(Dash::DashDot);
+    let below_pen = Pen::solid(0.5).with_dash(Dash::Dashed);
+    let stalled = |v: f64| v < data.stall_speed_m_s;
+    let any_below = data.points.iter().any(|p| p.1.is_some_and(stalled));
     let legend = vec![
-        (Swatch::Line(trim_pen, None), "trim speed".to_string()),
+        (
+            Swatch::Line(trim_pen, None),
+            if any_below {
+                "trim speed (thin dashed: below the stall, not flyable)".to_string()
+            } else {
+                "trim speed".to_string()
+            },
+        ),
         (
             Swatch::Line(stall_pen, None),
             format!("stall speed {} m/s", fmt(data.stall_speed_m_s, 1)),
@@ -217,7 +229,27 @@ pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
         .iter()
         .map(|&(x, v)| v.map(|v| (x, v)))
         .collect();
-    axes.series(c, &line, trim_pen);
+    // Each point belongs to the flyable or the stalled curve; a segment that crosses the
+    // stall line is drawn in both, so the curve stays continuous.
+    let part = |below: bool| -> Vec<Option<(f64, f64)>> {
+        (0..line.len())
+            .map(|i| {
+                let mine = |j: usize| {
+                    line.get(j)
+                        .copied()
+                        .flatten()
+                        .filter(|p| stalled(p.1) == below)
+                };
+                let p = line[i]?;
+                let neighbour = i.checked_sub(1).and_then(mine).or_else(|| mine(i + 1));
+                (stalled(p.1) == below || neighbour.is_some()).then_some(p)
+            })
+            .collect()
+    };
+    axes.series(c, &part(false), trim_pen);
+    if any_below {
+        axes.series(c, &part(true), below_pen);
+    }
     axes.vline(c, data.cg_mm, cg_pen);
     // The balance symbol on the curve at the present CG (nearest sweep point that trims).
     let at_cg = data

@@ -271,7 +271,8 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     c.text(a.0 + 1.5, mac_base, &mac_text, mac_font, Align::Left);
 
     // Leader labels, spread apart vertically so none overlap. On a view too short for all of
-    // them, the least needed go first: the root leading edge (always 0), then the target.
+    // them, the least needed go first: the root leading edge (always 0), then the target, then
+    // the band's ends (the balance box prints the band in figures), then the neutral point.
     let gap = LABEL_BOLD.line_height_mm();
     let capacity = ((area.top() - CAPTION.line_height_mm() - gap - (area.y + caption_h)) / gap)
         .floor()
@@ -283,6 +284,13 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     }
     if marks.len() > capacity {
         marks.retain(|m| !m.text.starts_with("target"));
+    }
+    if marks.len() > capacity {
+        marks.retain(|m| !m.text.starts_with("forward limit") && !m.text.starts_with("aft limit"));
+    }
+    if marks.len() > capacity {
+        // Room for one label only: the CG.
+        marks.retain(|m| m.text.starts_with("CG "));
     }
     let ideal: Vec<f64> = marks.iter().map(|mk| page((mk.x_m, 0.0)).1).collect();
     let mut placed = ideal.clone();

@@ -1,0 +1,120 @@
+//! The neutral point's uncertainty by linear sensitivities, against a Monte Carlo and the
+//! analytic derivative.
+//!
+//! Sources: first-order propagation of independent errors (ISO Guide to the Expression of
+//! Uncertainty in Measurement, sec. 5.1); the lift-weighted neutral point (Etkin & Reid,
+//! Dynamics of Flight, sec. 2.4), whose derivative in the tail efficiency is
+//! d x_n / d eta = (k / eta) (x_t - x_n) / (a_w + k) without a fuselage.
+
+use trimline::analysis::{analyse, AnalysisOptions};
+use trimline::input::parse_aircraft;
+use trimline::stability::classical::{EstimateInput, StabiliserPlace};
+use trimline::stability::uncertainty::{
+    linear_spread, monte_carlo_sigma_m, Spreads, COMMON_SPREADS,
+};
+
+const GLIDER: &str = r#"
+name = "Spread glider"
+[airfoils.w]
+naca = "2412"
+cl_max = 1.2
+[airfoils.t]
+naca = "0009"
+cl_max = 0.9
+[wing]
+root_chord = 200
+incidence = 2
+airfoil = "w"
+[[wing.panel]]
+span = 1000
+tip_chord = 150
+[stabiliser]
+x = 850
+root_chord = 110
+airfoil = "t"
+[[stabiliser.panel]]
+span = 300
+tip_chord = 90
+[[mass]]
+name = "all"
+mass = 1000
+x = 60
+"#;
+
+fn with_input<R>(extra: &str, f: impl FnOnce(&EstimateInput<'_>) -> R) -> R {
+    let ac = parse_aircraft(&format!("{GLIDER}{extra}"), "t.toml", None).unwrap();
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    let input = EstimateInput {
+        wing: &a.wing,
+        stabiliser: a.stabiliser.as_ref().map(|s| (s, StabiliserPlace::Tail)),
+        mass_kg: a.mass.total_kg,
+        cg_x_m: a.mass.cg_x_m,
+        density_kg_m3: a.air.density_kg_m3,
+        fuselage_cm_alpha_per_rad: trimline::analysis::fuselage_cm_alpha(&ac, &a.wing),
+        stabiliser_dynamic_pressure_ratio: 0.9,
+        downwash_factor: 1.0,
+    };
+    f(&input)
+}
+
+const FUSELAGE: &str = r#"
+[fuselage]
+nose_x = -250
+length = 1000
+width = 60
+"#;
+
+// With every spread zero the range collapses to the point, in both estimates (exactly).
+#[test]
+fn zero_spreads_collapse_the_range() {
+    let zero = Spreads {
+        dynamic_pressure_ratio: 0.0,
+        downwash_gradient: 0.0,
+        fuselage: 0.0,
+        wing_section_slope: 0.0,
+        stabiliser_section_slope: 0.0,
+    };
+    with_input(FUSELAGE, |input| {
+        let s = linear_spread(input, &zero);
+        assert!(s.sigma_m.abs() < 1e-15 && s.contributions_m.iter().all(|c| *c == 0.0));
+        assert!(monte_carlo_sigma_m(input, &zero, 200, 7).abs() < 1e-12);
+    });
+}
+
+// The linear estimate and a Monte Carlo of 20 000 draws agree within 5 %: the sampling
+// error of a standard deviation from N draws is about 1/sqrt(2N) = 0.5 %, the rest is the
+// neutral point's curvature over the spreads (small at these spreads).
+#[test]
+fn monte_carlo_and_linear_estimate_agree() {
+    with_input(FUSELAGE, |input| {
+        let linear = linear_spread(input, &COMMON_SPREADS).sigma_m;
+        let mc = monte_carlo_sigma_m(input, &COMMON_SPREADS, 20_000, 12345);
+        assert!(linear > 1e-4, "{linear}");
+        assert!(
+            (mc - linear).abs() < 0.05 * linear,
+            "MC {mc} vs linear {linear}"
+        );
+    });
+}
+
+// The tail-efficiency share equals the analytic derivative times its spread (no fuselage),
+// to 1e-6 relative (the central difference).
+#[test]
+fn tail_efficiency_share_is_the_analytic_derivative() {
+    with_input("", |input| {
+        let eta = input.stabiliser_dynamic_pressure_ratio;
+        let (w, (t, _)) = (input.wing, input.stabiliser.unwrap());
+        let a_w = w.lift_slope_per_rad;
+        let de = 2.0 * a_w / (std::f64::consts::PI * w.geometry.aspect_ratio);
+        let k = eta * t.geometry.area_m2 / w.geometry.area_m2 * t.lift_slope_per_rad * (1.0 - de);
+        let x_n = (a_w * w.x_ac_m + k * t.x_ac_m) / (a_w + k);
+        let slope = k / eta * (t.x_ac_m - x_n) / (a_w + k);
+        let s = linear_spread(input, &COMMON_SPREADS);
+        let expected = slope * COMMON_SPREADS.dynamic_pressure_ratio;
+        assert!(
+            (s.contributions_m[0] - expected).abs() < 1e-6 * expected.abs(),
+            "{} vs {expected}",
+            s.contributions_m[0]
+        );
+    });
+}
