@@ -92,3 +92,22 @@ pub fn lifting_line_options() -> trimline::lifting_line::LiftingLineOptions {
         ..trimline::lifting_line::LiftingLineOptions::default()
     }
 }
+
+/// The system of `surfaces` together (the first is the wing and gives the reference), each with
+/// `sections` and no elevator.
+pub fn system_of(
+    surfaces: &[&Surface],
+    sections: &[SectionModel],
+    options: trimline::lifting_line::LiftingLineOptions,
+) -> trimline::lifting_line::MultiSurfaceSystem {
+    use trimline::lifting_line::{MultiSurfaceSystem, Reference, SurfaceInput};
+    let inputs: Vec<SurfaceInput<'_>> = surfaces
+        .iter()
+        .map(|s| SurfaceInput {
+            surface: s,
+            sections,
+            elevator: None,
+        })
+        .collect();
+    MultiSurfaceSystem::new(&inputs, Reference::of_surface(surfaces[0]), options).unwrap()
+}

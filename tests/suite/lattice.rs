@@ -8,9 +8,7 @@ use approx::assert_relative_eq;
 use nalgebra::{DMatrix, DVector, Vector3};
 use std::f64::consts::PI;
 use trimline::analysis::analyse;
-use trimline::lifting_line::{
-    LiftingLineOptions, MultiSurfaceSystem, Reference, SurfaceInput, WingModel,
-};
+use trimline::lifting_line::{LiftingLineOptions, MultiSurfaceSystem, WingModel};
 use trimline::model::{Panel, Surface};
 use trimline::section::SectionModel;
 
@@ -28,12 +26,7 @@ fn wing_system(
     sections: &[SectionModel],
     o: LiftingLineOptions,
 ) -> MultiSurfaceSystem {
-    let input = [SurfaceInput {
-        surface: wing,
-        sections,
-        elevator: None,
-    }];
-    MultiSurfaceSystem::new(&input, Reference::of_surface(wing), o).unwrap()
+    crate::common::system_of(&[wing], sections, o)
 }
 
 fn lift_slope(sys: &MultiSurfaceSystem) -> f64 {
@@ -359,19 +352,7 @@ fn neutral_point_converges_when_both_counts_are_doubled() {
     let wing = trapezoid(10.0, 0.6, 2.0, 0.0);
     let tail = surface("tail", 0.9, 0.05, vec![panel(0.2, 0.14, 0.09, 10.0)]);
     let with_tail = |o| {
-        let input = [
-            SurfaceInput {
-                surface: &wing,
-                sections: &sections,
-                elevator: None,
-            },
-            SurfaceInput {
-                surface: &tail,
-                sections: &sections,
-                elevator: None,
-            },
-        ];
-        let sys = MultiSurfaceSystem::new(&input, Reference::of_surface(&wing), o).unwrap();
+        let sys = crate::common::system_of(&[&wing, &tail], &sections, o);
         sys.neutral_point_x_m(&sys.condition(0.0), 0.0).unwrap()
     };
     let shift = (with_tail(d) - with_tail(fine)) / mac_m(10.0, 0.6);
@@ -538,20 +519,7 @@ fn tail_in_the_wing_wake_plane_is_stable_under_refinement() {
     );
     let tail = surface("tail", 0.52, 0.0, vec![panel(0.14, 0.09, 0.06, 0.0)]);
     let np = |n: usize| {
-        let input = [
-            SurfaceInput {
-                surface: &wing,
-                sections: &sections,
-                elevator: None,
-            },
-            SurfaceInput {
-                surface: &tail,
-                sections: &sections,
-                elevator: None,
-            },
-        ];
-        let sys =
-            MultiSurfaceSystem::new(&input, Reference::of_surface(&wing), options(n, 6)).unwrap();
+        let sys = crate::common::system_of(&[&wing, &tail], &sections, options(n, 6));
         let r = sys.solve(&sys.condition(0.05)).unwrap();
         assert!(r.cl.is_finite() && r.surfaces[1].downwash_gradient.is_finite());
         sys.neutral_point_x_m(&sys.condition(0.0), 0.0).unwrap()
