@@ -250,6 +250,11 @@ pub struct StabilityJson {
     pub neutral_point_percent_mac: f64,
     /// percent MAC
     pub static_margin_percent: f64,
+    /// Forward end of the neutral point's uncertainty range (two standard deviations of the
+    /// common-practice input spreads), m; equal to the neutral point when the spreads vanish.
+    pub neutral_point_forward_end_x_m: f64,
+    /// The aft CG limit measured from that forward end (the smallest static margin), m.
+    pub aft_limit_from_range_x_m: f64,
     /// d eps / d alpha at the tail
     pub downwash_gradient: f64,
     /// per rad, aircraft lift slope on the wing area
@@ -599,6 +604,16 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             neutral_point_x_m: r(h.neutral_point_x_m, 5),
             neutral_point_percent_mac: r(g.percent_mac(h.neutral_point_x_m), 2),
             static_margin_percent: r(100.0 * h.static_margin, 2),
+            neutral_point_forward_end_x_m: r(
+                h.neutral_point_x_m - 2.0 * finite_or_zero(a.neutral_point_spread.sigma_m),
+                5,
+            ),
+            aft_limit_from_range_x_m: r(
+                h.neutral_point_x_m
+                    - 2.0 * finite_or_zero(a.neutral_point_spread.sigma_m)
+                    - aircraft.margin_limits.min_static_margin * g.mac_m,
+                5,
+            ),
             downwash_gradient: r(
                 full_trim.map_or(est.downwash_gradient, |t| t.downwash_gradient),
                 4,
@@ -722,4 +737,13 @@ fn spanwise_json(a: &Analysis) -> Vec<SpanwiseJson> {
             }
         })
         .collect()
+}
+
+/// `v`, or 0 where it is not finite (no spread is claimed then).
+fn finite_or_zero(v: f64) -> f64 {
+    if v.is_finite() {
+        v
+    } else {
+        0.0
+    }
 }

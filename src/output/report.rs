@@ -288,14 +288,22 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
                 fmt(a.mass.cg_x_m * 1000.0, 0)
             ),
         ),
-        kf(
-            "Neutral point",
+        kf("Neutral point", {
+            let spread = 2.0 * a.neutral_point_spread.sigma_m;
+            let range = if spread.is_finite() && spread > 0.0 {
+                format!(
+                    "; forward end of its range {} mm",
+                    fmt((h.neutral_point_x_m - spread) * 1000.0, 0)
+                )
+            } else {
+                String::new()
+            };
             format!(
-                "{} % MAC ({} mm from datum)",
+                "{} % MAC ({} mm from datum{range})",
                 fmt(g.percent_mac(h.neutral_point_x_m), 1),
                 fmt(h.neutral_point_x_m * 1000.0, 0)
-            ),
-        ),
+            )
+        }),
         kf(
             "Static margin",
             format!("{} % MAC", fmt(100.0 * h.static_margin, 1)),

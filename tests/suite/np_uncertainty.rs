@@ -118,3 +118,52 @@ fn tail_efficiency_share_is_the_analytic_derivative() {
         );
     });
 }
+
+// The range reaches every output the same way (law of the outputs: one figure, printed
+// three times): the JSON's forward end and aft limit are the neutral point minus two standard
+// deviations (and minus the smallest margin times the MAC), the check table prints the same
+// forward end, and the PDF's key figures name it.
+#[test]
+fn the_range_reaches_json_table_and_report_alike() {
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml").unwrap();
+    let ac = parse_aircraft(&text, "l.toml", None).unwrap();
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    let doc = trimline::output::json::check_document(&ac, &a, "l.toml");
+    let v = serde_json::to_value(&doc).unwrap();
+    let s = &v["stability"];
+    let two_sigma = 2.0 * a.neutral_point_spread.sigma_m;
+    assert!(two_sigma > 0.0);
+    let fwd = s["neutral_point_forward_end_x_m"].as_f64().unwrap();
+    assert!((fwd - (a.headline.neutral_point_x_m - two_sigma)).abs() < 1e-5);
+    let mac = a.wing_geometry.mac_m;
+    let aft = s["aft_limit_from_range_x_m"].as_f64().unwrap();
+    assert!((aft - (fwd - ac.margin_limits.min_static_margin * mac)).abs() < 2e-5);
+    let table = trimline::output::tables::check_report(
+        &ac,
+        &a,
+        "l.toml",
+        trimline::output::units::UnitSystem::Metric,
+    );
+    assert!(table.contains(&format!("{:.1}", 1000.0 * fwd)), "{table}");
+    let data = trimline::output::report::build(
+        &ac,
+        &a,
+        trimline::output::report::ReportSource {
+            file_name: "l.toml".into(),
+            content_hash: trimline::output::report::content_hash(&text),
+            date: "2026-12-03".into(),
+        },
+    );
+    let np_line = data
+        .key_figures
+        .iter()
+        .find(|k| k.label == "Neutral point")
+        .unwrap();
+    assert!(
+        np_line
+            .value
+            .contains(&format!("forward end of its range {:.0} mm", 1000.0 * fwd)),
+        "{}",
+        np_line.value
+    );
+}
