@@ -57,11 +57,15 @@ fn whole_file(file: &str) -> Location {
     }
 }
 
-/// What kind of thing `meta` describes, for "... is a character device, not a regular file".
-fn kind_of(meta: &std::fs::Metadata) -> &'static str {
+/// What kind of file system object `meta` describes, for messages such as "... is a
+/// character device, not a regular file" (reading here, writing in `output/fs.rs`).
+pub(crate) fn kind_of(meta: &std::fs::Metadata) -> &'static str {
     let t = meta.file_type();
     if t.is_dir() {
         return "a directory";
+    }
+    if t.is_symlink() {
+        return "a symbolic link";
     }
     #[cfg(unix)]
     {
@@ -79,7 +83,11 @@ fn kind_of(meta: &std::fs::Metadata) -> &'static str {
             return "a socket";
         }
     }
-    "a special file"
+    if t.is_file() {
+        "a regular file"
+    } else {
+        "a special file"
+    }
 }
 
 /// Read the file at `path` (`-`: standard input) as text, or an [`InputError`] naming it

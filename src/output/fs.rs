@@ -113,38 +113,6 @@ pub enum WriteError {
     },
 }
 
-/// What kind of file system object `meta` describes, for messages.
-fn kind_of(meta: &std::fs::Metadata) -> &'static str {
-    let t = meta.file_type();
-    if t.is_dir() {
-        return "a directory";
-    }
-    if t.is_symlink() {
-        return "a symbolic link";
-    }
-    #[cfg(unix)]
-    {
-        use std::os::unix::fs::FileTypeExt as _;
-        if t.is_char_device() {
-            return "a character device";
-        }
-        if t.is_block_device() {
-            return "a block device";
-        }
-        if t.is_fifo() {
-            return "a named pipe (FIFO)";
-        }
-        if t.is_socket() {
-            return "a socket";
-        }
-    }
-    if t.is_file() {
-        "a regular file"
-    } else {
-        "a special file"
-    }
-}
-
 /// Where to write when `path` is given: the path itself, or the file a link there points to
 /// (when allowed); checks that whatever is there is a regular file. Returns the real target
 /// and its metadata when it exists.
@@ -178,7 +146,7 @@ fn resolve(
         if !real_meta.is_file() {
             return Err(WriteError::NotRegularFile {
                 path: real,
-                kind: kind_of(&real_meta),
+                kind: crate::input::file::kind_of(&real_meta),
             });
         }
         return Ok((real, Some(real_meta)));
@@ -186,7 +154,7 @@ fn resolve(
     if !meta.is_file() {
         return Err(WriteError::NotRegularFile {
             path: path.to_path_buf(),
-            kind: kind_of(&meta),
+            kind: crate::input::file::kind_of(&meta),
         });
     }
     if options.replace == Replace::Never {

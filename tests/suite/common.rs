@@ -111,3 +111,23 @@ pub fn system_of(
         .collect();
     MultiSurfaceSystem::new(&inputs, Reference::of_surface(surfaces[0]), options).unwrap()
 }
+
+/// An empty scratch folder `group/name` under Cargo's temporary folder for tests.
+pub fn scratch_in(group: &str, name: &str) -> std::path::PathBuf {
+    let dir = std::path::Path::new(env!("CARGO_TARGET_TMPDIR"))
+        .join(group)
+        .join(name);
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    dir
+}
+
+/// Run the trimline binary with `args` in `dir` (report dates fixed by SOURCE_DATE_EPOCH).
+pub fn run_trimline(args: &[&str], dir: &std::path::Path) -> std::process::Output {
+    std::process::Command::new(env!("CARGO_BIN_EXE_trimline"))
+        .args(args)
+        .current_dir(dir)
+        .env("SOURCE_DATE_EPOCH", "86400")
+        .output()
+        .expect("the binary runs")
+}

@@ -15,21 +15,11 @@ use std::path::{Path, PathBuf};
 use std::process::{Command, Output};
 
 fn scratch(name: &str) -> PathBuf {
-    let dir = Path::new(env!("CARGO_TARGET_TMPDIR"))
-        .join("file-output-tests")
-        .join(name);
-    let _ = std::fs::remove_dir_all(&dir);
-    std::fs::create_dir_all(&dir).unwrap();
-    dir
+    crate::common::scratch_in("file-output-tests", name)
 }
 
 fn trimline(args: &[&str], dir: &Path) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_trimline"))
-        .args(args)
-        .current_dir(dir)
-        .env("SOURCE_DATE_EPOCH", "86400")
-        .output()
-        .expect("the binary runs")
+    crate::common::run_trimline(args, dir)
 }
 
 fn stderr(o: &Output) -> String {
