@@ -1099,7 +1099,7 @@ impl Ctx<'_> {
                     Some(if known.is_empty() {
                         "define it in an [airfoils.NAME] table".to_string()
                     } else {
-                        format!("one of: {}", known.join(", "))
+                        one_of(&known)
                     }),
                 )
             }),
@@ -1619,7 +1619,7 @@ impl Ctx<'_> {
                         &q.span(),
                         &format!("{path}.{table}"),
                         format!("no mass item named `{}`", token(key)),
-                        Some(format!("one of: {}", names.join(", "))),
+                        Some(one_of(&names)),
                     )
                 })
         };
@@ -1637,7 +1637,7 @@ impl Ctx<'_> {
                         Some(if names.is_empty() {
                             "define a [[ballast]] bay first".into()
                         } else {
-                            format!("one of: {}", names.join(", "))
+                            one_of(&names)
                         }),
                     )
                 })?;
@@ -1700,7 +1700,7 @@ impl Ctx<'_> {
         for (from, to) in &s.airfoils {
             let known = || {
                 let names: Vec<&str> = ids.keys().map(String::as_str).collect();
-                Some(format!("one of: {}", names.join(", ")))
+                Some(one_of(&names))
             };
             let from_id = *ids.get(from).ok_or_else(|| {
                 self.err(
@@ -2092,6 +2092,12 @@ fn unit_slip_hint(v: f64, dim: Dimension, bounds: Bounds) -> String {
     } else {
         String::new()
     }
+}
+
+/// "one of: a, b, c" for the accepted names of an error message.
+fn one_of<S: AsRef<str>>(names: &[S]) -> String {
+    let names: Vec<&str> = names.iter().map(AsRef::as_ref).collect();
+    format!("one of: {}", names.join(", "))
 }
 
 /// What a quantity accepts: its range in the default unit, and the units a string may carry.
