@@ -31,6 +31,14 @@ pub struct CheckArgs {
     /// km/h; the cautions and the JSON keep their own units.
     #[arg(long, value_enum, default_value_t = UnitChoice::Metric)]
     pub unit_system: UnitChoice,
+    /// Also write the glide polar (sink and glide ratio over the speed range) to this CSV
+    /// file, SI units.
+    #[arg(long, value_name = "PATH")]
+    pub glide_csv: Option<PathBuf>,
+    /// When the CSV's PATH is a symbolic link, write to the file it points to (refused
+    /// otherwise).
+    #[arg(long)]
+    pub follow_link: bool,
 }
 
 /// `--unit-system` values.
@@ -93,6 +101,24 @@ pub fn run(args: &CheckArgs) -> anyhow::Result<super::Finish> {
 
     let analysis = analyse(&aircraft, &AnalysisOptions::default())
         .with_context(|| format!("analysing {source}"))?;
+    if let Some(path) = &args.glide_csv {
+        let Some(p) = &analysis.glide_polar else {
+            anyhow::bail!(
+                "--glide-csv: no glide polar for this aircraft (see the cautions of `trimline check`); nothing was written"
+            );
+        };
+        trimline::output::fs::write_file(
+            path,
+            trimline::output::tables::glide_csv(p).as_bytes(),
+            &super::write_options(args.follow_link),
+        )
+        .with_context(|| {
+            format!(
+                "writing {}",
+                trimline::printable::printable(&path.display().to_string())
+            )
+        })?;
+    }
     if args.json {
         let doc = trimline::output::json::check_document(&aircraft, &analysis, &source);
         super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;

@@ -112,6 +112,30 @@ const ROWS: &[Row] = &[
         value: |k| Some(k.stall_speed_m_s),
     },
     Row {
+        label: "minimum sink m/s",
+        decimals: 2,
+        json: JsonNumber::Decimals(3),
+        value: |k| k.min_sink_m_s.map(|m| m.0),
+    },
+    Row {
+        label: "minimum sink speed m/s",
+        decimals: 1,
+        json: JsonNumber::Decimals(2),
+        value: |k| k.min_sink_m_s.map(|m| m.1),
+    },
+    Row {
+        label: "best glide ratio",
+        decimals: 1,
+        json: JsonNumber::Decimals(2),
+        value: |k| k.best_glide.map(|m| m.0),
+    },
+    Row {
+        label: "best glide speed m/s",
+        decimals: 1,
+        json: JsonNumber::Decimals(2),
+        value: |k| k.best_glide.map(|m| m.1),
+    },
+    Row {
         label: "ballast for target margin g",
         decimals: 1,
         json: JsonNumber::Decimals(2),

@@ -1,10 +1,14 @@
 //! JSON output of `check`: one object, SI units, x aft of the file's datum, percent of MAC
 //! aft of the MAC leading edge. Every field is documented in `docs/json.md`.
 
+use crate::analysis::glide::GlidePolar;
 use crate::analysis::{Analysis, ForwardLimit, Method};
 use crate::balance::BallastOutcome;
 use crate::caution::Caution;
+use crate::lifting_line::TrimControl;
 use crate::model::{Aircraft, StabiliserRole};
+use crate::performance::aircraft_drag::AircraftTrim;
+use crate::performance::flight_polar::{GlidePoint, Optimum};
 use crate::section::ClMaxSource;
 use serde::Serialize;
 
@@ -33,8 +37,10 @@ pub struct CheckDocument {
     pub trim: TrimJson,
     /// Stall.
     pub stall: StallJson,
-    /// Glide performance.
+    /// Glide performance (headline figures).
     pub glide: GlideJson,
+    /// The flight polar over the speed range, or null when it was not computed.
+    pub flight_polar: Option<FlightPolarJson>,
     /// Solves from the lifting-line model (decalage, CG, elevator schedule).
     pub solves: Option<SolvesJson>,
     /// Wing spanwise loading (lifting line), starboard half, root to tip.
@@ -385,13 +391,37 @@ pub struct SpanwiseJson {
     pub cl_ratio_stall: f64,
 }
 
-/// `/glide`
+/// `/glide`: the headline glide figures, from the flight polar when it was computed, else
+/// from the parabolic estimate.
 #[derive(Debug, Serialize)]
 pub struct GlideJson {
+    /// `flight-polar` or `parabolic-estimate`.
+    pub source: &'static str,
+    /// Best glide ratio (horizontal distance over height lost).
+    pub best_glide_ratio: f64,
+    /// m/s
+    pub best_glide_speed_m_s: f64,
+    /// Minimum sink rate, m/s.
+    pub min_sink_m_s: f64,
+    /// m/s
+    pub min_sink_speed_m_s: f64,
+    /// True when minimum sink lies on the stall end of the range (not a true optimum).
+    pub min_sink_at_stall: bool,
+    /// Span efficiency C_L^2 / (pi A C_Di) at best glide (from the wake in the flight polar;
+    /// the Oswald estimate in the parabolic one).
+    pub span_efficiency: Option<f64>,
+    /// The parabolic polar from the drag build-up and Raymer's Oswald factor, kept as a
+    /// cross-check.
+    pub parabolic_cross_check: ParabolicJson,
+}
+
+/// `/glide/parabolic_cross_check`
+#[derive(Debug, Serialize)]
+pub struct ParabolicJson {
     /// Zero-lift drag coefficient from the build-up.
     pub cd0: f64,
-    /// Span efficiency used in the polar.
-    pub span_efficiency: f64,
+    /// Raymer's Oswald span efficiency.
+    pub oswald_span_efficiency: f64,
     /// Best glide ratio L/D.
     pub best_glide_ratio: f64,
     /// m/s
@@ -402,6 +432,195 @@ pub struct GlideJson {
     pub min_sink_speed_m_s: f64,
     /// True when minimum sink would lie beyond CL_max and was taken at CL_max.
     pub min_sink_at_cl_max: bool,
+}
+
+/// `/flight_polar`
+#[derive(Debug, Serialize)]
+pub struct FlightPolarJson {
+    /// `elevator`, `elevons` or `stabiliser-incidence`: what trims each point.
+    pub trimmed_by: &'static str,
+    /// Stall speed, m/s.
+    pub stall_speed_m_s: f64,
+    /// Top speed of the range, m/s.
+    pub top_speed_m_s: f64,
+    /// Minimum sink.
+    pub min_sink: PolarOptimumJson,
+    /// Best glide.
+    pub best_glide: PolarOptimumJson,
+    /// Speed to fly through sinking air (no climb expected).
+    pub speed_to_fly: Vec<SpeedToFlyJson>,
+    /// Where each airfoil's section drag comes from.
+    pub profile_drag: Vec<ProfileDragJson>,
+    /// The polar, in rising speed.
+    pub points: Vec<PolarPointJson>,
+}
+
+/// `/flight_polar/min_sink`, `/flight_polar/best_glide`
+#[derive(Debug, Serialize)]
+pub struct PolarOptimumJson {
+    /// The point.
+    #[serde(flatten)]
+    pub point: PolarPointJson,
+    /// True when it lies on the stall end of the range.
+    pub at_stall: bool,
+    /// True when it lies on the top-speed end.
+    pub at_top_speed: bool,
+}
+
+/// `/flight_polar/points/N`
+#[derive(Debug, Serialize)]
+pub struct PolarPointJson {
+    /// m/s
+    pub speed_m_s: f64,
+    /// Sink rate, m/s.
+    pub sink_m_s: f64,
+    /// Glide ratio.
+    pub glide_ratio: f64,
+    /// Lift coefficient.
+    pub cl: f64,
+    /// Total drag coefficient.
+    pub cd: f64,
+    /// Section (profile) drag of the lifting surfaces.
+    pub cd_profile: f64,
+    /// Induced drag of all surfaces (wake).
+    pub cd_induced: f64,
+    /// Fuselage drag.
+    pub cd_parasite: f64,
+    /// Span efficiency from the wake.
+    pub span_efficiency: Option<f64>,
+    /// Fuselage-datum angle of attack, deg.
+    pub alpha_deg: f64,
+    /// Trim control setting, deg (elevator trailing edge down positive, or the tailplane's
+    /// incidence change).
+    pub control_deg: f64,
+    /// Within the control throws.
+    pub within_throws: bool,
+    /// Stabiliser lift coefficient on its own area.
+    pub stabiliser_cl: f64,
+    /// True when some strip's drag was extrapolated beyond its section polar.
+    pub drag_extrapolated: bool,
+}
+
+/// `/flight_polar/speed_to_fly/N`
+#[derive(Debug, Serialize)]
+pub struct SpeedToFlyJson {
+    /// Sink of the air, m/s.
+    pub air_sink_m_s: f64,
+    /// m/s
+    pub speed_m_s: f64,
+    /// Glide ratio over the ground in that air.
+    pub glide_ratio_in_air: f64,
+    /// True when it is the top of the range.
+    pub at_top_speed: bool,
+}
+
+/// `/flight_polar/profile_drag/N`
+#[derive(Debug, Serialize)]
+pub struct ProfileDragJson {
+    /// Airfoil name.
+    pub airfoil: String,
+    /// Reynolds numbers of its viscous polars.
+    pub reynolds: Vec<f64>,
+    /// Why the flat-plate estimate was used, or null.
+    pub flat_plate_reason: Option<String>,
+}
+
+fn polar_point_json(p: &GlidePoint<AircraftTrim>) -> PolarPointJson {
+    PolarPointJson {
+        speed_m_s: r(p.speed_m_s, 3),
+        sink_m_s: r(p.sink_m_s, 4),
+        glide_ratio: r(p.glide_ratio, 2),
+        cl: r(p.cl, 4),
+        cd: r(p.drag.total(), 5),
+        cd_profile: r(p.drag.profile, 5),
+        cd_induced: r(p.drag.induced, 5),
+        cd_parasite: r(p.drag.parasite, 5),
+        span_efficiency: p.trim.span_efficiency.map(|e| r(e, 4)),
+        alpha_deg: r(p.trim.alpha_rad.to_degrees(), 3),
+        control_deg: r(p.trim.control_rad.to_degrees(), 3),
+        within_throws: p.trim.within_throws,
+        stabiliser_cl: r(p.trim.stabiliser_cl, 4),
+        drag_extrapolated: p.drag.beyond_polar,
+    }
+}
+
+/// What trims the flight polar, as a JSON word.
+pub fn trimmed_by(aircraft: &Aircraft, control: TrimControl) -> &'static str {
+    match control {
+        TrimControl::Elevator if aircraft.stabiliser.is_none() => "elevons",
+        TrimControl::Elevator => "elevator",
+        TrimControl::Incidence(_) => "stabiliser-incidence",
+    }
+}
+
+fn flight_polar_json(aircraft: &Aircraft, p: &GlidePolar) -> FlightPolarJson {
+    let optimum = |o: &Optimum<AircraftTrim>| PolarOptimumJson {
+        point: polar_point_json(&o.point),
+        at_stall: o.at_stall,
+        at_top_speed: o.at_top_speed,
+    };
+    FlightPolarJson {
+        trimmed_by: trimmed_by(aircraft, p.control),
+        stall_speed_m_s: r(p.stall_speed_m_s, 3),
+        top_speed_m_s: r(p.top_speed_m_s, 3),
+        min_sink: optimum(&p.min_sink),
+        best_glide: optimum(&p.best_glide),
+        speed_to_fly: p
+            .speed_to_fly
+            .iter()
+            .map(|s| SpeedToFlyJson {
+                air_sink_m_s: s.air_sink_m_s,
+                speed_m_s: r(s.speed_m_s, 3),
+                glide_ratio_in_air: r(s.glide_ratio_in_air, 2),
+                at_top_speed: s.at_top_speed,
+            })
+            .collect(),
+        profile_drag: p
+            .profile_sources
+            .iter()
+            .map(|s| ProfileDragJson {
+                airfoil: s.airfoil.clone(),
+                reynolds: s.reynolds.clone(),
+                flat_plate_reason: s.flat_plate_reason.clone(),
+            })
+            .collect(),
+        points: p.points.iter().map(polar_point_json).collect(),
+    }
+}
+
+fn glide_json(a: &Analysis) -> GlideJson {
+    let g = &a.glide;
+    let cross = ParabolicJson {
+        cd0: r(g.cd0, 5),
+        oswald_span_efficiency: r(g.span_efficiency, 4),
+        best_glide_ratio: r(g.performance.best_glide.glide_ratio, 3),
+        best_glide_speed_m_s: r(g.performance.best_glide.speed_m_s, 3),
+        min_sink_m_s: r(g.performance.min_sink.sink_m_s, 4),
+        min_sink_speed_m_s: r(g.performance.min_sink.speed_m_s, 3),
+        min_sink_at_cl_max: g.performance.min_sink.limited_by_cl_max,
+    };
+    match &a.glide_polar {
+        Some(p) => GlideJson {
+            source: "flight-polar",
+            best_glide_ratio: r(p.best_glide.point.glide_ratio, 3),
+            best_glide_speed_m_s: r(p.best_glide.point.speed_m_s, 3),
+            min_sink_m_s: r(p.min_sink.point.sink_m_s, 4),
+            min_sink_speed_m_s: r(p.min_sink.point.speed_m_s, 3),
+            min_sink_at_stall: p.min_sink.at_stall,
+            span_efficiency: p.best_glide.point.trim.span_efficiency.map(|e| r(e, 4)),
+            parabolic_cross_check: cross,
+        },
+        None => GlideJson {
+            source: "parabolic-estimate",
+            best_glide_ratio: cross.best_glide_ratio,
+            best_glide_speed_m_s: cross.best_glide_speed_m_s,
+            min_sink_m_s: cross.min_sink_m_s,
+            min_sink_speed_m_s: cross.min_sink_speed_m_s,
+            min_sink_at_stall: cross.min_sink_at_cl_max,
+            span_efficiency: Some(cross.oswald_span_efficiency),
+            parabolic_cross_check: cross,
+        },
+    }
 }
 
 /// `/cautions/N`
@@ -697,15 +916,11 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             }),
         }),
         spanwise: spanwise_json(a),
-        glide: GlideJson {
-            cd0: r(a.glide.cd0, 5),
-            span_efficiency: r(a.glide.span_efficiency, 4),
-            best_glide_ratio: r(a.glide.performance.best_glide.glide_ratio, 3),
-            best_glide_speed_m_s: r(a.glide.performance.best_glide.speed_m_s, 3),
-            min_sink_m_s: r(a.glide.performance.min_sink.sink_m_s, 4),
-            min_sink_speed_m_s: r(a.glide.performance.min_sink.speed_m_s, 3),
-            min_sink_at_cl_max: a.glide.performance.min_sink.limited_by_cl_max,
-        },
+        glide: glide_json(a),
+        flight_polar: a
+            .glide_polar
+            .as_ref()
+            .map(|p| flight_polar_json(aircraft, p)),
         cautions: a.cautions.iter().map(CautionJson::from).collect(),
     }
 }

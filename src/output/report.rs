@@ -145,6 +145,74 @@ pub struct TrimSweep {
     pub method: String,
 }
 
+/// One configuration's glide polar for the sink chart.
+#[derive(Debug, Clone, PartialEq)]
+pub struct GlideCase {
+    /// Legend label.
+    pub label: String,
+    /// (airspeed m/s, sink m/s) of the points that trim within the throws, rising speed.
+    pub points: Vec<(f64, f64)>,
+    /// Minimum sink (speed, sink).
+    pub min_sink: (f64, f64),
+    /// Best glide (speed, sink) and its glide ratio.
+    pub best_glide: (f64, f64, f64),
+    /// Stall speed, m/s.
+    pub stall_speed_m_s: f64,
+}
+
+/// The sink chart: this configuration first, then the ballast cases of the file.
+#[derive(Debug, Clone, PartialEq)]
+pub struct GlideChart {
+    /// The cases.
+    pub cases: Vec<GlideCase>,
+    /// How the polar was obtained.
+    pub method: String,
+}
+
+/// The glide case of an analysed configuration, labelled `label`.
+pub fn glide_case(a: &Analysis, label: &str) -> Option<GlideCase> {
+    let p = a.glide_polar.as_ref()?;
+    Some(GlideCase {
+        label: label.to_string(),
+        points: p
+            .points
+            .iter()
+            .filter(|q| q.flyable)
+            .map(|q| (q.speed_m_s, q.sink_m_s))
+            .collect(),
+        min_sink: (p.min_sink.point.speed_m_s, p.min_sink.point.sink_m_s),
+        best_glide: (
+            p.best_glide.point.speed_m_s,
+            p.best_glide.point.sink_m_s,
+            p.best_glide.point.glide_ratio,
+        ),
+        stall_speed_m_s: p.stall_speed_m_s,
+    })
+}
+
+/// The sink chart of `a`, with `ballast` cases (label, analysis) overlaid.
+pub fn glide_chart(a: &Analysis, ballast: &[(String, Analysis)]) -> Option<GlideChart> {
+    let mut cases = vec![glide_case(
+        a,
+        &format!("{} g", fmt(1000.0 * a.mass.total_kg, 0)),
+    )?];
+    for (name, b) in ballast {
+        if let Some(c) = glide_case(
+            b,
+            &format!("{name}: {} g", fmt(1000.0 * b.mass.total_kg, 0)),
+        ) {
+            cases.push(c);
+        }
+    }
+    Some(GlideChart {
+        cases,
+        method: "Trimmed at each speed; section drag from viscous polars at each strip's \
+                 Reynolds number, induced drag from the wake, fuselage by flat-plate build-up. \
+                 Still air."
+            .to_string(),
+    })
+}
+
 /// One row of the mass list, formatted.
 #[derive(Debug, Clone, PartialEq, Eq)]
 pub struct MassRow {
@@ -187,6 +255,8 @@ pub struct ReportData {
     pub spanwise: SpanwiseData,
     /// Trim speed against CG.
     pub trim_sweep: TrimSweep,
+    /// Sink against speed (none when the flight polar was not computed).
+    pub glide: Option<GlideChart>,
     /// Mass items, then added ballast, then the total.
     pub masses: Vec<MassRow>,
     /// The aircraft's cautions, most serious first (the standing safety caution excluded).
@@ -228,6 +298,7 @@ pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportD
         top_view: top_view(aircraft, a, target.map(|t| t.0)),
         spanwise: lifting_line_spanwise(a).unwrap_or_else(|| strip_spanwise(aircraft, a)),
         trim_sweep: trim_sweep(aircraft, a),
+        glide: glide_chart(a, &[]),
         masses: mass_rows(aircraft, a),
         cautions,
         safety: SAFETY_MESSAGE.to_string(),
@@ -389,24 +460,29 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             ),
         ));
     }
-    let glide = &a.glide.performance;
-    let at_max = |limited: bool| if limited { ", at CL max" } else { "" };
+    let g = a.glide_figures();
+    let at_stall = |limited: bool| if limited { ", at the stall" } else { "" };
+    let est = if g.from_flight_polar {
+        ""
+    } else {
+        " (parabolic)"
+    };
     out.push(kf(
-        "Best glide",
+        &format!("Best glide{est}"),
         format!(
             "{} at {} m/s{}",
-            fmt(glide.best_glide.glide_ratio, 1),
-            fmt(glide.best_glide.speed_m_s, 1),
-            at_max(glide.best_glide.limited_by_cl_max)
+            fmt(g.best_glide_ratio, 1),
+            fmt(g.best_glide_speed_m_s, 1),
+            at_stall(g.best_glide_at_stall)
         ),
     ));
     out.push(kf(
-        "Minimum sink",
+        &format!("Minimum sink{est}"),
         format!(
             "{} m/s at {} m/s{}",
-            fmt(glide.min_sink.sink_m_s, 2),
-            fmt(glide.min_sink.speed_m_s, 1),
-            at_max(glide.min_sink.limited_by_cl_max)
+            fmt(g.min_sink_m_s, 2),
+            fmt(g.min_sink_speed_m_s, 1),
+            at_stall(g.min_sink_at_stall)
         ),
     ));
     out.push(kf(
@@ -863,7 +939,7 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     ));
     out.extend([
         "Stall: first section to reach its cl max, or a stabiliser section its negative cl limit, on the trimmed path (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
-        "Glide: drag build-up and parabolic polar (Raymer, Aircraft Design, ch. 12). Air: ISA (US Standard Atmosphere, 1976).",
+        "Glide: trimmed polar, viscous strip drag, wake induced drag (Raymer, ch. 12). Air: ISA (US Standard Atmosphere, 1976).",
     ]
     .iter()
     .map(|s| s.to_string()));

@@ -21,6 +21,9 @@ pub enum ReportError {
     Write(#[from] WriteError),
 }
 
+/// Most ballast cases drawn on the report's sink chart.
+pub const MAX_BALLAST_CASES: usize = 3;
+
 /// The report for `aircraft` as PDF bytes.
 pub fn report_pdf(
     aircraft: &Aircraft,
@@ -36,7 +39,25 @@ fn analysed_report(
     paper: Paper,
 ) -> Result<(Vec<u8>, Analysis), AnalysisError> {
     let analysis = analyse(aircraft, &AnalysisOptions::default())?;
-    let data = report::build(aircraft, &analysis, source);
+    let mut data = report::build(aircraft, &analysis, source);
+    // The file's ballast cases overlaid on the sink chart (a case that fails to analyse is
+    // left out; `compare` reports it).
+    let ballast: Vec<(String, Analysis)> = aircraft
+        .setups
+        .iter()
+        .filter(|s| {
+            s.changes
+                .iter()
+                .any(|c| matches!(c, crate::model::Change::Ballast { .. }))
+        })
+        .take(MAX_BALLAST_CASES)
+        .filter_map(|s| {
+            analyse(&s.apply(aircraft), &AnalysisOptions::default())
+                .ok()
+                .map(|a| (s.name.clone(), a))
+        })
+        .collect();
+    data.glide = report::glide_chart(&analysis, &ballast);
     Ok((pdf::trim_report(&data, paper), analysis))
 }
 

@@ -86,6 +86,12 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str, u: UnitSyst
         out.push_str("\n\nSpanwise loading of the wing (starboard half)\n");
         out.push_str(&t.to_string());
     }
+    if let Some(p) = &a.glide_polar {
+        out.push_str("\n\nGlide over the speed range (trimmed, still air)\n");
+        out.push_str(&glide_polar_table(aircraft, p).to_string());
+        out.push_str("\n\nSpeed to fly through sinking air\n");
+        out.push_str(&speed_to_fly_table(p).to_string());
+    }
     if let Some(t) = solves_table(aircraft, a) {
         if aircraft.stabiliser.is_some() {
             out.push_str("\n\nDecalage and elevator\n");
@@ -543,32 +549,32 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
             String::new(),
         ]);
     }
-    let g = &a.glide.performance;
-    let flag = |limited: bool| if limited { " (at CL max)" } else { "" };
+    let g = a.glide_figures();
+    let flag = |limited: bool| if limited { " (at the stall)" } else { "" };
+    let from = if g.from_flight_polar {
+        ""
+    } else {
+        " (parabolic estimate)"
+    };
     t.add_row(vec![
-        "best glide ratio".into(),
+        format!("best glide ratio{from}"),
         format!(
             "{} at {} m/s{}",
-            num(g.best_glide.glide_ratio, 1),
-            num(g.best_glide.speed_m_s, 1),
-            flag(g.best_glide.limited_by_cl_max)
+            num(g.best_glide_ratio, 1),
+            num(g.best_glide_speed_m_s, 1),
+            flag(g.best_glide_at_stall)
         ),
         String::new(),
     ]);
     t.add_row(vec![
-        "minimum sink".into(),
+        format!("minimum sink{from}"),
         format!(
             "{} at {} m/s{}",
-            num(g.min_sink.sink_m_s, 2),
-            num(g.min_sink.speed_m_s, 1),
-            flag(g.min_sink.limited_by_cl_max)
+            num(g.min_sink_m_s, 2),
+            num(g.min_sink_speed_m_s, 1),
+            flag(g.min_sink_at_stall)
         ),
         "m/s".into(),
-    ]);
-    t.add_row(vec![
-        "zero-lift drag CD0 (build-up)".into(),
-        num(a.glide.cd0, 4),
-        String::new(),
     ]);
     t.add_row(vec![
         "Reynolds number on MAC".into(),
@@ -652,6 +658,80 @@ pub fn cg_gauge(a: &Analysis, width: usize, u: UnitSystem) -> String {
 }
 
 /// Rows of the spanwise table: about `rows` wing stations from root to tip.
+/// Rows of the glide table in `check`.
+const GLIDE_ROWS: usize = 12;
+
+/// The flight polar, sampled, with the minimum-sink and best-glide points marked.
+fn glide_polar_table(aircraft: &Aircraft, p: &crate::analysis::glide::GlidePolar) -> Table {
+    let control = match p.control {
+        crate::lifting_line::TrimControl::Elevator => aircraft.pitch_control_name(),
+        crate::lifting_line::TrimControl::Incidence(_) => "tail incidence change",
+    };
+    let header = format!("{control} (deg, down +)");
+    let mut t = table(&[
+        "speed (m/s)",
+        "sink (m/s)",
+        "glide ratio",
+        "CL",
+        "section drag",
+        "induced drag",
+        "fuselage drag",
+        &header,
+        "",
+    ]);
+    let mut rows: Vec<(&crate::performance::flight_polar::GlidePoint<_>, &str)> =
+        sample(&p.points, GLIDE_ROWS)
+            .into_iter()
+            .map(|q| (q, ""))
+            .collect();
+    rows.push((&p.min_sink.point, "least sink"));
+    rows.push((&p.best_glide.point, "best glide"));
+    rows.sort_by(|x, y| x.0.speed_m_s.total_cmp(&y.0.speed_m_s));
+    for (q, mark) in rows {
+        let mut note = mark.to_string();
+        if !q.flyable {
+            note = "beyond the throws".into();
+        } else if q.drag.beyond_polar && note.is_empty() {
+            note = "drag extrapolated".into();
+        }
+        t.add_row(vec![
+            num(q.speed_m_s, 1),
+            num(q.sink_m_s, 3),
+            num(q.glide_ratio, 1),
+            num(q.cl, 3),
+            num(q.drag.profile, 4),
+            num(q.drag.induced, 4),
+            num(q.drag.parasite, 4),
+            num(q.trim.control_rad.to_degrees(), 1),
+            note,
+        ]);
+    }
+    right_align(&mut t, 0..8);
+    t
+}
+
+/// The speed to fly in air sinking at a few rates.
+fn speed_to_fly_table(p: &crate::analysis::glide::GlidePolar) -> Table {
+    let mut t = table(&[
+        "air sinking at (m/s)",
+        "fly at (m/s)",
+        "glide ratio over the ground",
+    ]);
+    for s in &p.speed_to_fly {
+        t.add_row(vec![
+            num(s.air_sink_m_s, 1),
+            format!(
+                "{}{}",
+                num(s.speed_m_s, 1),
+                if s.at_top_speed { " (top speed)" } else { "" }
+            ),
+            num(s.glide_ratio_in_air, 1),
+        ]);
+    }
+    right_align(&mut t, 0..3);
+    t
+}
+
 fn sample<T>(items: &[T], rows: usize) -> Vec<&T> {
     if items.len() <= rows {
         return items.iter().collect();
@@ -806,4 +886,31 @@ fn solves_table(aircraft: &Aircraft, a: &Analysis) -> Option<Table> {
         }
     }
     (t.row_count() > 0).then_some(t)
+}
+
+/// The flight polar as CSV: one row per speed, SI units, our own column names.
+pub fn glide_csv(p: &crate::analysis::glide::GlidePolar) -> String {
+    let mut out = String::from(
+        "speed_m_s,sink_m_s,glide_ratio,cl,cd,cd_section,cd_induced,cd_fuselage,\
+         alpha_deg,control_deg,within_throws,drag_extrapolated\n",
+    );
+    for q in &p.points {
+        let _ = writeln!(
+            out,
+            "{:.4},{:.5},{:.3},{:.5},{:.6},{:.6},{:.6},{:.6},{:.4},{:.4},{},{}",
+            q.speed_m_s,
+            q.sink_m_s,
+            q.glide_ratio,
+            q.cl,
+            q.drag.total(),
+            q.drag.profile,
+            q.drag.induced,
+            q.drag.parasite,
+            q.trim.alpha_rad.to_degrees(),
+            q.trim.control_rad.to_degrees(),
+            q.flyable,
+            q.drag.beyond_polar
+        );
+    }
+    out
 }

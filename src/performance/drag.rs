@@ -71,6 +71,14 @@ pub struct BodyDragInput {
     pub width_m: f64,
 }
 
+/// Drag coefficient of a fuselage alone on `reference_area_m2` at speed `speed_m_s` with
+/// kinematic viscosity `nu_m2_s` (fully turbulent, no interference allowance).
+pub fn body_cd(body: BodyDragInput, reference_area_m2: f64, speed_m_s: f64, nu_m2_s: f64) -> f64 {
+    let re = speed_m_s * body.length_m / nu_m2_s;
+    let wet = 0.75 * std::f64::consts::PI * body.width_m * body.length_m;
+    cf_turbulent(re) * form_factor_body(body.length_m / body.width_m) * wet / reference_area_m2
+}
+
 /// Zero-lift drag coefficient on `reference_area_m2` at speed `speed_m_s` with kinematic
 /// viscosity `nu_m2_s`.
 pub fn cd0(
@@ -87,9 +95,7 @@ pub fn cd0(
         sum += cf_surface(re) * form_factor_surface(s.thickness_ratio, s.x_thickness_c) * wet;
     }
     if let Some(b) = body {
-        let re = speed_m_s * b.length_m / nu_m2_s;
-        let wet = 0.75 * std::f64::consts::PI * b.width_m * b.length_m;
-        sum += cf_turbulent(re) * form_factor_body(b.length_m / b.width_m) * wet;
+        sum += body_cd(b, 1.0, speed_m_s, nu_m2_s);
     }
     (1.0 + INTERFERENCE_FRACTION) * sum / reference_area_m2
 }

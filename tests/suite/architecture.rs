@@ -29,7 +29,7 @@ const CORE: &[&str] = &[
     "stability",
     "performance",
     "atmosphere.rs",
-    "analysis.rs",
+    "analysis",
     "caution.rs",
 ];
 

@@ -68,6 +68,7 @@ fn opts() -> AnalysisOptions {
     AnalysisOptions {
         panels: 120,
         stations_per_half_span: Some(30),
+        flight_polar: false,
     }
 }
 

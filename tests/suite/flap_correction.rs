@@ -82,6 +82,7 @@ fn forward_limit_uses_the_corrected_effectiveness_at_full_throw() {
     let opts = AnalysisOptions {
         panels: 120,
         stations_per_half_span: Some(30),
+        flight_polar: false,
     };
     let a = analyse(&ac, &opts).unwrap();
     let f = a.full.as_ref().unwrap();

@@ -11,6 +11,7 @@ mod cli_compare;
 mod common;
 mod file_output;
 mod flap_correction;
+mod flight_polar;
 mod fuselage;
 mod fuzz_properties;
 mod geometry;

@@ -6,7 +6,7 @@
 use super::canvas::{Align, Canvas, Dash, Font, Marker, Pen};
 use super::chart::{self, Axes, Axis, Frame, Swatch, TICK_FONT, TITLE_FONT};
 use super::metrics::{self, Face};
-use crate::output::report::{fmt, SpanPoint, SpanwiseData, TrimSweep};
+use crate::output::report::{fmt, GlideChart, SpanPoint, SpanwiseData, TrimSweep};
 
 const CHART_TITLE: Font = Font::bold(8.0);
 const NOTE: Font = Font::regular(6.0);
@@ -285,4 +285,76 @@ pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
             Align::Centre,
         );
     }
+}
+
+/// The sink chart: sink rate against airspeed for this configuration (solid) and the ballast
+/// cases (dashed, dotted, dash-dot), with minimum sink (ring), best glide (triangle) and the
+/// stall speed (dotted vertical line) of this configuration marked.
+pub fn glide_chart(c: &mut Canvas, area: Frame, data: &GlideChart) {
+    let Some(first) = data.cases.first() else {
+        return;
+    };
+    let all = data.cases.iter().flat_map(|k| k.points.iter());
+    let v_lo = all
+        .clone()
+        .map(|p| p.0)
+        .fold(first.stall_speed_m_s, f64::min);
+    let v_hi = all.clone().map(|p| p.0).fold(v_lo + 1.0, f64::max);
+    let s_hi = all.map(|p| p.1).fold(0.1, f64::max);
+    let x = Axis::nice(0.0_f64.max(0.9 * v_lo), v_hi, 5, "airspeed (m/s)");
+    let y = Axis::nice(0.0, 1.05 * s_hi, 5, "sink rate (m/s)");
+    let pens = [
+        Pen::solid(1.3),
+        Pen::solid(0.8).with_dash(Dash::Dashed),
+        Pen::solid(0.8).with_dash(Dash::Dotted),
+        Pen::solid(0.8).with_dash(Dash::DashDot),
+    ];
+    let stall_pen = Pen::solid(0.5).with_dash(Dash::Dotted).with_grey(0.4);
+    let mut legend: Vec<(Swatch, String)> = data
+        .cases
+        .iter()
+        .zip(pens.iter().cycle())
+        .map(|(k, pen)| (Swatch::Line(*pen, None), k.label.clone()))
+        .collect();
+    legend.push((
+        Swatch::Line(Pen::solid(0.6), Some(Marker::Ring)),
+        format!(
+            "least sink {} m/s at {} m/s",
+            fmt(first.min_sink.1, 2),
+            fmt(first.min_sink.0, 1)
+        ),
+    ));
+    legend.push((
+        Swatch::Line(Pen::solid(0.6), Some(Marker::Triangle)),
+        format!(
+            "best glide {} at {} m/s",
+            fmt(first.best_glide.2, 1),
+            fmt(first.best_glide.0, 1)
+        ),
+    ));
+    legend.push((
+        Swatch::Line(stall_pen, None),
+        format!("stall {} m/s", fmt(first.stall_speed_m_s, 1)),
+    ));
+    let axes = chart_frame(
+        c,
+        area,
+        "Sink rate against airspeed",
+        x,
+        y,
+        &legend,
+        &data.method,
+    );
+    axes.vline(c, first.stall_speed_m_s, stall_pen);
+    for (k, pen) in data.cases.iter().zip(pens.iter().cycle()) {
+        let line: Vec<Option<(f64, f64)>> = k.points.iter().map(|p| Some(*p)).collect();
+        axes.series(c, &line, *pen);
+    }
+    axes.markers(c, &[first.min_sink], Marker::Ring, Pen::solid(0.6));
+    axes.markers(
+        c,
+        &[(first.best_glide.0, first.best_glide.1)],
+        Marker::Triangle,
+        Pen::solid(0.6),
+    );
 }

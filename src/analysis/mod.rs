@@ -20,6 +20,8 @@ use crate::stability::classical::{self, ClassicalEstimate, EquivalentSurface, St
 use crate::stability::trim;
 use thiserror::Error;
 
+pub mod glide;
+
 /// Trim speed below this multiple of the stall speed gives a caution (common practice: 1.2,
 /// the margin a pilot keeps in turbulence).
 pub const NEAR_STALL_FACTOR: f64 = 1.2;
@@ -45,6 +47,9 @@ pub struct AnalysisOptions {
     /// Strips per half-span of the wing, overriding the file's `[numerics]` (`None`: the
     /// file's, or the default).
     pub stations_per_half_span: Option<usize>,
+    /// Compute the flight polar (sink and glide over the speed range, with viscous section
+    /// drag); off for trade studies that only need balance and trim.
+    pub flight_polar: bool,
 }
 
 impl Default for AnalysisOptions {
@@ -52,6 +57,7 @@ impl Default for AnalysisOptions {
         AnalysisOptions {
             panels: 160,
             stations_per_half_span: None,
+            flight_polar: true,
         }
     }
 }
@@ -136,10 +142,62 @@ pub struct Analysis {
     pub reynolds_mac: f64,
     /// Mass and CG measured by the weighing in the file, if any.
     pub weighed: Option<MassSummary>,
-    /// Glide performance from the drag build-up.
+    /// The parabolic glide estimate from the drag build-up (a cross-check only).
     pub glide: Glide,
+    /// The flight polar from the trimmed wing model and viscous section drag (when asked for
+    /// and computed).
+    pub glide_polar: Option<glide::GlidePolar>,
     /// Everything the builder should read.
     pub cautions: Vec<Caution>,
+}
+
+/// The headline glide figures, from the flight polar when it was computed, else from the
+/// parabolic estimate: the one place tables, JSON, the report and comparisons read them.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct GlideFigures {
+    /// True when they come from the flight polar.
+    pub from_flight_polar: bool,
+    /// Best glide ratio.
+    pub best_glide_ratio: f64,
+    /// Its speed, m/s.
+    pub best_glide_speed_m_s: f64,
+    /// Minimum sink, m/s.
+    pub min_sink_m_s: f64,
+    /// Its speed, m/s.
+    pub min_sink_speed_m_s: f64,
+    /// True when minimum sink lies on the stall end of the range (not an optimum).
+    pub min_sink_at_stall: bool,
+    /// True when best glide lies on the stall end.
+    pub best_glide_at_stall: bool,
+}
+
+impl Analysis {
+    /// The headline glide figures.
+    pub fn glide_figures(&self) -> GlideFigures {
+        match &self.glide_polar {
+            Some(p) => GlideFigures {
+                from_flight_polar: true,
+                best_glide_ratio: p.best_glide.point.glide_ratio,
+                best_glide_speed_m_s: p.best_glide.point.speed_m_s,
+                min_sink_m_s: p.min_sink.point.sink_m_s,
+                min_sink_speed_m_s: p.min_sink.point.speed_m_s,
+                min_sink_at_stall: p.min_sink.at_stall,
+                best_glide_at_stall: p.best_glide.at_stall,
+            },
+            None => {
+                let g = &self.glide.performance;
+                GlideFigures {
+                    from_flight_polar: false,
+                    best_glide_ratio: g.best_glide.glide_ratio,
+                    best_glide_speed_m_s: g.best_glide.speed_m_s,
+                    min_sink_m_s: g.min_sink.sink_m_s,
+                    min_sink_speed_m_s: g.min_sink.speed_m_s,
+                    min_sink_at_stall: g.min_sink.limited_by_cl_max,
+                    best_glide_at_stall: g.best_glide.limited_by_cl_max,
+                }
+            }
+        }
+    }
 }
 
 /// Which model gave the headline figures.
@@ -422,6 +480,33 @@ pub fn analyse_with(
             return Err(AnalysisError::NonFinite { quantity: name });
         }
     }
+    let glide_polar = match (options.flight_polar, system, full.as_ref()) {
+        (true, Ok(system), Some(f)) => {
+            let polar = glide::glide_polar(&glide::GlideInput {
+                aircraft,
+                system,
+                sections,
+                full: f,
+                mass_kg: mass.total_kg,
+                cg_m: (input.cg_x_m, input.cg_z_m),
+                air: &air,
+                panels: options.panels,
+            });
+            glide::glide_cautions(aircraft, &polar, &mut cautions);
+            polar.ok()
+        }
+        _ => None,
+    };
+    if let Some(p) = &glide_polar {
+        for (name, v) in [
+            ("minimum sink", p.min_sink.point.sink_m_s),
+            ("best glide", p.best_glide.point.glide_ratio),
+        ] {
+            if !v.is_finite() {
+                return Err(AnalysisError::NonFinite { quantity: name });
+            }
+        }
+    }
     let weighed = if aircraft.weighing.is_empty() {
         None
     } else {
@@ -533,6 +618,7 @@ pub fn analyse_with(
         reynolds_mac,
         weighed,
         glide,
+        glide_polar,
         cautions,
     })
 }
@@ -1136,6 +1222,10 @@ pub struct KeyFigures {
     pub stall_speed_m_s: f64,
     /// Ballast needed for the target static margin in the first bay that can reach it, kg.
     pub ballast_kg: Option<(String, f64)>,
+    /// Minimum sink and its speed, m/s (flight polar only).
+    pub min_sink_m_s: Option<(f64, f64)>,
+    /// Best glide ratio and its speed, m/s (flight polar only).
+    pub best_glide: Option<(f64, f64)>,
     /// Number of warnings.
     pub warnings: usize,
     /// Number of dangers.
@@ -1207,6 +1297,14 @@ impl KeyFigures {
                 BallastOutcome::NotNeeded => Some((b.bay.clone(), 0.0)),
                 _ => None,
             }),
+            min_sink_m_s: a
+                .glide_polar
+                .as_ref()
+                .map(|p| (p.min_sink.point.sink_m_s, p.min_sink.point.speed_m_s)),
+            best_glide: a
+                .glide_polar
+                .as_ref()
+                .map(|p| (p.best_glide.point.glide_ratio, p.best_glide.point.speed_m_s)),
             warnings: a
                 .cautions
                 .iter()

@@ -1,0 +1,406 @@
+//! The glide step of the chain: the flight polar of the analysed configuration from its
+//! factored wing system, its trimmed stall and its masses, with section drag from viscous
+//! polars ([`crate::performance::profile_drag`]), and the cautions it raises.
+
+use crate::atmosphere::AirState;
+use crate::caution::{Caution, Level};
+use crate::lifting_line::{MultiSurfaceSystem, TrimControl};
+use crate::model::Aircraft;
+use crate::performance::aircraft_drag::{AircraftDrag, AircraftTrim};
+use crate::performance::flight_polar::{
+    flight_polar, FlightPolarError, GlidePoint, Optimum, PolarConditions, SpeedToFly,
+};
+use crate::performance::profile_drag::{section_drag, DragRequest, SectionDrag};
+use crate::section::cache::PolarCache;
+use crate::section::SectionModel;
+use crate::stability::trim::FullStability;
+
+/// Speeds on the polar's grid (stall to top speed).
+pub const POLAR_POINTS: usize = 40;
+
+/// Sink rates of the air for which the speed to fly is given, m/s (common practice: model
+/// and full-size gliders meet 0.5 to 2 m/s of sinking air between thermals).
+pub const AIR_SINK_RATES_M_S: [f64; 4] = [0.0, 0.5, 1.0, 2.0];
+
+/// Padding of the lift range a section's drag polar covers beyond what the range asks for.
+const CL_PADDING: f64 = 0.15;
+
+/// Minimum sink closer to the stall than this factor on the stall speed is flagged (common
+/// practice: 1.2 times the stall speed is the usual margin for slow flight).
+pub const MIN_SINK_STALL_MARGIN: f64 = 1.2;
+
+/// Where one airfoil's profile drag came from.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ProfileSource {
+    /// Airfoil name.
+    pub airfoil: String,
+    /// Reynolds numbers of its viscous polars (empty for the flat-plate estimate).
+    pub reynolds: Vec<f64>,
+    /// Why the flat-plate estimate was used, when it was.
+    pub flat_plate_reason: Option<String>,
+}
+
+/// The flight polar of one configuration.
+#[derive(Debug, Clone, PartialEq)]
+pub struct GlidePolar {
+    /// Grid points in rising speed.
+    pub points: Vec<GlidePoint<AircraftTrim>>,
+    /// Minimum sink.
+    pub min_sink: Optimum<AircraftTrim>,
+    /// Best glide.
+    pub best_glide: Optimum<AircraftTrim>,
+    /// Speed to fly through sinking air ([`AIR_SINK_RATES_M_S`], no climb expected).
+    pub speed_to_fly: Vec<SpeedToFly>,
+    /// Which control trims the polar.
+    pub control: TrimControl,
+    /// Stall speed at the polar's mass, m/s (level-flight definition).
+    pub stall_speed_m_s: f64,
+    /// Top speed of the range, m/s.
+    pub top_speed_m_s: f64,
+    /// Profile-drag source of every airfoil used.
+    pub profile_sources: Vec<ProfileSource>,
+    /// The strip whose cl at the stall most exceeds the cl at which its viscous polar
+    /// separates at its Reynolds number, if any does.
+    pub early_separation: Option<EarlySeparation>,
+}
+
+/// A strip that, at the stall, flies beyond the lift at which the viscous method finds its
+/// section separating.
+#[derive(Debug, Clone, PartialEq)]
+pub struct EarlySeparation {
+    /// Airfoil name (the strip's inboard airfoil).
+    pub airfoil: String,
+    /// Surface index (0 wing).
+    pub surface: usize,
+    /// Chord Reynolds number there at the stall speed.
+    pub reynolds: f64,
+    /// cl at which the viscous polar separates there.
+    pub separation_cl: f64,
+    /// The strip's cl at the stall (the section cl_max used, or near it).
+    pub cl_at_stall: f64,
+}
+
+fn early_separation(
+    aircraft: &Aircraft,
+    source: &AircraftDrag<'_>,
+    drags: &[SectionDrag],
+    stall_point: &GlidePoint<AircraftTrim>,
+    nu: f64,
+) -> Option<EarlySeparation> {
+    let mut worst: Option<(f64, EarlySeparation)> = None;
+    for (strip, cl) in source.strips().iter().zip(&stall_point.trim.strip_cl) {
+        let eta = strip.eta.max(1e-6);
+        let re = stall_point.speed_m_s * eta.sqrt() * strip.chord_m / nu;
+        let cl_own = cl / eta;
+        let id = if strip.airfoils.2 > 0.5 {
+            strip.airfoils.1
+        } else {
+            strip.airfoils.0
+        };
+        let Some(sep) = drags.get(id).and_then(|d| d.separation_cl(re)) else {
+            continue;
+        };
+        let excess = cl_own - sep;
+        if excess > 0.02 && worst.as_ref().is_none_or(|w| excess > w.0) {
+            worst = Some((
+                excess,
+                EarlySeparation {
+                    airfoil: aircraft.airfoils[id].name.clone(),
+                    surface: strip.surface,
+                    reynolds: re,
+                    separation_cl: sep,
+                    cl_at_stall: cl_own,
+                },
+            ));
+        }
+    }
+    worst.map(|w| w.1)
+}
+
+/// Inputs of the glide step.
+#[derive(Debug, Clone, Copy)]
+pub struct GlideInput<'a> {
+    /// The aircraft.
+    pub aircraft: &'a Aircraft,
+    /// Its factored system.
+    pub system: &'a MultiSurfaceSystem,
+    /// Its section models (lift), parallel to the airfoils.
+    pub sections: &'a [SectionModel],
+    /// The full-model results (stall, neutral points, top speed).
+    pub full: &'a FullStability,
+    /// Mass, kg.
+    pub mass_kg: f64,
+    /// CG x and the moment reference height, m.
+    pub cg_m: (f64, f64),
+    /// The air.
+    pub air: &'a AirState,
+    /// Panels of the viscous polars.
+    pub panels: usize,
+}
+
+/// What the range asks of one airfoil: Reynolds number low and high, cl low and high.
+type Need = (f64, f64, f64, f64);
+
+/// The section drag of every airfoil over what the flight range asks of it.
+fn section_drags(
+    input: &GlideInput<'_>,
+    probe: &AircraftDrag<'_>,
+    stall_m_s: f64,
+    top_m_s: f64,
+    cl_stall: f64,
+    cl_top: f64,
+) -> Vec<SectionDrag> {
+    let aircraft = input.aircraft;
+    let nu = input.air.kinematic_viscosity_m2_s();
+    let n = aircraft.airfoils.len();
+    // Per airfoil: (Re low, Re high, cl low, cl high) over the strips that use it.
+    let mut need: Vec<Option<Need>> = vec![None; n];
+    let trims: Vec<AircraftTrim> = [cl_stall, 0.5 * (cl_stall + cl_top), cl_top]
+        .iter()
+        .filter_map(|cl| probe_trim(probe, *cl))
+        .collect();
+    for (k, strip) in probe.strips().iter().enumerate() {
+        let sq = strip.eta.max(1e-6).sqrt();
+        let re_lo = 0.95 * stall_m_s * sq * strip.chord_m / nu;
+        let re_hi = 1.05 * top_m_s * sq * strip.chord_m / nu;
+        let (i, o, w) = strip.airfoils;
+        for t in &trims {
+            let cl = t.strip_cl[k] / strip.eta.max(1e-6);
+            for (id, used) in [(i, true), (o, w > 0.0)] {
+                if !used || id >= n {
+                    continue;
+                }
+                let e = need[id].get_or_insert((re_lo, re_hi, cl, cl));
+                e.0 = e.0.min(re_lo);
+                e.1 = e.1.max(re_hi);
+                e.2 = e.2.min(cl);
+                e.3 = e.3.max(cl);
+            }
+        }
+    }
+    let cache = PolarCache::shared();
+    let jobs: Vec<(usize, Option<Need>)> = need.into_iter().enumerate().collect();
+    use rayon::prelude::*;
+    jobs.par_iter()
+        .map(|(id, need)| {
+            let airfoil = &aircraft.airfoils[*id];
+            let Some((re_lo, re_hi, cl_lo, cl_hi)) = *need else {
+                // Not used by any strip: never looked up; the flat plate keeps the slot.
+                return SectionDrag::FlatPlate {
+                    thickness_ratio: crate::section::thickness_ratio(airfoil),
+                    reason: "not used by any strip".into(),
+                };
+            };
+            let s = &input.sections[*id];
+            let slope = s.cl_alpha_per_rad.max(1.0);
+            let alpha = |cl: f64| s.alpha_zero_lift_rad + cl / slope;
+            section_drag(
+                airfoil,
+                DragRequest {
+                    reynolds_range: (re_lo, re_hi),
+                    alpha_range_rad: (alpha(cl_lo - CL_PADDING), alpha(cl_hi + CL_PADDING)),
+                },
+                input.panels,
+                cache,
+            )
+        })
+        .collect()
+}
+
+fn probe_trim(probe: &AircraftDrag<'_>, cl: f64) -> Option<AircraftTrim> {
+    use crate::performance::flight_polar::DragSource;
+    probe.trim(cl)
+}
+
+/// Why there is no flight polar.
+#[derive(Debug, Clone, PartialEq)]
+pub enum NoPolar {
+    /// The aircraft has no pitch control and no stabiliser: one trimmed speed only.
+    NoTrimControl,
+    /// No stall was found (the trim or stall solve failed).
+    NoStall,
+    /// The polar itself failed.
+    Failed(FlightPolarError),
+}
+
+/// The flight polar of the configuration.
+pub fn glide_polar(input: &GlideInput<'_>) -> Result<GlidePolar, NoPolar> {
+    let stall = input.full.stall.as_ref().ok_or(NoPolar::NoStall)?;
+    let shift = input.full.neutral_point_surfaces_x_m - input.full.neutral_point_x_m;
+    let (x_ref, z_ref) = (input.cg_m.0 + shift, input.cg_m.1);
+    let nu = input.air.kinematic_viscosity_m2_s();
+    let density = input.air.density_kg_m3;
+    let area = input.system.reference().area_m2;
+    let top = input.full.top_speed_m_s;
+    let cl_top = 2.0 * input.mass_kg * crate::atmosphere::G0 / (density * area * top * top);
+    let probe = AircraftDrag::new(input.aircraft, input.system, &[], x_ref, z_ref, nu)
+        .ok_or(NoPolar::NoTrimControl)?;
+    let drags = section_drags(input, &probe, stall.speed_m_s, top, stall.cl_max, cl_top);
+    let source = AircraftDrag::new(input.aircraft, input.system, &drags, x_ref, z_ref, nu)
+        .ok_or(NoPolar::NoTrimControl)?;
+    let cond = PolarConditions {
+        mass_kg: input.mass_kg,
+        density_kg_m3: density,
+        area_m2: area,
+        cl_stall: stall.cl_max,
+        top_speed_m_s: top,
+        points: POLAR_POINTS,
+    };
+    let polar = flight_polar(&source, &cond).map_err(NoPolar::Failed)?;
+    let speed_to_fly = AIR_SINK_RATES_M_S
+        .iter()
+        .filter_map(|s| polar.speed_to_fly(&source, *s, 0.0).ok())
+        .collect();
+    let profile_sources = input
+        .aircraft
+        .airfoils
+        .iter()
+        .zip(&drags)
+        .filter(|(_, d)| {
+            !matches!(d, SectionDrag::FlatPlate { reason, .. } if reason == "not used by any strip")
+        })
+        .map(|(a, d)| match d {
+            SectionDrag::Viscous { polars, .. } => ProfileSource {
+                airfoil: a.name.clone(),
+                reynolds: polars.iter().map(|p| p.reynolds).collect(),
+                flat_plate_reason: None,
+            },
+            SectionDrag::FlatPlate { reason, .. } => ProfileSource {
+                airfoil: a.name.clone(),
+                reynolds: Vec::new(),
+                flat_plate_reason: Some(reason.clone()),
+            },
+        })
+        .collect();
+    let early_separation = polar
+        .points
+        .first()
+        .and_then(|p| early_separation(input.aircraft, &source, &drags, p, nu));
+    Ok(GlidePolar {
+        early_separation,
+        points: polar.points,
+        min_sink: polar.min_sink,
+        best_glide: polar.best_glide,
+        speed_to_fly,
+        control: source.control(),
+        stall_speed_m_s: stall.speed_m_s,
+        top_speed_m_s: top,
+        profile_sources,
+    })
+}
+
+/// The cautions of a flight polar (or of its absence).
+pub fn glide_cautions(
+    aircraft: &Aircraft,
+    polar: &Result<GlidePolar, NoPolar>,
+    cautions: &mut Vec<Caution>,
+) {
+    let p = match polar {
+        Ok(p) => p,
+        Err(NoPolar::NoTrimControl) => {
+            cautions.push(Caution::new(
+                Level::Note,
+                "no-flight-polar",
+                "Without a pitch control or a tailplane the aircraft flies at one trimmed speed \
+                 only, so no glide polar over speed is computed.",
+            ));
+            return;
+        }
+        Err(NoPolar::NoStall) => return,
+        Err(NoPolar::Failed(e)) => {
+            cautions.push(Caution::new(
+                Level::Warning,
+                "no-flight-polar",
+                format!("The glide polar could not be computed ({e}); no sink or glide figures are given."),
+            ));
+            return;
+        }
+    };
+    let vs = p.stall_speed_m_s;
+    let ms = &p.min_sink;
+    if ms.at_stall || ms.point.speed_m_s < MIN_SINK_STALL_MARGIN * vs {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "min-sink-near-stall",
+            format!(
+                "The least sink comes out at {:.1} m/s, {} the stall speed {:.1} m/s. Do not fly \
+                 that slowly: near the stall the drag rise and a wing drop are not in this model. \
+                 Keep above {:.1} m/s ({:.1} times the stall speed).",
+                ms.point.speed_m_s,
+                if ms.at_stall { "at" } else { "close to" },
+                vs,
+                MIN_SINK_STALL_MARGIN * vs,
+                MIN_SINK_STALL_MARGIN
+            ),
+        ));
+    }
+    if let Some(e) = &p.early_separation {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "section-separates-early",
+            format!(
+                "At the stall speed the {} flies airfoil '{}' at Reynolds number {} up to cl {:.2}, \
+                 but its viscous polar there separates at cl {:.2}: the stall may come at a \
+                 higher speed than {:.1} m/s. Give that airfoil a cl_max for this Reynolds number, \
+                 and fly the first flights well above the stall speed shown.",
+                if e.surface == 0 { "wing" } else { "stabiliser" },
+                e.airfoil,
+                crate::caution::reynolds_text(e.reynolds),
+                e.cl_at_stall,
+                e.separation_cl,
+                vs
+            ),
+        ));
+    }
+    for s in &p.profile_sources {
+        if let Some(reason) = &s.flat_plate_reason {
+            cautions.push(Caution::new(
+                Level::Warning,
+                "profile-drag-estimated",
+                format!(
+                    "Airfoil '{}': its section drag comes from a flat-plate estimate ({reason}), \
+                     which has no rise of drag with lift; sink and glide are optimistic at slow \
+                     speed.",
+                    s.airfoil
+                ),
+            ));
+        }
+    }
+    let extrapolated: Vec<f64> = p
+        .points
+        .iter()
+        .filter(|q| q.flyable && q.drag.beyond_polar)
+        .map(|q| q.speed_m_s)
+        .collect();
+    if let (Some(lo), Some(hi)) = (
+        extrapolated.iter().copied().reduce(f64::min),
+        extrapolated.iter().copied().reduce(f64::max),
+    ) {
+        cautions.push(Caution::new(
+            Level::Note,
+            "polar-drag-extrapolated",
+            format!(
+                "Between {lo:.1} and {hi:.1} m/s some strips fly at a lift coefficient or \
+                 Reynolds number beyond their section polar's converged points; their drag is \
+                 continued from the polar's last points there."
+            ),
+        ));
+    }
+    let unflyable: Vec<f64> = p
+        .points
+        .iter()
+        .filter(|q| !q.flyable)
+        .map(|q| q.speed_m_s)
+        .collect();
+    if let Some(first) = unflyable.first() {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "polar-control-runs-out",
+            format!(
+                "The {} cannot trim every speed of the range: from about {first:.1} m/s it needs \
+                 more than its throws; sink and glide are given only where it trims.",
+                aircraft.pitch_control_name()
+            ),
+        ));
+    }
+}

@@ -1,0 +1,291 @@
+//! The flight polar (issue 13): exact laws of gliding flight, the parabolic-polar optima and
+//! MacCready's speed to fly against their closed forms, the wake's induced drag of an
+//! elliptic wing, and the demo sailplane's polar (interior minimum sink, refinement).
+
+use approx::assert_relative_eq;
+use trimline::analysis::{analyse, AnalysisOptions};
+use trimline::atmosphere::G0;
+use trimline::performance::flight_polar::{
+    flight_polar, glide_at, Drag, DragSource, FlightPolarError, PolarConditions,
+};
+
+/// A parabolic polar CD = CD0 + k CL^2, independent of speed, that needs no trim.
+struct Parabolic {
+    cd0: f64,
+    k: f64,
+}
+
+impl DragSource for Parabolic {
+    type Trim = f64;
+    fn trim(&self, cl: f64) -> Option<f64> {
+        Some(cl)
+    }
+    fn drag(&self, cl: &f64, _speed_m_s: f64) -> Drag {
+        Drag {
+            profile: self.cd0,
+            induced: self.k * cl * cl,
+            ..Drag::default()
+        }
+    }
+    fn flyable(&self, _: &f64) -> bool {
+        true
+    }
+}
+
+fn conditions(mass_kg: f64) -> PolarConditions {
+    PolarConditions {
+        mass_kg,
+        density_kg_m3: 1.225,
+        area_m2: 0.4,
+        cl_stall: 1.4,
+        top_speed_m_s: 25.0,
+        points: 40,
+    }
+}
+
+fn demo() -> (trimline::model::Aircraft, trimline::analysis::Analysis) {
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml").unwrap();
+    let ac = trimline::input::parse_aircraft(&text, "larkspire-2000.toml", None).unwrap();
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    (ac, a)
+}
+
+// Exact laws of steady gliding (Anderson, Introduction to Flight, ch. 6: L = W cos gamma,
+// D = W sin gamma, so tan gamma = D/L and the glide ratio is L/D): checked on every point of
+// the demo sailplane's computed polar.
+#[test]
+fn every_point_of_the_demo_polar_obeys_the_glide_equations() {
+    let (_, a) = demo();
+    let p = a.glide_polar.as_ref().expect("the demo has a flight polar");
+    assert_eq!(p.points.len(), 40);
+    let w = a.mass.total_kg * G0;
+    let (rho, s) = (a.air.density_kg_m3, a.wing_geometry.area_m2);
+    for q in &p.points {
+        let cd = q.drag.total();
+        assert_relative_eq!(q.glide_ratio, q.cl / cd, max_relative = 1e-12);
+        assert_relative_eq!(
+            q.horizontal_speed_m_s() / q.sink_m_s,
+            q.cl / cd,
+            max_relative = 1e-9
+        );
+        // Lift balances the weight's component normal to the path.
+        let lift = 0.5 * rho * q.speed_m_s * q.speed_m_s * s * q.cl;
+        assert_relative_eq!(lift, w * q.path_angle_rad.cos(), max_relative = 1e-9);
+        assert!(q.drag.profile > 0.0 && q.drag.induced > 0.0 && q.drag.parasite > 0.0);
+    }
+    // Rising speed, falling CL.
+    assert!(p.points.windows(2).all(|w| w[1].speed_m_s > w[0].speed_m_s));
+}
+
+// At a fixed lift coefficient the speed and the sink scale with the square root of the mass
+// (from L = 1/2 rho V^2 S CL = W cos gamma with gamma fixed by CD/CL; Anderson, ch. 6): exact
+// when the drag coefficients do not depend on speed.
+#[test]
+fn speed_and_sink_scale_with_the_square_root_of_mass() {
+    let src = Parabolic { cd0: 0.02, k: 0.04 };
+    for cl in [0.3, 0.7, 1.1] {
+        let light = glide_at(&src, cl, cl, &conditions(1.0)).unwrap();
+        let heavy = glide_at(&src, cl, cl, &conditions(2.25)).unwrap();
+        assert_relative_eq!(heavy.speed_m_s / light.speed_m_s, 1.5, max_relative = 1e-12);
+        assert_relative_eq!(heavy.sink_m_s / light.sink_m_s, 1.5, max_relative = 1e-12);
+        assert_relative_eq!(heavy.glide_ratio, light.glide_ratio, max_relative = 1e-12);
+    }
+}
+
+// Parabolic polar, closed forms (Anderson, Introduction to Flight, sec. 6.7-6.8 and 6.12):
+// best glide at CD0 = CDi (exact: max CL/CD does not depend on the path angle); minimum sink
+// at CDi = 3 CD0 (derived with cos gamma = 1; the exact glide equations move it by terms of
+// order (CD/CL)^2, here below 1 %).
+#[test]
+fn parabolic_polar_optima_match_the_closed_forms() {
+    let src = Parabolic {
+        cd0: 0.015,
+        k: 1.0 / (std::f64::consts::PI * 12.0 * 0.95),
+    };
+    let p = flight_polar(&src, &conditions(1.5)).unwrap();
+    let bg = &p.best_glide.point;
+    assert!(!p.best_glide.at_stall && !p.best_glide.at_top_speed);
+    assert_relative_eq!(bg.drag.induced, src.cd0, max_relative = 1e-4);
+    assert_relative_eq!(bg.cl, (src.cd0 / src.k).sqrt(), max_relative = 1e-4);
+    let ms = &p.min_sink.point;
+    assert!(!p.min_sink.at_stall);
+    assert_relative_eq!(ms.drag.induced, 3.0 * src.cd0, max_relative = 0.01);
+}
+
+// MacCready's speed to fly through air sinking at s: the tangent to the polar from (0, -s)
+// (MacCready, Soaring 1958; from memory). For the small-angle parabolic polar
+// w(V) = a V^3 + b / V with a = rho S CD0 / (2 W) and b = 2 k W / (rho S), minimising
+// (w + s) / V gives 2 a V^4 - s V - 2 b = 0 (our derivation); with s = 0 it is the best-glide
+// speed. Tolerance 1 %: the exact glide equations differ by terms of order (CD/CL)^2.
+#[test]
+fn speed_to_fly_matches_the_tangent_closed_form() {
+    let src = Parabolic {
+        cd0: 0.02,
+        k: 0.035,
+    };
+    let c = conditions(1.2);
+    let p = flight_polar(&src, &c).unwrap();
+    let w = c.mass_kg * G0;
+    let a = c.density_kg_m3 * c.area_m2 * src.cd0 / (2.0 * w);
+    let b = 2.0 * src.k * w / (c.density_kg_m3 * c.area_m2);
+    for s in [0.0, 0.5, 1.0, 2.0] {
+        // Newton on f(V) = 2 a V^4 - s V - 2 b from above the root.
+        let mut v: f64 = 30.0;
+        for _ in 0..100 {
+            v -= (2.0 * a * v.powi(4) - s * v - 2.0 * b) / (8.0 * a * v.powi(3) - s);
+        }
+        let stf = p.speed_to_fly(&src, s, 0.0).unwrap();
+        assert_relative_eq!(stf.speed_m_s, v, max_relative = 0.01);
+        if s == 0.0 {
+            assert_relative_eq!(
+                stf.speed_m_s,
+                p.best_glide.point.speed_m_s,
+                max_relative = 1e-6
+            );
+        }
+    }
+    // Faster in stronger sink.
+    let v: Vec<f64> = [0.0, 1.0, 2.0]
+        .iter()
+        .map(|s| p.speed_to_fly(&src, *s, 0.0).unwrap().speed_m_s)
+        .collect();
+    assert!(v[0] < v[1] && v[1] < v[2]);
+}
+
+// Induced drag of an elliptic wing from the wake equals CL^2 / (pi A) (Prandtl; Anderson,
+// Fundamentals of Aerodynamics, eq. 5.43, from memory), within 1 %, for the lattice.
+#[test]
+fn elliptic_wing_induced_drag_from_the_wake() {
+    for aspect in [6.0, 10.0] {
+        let wing = crate::common::elliptic_wing(aspect, 2.0);
+        let sections = vec![crate::common::flat_plate()];
+        let sys = crate::common::system_of(
+            &[&wing],
+            &sections,
+            trimline::lifting_line::LiftingLineOptions::default(),
+        );
+        let r = sys.solve(&sys.condition(5f64.to_radians())).unwrap();
+        let ideal = r.cl * r.cl / (std::f64::consts::PI * aspect);
+        assert_relative_eq!(r.induced_drag, ideal, max_relative = 0.01);
+    }
+}
+
+// The demo sailplane: minimum sink is an interior optimum above the stall speed, best glide
+// faster than minimum sink, and sink grows at both ends (a shape every glider polar has;
+// common practice).
+#[test]
+fn demo_minimum_sink_lies_above_the_stall() {
+    let (_, a) = demo();
+    let p = a.glide_polar.as_ref().unwrap();
+    assert!(!p.min_sink.at_stall, "minimum sink at the stall");
+    assert!(p.min_sink.point.speed_m_s > p.stall_speed_m_s);
+    assert!(p.best_glide.point.speed_m_s > p.min_sink.point.speed_m_s);
+    let first = &p.points[0];
+    let last = &p.points[p.points.len() - 1];
+    assert!(first.sink_m_s > p.min_sink.point.sink_m_s);
+    assert!(last.sink_m_s > 3.0 * p.min_sink.point.sink_m_s);
+    // The headline figures read the flight polar, not the parabolic cross-check.
+    let g = a.glide_figures();
+    assert!(g.from_flight_polar);
+    assert_relative_eq!(g.min_sink_m_s, p.min_sink.point.sink_m_s);
+}
+
+// Refinement: twice the spanwise strips moves minimum sink and best glide by less than 1 %.
+#[test]
+fn demo_polar_converges_with_strips() {
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml").unwrap();
+    let ac = trimline::input::parse_aircraft(&text, "larkspire-2000.toml", None).unwrap();
+    let run = |n: usize| {
+        let a = analyse(
+            &ac,
+            &AnalysisOptions {
+                stations_per_half_span: Some(n),
+                ..AnalysisOptions::default()
+            },
+        )
+        .unwrap();
+        let p = a.glide_polar.unwrap();
+        (p.min_sink.point.sink_m_s, p.best_glide.point.glide_ratio)
+    };
+    let (s1, g1) = run(24);
+    let (s2, g2) = run(48);
+    assert_relative_eq!(s1, s2, max_relative = 0.01);
+    assert_relative_eq!(g1, g2, max_relative = 0.01);
+}
+
+// Section drag from the viscous polars falls with Reynolds number and rises with lift away
+// from the drag bucket (both facts of every measured low-speed airfoil polar: e.g. Abbott &
+// von Doenhoff, Theory of Wing Sections, appendix IV; common practice).
+#[test]
+fn section_drag_falls_with_reynolds_number_and_rises_with_lift() {
+    use trimline::performance::profile_drag::{section_drag, DragRequest};
+    let airfoil = trimline::model::Airfoil {
+        name: "t".into(),
+        shape: trimline::model::AirfoilShape::Naca("2410".into()),
+        cl_max: None,
+        method: None,
+        reynolds: None,
+        transition_n: None,
+    };
+    let d = section_drag(
+        &airfoil,
+        DragRequest {
+            reynolds_range: (60_000.0, 300_000.0),
+            alpha_range_rad: ((-3f64).to_radians(), 9f64.to_radians()),
+        },
+        160,
+        trimline::section::cache::PolarCache::shared(),
+    );
+    assert!(!d.is_flat_plate());
+    let low = d.cd(0.4, 80_000.0);
+    let high = d.cd(0.4, 250_000.0);
+    assert!(!low.beyond_polar && !high.beyond_polar);
+    assert!(low.cd > 1.2 * high.cd, "{} vs {}", low.cd, high.cd);
+    assert!(d.cd(1.0, 150_000.0).cd > 1.3 * d.cd(0.3, 150_000.0).cd);
+}
+
+// The flat-plate fallback is Raymer's build-up per planform area (Aircraft Design, 6th ed.,
+// eqs. 12.25-12.27 and 12.30, sec. 7.9), evaluated here by hand at Re 1e5, t/c 0.10.
+#[test]
+fn flat_plate_fallback_is_the_raymer_build_up() {
+    let re: f64 = 1e5;
+    let cf = 0.5 * (1.328 / re.sqrt() + 0.455 / re.log10().powf(2.58));
+    let ff = 1.0 + 0.6 / 0.3 * 0.10 + 100.0 * 0.10f64.powi(4);
+    let expected = cf * ff * (1.977 + 0.52 * 0.10);
+    assert_relative_eq!(
+        trimline::performance::profile_drag::flat_plate_cd(0.10, re),
+        expected,
+        max_relative = 1e-12
+    );
+}
+
+// Bad conditions are typed errors, never a number.
+#[test]
+fn bad_conditions_are_errors() {
+    let src = Parabolic { cd0: 0.02, k: 0.04 };
+    let mut c = conditions(1.0);
+    c.mass_kg = f64::NAN;
+    assert!(matches!(
+        flight_polar(&src, &c),
+        Err(FlightPolarError::BadCondition { .. })
+    ));
+    let mut c = conditions(1.0);
+    c.top_speed_m_s = 2.0;
+    assert!(matches!(
+        flight_polar(&src, &c),
+        Err(FlightPolarError::EmptyRange { .. })
+    ));
+}
+
+// The JSON carries the polar and says where the headline figures come from.
+#[test]
+fn json_carries_the_flight_polar() {
+    let out = crate::common::run_trimline(&["check", "--json"], std::path::Path::new("."));
+    assert!(out.status.success() || out.status.code() == Some(3));
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    assert_eq!(v["glide"]["source"], "flight-polar");
+    assert_eq!(v["flight_polar"]["points"].as_array().unwrap().len(), 40);
+    assert_eq!(v["flight_polar"]["trimmed_by"], "elevator");
+    assert!(v["flight_polar"]["speed_to_fly"].as_array().unwrap().len() == 4);
+    assert!(v["glide"]["parabolic_cross_check"]["cd0"].as_f64().unwrap() > 0.0);
+}
