@@ -541,4 +541,63 @@ mod tests {
         // The wing's vertical extent is at least its root chord at the same scale.
         assert!(wy1 - wy0 >= a.wing_geometry.root_chord_m * 1000.0 / n - 0.01);
     }
+
+    // The trainer has a fin: the side view, drawn last, puts it right of the top view at the
+    // top view's scale, as tall across the page as the fin's height, its x rows level with
+    // the top view's (the fin's root leading edge at the same page height as in the top
+    // view's centre-line line).
+    #[test]
+    fn side_view_is_beside_the_top_view_at_its_scale() {
+        let text = include_str!("../../../aircraft/wrenfield-1400.toml");
+        let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        let d = report::build(
+            &aircraft,
+            &a,
+            ReportSource {
+                file_name: "demo".into(),
+                content_hash: String::new(),
+                date: String::new(),
+            },
+        );
+        let mut c = Canvas::new();
+        let area = Frame {
+            x: 10.0,
+            y: 100.0,
+            w: 190.0,
+            h: 110.0,
+        };
+        let n = top_view(&mut c, area, &d.top_view);
+        let k = 1000.0 / n;
+        let polys = polygons(c);
+        let xs = |p: &Vec<(f64, f64)>| p.iter().map(|q| q.0).collect::<Vec<_>>();
+        let ys = |p: &Vec<(f64, f64)>| p.iter().map(|q| q.1).collect::<Vec<_>>();
+        let max = |v: Vec<f64>| v.into_iter().fold(f64::NEG_INFINITY, f64::max);
+        let min = |v: Vec<f64>| v.into_iter().fold(f64::INFINITY, f64::min);
+        let wing = &polys[1];
+        // The fin is the one four-cornered outline right of the top view (the scale bar's
+        // rectangles lie at the lower left).
+        let right_of_top: Vec<_> = polys
+            .iter()
+            .filter(|p| min(xs(p)) > max(xs(wing)))
+            .collect();
+        assert_eq!(
+            right_of_top.len(),
+            4,
+            "fuselage, wing, tail and fin in the side view"
+        );
+        let fin = right_of_top.iter().find(|p| p.len() == 4).unwrap();
+        let f = aircraft.fin.as_ref().unwrap();
+        assert_relative_eq!(max(xs(fin)) - min(xs(fin)), f.height_m * k, epsilon = 0.01);
+        assert!(
+            min(xs(fin)) > max(xs(wing)),
+            "the side view is right of the top view"
+        );
+        let (x0, x1) = d.top_view.fin_x_m.unwrap();
+        assert_relative_eq!(max(ys(fin)) - min(ys(fin)), (x1 - x0) * k, epsilon = 0.01);
+        // Everything inside the area given.
+        for p in &polys {
+            assert!(max(xs(p)) <= area.x + area.w + 0.01 && min(xs(p)) >= area.x - 0.01);
+        }
+    }
 }
