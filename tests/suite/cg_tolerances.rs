@@ -93,7 +93,7 @@ fn an_items_own_tolerance_replaces_the_global_one() {
     };
     let s = cg_spread(&masses, &tol);
     assert_relative_eq!(s.sigma_m, 37.44f64.sqrt() / 1000.0, max_relative = 1e-9);
-    assert_eq!(s.from_masses_m, 0.0);
+    assert_relative_eq!(s.from_masses_m, 0.0, epsilon = 0.0);
 }
 
 /// A small repeatable normal generator for the Monte Carlo below (xorshift64, Box-Muller),
@@ -162,7 +162,7 @@ fn no_tolerances_change_nothing() {
     .unwrap();
     let a = analyse(&plain, &opts).unwrap();
     let b = analyse(&zero, &opts).unwrap();
-    assert_eq!(a.cg_spread.sigma_m, 0.0);
+    assert_relative_eq!(a.cg_spread.sigma_m, 0.0, epsilon = 0.0);
     assert_eq!(a, b);
 }
 
