@@ -39,6 +39,114 @@ pub const WEIGHING_CG_TOLERANCE_M: f64 = 0.005;
 /// (common practice: 5 %).
 pub const WEIGHING_MASS_TOLERANCE: f64 = 0.05;
 
+/// Lowest and highest vertical tail volume coefficients of the table of typical values for
+/// each class of aircraft in Raymer, *Aircraft Design: A Conceptual Approach*, Table 6.4
+/// (0.02 for sailplanes to 0.09 for jet transports; homebuilts 0.04; table number from
+/// memory). A fin outside this range gets a note; nothing in the pitch figures depends on it.
+pub const FIN_VOLUME_RANGE: (f64, f64) = (0.02, 0.09);
+
+/// The lateral note of a fin or V-tail: its side area, arm and vertical tail volume
+/// coefficient. It does not enter any pitch figure.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct FinFigures {
+    /// Side area, m^2 (a fin's own area; a V-tail's area in its plane times sin^2 of the
+    /// dihedral).
+    pub side_area_m2: f64,
+    /// From the wing's MAC quarter chord to the fin's (or the V-tail's), m.
+    pub arm_m: f64,
+    /// V_v = S_v l_v / (S b).
+    pub volume_coefficient: f64,
+}
+
+/// A fin, a V-tail, or both.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct FinNote {
+    /// The `[fin]` of the file, if any.
+    pub fin: Option<FinFigures>,
+    /// The V-tail's side projection, when the stabiliser is a V-tail.
+    pub vee_tail: Option<FinFigures>,
+}
+
+/// The fin note of `aircraft` (None without a fin or a V-tail), with a note when a fin's
+/// volume coefficient lies outside [`FIN_VOLUME_RANGE`] on an aircraft without a V-tail.
+fn fin_note(
+    aircraft: &Aircraft,
+    wing: &PlanformGeometry,
+    cautions: &mut Vec<Caution>,
+) -> Option<FinNote> {
+    let fin = aircraft.fin.as_ref().map(|f| {
+        let g = planform::fin_geometry(f);
+        let arm_m = g.mac_quarter_x_m() - wing.mac_quarter_x_m();
+        FinFigures {
+            side_area_m2: g.area_m2,
+            arm_m,
+            volume_coefficient: planform::fin_volume_coefficient(wing, g.area_m2, arm_m),
+        }
+    });
+    let vee_tail = aircraft
+        .stabiliser
+        .as_ref()
+        .filter(|s| planform::is_vee_tail(&s.surface))
+        .map(|s| {
+            let side = planform::side_area_m2(&s.surface);
+            let arm_m = planform::geometry(&s.surface).mac_quarter_x_m() - wing.mac_quarter_x_m();
+            FinFigures {
+                side_area_m2: side,
+                arm_m,
+                volume_coefficient: planform::fin_volume_coefficient(wing, side, arm_m),
+            }
+        });
+    if let (Some(f), None) = (fin, vee_tail) {
+        let (lo, hi) = FIN_VOLUME_RANGE;
+        let v = f.volume_coefficient;
+        if v.is_finite() && !(lo..=hi).contains(&v) {
+            cautions.push(Caution::new(
+                Level::Note,
+                "fin-volume-outside-range",
+                format!(
+                    "The fin's volume coefficient S_v l_v / (S b) is {v:.3}, {} the typical values \
+                     of {lo:.2} (sailplanes) to {hi:.2} (Raymer, Aircraft Design, table of tail volume \
+                     coefficients): {}. This is a lateral note only; the fin does not enter the \
+                     pitch figures.",
+                    if v < lo { "below" } else { "above" },
+                    if v < lo {
+                        "weak directional stability is possible; compare with similar aircraft \
+                         that fly well"
+                    } else {
+                        "a large fin; check that it is what you meant"
+                    }
+                ),
+            ));
+        }
+    }
+    if let Some((f, item)) = aircraft.fin.as_ref().and_then(|f| {
+        let name = f.mass_item.as_ref()?;
+        Some((f, aircraft.masses.iter().find(|m| &m.name == name)?))
+    }) {
+        // The fin's extent along x: root leading edge to the further trailing edge.
+        let tip_le = f.root_le_x_m + f.height_m * f.sweep_le_rad.tan();
+        let (x0, x1) = (
+            f.root_le_x_m.min(tip_le),
+            (f.root_le_x_m + f.root_chord_m).max(tip_le + f.tip_chord_m),
+        );
+        if item.x_m < x0 || item.x_m > x1 {
+            cautions.push(Caution::new(
+                Level::Note,
+                "fin-mass-away-from-fin",
+                format!(
+                    "The mass item `{}`, named as the fin's mass, is at {:.0} mm, outside the fin \
+                     ({:.0} to {:.0} mm from the datum); check its x.",
+                    item.name,
+                    1000.0 * item.x_m,
+                    1000.0 * x0,
+                    1000.0 * x1
+                ),
+            ));
+        }
+    }
+    (fin.is_some() || vee_tail.is_some()).then_some(FinNote { fin, vee_tail })
+}
+
 /// Options of an analysis.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct AnalysisOptions {
@@ -132,6 +240,11 @@ pub struct Analysis {
     /// know well, by linear sensitivities of the closed form
     /// ([`crate::stability::uncertainty`], common-practice spreads).
     pub neutral_point_spread: crate::stability::uncertainty::NeutralPointSpread,
+    /// Spread (one standard deviation) of the CG from the builder's own tolerances of masses
+    /// and positions (zero when the file gives none).
+    pub cg_spread: crate::stability::uncertainty::CgSpread,
+    /// The fin's lateral note, when the aircraft has a fin or a V-tail.
+    pub fin: Option<FinNote>,
     /// The headline figures (from `full` when present, else from `classical`).
     pub headline: Headline,
     /// Recommended CG band.
@@ -588,12 +701,15 @@ pub fn analyse_with(
         &wing.geometry,
         mass.total_kg,
     ));
+    let cg_spread =
+        crate::stability::uncertainty::cg_spread(&aircraft.masses, &aircraft.tolerances);
+    let fin = fin_note(aircraft, &wing.geometry, &mut cautions);
     uncertain_aft_limit_caution(
         aircraft,
         headline.neutral_point_x_m,
         2.0 * neutral_point_spread.sigma_m,
         mac,
-        mass.cg_x_m,
+        (mass.cg_x_m, 2.0 * cg_spread.sigma_m),
         band.aft_x_m,
         &mut cautions,
     );
@@ -612,6 +728,8 @@ pub fn analyse_with(
         classical: estimate,
         full,
         neutral_point_spread,
+        cg_spread,
+        fin,
         headline,
         band,
         ballast,
@@ -1457,36 +1575,54 @@ pub fn trim_input<'a>(
     }
 }
 
-/// A CG inside the recommended band but aft of the aft limit measured from the forward end of
-/// the neutral point's uncertainty range (`spread_m`, two standard deviations).
+/// A CG inside the recommended band whose range (`cg`: the CG and two standard deviations of
+/// the builder's tolerances) reaches aft of the aft limit measured from the forward end of the
+/// neutral point's uncertainty range (`spread_m`, two standard deviations).
 fn uncertain_aft_limit_caution(
     aircraft: &Aircraft,
     neutral_point_x_m: f64,
     spread_m: f64,
     mac_m: f64,
-    cg_x_m: f64,
+    cg: (f64, f64),
     band_aft_x_m: f64,
     cautions: &mut Vec<Caution>,
 ) {
-    if !(spread_m.is_finite() && spread_m > 0.0) {
+    let (cg_x_m, cg_spread_m) = cg;
+    let spread_m = if spread_m.is_finite() { spread_m } else { 0.0 };
+    let cg_spread_m = if cg_spread_m.is_finite() {
+        cg_spread_m
+    } else {
+        0.0
+    };
+    if spread_m <= 0.0 && cg_spread_m <= 0.0 {
         return;
     }
     let limit = neutral_point_x_m - spread_m - aircraft.margin_limits.min_static_margin * mac_m;
-    if cg_x_m > limit && cg_x_m <= band_aft_x_m {
+    let cg_aft_end = cg_x_m + cg_spread_m;
+    if cg_aft_end > limit && cg_x_m <= band_aft_x_m {
+        let cg_text = if cg_spread_m > 0.0 {
+            format!(
+                "The CG ({:.0} mm, and up to {:.0} mm with two standard deviations of the \
+                 builder's own mass and position tolerances)",
+                1000.0 * cg_x_m,
+                1000.0 * cg_aft_end
+            )
+        } else {
+            format!("The CG ({:.0} mm)", 1000.0 * cg_x_m)
+        };
         cautions.push(Caution::new(
             Level::Warning,
             "cg-aft-of-uncertain-limit",
             format!(
-                "The CG ({:.0} mm) is inside the recommended band but {:.0} mm aft of {:.0} mm, the \
+                "{cg_text} is inside the recommended band but {:.0} mm aft of {:.0} mm, the \
                  aft limit measured from the forward end of the neutral point's uncertainty range \
                  ({:.0} mm ahead of it: two standard deviations from common-practice spreads of \
                  tail efficiency, downwash, fuselage and section lift slopes). For the first \
                  flights balance at {:.0} mm or further forward.",
-                1000.0 * cg_x_m,
-                1000.0 * (cg_x_m - limit),
+                1000.0 * (cg_aft_end - limit),
                 1000.0 * limit,
                 1000.0 * spread_m,
-                1000.0 * limit
+                1000.0 * (limit - cg_spread_m)
             ),
         ));
     }

@@ -145,6 +145,7 @@ mod tests {
             mass_kg,
             x_m,
             z_m: Some(0.0),
+            tolerance: Default::default(),
         }
     }
 

@@ -7,9 +7,10 @@ use super::limits::*;
 use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel};
 use super::units::{parse_quantity, Dimension};
 use crate::model::{
-    Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fuselage,
-    MarginLimits, MassItem, Numerics, Panel, PitchControl, SectionMethod, Setup, Stabiliser,
-    StabiliserRole, Surface, SurfaceShape, Targets, WeighingSupport, WingModel,
+    Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fin,
+    Fuselage, ItemTolerance, MarginLimits, MassItem, Numerics, Panel, PitchControl, SectionMethod,
+    Setup, Stabiliser, StabiliserRole, Surface, SurfaceShape, Targets, Tolerances, WeighingSupport,
+    WingModel,
 };
 use crate::printable::{printable, token};
 use crate::section::registry;
@@ -217,6 +218,15 @@ const ALTITUDE_M: Bounds = Bounds::closed(-500.0, 11_000.0);
 const TEMP_OFFSET_K: Bounds = Bounds::closed(-60.0, 60.0);
 const DENSITY: Bounds = Bounds::closed(0.3, 1.5);
 const FUSELAGE_MM: Bounds = Bounds::positive(30_000.0);
+/// The builder's tolerance of one weighed mass (one standard deviation), g: 0 (sure) to
+/// 10 kg, the most a light aircraft's item could be in doubt (common practice: a kitchen
+/// scale reads to 1 g, a platform scale to 0.1 kg).
+const MASS_TOLERANCE_G: Bounds = Bounds::closed(0.0, 10_000.0);
+/// The builder's tolerance of one position (one standard deviation), mm: 0 to 1000 mm; a
+/// doubt of a metre is no longer a tolerance (common practice).
+const POSITION_TOLERANCE_MM: Bounds = Bounds::closed(0.0, 1_000.0);
+/// Fin height, mm: as a span (5 mm to 30 m).
+const FIN_HEIGHT_MM: Bounds = SPAN_MM;
 /// Surfaces overlapping in the top view closer than this many chords (vertically) intersect.
 const INTERSECTING_GAP_CHORDS: f64 = 0.1;
 /// Strips per half-span of the wing (four times the default; the lifting line's own limit is
@@ -603,6 +613,8 @@ impl Ctx<'_> {
                 )),
             ));
         }
+        let tolerances = self.tolerances(raw.tolerances.as_ref())?;
+        let fin = raw.fin.as_ref().map(|f| self.fin(f, &masses)).transpose()?;
         let ballast_bays = raw
             .ballast
             .iter()
@@ -684,6 +696,8 @@ impl Ctx<'_> {
             stabiliser,
             elevons,
             fuselage,
+            fin,
+            tolerances,
             masses,
             ballast_bays,
             targets,
@@ -1780,6 +1794,97 @@ impl Ctx<'_> {
                 Dimension::Length,
                 POSITION_MM,
             )?,
+            tolerance: ItemTolerance {
+                mass_kg: self.opt_quantity(
+                    m.mass_tolerance.as_ref(),
+                    &format!("{path}.mass_tolerance"),
+                    Dimension::Mass,
+                    MASS_TOLERANCE_G,
+                )?,
+                x_m: self.opt_quantity(
+                    m.x_tolerance.as_ref(),
+                    &format!("{path}.x_tolerance"),
+                    Dimension::Length,
+                    POSITION_TOLERANCE_MM,
+                )?,
+            },
+        })
+    }
+
+    /// `[tolerances]`: zero (no uncertainty claimed) where the file says nothing.
+    fn tolerances(
+        &self,
+        t: Option<&Spanned<raw::RawTolerances>>,
+    ) -> Result<Tolerances, InputError> {
+        let Some(t) = t else {
+            return Ok(Tolerances::default());
+        };
+        let t = t.get_ref();
+        Ok(Tolerances {
+            mass_kg: self
+                .opt_quantity(
+                    t.mass.as_ref(),
+                    "tolerances.mass",
+                    Dimension::Mass,
+                    MASS_TOLERANCE_G,
+                )?
+                .unwrap_or(0.0),
+            position_m: self
+                .opt_quantity(
+                    t.position.as_ref(),
+                    "tolerances.position",
+                    Dimension::Length,
+                    POSITION_TOLERANCE_MM,
+                )?
+                .unwrap_or(0.0),
+        })
+    }
+
+    /// `[fin]`: its geometry, and the listed mass item that is the fin (when named), which
+    /// must exist.
+    fn fin(&self, f: &Spanned<raw::RawFin>, masses: &[MassItem]) -> Result<Fin, InputError> {
+        let span = f.span();
+        let f = f.get_ref();
+        let get = |q: Option<&Quantity>, key: &str, bounds: Bounds| {
+            self.required_quantity(q, &span, "fin", key, Dimension::Length, bounds)
+        };
+        let mass_item = match &f.mass_item {
+            None => None,
+            Some(n) => {
+                let wanted = n.get_ref().trim();
+                match masses.iter().find(|m| m.name == printable(wanted)) {
+                    Some(m) => Some(m.name.clone()),
+                    None => {
+                        return Err(self.err(
+                            &n.span(),
+                            "fin.mass_item",
+                            format!("no mass item named `{}`", token(wanted)),
+                            Some(format!(
+                                "the name of the [[mass]] entry that is the fin: {}",
+                                one_of(&masses.iter().map(|m| m.name.as_str()).collect::<Vec<_>>())
+                            )),
+                        ))
+                    }
+                }
+            }
+        };
+        Ok(Fin {
+            root_le_x_m: get(f.x.as_ref(), "x", POSITION_MM)?,
+            root_z_m: get(f.z.as_ref(), "z", POSITION_MM)?,
+            root_chord_m: get(f.root_chord.as_ref(), "root_chord", CHORD_MM)?,
+            tip_chord_m: self
+                .opt_quantity(
+                    f.tip_chord.as_ref(),
+                    "fin.tip_chord",
+                    Dimension::Length,
+                    TIP_CHORD_MM,
+                )?
+                .unwrap_or(0.0),
+            height_m: get(f.height.as_ref(), "height", FIN_HEIGHT_MM)?,
+            sweep_le_rad: self
+                .opt_quantity(f.sweep.as_ref(), "fin.sweep", Dimension::Angle, SWEEP_DEG)?
+                .unwrap_or(0.0),
+            mass_item,
         })
     }
 

@@ -30,6 +30,10 @@ pub struct RawAircraft {
     #[serde(default)]
     pub fuselage: Option<Spanned<RawFuselage>>,
     #[serde(default)]
+    pub fin: Option<Spanned<RawFin>>,
+    #[serde(default)]
+    pub tolerances: Option<Spanned<RawTolerances>>,
+    #[serde(default)]
     pub mass: Vec<Spanned<RawMass>>,
     #[serde(default)]
     pub ballast: Vec<Spanned<RawBallast>>,
@@ -168,6 +172,27 @@ pub struct RawFuselage {
     pub width: Option<Quantity>,
 }
 
+/// `[fin]`: an optional fin (vertical tail), drawing and lateral note only.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawFin {
+    pub x: Option<Quantity>,
+    pub z: Option<Quantity>,
+    pub root_chord: Option<Quantity>,
+    pub tip_chord: Option<Quantity>,
+    pub height: Option<Quantity>,
+    pub sweep: Option<Quantity>,
+    pub mass_item: Option<Spanned<String>>,
+}
+
+/// `[tolerances]`: how sure the builder is of every mass and position, for the CG's spread.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawTolerances {
+    pub mass: Option<Quantity>,
+    pub position: Option<Quantity>,
+}
+
 /// `[[mass]]`
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
@@ -176,6 +201,8 @@ pub struct RawMass {
     pub mass: Option<Quantity>,
     pub x: Option<Quantity>,
     pub z: Option<Quantity>,
+    pub mass_tolerance: Option<Quantity>,
+    pub x_tolerance: Option<Quantity>,
 }
 
 /// `[[ballast]]`

@@ -60,6 +60,61 @@ pub struct MassItem {
     pub x_m: f64,
     /// z of the item's own CG, m above the datum line; `None` when not given.
     pub z_m: Option<f64>,
+    /// The builder's own tolerances for this item, where the file gives them (otherwise the
+    /// file's `[tolerances]` apply).
+    pub tolerance: ItemTolerance,
+}
+
+/// How sure the builder is of one mass item, each read as one standard deviation; `None`
+/// where the file gives nothing for the item (the aircraft's [`Tolerances`] apply).
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct ItemTolerance {
+    /// Of its mass, kg (>= 0).
+    pub mass_kg: Option<f64>,
+    /// Of its x, m (>= 0).
+    pub x_m: Option<f64>,
+}
+
+/// The builder's tolerances for every mass item that gives none of its own (`[tolerances]`),
+/// each read as one standard deviation. Zero (the default) claims no uncertainty in the CG.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct Tolerances {
+    /// Of each weighed mass, kg (>= 0).
+    pub mass_kg: f64,
+    /// Of each position x, m (>= 0).
+    pub position_m: f64,
+}
+
+impl Tolerances {
+    /// The tolerances that apply to `item`: its own where it has them, else these.
+    pub fn of(&self, item: &MassItem) -> (f64, f64) {
+        (
+            item.tolerance.mass_kg.unwrap_or(self.mass_kg),
+            item.tolerance.x_m.unwrap_or(self.position_m),
+        )
+    }
+}
+
+/// An optional fin (vertical tail), one trapezoid on the centre line. Its only roles are
+/// drawing and a lateral note (the fin volume coefficient); it does not enter the pitch
+/// figures. Its mass, if any, is one of the listed mass items (`mass_item`), so it cannot be
+/// counted twice.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Fin {
+    /// x of the root leading edge, m aft of the datum.
+    pub root_le_x_m: f64,
+    /// z of the root chord, m above the datum line.
+    pub root_z_m: f64,
+    /// Root chord, m.
+    pub root_chord_m: f64,
+    /// Tip chord, m (0 for a pointed fin).
+    pub tip_chord_m: f64,
+    /// Height from root to tip, m (upward; the fin stands above its root).
+    pub height_m: f64,
+    /// Leading-edge sweep, rad, positive swept back.
+    pub sweep_le_rad: f64,
+    /// Name of the listed mass item that is the fin, when the builder says which.
+    pub mass_item: Option<String>,
 }
 
 /// A place where ballast (nose weight or tail weight) can be added.
@@ -127,6 +182,11 @@ pub struct Aircraft {
     pub elevons: Option<PitchControl>,
     /// Fuselage, if described.
     pub fuselage: Option<Fuselage>,
+    /// Fin (vertical tail), if described: drawing and lateral note only.
+    pub fin: Option<Fin>,
+    /// The builder's tolerances of masses and positions (`[tolerances]`), for the CG's
+    /// uncertainty.
+    pub tolerances: Tolerances,
     /// Mass items (at least one).
     pub masses: Vec<MassItem>,
     /// Ballast bays (may be empty).

@@ -80,6 +80,7 @@ impl Setup {
                             mass_kg,
                             x_m: b.x_m,
                             z_m: b.z_m,
+                            tolerance: Default::default(),
                         });
                     }
                 }

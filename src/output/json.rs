@@ -29,6 +29,8 @@ pub struct CheckDocument {
     pub wing: SurfaceJson,
     /// Stabiliser, or null.
     pub stabiliser: Option<StabiliserJson>,
+    /// The lateral note of a fin and of a V-tail, or null (neither).
+    pub fin: Option<FinNoteJson>,
     /// Airfoil sections.
     pub sections: Vec<SectionJson>,
     /// Stability.
@@ -47,6 +49,34 @@ pub struct CheckDocument {
     pub spanwise: Vec<SpanwiseJson>,
     /// Cautions.
     pub cautions: Vec<CautionJson>,
+}
+
+/// `/fin`: a lateral note only; nothing here enters a pitch figure.
+#[derive(Debug, Serialize)]
+pub struct FinNoteJson {
+    /// The file's `[fin]`, or null.
+    pub fin: Option<FinFiguresJson>,
+    /// The V-tail's side projection, or null (no V-tail).
+    pub vee_tail: Option<FinFiguresJson>,
+}
+
+/// `/fin/fin`, `/fin/vee_tail`
+#[derive(Debug, Serialize)]
+pub struct FinFiguresJson {
+    /// m^2
+    pub side_area_m2: f64,
+    /// m, wing MAC quarter chord to the fin's
+    pub arm_m: f64,
+    /// S_v l_v / (S b)
+    pub volume_coefficient: f64,
+}
+
+fn fin_figures_json(f: &crate::analysis::FinFigures) -> FinFiguresJson {
+    FinFiguresJson {
+        side_area_m2: r(f.side_area_m2, 6),
+        arm_m: r(f.arm_m, 5),
+        volume_coefficient: r(f.volume_coefficient, 4),
+    }
 }
 
 /// `/aircraft`
@@ -108,6 +138,10 @@ pub struct BalanceJson {
     pub cg_z_m: Option<f64>,
     /// Percent of MAC aft of the MAC leading edge.
     pub cg_percent_mac: f64,
+    /// One standard deviation of the CG from the builder's tolerances, m (0 without them).
+    pub cg_sigma_m: f64,
+    /// Aft end of the CG's range (two standard deviations aft), m.
+    pub cg_aft_end_x_m: f64,
     /// Recommended band.
     pub band: BandJson,
     /// Ballast advice.
@@ -718,6 +752,8 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             cg_x_m: r(a.mass.cg_x_m, 5),
             cg_z_m: a.mass.cg_z_m.map(|z| r(z, 5)),
             cg_percent_mac: r(g.percent_mac(a.mass.cg_x_m), 2),
+            cg_sigma_m: r(finite_or_zero(a.cg_spread.sigma_m), 5),
+            cg_aft_end_x_m: r(a.mass.cg_x_m + 2.0 * finite_or_zero(a.cg_spread.sigma_m), 5),
             band: BandJson {
                 forward_x_m: r(a.band.forward_x_m, 5),
                 aft_x_m: r(a.band.aft_x_m, 5),
@@ -790,6 +826,10 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
                     decalage_deg: r(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 3),
                 }
             }),
+        fin: a.fin.as_ref().map(|n| FinNoteJson {
+            fin: n.fin.as_ref().map(fin_figures_json),
+            vee_tail: n.vee_tail.as_ref().map(fin_figures_json),
+        }),
         sections: aircraft
             .airfoils
             .iter()

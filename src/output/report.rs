@@ -95,6 +95,14 @@ pub struct TopView {
     pub band_x_m: (f64, f64),
     /// The CG for the target static margin, when one is set.
     pub target_x_m: Option<f64>,
+    /// The side view beside the top view, at its scale: each surface's outline projected on
+    /// the x-z plane (x aft, z up, m): wing, stabiliser (a V-tail at its projected height),
+    /// fin.
+    pub side: Vec<Outline>,
+    /// The schematic fuselage in the side view (its depth taken as its width, on z = 0).
+    pub side_fuselage: Option<Outline>,
+    /// The fin's extent along x (fore, aft), m, drawn as a line on the top view's centre line.
+    pub fin_x_m: Option<(f64, f64)>,
 }
 
 /// Local lift coefficient and local section cl_max at one station of the half-span.
@@ -351,14 +359,22 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             "Wing loading",
             format!("{} g/dm\u{b2}", fmt(a.wing_loading_kg_m2 * 10.0, 1)),
         ),
-        kf(
-            "CG",
+        kf("CG", {
+            let spread = 2.0 * a.cg_spread.sigma_m;
+            let range = if spread.is_finite() && spread > 0.0 {
+                format!(
+                    "; aft end of its range {} mm, from your tolerances",
+                    fmt((a.mass.cg_x_m + spread) * 1000.0, 0)
+                )
+            } else {
+                String::new()
+            };
             format!(
-                "{} % MAC ({} mm from datum)",
+                "{} % MAC ({} mm from datum{range})",
                 fmt(g.percent_mac(a.mass.cg_x_m), 1),
                 fmt(a.mass.cg_x_m * 1000.0, 0)
-            ),
-        ),
+            )
+        }),
         kf("Neutral point", {
             let spread = 2.0 * a.neutral_point_spread.sigma_m;
             let range = if spread.is_finite() && spread > 0.0 {
@@ -646,7 +662,63 @@ fn top_view(aircraft: &Aircraft, a: &Analysis, target_x_m: Option<f64>) -> TopVi
         neutral_point_x_m: a.headline.neutral_point_x_m,
         band_x_m: (a.band.forward_x_m, a.band.aft_x_m),
         target_x_m,
+        side: std::iter::once(side_outline(&aircraft.wing))
+            .chain(
+                aircraft
+                    .stabiliser
+                    .as_ref()
+                    .map(|s| side_outline(&s.surface)),
+            )
+            .chain(aircraft.fin.as_ref().map(fin_side_outline))
+            .collect(),
+        side_fuselage: aircraft.fuselage.as_ref().map(fuselage_outline),
+        fin_x_m: aircraft.fin.as_ref().map(|f| {
+            let o = fin_side_outline(f);
+            let xs = o.iter().map(|p| p.0);
+            (
+                xs.clone().fold(f64::INFINITY, f64::min),
+                xs.fold(f64::NEG_INFINITY, f64::max),
+            )
+        }),
     }
+}
+
+/// Outline of `surface` seen from the side (x, z): along the leading edge from root to tip,
+/// back along the trailing edge. A flat surface is a line; a V-tail or a wing with dihedral
+/// shows its projected height (span along the panel times sin of its dihedral).
+pub fn side_outline(surface: &Surface) -> Outline {
+    let total = planform::half_span_length_m(surface);
+    let mut s_values: Vec<f64> = (0..=16).map(|i| total * f64::from(i) / 16.0).collect();
+    s_values.extend(planform::break_points_m(surface));
+    s_values.sort_by(f64::total_cmp);
+    s_values.dedup();
+    let stations: Vec<_> = s_values
+        .iter()
+        .map(|&s| planform::station_at(surface, s))
+        .collect();
+    stations
+        .iter()
+        .map(|st| (st.x_le_m, st.z_m))
+        .chain(
+            stations
+                .iter()
+                .rev()
+                .map(|st| (st.x_le_m + st.chord_m, st.z_m)),
+        )
+        .collect()
+}
+
+/// Outline of the fin seen from the side (x, z): root leading edge, tip leading edge, tip
+/// trailing edge, root trailing edge.
+pub fn fin_side_outline(f: &crate::model::Fin) -> Outline {
+    let tip_le = f.root_le_x_m + f.height_m * f.sweep_le_rad.tan();
+    let tip_z = f.root_z_m + f.height_m;
+    vec![
+        (f.root_le_x_m, f.root_z_m),
+        (tip_le, tip_z),
+        (tip_le + f.tip_chord_m, tip_z),
+        (f.root_le_x_m + f.root_chord_m, f.root_z_m),
+    ]
 }
 
 /// `text` with its first letter in upper case.
@@ -943,6 +1015,31 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     ]
     .iter()
     .map(|s| s.to_string()));
+    if let Some(note) = &a.fin {
+        let mut parts = Vec::new();
+        if let Some(f) = &note.fin {
+            parts.push(format!(
+                "fin volume coefficient S_v l_v / (S b) {:.3} (typical 0.02 to 0.09, Raymer, Aircraft Design, sec. 6.4)",
+                f.volume_coefficient
+            ));
+        }
+        if let Some(v) = &note.vee_tail {
+            parts.push(format!(
+                "the V-tail is the fin: side area x sin\u{b2} of the dihedral (Purser and Campbell, NACA Report 823), volume coefficient {:.3}, no fin caution",
+                v.volume_coefficient
+            ));
+        }
+        out.push(format!(
+            "Fin: {}; a lateral note only, it does not enter the pitch figures.",
+            parts.join("; ")
+        ));
+    }
+    if a.cg_spread.sigma_m > 0.0 {
+        out.push(
+            "CG range: your mass and position tolerances as standard deviations, propagated to first order (ISO Guide to the Expression of Uncertainty in Measurement, sec. 5.1)."
+                .to_string(),
+        );
+    }
     out
 }
 

@@ -160,13 +160,13 @@ fn geometry_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
             } else {
                 1.0
             };
-            if cos < VEE_TAIL_COS {
+            if cos < crate::planform::VEE_TAIL_AREA_RATIO {
                 format!(
                     "\nThe stabiliser is a V-tail ({} deg mean dihedral): area {} {} in its own plane, \
                      {} projected; in pitch it acts about as a flat tail of {} {} (area x cos^2, \
                      Purser and Campbell, NACA Report 823); the lattice models the dihedral itself. \
                      The volume coefficient below is on the projected area; on the pitch area it \
-                     is about {}. Yaw, a fin and the ruddervators' yaw use are not analysed.",
+                     is about {}. Yaw and the ruddervators' yaw use are not analysed.",
                     num(cos.acos().to_degrees(), 0),
                     u.area(true_area),
                     u.area_unit(),
@@ -183,7 +183,8 @@ fn geometry_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
         }
         _ => String::new(),
     };
-    vee + &match (&a.tail_volume, &aircraft.stabiliser) {
+    vee + &fin_footer(aircraft, a, u)
+        + &match (&a.tail_volume, &aircraft.stabiliser) {
         (Some(tv), Some(_)) => format!(
             "\nStabiliser arm {} {} (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
             u.length(tv.arm_m, 0),
@@ -195,9 +196,43 @@ fn geometry_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
     }
 }
 
-/// A stabiliser whose projected area is less than this share of its true area (a mean
-/// dihedral above about 10 deg) is described as a V-tail.
-const VEE_TAIL_COS: f64 = 0.985;
+/// The lateral note of a fin and of a V-tail (which is the fin of its aircraft).
+fn fin_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
+    let Some(note) = &a.fin else {
+        return String::new();
+    };
+    let mut out = String::new();
+    if let Some(f) = &note.fin {
+        let (lo, hi) = crate::analysis::FIN_VOLUME_RANGE;
+        let mass = match aircraft.fin.as_ref().and_then(|f| f.mass_item.as_ref()) {
+            Some(name) => format!(" Its mass is the listed item `{name}`."),
+            None => " Its mass, if any, is among the listed masses.".to_string(),
+        };
+        out += &format!(
+            "\nFin: area {} {}, arm {} {} (wing MAC quarter chord to fin MAC quarter chord), \
+             volume coefficient S_v l_v / (S b) {} (typical {} for sailplanes to {}, Raymer, \
+             Aircraft Design).{mass} A lateral note only: the fin does not enter the pitch figures.",
+            u.area(f.side_area_m2),
+            u.area_unit(),
+            u.length(f.arm_m, 0),
+            u.length_unit(),
+            num(f.volume_coefficient, 3),
+            num(lo, 2),
+            num(hi, 2),
+        );
+    }
+    if let Some(v) = &note.vee_tail {
+        out += &format!(
+            "\nThe V-tail is the fin: side area {} {} (area x sin^2 of the dihedral, Purser and \
+             Campbell, NACA Report 823), fin volume coefficient {}; no fin caution is given for a \
+             V-tail. A lateral note only.",
+            u.area(v.side_area_m2),
+            u.area_unit(),
+            num(v.volume_coefficient, 3),
+        );
+    }
+    out
+}
 
 fn sections_table(aircraft: &Aircraft, a: &Analysis) -> Table {
     let mut t = table(&[
@@ -334,6 +369,21 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
             format!(
                 "static margin {} % from the forward end of the neutral-point range",
                 num(100.0 * aircraft.margin_limits.min_static_margin, 0)
+            ),
+        ]);
+    }
+    let cg_spread = 2.0 * a.cg_spread.sigma_m;
+    if cg_spread.is_finite() && cg_spread > 0.0 {
+        let aft_cg = a.mass.cg_x_m + cg_spread;
+        t.add_row(vec![
+            "CG, aft end of its range".to_string(),
+            u.length(aft_cg, 1),
+            pct(aft_cg),
+            format!(
+                "2 standard deviations ({} {mm}) of your own tolerances (masses alone {} {mm}, positions alone {} {mm})",
+                u.length(cg_spread, 1),
+                u.length(2.0 * a.cg_spread.from_masses_m, 1),
+                u.length(2.0 * a.cg_spread.from_positions_m, 1),
             ),
         ]);
     }

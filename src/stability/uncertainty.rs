@@ -19,6 +19,13 @@
 //! neutral points. The two agree when the neutral point is close to linear over the spreads,
 //! which the validation tests check.
 //!
+//! The CG has its own spread, from the builder's tolerances (`[tolerances]` and each mass
+//! item's `mass_tolerance`, `x_tolerance`, read as standard deviations): with
+//! `x_cg = sum m_i x_i / M`, the first-order propagation gives
+//! `sigma_cg^2 = sum ((x_i - x_cg)/M sigma_m,i)^2 + sum (m_i/M sigma_x,i)^2`, the masses and
+//! positions taken independent. With no tolerances in the file it is zero, and the figures
+//! are those of the neutral point's spread alone.
+//!
 //! # References
 //! - B. Etkin, L. D. Reid, *Dynamics of Flight: Stability and Control*, 3rd ed., sec. 2.4 (the
 //!   neutral point of wing and tail, tail efficiency).
@@ -26,6 +33,41 @@
 //!   the ISO Guide to the Expression of Uncertainty in Measurement, sec. 5.1).
 
 use super::classical::{estimate, helmbold_lift_slope, EquivalentSurface, EstimateInput};
+use crate::model::{MassItem, Tolerances};
+
+/// The CG's spread from the builder's tolerances.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct CgSpread {
+    /// Combined standard deviation of the CG's x, m.
+    pub sigma_m: f64,
+    /// The share of the mass tolerances alone (root-sum-square), m.
+    pub from_masses_m: f64,
+    /// The share of the position tolerances alone (root-sum-square), m.
+    pub from_positions_m: f64,
+}
+
+/// The spread of the CG of `masses` from the builder's `tolerances` (first-order propagation
+/// of independent errors, GUM sec. 5.1, eq. (10)). Zero when no tolerance is given; zero
+/// also for a total mass of zero (no CG to spread: the mass summary refuses that list).
+pub fn cg_spread(masses: &[MassItem], tolerances: &Tolerances) -> CgSpread {
+    let total: f64 = masses.iter().map(|m| m.mass_kg).sum();
+    if total.is_nan() || total <= 0.0 {
+        return CgSpread::default();
+    }
+    let cg = masses.iter().map(|m| m.mass_kg * m.x_m).sum::<f64>() / total;
+    let (mut from_masses, mut from_positions) = (0.0, 0.0);
+    for m in masses {
+        let (sigma_mass_kg, sigma_x_m) = tolerances.of(m);
+        // d x_cg / d m_i = (x_i - x_cg) / M;  d x_cg / d x_i = m_i / M.
+        from_masses += ((m.x_m - cg) / total * sigma_mass_kg).powi(2);
+        from_positions += (m.mass_kg / total * sigma_x_m).powi(2);
+    }
+    CgSpread {
+        sigma_m: (from_masses + from_positions).sqrt(),
+        from_masses_m: from_masses.sqrt(),
+        from_positions_m: from_positions.sqrt(),
+    }
+}
 
 /// Spreads (one standard deviation) of the uncertain inputs.
 #[derive(Debug, Clone, Copy, PartialEq)]

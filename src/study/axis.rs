@@ -247,6 +247,7 @@ pub fn apply(base: &Aircraft, changes: &[(&Quantity, f64)]) -> Aircraft {
                         mass_kg: value,
                         x_m: b.x_m,
                         z_m: b.z_m,
+                        tolerance: Default::default(),
                     });
                 }
             }

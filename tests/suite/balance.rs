@@ -12,6 +12,7 @@ fn item(name: &str, g: f64, x_mm: f64, z_mm: Option<f64>) -> MassItem {
         mass_kg: g / 1000.0,
         x_m: x_mm / 1000.0,
         z_m: z_mm.map(|z| z / 1000.0),
+        tolerance: Default::default(),
     }
 }
 

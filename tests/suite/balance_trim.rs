@@ -140,6 +140,7 @@ fn ballast_reaches_the_target_margin() {
         mass_kg,
         x_m: -0.3,
         z_m: None,
+        tolerance: Default::default(),
     });
     let b = analyse(&with, &opts()).unwrap();
     assert_relative_eq!(b.headline.static_margin, 0.10, epsilon = 1e-9);

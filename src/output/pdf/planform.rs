@@ -87,6 +87,21 @@ struct Layout {
     x_min: f64,
     x_max: f64,
     y_max: f64,
+    /// The side view's height range (z_min, z_max), m.
+    z_range: (f64, f64),
+}
+
+/// Paper between the top view and the side view beside it, mm.
+const SIDE_GAP_MM: f64 = 8.0;
+
+/// The side view's outlines (surfaces and fuselage), in (x, z), m.
+fn side_points(view: &TopView) -> Vec<(f64, f64)> {
+    let mut pts: Vec<(f64, f64)> = view.side.iter().flatten().copied().collect();
+    if let Some(f) = &view.side_fuselage {
+        pts.extend(f);
+    }
+    pts.retain(|p| p.0.is_finite() && p.1.is_finite());
+    pts
 }
 
 fn layout(area: Frame, view: &TopView, marks: &[Mark]) -> Option<Layout> {
@@ -100,12 +115,32 @@ fn layout(area: Frame, view: &TopView, marks: &[Mark]) -> Option<Layout> {
     }
     pts.extend(marks.iter().map(|m| (m.x_m, 0.0)));
     pts.retain(|p| p.0.is_finite() && p.1.is_finite());
-    let x_min = pts.iter().map(|p| p.0).fold(f64::INFINITY, f64::min);
-    let x_max = pts.iter().map(|p| p.0).fold(f64::NEG_INFINITY, f64::max);
+    let side = side_points(view);
+    let x_min = pts
+        .iter()
+        .chain(&side)
+        .map(|p| p.0)
+        .fold(f64::INFINITY, f64::min);
+    let x_max = pts
+        .iter()
+        .chain(&side)
+        .map(|p| p.0)
+        .fold(f64::NEG_INFINITY, f64::max);
     let y_max = pts.iter().map(|p| p.1.abs()).fold(0.0, f64::max);
     if !(x_min.is_finite() && x_max > x_min && y_max > 0.0) {
         return None;
     }
+    let z_range = if side.is_empty() {
+        (0.0, 0.0)
+    } else {
+        (
+            side.iter().map(|p| p.1).fold(f64::INFINITY, f64::min),
+            side.iter().map(|p| p.1).fold(f64::NEG_INFINITY, f64::max),
+        )
+    };
+    // Paper across the page that the side view takes besides its height at the scale.
+    let side_gap = if side.is_empty() { 0.0 } else { SIDE_GAP_MM };
+    let across_m = 2.0 * y_max + (z_range.1 - z_range.0);
     // Label column on the left, caption and scale bar at the bottom.
     let label_w = marks
         .iter()
@@ -125,10 +160,11 @@ fn layout(area: Frame, view: &TopView, marks: &[Mark]) -> Option<Layout> {
         .copied()
         .find(|n| {
             let k = 1000.0 / n;
-            2.0 * y_max * k <= draw.w && (x_max - x_min) * k <= draw.h
+            across_m * k + side_gap <= draw.w && (x_max - x_min) * k <= draw.h
         })
         .unwrap_or_else(|| {
-            let k = (draw.w / (2.0 * y_max)).min(draw.h / (x_max - x_min));
+            let k =
+                ((draw.w - side_gap).max(0.5 * draw.w) / across_m).min(draw.h / (x_max - x_min));
             (1000.0 / k).ceil()
         });
     Some(Layout {
@@ -139,6 +175,7 @@ fn layout(area: Frame, view: &TopView, marks: &[Mark]) -> Option<Layout> {
         x_min,
         x_max,
         y_max,
+        z_range,
     })
 }
 
@@ -181,12 +218,23 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
         x_min,
         x_max,
         y_max,
+        z_range,
     }) = layout(area, view, &marks)
     else {
         return f64::NAN;
     };
     let k = 1000.0 / n;
-    let cx = draw.x + 0.5 * draw.w;
+    // The top view and, at its right, the side view, centred together across the frame.
+    let has_side = !side_points(view).is_empty();
+    let side_w = if has_side {
+        SIDE_GAP_MM + (z_range.1 - z_range.0) * k
+    } else {
+        0.0
+    };
+    let cx = draw.x + 0.5 * (draw.w - side_w);
+    let cx = cx
+        .max(draw.x + y_max * k)
+        .min(draw.x + draw.w - side_w - y_max * k);
     let top = draw.top() - 0.5 * (draw.h - (x_max - x_min) * k);
     let page = |p: (f64, f64)| (cx + p.1 * k, top - (p.0 - x_min) * k);
 
@@ -352,6 +400,25 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
         );
     }
 
+    // The fin seen from above: a line on the centre line.
+    if let Some((x0, x1)) = view.fin_x_m {
+        c.line(page((x0, 0.0)), page((x1, 0.0)), Pen::solid(1.4));
+    }
+    // The side view at the same scale, nose up, z (up) to the right: x rows line up with
+    // the top view's.
+    if has_side {
+        let sx0 = cx + y_max * k + SIDE_GAP_MM;
+        let side_page = |p: (f64, f64)| (sx0 + (p.1 - z_range.0) * k, top - (p.0 - x_min) * k);
+        if let Some(f) = &view.side_fuselage {
+            let p: Vec<_> = f.iter().map(|&q| side_page(q)).collect();
+            c.polygon(&p, Some(0.85), Some(Pen::solid(0.5)));
+        }
+        for o in &view.side {
+            let p: Vec<_> = o.iter().map(|&q| side_page(q)).collect();
+            c.polygon(&p, Some(0.95), Some(outline));
+        }
+    }
+
     // Caption and a 100 mm (or shorter) scale bar.
     let bar_m = [0.5, 0.2, 0.1, 0.05]
         .into_iter()
@@ -386,7 +453,7 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
         area.x,
         area.y + 0.5,
         &format!(
-            "Top view to scale 1:{} when printed at 100 %. Nose up, starboard wing right.",
+            "Top view to scale 1:{} when printed at 100 %. Nose up, starboard wing right; side view at its right, same scale, up to the right.",
             fmt(n, if n.fract().abs() < 1e-9 { 0 } else { 1 })
         ),
         CAPTION,
@@ -473,5 +540,64 @@ mod tests {
         assert!(fy1 > wy1, "the nose must be above the wing");
         // The wing's vertical extent is at least its root chord at the same scale.
         assert!(wy1 - wy0 >= a.wing_geometry.root_chord_m * 1000.0 / n - 0.01);
+    }
+
+    // The trainer has a fin: the side view, drawn last, puts it right of the top view at the
+    // top view's scale, as tall across the page as the fin's height, its x rows level with
+    // the top view's (the fin's root leading edge at the same page height as in the top
+    // view's centre-line line).
+    #[test]
+    fn side_view_is_beside_the_top_view_at_its_scale() {
+        let text = include_str!("../../../aircraft/wrenfield-1400.toml");
+        let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
+        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
+        let d = report::build(
+            &aircraft,
+            &a,
+            ReportSource {
+                file_name: "demo".into(),
+                content_hash: String::new(),
+                date: String::new(),
+            },
+        );
+        let mut c = Canvas::new();
+        let area = Frame {
+            x: 10.0,
+            y: 100.0,
+            w: 190.0,
+            h: 110.0,
+        };
+        let n = top_view(&mut c, area, &d.top_view);
+        let k = 1000.0 / n;
+        let polys = polygons(c);
+        let xs = |p: &Vec<(f64, f64)>| p.iter().map(|q| q.0).collect::<Vec<_>>();
+        let ys = |p: &Vec<(f64, f64)>| p.iter().map(|q| q.1).collect::<Vec<_>>();
+        let max = |v: Vec<f64>| v.into_iter().fold(f64::NEG_INFINITY, f64::max);
+        let min = |v: Vec<f64>| v.into_iter().fold(f64::INFINITY, f64::min);
+        let wing = &polys[1];
+        // The fin is the one four-cornered outline right of the top view (the scale bar's
+        // rectangles lie at the lower left).
+        let right_of_top: Vec<_> = polys
+            .iter()
+            .filter(|p| min(xs(p)) > max(xs(wing)))
+            .collect();
+        assert_eq!(
+            right_of_top.len(),
+            4,
+            "fuselage, wing, tail and fin in the side view"
+        );
+        let fin = right_of_top.iter().find(|p| p.len() == 4).unwrap();
+        let f = aircraft.fin.as_ref().unwrap();
+        assert_relative_eq!(max(xs(fin)) - min(xs(fin)), f.height_m * k, epsilon = 0.01);
+        assert!(
+            min(xs(fin)) > max(xs(wing)),
+            "the side view is right of the top view"
+        );
+        let (x0, x1) = d.top_view.fin_x_m.unwrap();
+        assert_relative_eq!(max(ys(fin)) - min(ys(fin)), (x1 - x0) * k, epsilon = 0.01);
+        // Everything inside the area given.
+        for p in &polys {
+            assert!(max(xs(p)) <= area.x + area.w + 0.01 && min(xs(p)) >= area.x - 0.01);
+        }
     }
 }
