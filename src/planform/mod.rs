@@ -368,8 +368,8 @@ pub fn fin_geometry(fin: &crate::model::Fin) -> FinGeometry {
 
 /// The vertical tail (fin) volume coefficient `V_v = S_v l_v / (S b)`, with `l_v` from the
 /// wing's MAC quarter chord to the fin's (`arm_m`), on the wing's area and span (Raymer,
-/// *Aircraft Design: A Conceptual Approach*, sec. 6.4, the vertical tail volume coefficient;
-/// from memory).
+/// *Aircraft Design: A Conceptual Approach*, sec. 6.4, eq. 6.29, the vertical tail volume
+/// coefficient; equation number from memory).
 pub fn fin_volume_coefficient(wing: &PlanformGeometry, side_area_m2: f64, arm_m: f64) -> f64 {
     side_area_m2 * arm_m / (wing.area_m2 * wing.span_m)
 }

@@ -5,10 +5,10 @@
 //! Sources:
 //! - D. P. Raymer, *Aircraft Design: A Conceptual Approach*, sec. 7.3: the MAC of a trapezoid
 //!   `(2/3) c_r (1 + l + l^2)/(1 + l)` at `(b/6) (1 + 2 l)/(1 + l)` from the root of a
-//!   symmetric wing of span b (for a fin of height h: `(h/3)(1 + 2 l)/(1 + l)`); sec. 6.4 and
-//!   the table of tail volume coefficients there (Table 6.4; table number from memory):
-//!   `c_VT = L_VT S_VT / (b_W S_W)`, typical values 0.02 (sailplanes) to 0.09 (jet
-//!   transports), the arm from the wing's quarter-MAC to the tail's quarter-MAC.
+//!   symmetric wing of span b (for a fin of height h: `(h/3)(1 + 2 l)/(1 + l)`); sec. 6.4,
+//!   eq. 6.29 and the table of tail volume coefficients there (Table 6.4; equation and table
+//!   numbers from memory): `c_VT = L_VT S_VT / (b_W S_W)`, typical values 0.02 (sailplanes)
+//!   to 0.09 (jet transports), the arm from the wing's quarter-MAC to the tail's quarter-MAC.
 //! - P. E. Purser, J. P. Campbell, *Experimental verification of a simplified vee-tail
 //!   theory and analysis of available data on complete models with vee tails*, NACA Report
 //!   823 (1945): a V-tail of area S and dihedral G acts in pitch as a flat tail of about
