@@ -3,7 +3,7 @@
 
 use crate::caution::Caution;
 use crate::section::boundary_layer::TransitionCause;
-use crate::section::polar::{Polar, PolarStatus, StallCause};
+use crate::section::polar::{PeakKind, Polar, PolarStatus, StallCause};
 use crate::section::viscous::ViscousPoint;
 use crate::section::{ClMaxSource, SectionOutcome, SurfacePressure, SweepPoint};
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Cell, CellAlignment, Table};
@@ -20,6 +20,9 @@ pub struct SectionReport {
     pub method: String,
     /// Panel count (panel method only).
     pub panels: Option<usize>,
+    /// Chord Reynolds number of a viscous section's summary (viscous method only).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub reynolds: Option<f64>,
     /// Zero-lift angle, deg (from the chord line).
     pub alpha_zero_lift_deg: f64,
     /// Lift slope at zero lift, per rad.
@@ -58,6 +61,8 @@ pub struct ViscousReport {
     pub alpha_zero_lift_deg: Option<f64>,
     /// Lift slope of that line, per deg.
     pub cl_alpha_per_deg: Option<f64>,
+    /// Lift slope of that line, per rad.
+    pub cl_alpha_per_rad: Option<f64>,
     /// Least drag coefficient over the converged points.
     pub cd_min: Option<f64>,
     /// cl at the least drag.
@@ -66,6 +71,10 @@ pub struct ViscousReport {
     pub cl_max: Option<f64>,
     /// Angle of that cl, deg.
     pub stall_alpha_deg: Option<f64>,
+    /// What that cl is: "maximum" (the computed lift curve turned over after it) or
+    /// "last-converged" (the last converged angle, the curve still rising there; the
+    /// section's maximum is not known from the polar); null when no point converged.
+    pub cl_max_kind: Option<&'static str>,
     /// What ended the lift curve: "separation", "not-converged" or "end-of-sweep".
     pub stall_found_by: String,
     /// The points.
@@ -127,10 +136,15 @@ impl ViscousReport {
             transition_n: polar.n_crit,
             alpha_zero_lift_deg: fit.map(|f| f.1.to_degrees()),
             cl_alpha_per_deg: fit.map(|f| f.0.to_radians()),
+            cl_alpha_per_rad: fit.map(|f| f.0),
             cd_min: polar.cd_min().map(|c| c.0),
             cl_at_cd_min: polar.cd_min().map(|c| c.1),
             cl_max: polar.cl_max.map(|c| c.0),
             stall_alpha_deg: polar.cl_max.map(|c| c.1.to_degrees()),
+            cl_max_kind: polar.lift_peak().map(|p| match p.kind {
+                PeakKind::Maximum => "maximum",
+                PeakKind::LastConverged(_) => "last-converged",
+            }),
             stall_found_by: match polar.stall_cause {
                 StallCause::Separation => "separation",
                 StallCause::NotConverged => "not-converged",
@@ -168,8 +182,11 @@ impl ViscousReport {
         [
             self.alpha_zero_lift_deg,
             self.cl_alpha_per_deg,
+            self.cl_alpha_per_rad,
             self.cd_min,
+            self.cl_at_cd_min,
             self.cl_max,
+            self.stall_alpha_deg,
         ]
         .into_iter()
         .all(ok)
@@ -204,14 +221,26 @@ pub fn render_viscous(reports: &[ViscousReport]) -> String {
             "Value".into(),
             "Unit".into(),
         ]);
+        let peak_name = match r.cl_max_kind {
+            Some("maximum") => "Greatest cl (the computed curve turns over)",
+            _ => "Greatest cl (last converged angle, still rising)",
+        };
+        let ended_by = match r.stall_found_by.as_str() {
+            "separation" => "separation criterion",
+            "not-converged" => "no convergence",
+            "end-of-sweep" => "end of the angles asked for",
+            other => other,
+        };
         let rows: Vec<(&str, String, &str)> = vec![
+            ("Reynolds number", format!("{:.0}", r.reynolds), ""),
             ("Zero-lift angle", opt(r.alpha_zero_lift_deg, 2), "deg"),
+            ("Lift slope", opt(r.cl_alpha_per_rad, 3), "per rad"),
             ("Lift slope", opt(r.cl_alpha_per_deg, 4), "per deg"),
             ("Least cd", opt(r.cd_min, 5), ""),
             ("  at cl", opt(r.cl_at_cd_min, 3), ""),
-            ("cl_max", opt(r.cl_max, 3), ""),
+            (peak_name, opt(r.cl_max, 3), ""),
             ("  at alpha", opt(r.stall_alpha_deg, 1), "deg"),
-            ("Lift curve ended by", r.stall_found_by.clone(), ""),
+            ("Lift curve ended by", ended_by.to_string(), ""),
         ];
         for (name, value, unit) in rows {
             summary.add_row(vec![Cell::new(name), right(value), Cell::new(unit)]);
@@ -249,8 +278,11 @@ pub fn render_viscous(reports: &[ViscousReport]) -> String {
     if !reports.is_empty() {
         out.push_str(
             "Viscous: integral boundary layer (Thwaites, e^N envelope, Head) coupled to the panel \
-             method; cd by Squire-Young. cl_max here is the peak of the computed lift curve and \
-             runs high against wind-tunnel data (see docs/section.md): it is shown, not used.\n",
+             method; cd by Squire-Young. The greatest cl is that of the computed lift curve: \
+             where it is the last converged angle, the curve was still rising and the method \
+             does not know the section's maximum; where the curve turns over, the maximum runs \
+             high against wind-tunnel data (see docs/section.md). Either way it is shown, not \
+             used.\n",
         );
     }
     out
@@ -332,6 +364,7 @@ impl SectionReport {
             shape: shape.to_string(),
             method: m.method.as_str().to_string(),
             panels,
+            reynolds: m.reynolds_number,
             alpha_zero_lift_deg: m.alpha_zero_lift_rad.to_degrees(),
             cl_alpha_per_rad: m.cl_alpha_per_rad,
             cl_alpha_per_deg: m.cl_alpha_per_rad.to_radians(),
@@ -371,6 +404,7 @@ impl SectionReport {
             self.cl_min,
         ];
         scalars.iter().all(|v| v.is_finite())
+            && self.reynolds.is_none_or(f64::is_finite)
             && self.viscous.iter().all(ViscousReport::all_finite)
             && self.points.iter().all(|p| {
                 p.alpha_deg.is_finite()
@@ -409,10 +443,15 @@ pub fn render_tables(report: &SectionReport) -> String {
         Some(n) => format!("{} ({n} panels)", report.method),
         None => report.method.clone(),
     };
-    let rows: Vec<(&str, String, &str)> = vec![
+    let mut rows: Vec<(&str, String, &str)> = vec![
         ("Airfoil", report.airfoil.clone(), ""),
         ("Shape", report.shape.clone(), ""),
         ("Method", method, ""),
+    ];
+    if let Some(re) = report.reynolds {
+        rows.push(("Reynolds number", format!("{re:.0}"), ""));
+    }
+    rows.extend([
         (
             "Zero-lift angle",
             fixed(report.alpha_zero_lift_deg, 2),
@@ -436,7 +475,7 @@ pub fn render_tables(report: &SectionReport) -> String {
             "",
         ),
         ("cl_min", fixed(report.cl_min, 2), ""),
-    ];
+    ]);
     for (name, value, unit) in rows {
         summary.add_row(vec![Cell::new(name), right(value), Cell::new(unit)]);
     }

@@ -46,6 +46,33 @@ pub enum StallCause {
     EndOfSweep,
 }
 
+/// What the greatest cl of a polar's positive branch is ([`Polar::lift_peak`]).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum PeakKind {
+    /// A real maximum of the computed lift curve: a later angle of the branch converged (below
+    /// or past the stall criterion) with a lower cl, so the curve turned over within the
+    /// solution. Still the method's maximum, not a measured one (it runs high).
+    Maximum,
+    /// The greatest cl is that of the last converged angle of the branch, the curve still
+    /// rising there: what came next ended the branch ([`StallCause`]), and the section's
+    /// true maximum is not known from this polar. A lower bound of the computed curve's
+    /// maximum when the cause is [`StallCause::EndOfSweep`]; with
+    /// [`StallCause::NotConverged`] the point where the iteration failed; with
+    /// [`StallCause::Separation`] the last angle before the separation criterion.
+    LastConverged(StallCause),
+}
+
+/// The greatest cl of a polar's positive branch, its angle and what kind of value it is.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct LiftPeak {
+    /// Lift coefficient.
+    pub cl: f64,
+    /// Angle of attack, rad.
+    pub alpha_rad: f64,
+    /// Real maximum or last converged angle.
+    pub kind: PeakKind,
+}
+
 /// One angle of a polar.
 #[derive(Debug, Clone, PartialEq)]
 pub struct PolarEntry {
@@ -140,6 +167,33 @@ impl Polar {
             cl_min,
             stall_cause,
         }
+    }
+
+    /// The greatest cl of the positive branch ([`Polar::cl_max`]) with the distinction
+    /// whether the computed lift curve turned over after it ([`PeakKind::Maximum`]) or it is
+    /// just the last converged angle ([`PeakKind::LastConverged`]); `None` when no point of
+    /// the positive branch converged.
+    pub fn lift_peak(&self) -> Option<LiftPeak> {
+        let (cl, alpha_rad) = self.cl_max?;
+        // A converged solution (below or past the stall criterion) at a greater angle with a
+        // lower cl: the curve turned over.
+        let turned_over = self.entries.iter().any(|e| {
+            e.alpha_rad > alpha_rad
+                && match &e.status {
+                    PolarStatus::Converged(p) | PolarStatus::PastStall(p) => p.cl < cl,
+                    _ => false,
+                }
+        });
+        let kind = if turned_over {
+            PeakKind::Maximum
+        } else {
+            PeakKind::LastConverged(self.stall_cause)
+        };
+        Some(LiftPeak {
+            cl,
+            alpha_rad,
+            kind,
+        })
     }
 
     /// The converged, unstalled points in rising angle.
@@ -276,6 +330,112 @@ mod tests {
         .unwrap();
         let alphas: Vec<f64> = [0.0f64, 2.0, 4.0].iter().map(|d| d.to_radians()).collect();
         Arc::new(Polar::sweep(&s, &alphas))
+    }
+
+    fn entry(alpha_deg: f64, cl: f64, past_stall: bool) -> PolarEntry {
+        let side = crate::section::viscous::SurfaceSummary {
+            transition_x_c: None,
+            transition_cause: None,
+            michel_x_c: None,
+            separation_x_c: None,
+            theta_te: 0.001,
+            h_te: 1.6,
+            cd: 0.005,
+        };
+        let p = ViscousPoint {
+            alpha_rad: alpha_deg.to_radians(),
+            cl,
+            cd: 0.01,
+            cm_quarter_chord: 0.0,
+            upper: side,
+            lower: side,
+            iterations: 10,
+            residual: 1e-4,
+        };
+        PolarEntry {
+            alpha_rad: alpha_deg.to_radians(),
+            status: if past_stall {
+                PolarStatus::PastStall(p)
+            } else {
+                PolarStatus::Converged(p)
+            },
+        }
+    }
+
+    fn hand_polar(mut entries: Vec<PolarEntry>, tail: PolarStatus, cause: StallCause) -> Polar {
+        entries.push(PolarEntry {
+            alpha_rad: 20f64.to_radians(),
+            status: tail,
+        });
+        let cl_max = entries
+            .iter()
+            .filter_map(|e| match &e.status {
+                PolarStatus::Converged(p) => Some((p.cl, e.alpha_rad)),
+                _ => None,
+            })
+            .max_by(|a, b| a.0.total_cmp(&b.0));
+        Polar {
+            reynolds: 2e5,
+            n_crit: 9.0,
+            entries,
+            cl_max,
+            cl_min: None,
+            stall_cause: cause,
+        }
+    }
+
+    #[test]
+    fn lift_peak_tells_a_turned_over_curve_from_the_last_converged_angle() {
+        // The definition of PeakKind: the peak counts as a maximum only when a later
+        // converged solution (attached or past the criterion) has a lower cl.
+        let not_conv = || {
+            PolarStatus::NotConverged(ViscousError::NotConverged {
+                alpha_rad: 0.2,
+                residual: 1e-2,
+                iterations: 200,
+            })
+        };
+        // Rising to the last converged angle, then the iteration fails.
+        let p = hand_polar(
+            vec![entry(0.0, 0.2, false), entry(4.0, 0.6, false)],
+            not_conv(),
+            StallCause::NotConverged,
+        );
+        let peak = p.lift_peak().unwrap();
+        assert_eq!(peak.kind, PeakKind::LastConverged(StallCause::NotConverged));
+        assert_eq!((peak.cl, peak.alpha_rad), p.cl_max.unwrap());
+        // The curve turns over at an attached point before the failure.
+        let p = hand_polar(
+            vec![
+                entry(0.0, 0.2, false),
+                entry(4.0, 0.6, false),
+                entry(6.0, 0.55, false),
+            ],
+            not_conv(),
+            StallCause::NotConverged,
+        );
+        assert_eq!(p.lift_peak().unwrap().kind, PeakKind::Maximum);
+        assert!((p.lift_peak().unwrap().cl - 0.6).abs() < 1e-15);
+        // A past-stall point with a lower cl ends the branch: a maximum.
+        let p = hand_polar(
+            vec![entry(0.0, 0.2, false), entry(4.0, 0.6, false)],
+            entry(6.0, 0.5, true).status,
+            StallCause::Separation,
+        );
+        assert_eq!(p.lift_peak().unwrap().kind, PeakKind::Maximum);
+        // A past-stall point with a higher cl: the curve was still rising.
+        let p = hand_polar(
+            vec![entry(0.0, 0.2, false), entry(4.0, 0.6, false)],
+            entry(6.0, 0.7, true).status,
+            StallCause::Separation,
+        );
+        assert_eq!(
+            p.lift_peak().unwrap().kind,
+            PeakKind::LastConverged(StallCause::Separation)
+        );
+        // Nothing converged: no peak.
+        let p = hand_polar(vec![], not_conv(), StallCause::NotConverged);
+        assert!(p.lift_peak().is_none());
     }
 
     #[test]

@@ -187,3 +187,59 @@ fn viscous_bad_settings_are_refused_with_the_range() {
     assert_eq!(code, 1, "{stderr}");
     assert!(stderr.contains("needs --re"), "{stderr}");
 }
+
+#[test]
+fn viscous_summary_shows_reynolds_number_least_drag_slope_and_what_cl_max_is() {
+    // Consistency of the summary with its own points (no outside value): the least cd and
+    // its cl are those of the converged point with the least cd; the slope per rad and per
+    // deg agree; a sweep that stops at 4 deg on NACA 2412 (its lift rises to about 12-16
+    // deg in any wind tunnel, Abbott & von Doenhoff appendix IV, from memory) cannot show a
+    // real maximum: its greatest cl must be called the last converged angle, ended by the
+    // end of the sweep, in JSON and in words.
+    let args = [
+        "section", "naca2412", "--method", "viscous", "--re", "2e5", "--alpha", "-2:4:1",
+        "--panels", "160",
+    ];
+    let mut json_args = args.to_vec();
+    json_args.push("--json");
+    let (code, stdout, stderr) = run(&json_args);
+    assert_eq!(code, 0, "{stderr}");
+    let v: Value = serde_json::from_str(&stdout).expect("valid JSON");
+    approx::assert_relative_eq!(v["reynolds"].as_f64().unwrap(), 2e5);
+    let p = &v["viscous"][0];
+    let per_rad = p["cl_alpha_per_rad"].as_f64().unwrap();
+    let per_deg = p["cl_alpha_per_deg"].as_f64().unwrap();
+    approx::assert_relative_eq!(per_rad.to_radians(), per_deg, max_relative = 1e-12);
+    let points = p["points"].as_array().unwrap();
+    let least = points
+        .iter()
+        .filter(|q| q["status"] == "converged")
+        .min_by(|a, b| {
+            a["cd"]
+                .as_f64()
+                .unwrap()
+                .total_cmp(&b["cd"].as_f64().unwrap())
+        })
+        .unwrap();
+    approx::assert_relative_eq!(p["cd_min"].as_f64().unwrap(), least["cd"].as_f64().unwrap());
+    approx::assert_relative_eq!(
+        p["cl_at_cd_min"].as_f64().unwrap(),
+        least["cl"].as_f64().unwrap()
+    );
+    assert_eq!(p["stall_found_by"], "end-of-sweep");
+    assert_eq!(p["cl_max_kind"], "last-converged");
+    let last = points.last().unwrap();
+    approx::assert_relative_eq!(p["cl_max"].as_f64().unwrap(), last["cl"].as_f64().unwrap());
+    let (code, stdout, stderr) = run(&args);
+    assert_eq!(code, 0, "{stderr}");
+    assert!(stdout.contains("Reynolds number"), "{stdout}");
+    assert!(
+        stdout.contains("Greatest cl (last converged angle, still rising)"),
+        "{stdout}"
+    );
+    assert!(stdout.contains("end of the angles asked for"), "{stdout}");
+    assert!(
+        !stdout.contains("the computed curve turns over"),
+        "{stdout}"
+    );
+}

@@ -179,8 +179,12 @@ pub fn march_surface(stations: &[Station], settings: &MarchSettings) -> SurfaceL
         let re_theta = st.ue * theta / nu;
         let dn = envelope::dn_ds(h, theta, re_theta);
         let n = n_prev + 0.5 * (dn + dn_prev) * ds;
-        let re_x = st.ue * st.s / nu;
-        let michel_margin = re_theta - michel::re_theta_transition(re_x);
+        // Michel's margin is needed only until its point is found (a `powf` a station).
+        let michel_margin = if michel_s.is_none() {
+            re_theta - michel::re_theta_transition(st.ue * st.s / nu)
+        } else {
+            0.0
+        };
         if michel_s.is_none() && michel_margin >= 0.0 {
             michel_s = Some(match lam_prev {
                 Some((_, _, m0)) if m0 < 0.0 => s_prev + ds * (-m0 / (michel_margin - m0)),
