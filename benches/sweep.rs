@@ -32,7 +32,10 @@ fn sweep(c: &mut Criterion) {
                         values: incidence.clone(),
                     },
                 ],
-                AnalysisOptions::default(),
+                AnalysisOptions {
+                    flight_polar: false,
+                    ..AnalysisOptions::default()
+                },
             )
             .unwrap();
             black_box(study.run(&|| {}))

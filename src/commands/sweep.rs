@@ -38,6 +38,10 @@ pub struct SweepArgs {
     /// of the table.
     #[arg(long)]
     pub json: bool,
+    /// Also compute the glide polar at every point and give its least sink and best glide
+    /// (slower: about a millisecond or more a point).
+    #[arg(long)]
+    pub glide: bool,
     /// Also write every point to this CSV file (same units as the JSON).
     #[arg(long, value_name = "PATH")]
     pub csv: Option<PathBuf>,
@@ -71,7 +75,11 @@ pub fn run(args: &SweepArgs) -> anyhow::Result<super::Finish> {
         .iter()
         .map(|spec| parse_axis(&aircraft, spec))
         .collect::<anyhow::Result<Vec<Axis>>>()?;
-    let study = Study::new(&aircraft, axes, AnalysisOptions::default())
+    let options = AnalysisOptions {
+        flight_polar: args.glide,
+        ..AnalysisOptions::default()
+    };
+    let study = Study::new(&aircraft, axes, options)
         .with_context(|| format!("preparing the study of {source}"))?;
     let points = run_points(&study);
     if let Some(path) = &args.csv {

@@ -98,7 +98,18 @@ pub fn table(aircraft: &Aircraft, axes: &[Axis], points: &[Point], target_speed:
     if target_speed {
         header.push("control at target (deg)".into());
     }
-    header.extend(["stall (m/s)", "cautions"].iter().map(|s| s.to_string()));
+    let glide = points
+        .iter()
+        .any(|p| p.outcome.as_ref().is_ok_and(|f| f.glide.is_some()));
+    header.push("stall (m/s)".into());
+    if glide {
+        header.extend(
+            ["least sink (m/s)", "at (m/s)", "best glide", "at (m/s)"]
+                .iter()
+                .map(|s| s.to_string()),
+        );
+    }
+    header.push("cautions".into());
     t.set_header(header.iter().map(Cell::new));
     for p in points {
         let mut row: Vec<String> = axes
@@ -133,6 +144,17 @@ pub fn table(aircraft: &Aircraft, axes: &[Axis], points: &[Point], target_speed:
                     });
                 }
                 row.push(format!("{:.2}", f.stall_speed_m_s));
+                if glide {
+                    match &f.glide {
+                        Some(g) => row.extend([
+                            format!("{:.3}", g.min_sink_m_s),
+                            format!("{:.1}", g.min_sink_speed_m_s),
+                            format!("{:.1}", g.best_glide_ratio),
+                            format!("{:.1}", g.best_glide_speed_m_s),
+                        ]),
+                        None => row.extend(["-", "-", "-", "-"].map(String::from)),
+                    }
+                }
                 row.push(caution_field(&f.cautions));
             }
             Err(e) => {
@@ -184,6 +206,14 @@ pub struct PointRecord {
     pub control_at_target_deg: Option<f64>,
     /// Stall speed, m/s.
     pub stall_speed_m_s: Option<f64>,
+    /// Least sink, m/s (flight polar; null unless asked for with `--glide`).
+    pub min_sink_m_s: Option<f64>,
+    /// Its speed, m/s.
+    pub min_sink_speed_m_s: Option<f64>,
+    /// Best glide ratio.
+    pub best_glide_ratio: Option<f64>,
+    /// Its speed, m/s.
+    pub best_glide_speed_m_s: Option<f64>,
     /// Model that gave the figures.
     pub method: String,
     /// Caution codes, "level:code" separated by spaces, most serious first.
@@ -215,6 +245,10 @@ pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
                 control_status: String::new(),
                 control_at_target_deg: None,
                 stall_speed_m_s: None,
+                min_sink_m_s: None,
+                min_sink_speed_m_s: None,
+                best_glide_ratio: None,
+                best_glide_speed_m_s: None,
                 method: String::new(),
                 cautions: String::new(),
             };
@@ -246,6 +280,12 @@ pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
                     }
                     .into();
                     r.stall_speed_m_s = Some(f.stall_speed_m_s);
+                    if let Some(g) = &f.glide {
+                        r.min_sink_m_s = Some(g.min_sink_m_s);
+                        r.min_sink_speed_m_s = Some(g.min_sink_speed_m_s);
+                        r.best_glide_ratio = Some(g.best_glide_ratio);
+                        r.best_glide_speed_m_s = Some(g.best_glide_speed_m_s);
+                    }
                     r.method = f.method.into();
                     r.cautions = caution_field(&f.cautions);
                 }
@@ -313,7 +353,7 @@ pub fn document(
 }
 
 /// The fixed CSV columns after the axis columns.
-pub const CSV_COLUMNS: [&str; 14] = [
+pub const CSV_COLUMNS: [&str; 18] = [
     "status",
     "error",
     "mass_kg",
@@ -326,6 +366,10 @@ pub const CSV_COLUMNS: [&str; 14] = [
     "control_status",
     "control_at_target_deg",
     "stall_speed_m_s",
+    "min_sink_m_s",
+    "min_sink_speed_m_s",
+    "best_glide_ratio",
+    "best_glide_speed_m_s",
     "method",
     "cautions",
 ];
@@ -372,6 +416,10 @@ pub fn csv(aircraft: &Aircraft, axes: &[Axis], points: &[Point]) -> String {
             field(&r.control_status),
             number(r.control_at_target_deg),
             number(r.stall_speed_m_s),
+            number(r.min_sink_m_s),
+            number(r.min_sink_speed_m_s),
+            number(r.best_glide_ratio),
+            number(r.best_glide_speed_m_s),
             field(&r.method),
             field(&r.cautions),
         ]);

@@ -99,6 +99,9 @@ pub struct PointFigures {
     /// Codes of the cautions raised, in the analysis's order, without the standing safety
     /// caution that every analysis carries.
     pub cautions: Vec<(Level, &'static str)>,
+    /// Least sink and best glide from the flight polar, when the study's options ask for it
+    /// and it was computed at this point.
+    pub glide: Option<crate::analysis::GlideFigures>,
 }
 
 impl<'a> Study<'a> {
@@ -247,6 +250,7 @@ impl<'a> Study<'a> {
         let h = &a.headline;
         let standing = crate::caution::safety_caution().code;
         PointFigures {
+            glide: a.glide_polar.as_ref().map(|_| a.glide_figures()),
             mass_kg: a.mass.total_kg,
             cg_x_m: a.mass.cg_x_m,
             neutral_point_x_m: h.neutral_point_x_m,

@@ -475,3 +475,38 @@ fn the_control_at_the_neutral_trim_speed_is_zero() {
         other => panic!("expected a deflection, got {other:?}"),
     }
 }
+
+// `sweep --glide` gives each point the least sink and best glide of its flight polar; at the
+// file's own CG they are `check`'s figures (the same chain on shared sections: the law is
+// that the shortcut changes nothing). Without `--glide` the fields are null.
+#[test]
+fn glide_columns_equal_check_at_the_same_point() {
+    let base = demo();
+    let x0 = analyse(&base, &AnalysisOptions::default()).unwrap();
+    let g = x0.glide_figures();
+    assert!(g.from_flight_polar);
+    let cg_mm = format!("cg={:.6}", 1000.0 * x0.mass.cg_x_m);
+    let out = trimline(&["sweep", "--vary", &cg_mm, "--glide", "--json"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let doc: StudyDocument = serde_json::from_slice(&out.stdout).unwrap();
+    let p = &doc.points[0];
+    assert!((p.min_sink_m_s.unwrap() - g.min_sink_m_s).abs() < 1e-9);
+    assert!((p.best_glide_ratio.unwrap() - g.best_glide_ratio).abs() < 1e-9);
+    // The CG is passed rounded to 1e-6 mm; at the flat top of the glide-ratio curve the
+    // speed of the optimum moves with the square root of such a change: 1 mm/s.
+    assert!((p.best_glide_speed_m_s.unwrap() - g.best_glide_speed_m_s).abs() < 1e-3);
+    assert!((p.min_sink_speed_m_s.unwrap() - g.min_sink_speed_m_s).abs() < 1e-3);
+    let out = trimline(&["sweep", "--vary", &cg_mm, "--json"]);
+    let doc: StudyDocument = serde_json::from_slice(&out.stdout).unwrap();
+    assert!(doc.points[0].min_sink_m_s.is_none());
+    let table = trimline(&["sweep", "--vary", "cg=70,75", "--glide"]);
+    let text = String::from_utf8_lossy(&table.stdout);
+    assert!(
+        text.contains("least sink (m/s)") && text.contains("best glide"),
+        "{text}"
+    );
+}
