@@ -20,6 +20,7 @@ pub mod output;
 pub mod performance;
 pub mod planform;
 pub mod plausibility;
+pub mod polar_store;
 pub mod printable;
 pub mod section;
 pub mod stability;

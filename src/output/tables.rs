@@ -718,17 +718,20 @@ fn glide_polar_table(aircraft: &Aircraft, p: &crate::analysis::glide::GlidePolar
         crate::lifting_line::TrimControl::Incidence(_) => "tail incidence change",
     };
     let header = format!("{control} (deg, down +)");
-    let mut t = table(&[
+    let body = aircraft.fuselage.is_some();
+    let mut columns = vec![
         "speed (m/s)",
         "sink (m/s)",
         "glide ratio",
         "CL",
         "section drag",
         "induced drag",
-        "fuselage drag",
-        &header,
-        "",
-    ]);
+    ];
+    if body {
+        columns.push("fuselage drag");
+    }
+    columns.extend([header.as_str(), ""]);
+    let mut t = table(&columns);
     let mut rows: Vec<(&crate::performance::flight_polar::GlidePoint<_>, &str)> =
         sample(&p.points, GLIDE_ROWS)
             .into_iter()
@@ -744,19 +747,21 @@ fn glide_polar_table(aircraft: &Aircraft, p: &crate::analysis::glide::GlidePolar
         } else if q.drag.beyond_polar && note.is_empty() {
             note = "drag extrapolated".into();
         }
-        t.add_row(vec![
+        let mut row = vec![
             num(q.speed_m_s, 1),
             num(q.sink_m_s, 3),
             num(q.glide_ratio, 1),
             num(q.cl, 3),
             num(q.drag.profile, 4),
             num(q.drag.induced, 4),
-            num(q.drag.parasite, 4),
-            num(q.trim.control_rad.to_degrees(), 1),
-            note,
-        ]);
+        ];
+        if body {
+            row.push(num(q.drag.parasite, 4));
+        }
+        row.extend([num(q.trim.control_rad.to_degrees(), 1), note]);
+        t.add_row(row);
     }
-    right_align(&mut t, 0..8);
+    right_align(&mut t, 0..columns.len() - 1);
     t
 }
 

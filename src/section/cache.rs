@@ -11,26 +11,28 @@ use crate::section::polar::Polar;
 use crate::section::viscous::ViscousSettings;
 use crate::section::{viscous_polar, SectionError};
 use std::collections::HashMap;
-use std::hash::{Hash, Hasher};
 use std::sync::{Arc, Mutex};
 
-/// What a polar depends on, as exact bits.
+/// What a polar depends on, as exact bits (public so that a store at the edges can keep
+/// polars between runs).
 #[derive(Debug, Clone, PartialEq, Eq, Hash)]
-struct PolarKey {
-    shape: Vec<u64>,
-    reynolds: u64,
-    n_crit: u64,
-    panels: usize,
-    alphas: Vec<u64>,
+pub struct PolarKey {
+    /// The section's shape: a kind tag, then its numbers' bits (a NACA designation as its
+    /// characters).
+    pub shape: Vec<u64>,
+    /// Reynolds number bits.
+    pub reynolds: u64,
+    /// Critical amplification factor bits.
+    pub n_crit: u64,
+    /// Panels.
+    pub panels: usize,
+    /// Angles of attack, rad, as bits.
+    pub alphas: Vec<u64>,
 }
 
 fn shape_bits(shape: &AirfoilShape) -> Vec<u64> {
     match shape {
-        AirfoilShape::Naca(d) => {
-            let mut h = std::collections::hash_map::DefaultHasher::new();
-            d.hash(&mut h);
-            vec![0, h.finish()]
-        }
+        AirfoilShape::Naca(d) => std::iter::once(0).chain(d.chars().map(u64::from)).collect(),
         AirfoilShape::Joukowski {
             thickness_ratio,
             camber_ratio,
@@ -96,6 +98,23 @@ impl PolarCache {
     pub fn shared() -> &'static PolarCache {
         static SHARED: std::sync::OnceLock<PolarCache> = std::sync::OnceLock::new();
         SHARED.get_or_init(PolarCache::new)
+    }
+
+    /// Every polar held, with its key (for a store that keeps them between runs).
+    pub fn snapshot(&self) -> Vec<(PolarKey, Arc<Polar>)> {
+        self.lock()
+            .iter()
+            .map(|(k, p)| (k.clone(), p.clone()))
+            .collect()
+    }
+
+    /// Put polars computed earlier (by this same build, read back from a store) into the
+    /// cache; entries already held are kept.
+    pub fn preload(&self, entries: Vec<(PolarKey, Polar)>) {
+        let mut map = self.lock();
+        for (k, p) in entries {
+            map.entry(k).or_insert_with(|| Arc::new(p));
+        }
     }
 
     /// How many polars were computed (not taken from the cache) so far.

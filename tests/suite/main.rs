@@ -28,6 +28,7 @@ mod lifting_line_stall;
 mod lifting_line_sweep;
 mod np_uncertainty;
 mod performance;
+mod polar_store;
 mod report;
 mod section_bad_input;
 mod section_cli;
