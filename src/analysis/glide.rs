@@ -22,6 +22,10 @@ pub const POLAR_POINTS: usize = 40;
 /// and full-size gliders meet 0.5 to 2 m/s of sinking air between thermals).
 pub const AIR_SINK_RATES_M_S: [f64; 4] = [0.0, 0.5, 1.0, 2.0];
 
+/// Expected climb rates in the next thermal for the MacCready speed to fly, m/s (common
+/// practice: weak to good thermals for models and sailplanes).
+pub const CLIMB_RATES_M_S: [f64; 3] = [0.5, 1.0, 2.0];
+
 /// Padding of the lift range a section's drag polar covers beyond what the range asks for.
 const CL_PADDING: f64 = 0.15;
 
@@ -51,6 +55,9 @@ pub struct GlidePolar {
     pub best_glide: Optimum<AircraftTrim>,
     /// Speed to fly through sinking air ([`AIR_SINK_RATES_M_S`], no climb expected).
     pub speed_to_fly: Vec<SpeedToFly>,
+    /// Speed to fly between thermals in still air for each expected climb
+    /// ([`CLIMB_RATES_M_S`], MacCready), with the mean cross-country speed.
+    pub speed_to_fly_between_thermals: Vec<SpeedToFly>,
     /// Which control trims the polar.
     pub control: TrimControl,
     /// Stall speed at the polar's mass, m/s (level-flight definition).
@@ -88,10 +95,15 @@ fn early_separation(
     nu: f64,
 ) -> Option<EarlySeparation> {
     let mut worst: Option<(f64, EarlySeparation)> = None;
-    for (strip, cl) in source.strips().iter().zip(&stall_point.trim.strip_cl) {
+    for (k, (strip, cl)) in source
+        .strips()
+        .iter()
+        .zip(&stall_point.trim.strip_cl)
+        .enumerate()
+    {
         let eta = strip.eta.max(1e-6);
         let re = stall_point.speed_m_s * eta.sqrt() * strip.chord_m / nu;
-        let cl_own = cl / eta;
+        let cl_own = source.lookup_cl(k, *cl);
         let id = if strip.airfoils.2 > 0.5 {
             strip.airfoils.1
         } else {
@@ -165,7 +177,7 @@ fn section_drags(
         let re_hi = 1.05 * top_m_s * sq * strip.chord_m / nu;
         let (i, o, w) = strip.airfoils;
         for t in &trims {
-            let cl = t.strip_cl[k] / strip.eta.max(1e-6);
+            let cl = probe.lookup_cl(k, t.strip_cl[k]);
             for (id, used) in [(i, true), (o, w > 0.0)] {
                 if !used || id >= n {
                     continue;
@@ -226,23 +238,38 @@ pub enum NoPolar {
 /// The flight polar of the configuration.
 pub fn glide_polar(input: &GlideInput<'_>) -> Result<GlidePolar, NoPolar> {
     let stall = input.full.stall.as_ref().ok_or(NoPolar::NoStall)?;
+    polar_on(input, input.system, &[], stall.cl_max, stall.speed_m_s)
+}
+
+/// The flight polar on `system` (the configuration's, or one with flaps set), with the
+/// strips' flap lift shifts `cl_shifts` (empty: none), from the trimmed stall at `cl_stall`
+/// and `stall_speed_m_s`.
+fn polar_on(
+    input: &GlideInput<'_>,
+    system: &MultiSurfaceSystem,
+    cl_shifts: &[f64],
+    cl_stall: f64,
+    stall_speed_m_s: f64,
+) -> Result<GlidePolar, NoPolar> {
     let shift = input.full.neutral_point_surfaces_x_m - input.full.neutral_point_x_m;
     let (x_ref, z_ref) = (input.cg_m.0 + shift, input.cg_m.1);
     let nu = input.air.kinematic_viscosity_m2_s();
     let density = input.air.density_kg_m3;
-    let area = input.system.reference().area_m2;
+    let area = system.reference().area_m2;
     let top = input.full.top_speed_m_s;
     let cl_top = 2.0 * input.mass_kg * crate::atmosphere::G0 / (density * area * top * top);
-    let probe = AircraftDrag::new(input.aircraft, input.system, &[], x_ref, z_ref, nu)
-        .ok_or(NoPolar::NoTrimControl)?;
-    let drags = section_drags(input, &probe, stall.speed_m_s, top, stall.cl_max, cl_top);
-    let source = AircraftDrag::new(input.aircraft, input.system, &drags, x_ref, z_ref, nu)
-        .ok_or(NoPolar::NoTrimControl)?;
+    let probe = AircraftDrag::new(input.aircraft, system, &[], x_ref, z_ref, nu)
+        .ok_or(NoPolar::NoTrimControl)?
+        .with_cl_shifts(cl_shifts);
+    let drags = section_drags(input, &probe, stall_speed_m_s, top, cl_stall, cl_top);
+    let source = AircraftDrag::new(input.aircraft, system, &drags, x_ref, z_ref, nu)
+        .ok_or(NoPolar::NoTrimControl)?
+        .with_cl_shifts(cl_shifts);
     let cond = PolarConditions {
         mass_kg: input.mass_kg,
         density_kg_m3: density,
         area_m2: area,
-        cl_stall: stall.cl_max,
+        cl_stall,
         top_speed_m_s: top,
         points: POLAR_POINTS,
     };
@@ -250,6 +277,10 @@ pub fn glide_polar(input: &GlideInput<'_>) -> Result<GlidePolar, NoPolar> {
     let speed_to_fly = AIR_SINK_RATES_M_S
         .iter()
         .filter_map(|s| polar.speed_to_fly(&source, *s, 0.0).ok())
+        .collect();
+    let speed_to_fly_between_thermals = CLIMB_RATES_M_S
+        .iter()
+        .filter_map(|m| polar.speed_to_fly(&source, 0.0, *m).ok())
         .collect();
     let profile_sources = input
         .aircraft
@@ -282,8 +313,9 @@ pub fn glide_polar(input: &GlideInput<'_>) -> Result<GlidePolar, NoPolar> {
         min_sink: polar.min_sink,
         best_glide: polar.best_glide,
         speed_to_fly,
+        speed_to_fly_between_thermals,
         control: source.control(),
-        stall_speed_m_s: stall.speed_m_s,
+        stall_speed_m_s,
         top_speed_m_s: top,
         profile_sources,
     })
@@ -403,4 +435,166 @@ pub fn glide_cautions(
             ),
         ));
     }
+}
+
+/// The flight polar of one named flap setting.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SettingPolar {
+    /// The setting's name.
+    pub name: String,
+    /// Its polar, or why there is none.
+    pub polar: Result<GlidePolar, NoPolar>,
+}
+
+/// Per station of `system`: (zero-lift angle change, cm_ac change, section cl shift) that
+/// `setting` makes, by Glauert's plain-flap theory with the hinge-gap factor
+/// ([`crate::section::flap_correction`]), weighted by the share of the strip each flap
+/// covers.
+pub fn setting_effects(
+    aircraft: &Aircraft,
+    system: &MultiSurfaceSystem,
+    setting: &crate::model::FlapSetting,
+) -> Vec<(f64, f64, f64)> {
+    let semispan = crate::planform::half_span_length_m(&aircraft.wing).max(1e-9);
+    system
+        .stations()
+        .iter()
+        .map(|st| {
+            if st.surface != 0 {
+                return (0.0, 0.0, 0.0);
+            }
+            let (lo, hi) = (
+                (st.s_m.abs() - 0.5 * st.width_m).max(0.0) / semispan,
+                (st.s_m.abs() + 0.5 * st.width_m) / semispan,
+            );
+            let mut out = (0.0, 0.0, 0.0);
+            for &(i, deflection_rad) in &setting.deflections {
+                let Some(f) = aircraft.wing_flaps.get(i) else {
+                    continue;
+                };
+                let Ok(effect) = crate::section::flap_effectiveness(f.chord_fraction) else {
+                    continue;
+                };
+                let overlap = (hi.min(f.outboard_fraction) - lo.max(f.inboard_fraction)).max(0.0);
+                let share = if hi > lo { overlap / (hi - lo) } else { 0.0 };
+                let d = crate::section::flap_correction::effective_deflection_rad(
+                    f.chord_fraction,
+                    deflection_rad,
+                ) * share;
+                out.0 -= effect.tau * d;
+                out.1 += effect.dcm_quarter_chord_ddelta_per_rad * d;
+                out.2 += st.section.cl_alpha_per_rad * effect.tau * d;
+            }
+            out
+        })
+        .collect()
+}
+
+/// The flight polar of every flap setting of the aircraft.
+pub fn setting_polars(input: &GlideInput<'_>) -> Vec<SettingPolar> {
+    let aircraft = input.aircraft;
+    let shift = input.full.neutral_point_surfaces_x_m - input.full.neutral_point_x_m;
+    let (x_ref, z_ref) = (input.cg_m.0 + shift, input.cg_m.1);
+    aircraft
+        .flap_settings
+        .iter()
+        .map(|setting| {
+            let effects = setting_effects(aircraft, input.system, setting);
+            let polar = (|| {
+                let flapped = input
+                    .system
+                    .with_section_change(|k, _| (effects[k].0, effects[k].1))
+                    .map_err(|_| NoPolar::NoStall)?;
+                let probe = AircraftDrag::new(aircraft, &flapped, &[], x_ref, z_ref, 1.0)
+                    .ok_or(NoPolar::NoTrimControl)?;
+                let stall = flapped
+                    .trimmed_stall(&flapped.condition(0.0), probe.control(), x_ref, z_ref)
+                    .map_err(|_| NoPolar::NoStall)?;
+                let area = flapped.reference().area_m2;
+                let speed = (2.0 * input.mass_kg * crate::atmosphere::G0
+                    / (input.air.density_kg_m3 * area * stall.cl))
+                    .sqrt();
+                let shifts: Vec<f64> = effects.iter().map(|e| e.2).collect();
+                polar_on(input, &flapped, &shifts, stall.cl, speed)
+            })();
+            SettingPolar {
+                name: setting.name.clone(),
+                polar,
+            }
+        })
+        .collect()
+}
+
+/// The cautions of the flap settings' polars.
+pub fn setting_cautions(
+    aircraft: &Aircraft,
+    settings: &[SettingPolar],
+    cautions: &mut Vec<Caution>,
+) {
+    if settings.is_empty() {
+        return;
+    }
+    cautions.push(Caution::new(
+        Level::Note,
+        "flap-settings-estimated",
+        "Flap settings: each deflection shifts the flapped strips' zero-lift angle and moment by \
+         Glauert's plain-flap theory with the hinge-gap loss; their section drag is the plain \
+         section's at the lift it would have without the flap, without the hinge's own drag; \
+         section cl_max stays as without the flap (a higher stall speed than the flap really \
+         gives: the safe side). Compare the settings with each other rather than trusting the \
+         absolute sink.",
+    ));
+    for s in settings {
+        match &s.polar {
+            Err(NoPolar::Failed(e)) => cautions.push(Caution::new(
+                Level::Warning,
+                "flap-setting-no-polar",
+                format!("Flap setting '{}': no glide polar ({e}).", s.name),
+            )),
+            Err(_) => cautions.push(Caution::new(
+                Level::Warning,
+                "flap-setting-no-polar",
+                format!(
+                    "Flap setting '{}': no trimmed stall or trim was found, so no glide polar.",
+                    s.name
+                ),
+            )),
+            Ok(p) => {
+                let out: Vec<f64> = p
+                    .points
+                    .iter()
+                    .filter(|q| !q.flyable)
+                    .map(|q| q.speed_m_s)
+                    .collect();
+                if let (Some(lo), Some(hi)) = (
+                    out.iter().copied().reduce(f64::min),
+                    out.iter().copied().reduce(f64::max),
+                ) {
+                    cautions.push(Caution::new(
+                        Level::Warning,
+                        "flap-setting-control-runs-out",
+                        format!(
+                            "Flap setting '{}': between {lo:.1} and {hi:.1} m/s the {} needs more \
+                             than its throws to trim; the setting is not usable there.",
+                            s.name,
+                            aircraft.pitch_control_name()
+                        ),
+                    ));
+                }
+            }
+        }
+    }
+}
+
+/// Sink at `speed_m_s` on the flyable part of `p` (linear between its points), `None`
+/// outside it.
+pub fn sink_at(p: &GlidePolar, speed_m_s: f64) -> Option<f64> {
+    p.points
+        .windows(2)
+        .filter(|w| w[0].flyable && w[1].flyable)
+        .find(|w| w[0].speed_m_s <= speed_m_s && speed_m_s <= w[1].speed_m_s)
+        .map(|w| {
+            let f = (speed_m_s - w[0].speed_m_s) / (w[1].speed_m_s - w[0].speed_m_s);
+            w[0].sink_m_s + f * (w[1].sink_m_s - w[0].sink_m_s)
+        })
 }

@@ -260,6 +260,8 @@ pub struct Analysis {
     /// The flight polar from the trimmed wing model and viscous section drag (when asked for
     /// and computed).
     pub glide_polar: Option<glide::GlidePolar>,
+    /// The flight polar of each named flap setting (empty without settings or polar).
+    pub flap_polars: Vec<glide::SettingPolar>,
     /// Everything the builder should read.
     pub cautions: Vec<Caution>,
 }
@@ -593,9 +595,9 @@ pub fn analyse_with(
             return Err(AnalysisError::NonFinite { quantity: name });
         }
     }
-    let glide_polar = match (options.flight_polar, system, full.as_ref()) {
+    let (glide_polar, flap_polars) = match (options.flight_polar, system, full.as_ref()) {
         (true, Ok(system), Some(f)) => {
-            let polar = glide::glide_polar(&glide::GlideInput {
+            let glide_input = glide::GlideInput {
                 aircraft,
                 system,
                 sections,
@@ -604,11 +606,14 @@ pub fn analyse_with(
                 cg_m: (input.cg_x_m, input.cg_z_m),
                 air: &air,
                 panels: options.panels,
-            });
+            };
+            let polar = glide::glide_polar(&glide_input);
             glide::glide_cautions(aircraft, &polar, &mut cautions);
-            polar.ok()
+            let settings = glide::setting_polars(&glide_input);
+            glide::setting_cautions(aircraft, &settings, &mut cautions);
+            (polar.ok(), settings)
         }
-        _ => None,
+        _ => (None, Vec::new()),
     };
     if let Some(p) = &glide_polar {
         for (name, v) in [
@@ -737,6 +742,7 @@ pub fn analyse_with(
         weighed,
         glide,
         glide_polar,
+        flap_polars,
         cautions,
     })
 }

@@ -19,6 +19,8 @@ use std::ops::Range;
 use std::path::{Path, PathBuf};
 use toml::Spanned;
 
+mod flaps;
+
 /// Smallest recommended static margin when the file gives none, fraction of MAC
 /// (common practice for models with a tail: 5 %).
 pub const DEFAULT_MIN_STATIC_MARGIN_TAIL: f64 = 0.05;
@@ -561,6 +563,20 @@ impl Ctx<'_> {
             )),
             (Some(e), None) => Some(self.elevons(e)?),
         };
+        if let Some(f) = raw
+            .stabiliser
+            .as_ref()
+            .and_then(|st| st.get_ref().flap.first())
+        {
+            return Err(self.err(
+                &f.span(),
+                "stabiliser.flap",
+                "camber flaps belong to the wing",
+                Some("[[wing.flap]]".into()),
+            ));
+        }
+        let wing_flaps = self.wing_flaps(&raw_wing.get_ref().flap, elevons.as_ref())?;
+        let flap_settings = self.flap_settings(&raw.flap_setting, &wing_flaps)?;
         let fuselage = raw
             .fuselage
             .as_ref()
@@ -695,6 +711,8 @@ impl Ctx<'_> {
             wing,
             stabiliser,
             elevons,
+            wing_flaps,
+            flap_settings,
             fuselage,
             fin,
             tolerances,

@@ -44,6 +44,8 @@ pub struct RawAircraft {
     #[serde(default)]
     pub setup: Vec<Spanned<RawSetup>>,
     #[serde(default)]
+    pub flap_setting: Vec<Spanned<RawFlapSetting>>,
+    #[serde(default)]
     pub weighing: Vec<Spanned<RawSupport>>,
     #[serde(default)]
     pub numerics: Option<RawNumerics>,
@@ -127,6 +129,27 @@ pub struct RawSurface {
     pub elevator_down: Option<Quantity>,
     pub dynamic_pressure_ratio: Option<Quantity>,
     pub elevons: Option<Spanned<RawElevons>>,
+    #[serde(default)]
+    pub flap: Vec<Spanned<RawFlap>>,
+}
+
+/// `[[wing.flap]]`: a trailing-edge surface used as a camber flap (both sides together).
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawFlap {
+    pub name: Option<Spanned<String>>,
+    pub chord: Option<Quantity>,
+    pub inboard: Option<Quantity>,
+    pub outboard: Option<Quantity>,
+}
+
+/// `[[flap_setting]]`: a named setting, a deflection per flap name.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RawFlapSetting {
+    pub name: Option<Spanned<String>>,
+    #[serde(default)]
+    pub deflect: BTreeMap<String, Quantity>,
 }
 
 /// `[wing.elevons]`: the elevons of a tailless wing, used together for pitch.

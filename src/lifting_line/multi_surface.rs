@@ -666,6 +666,30 @@ impl MultiSurfaceSystem {
         Ok(out)
     }
 
+    /// The same system with each station's section changed by `change(index, station)` = (change
+    /// of the zero-lift angle, rad; change of cm about the aerodynamic centre): a camber
+    /// flap's effect in Glauert's linear theory. The factored matrix is reused; only the
+    /// constant unit solution is solved again. `change` must be mirror symmetric.
+    pub fn with_section_change(
+        &self,
+        change: impl Fn(usize, &Station) -> (f64, f64),
+    ) -> Result<MultiSurfaceSystem, LiftingLineError> {
+        let mut out = self.clone();
+        for (i, st) in out.stations.iter_mut().enumerate() {
+            let (d_alpha0, d_cm) = change(i, st);
+            if !(d_alpha0.is_finite() && d_alpha0.abs() < 1.0 && d_cm.is_finite()) {
+                return Err(LiftingLineError::InvalidInput {
+                    parameter: "section change",
+                    value: d_alpha0,
+                    range: "finite, |zero-lift angle change| < 1 rad",
+                });
+            }
+            st.section.alpha_zero_lift_rad += d_alpha0;
+            st.section.cm_ac += d_cm;
+        }
+        out.with_angle_change(|_| 0.0)
+    }
+
     /// The stations, surface by surface, each from port tip to starboard tip.
     pub fn stations(&self) -> &[Station] {
         &self.stations

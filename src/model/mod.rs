@@ -180,6 +180,10 @@ pub struct Aircraft {
     pub stabiliser: Option<Stabiliser>,
     /// Elevons of a tailless wing (pitch use only); `None` with a stabiliser.
     pub elevons: Option<PitchControl>,
+    /// Trailing-edge surfaces of the wing used as camber flaps (both sides together).
+    pub wing_flaps: Vec<WingFlap>,
+    /// Named flap settings (thermal, cruise, speed...), each its own glide polar.
+    pub flap_settings: Vec<FlapSetting>,
     /// Fuselage, if described.
     pub fuselage: Option<Fuselage>,
     /// Fin (vertical tail), if described: drawing and lateral note only.
@@ -297,4 +301,27 @@ impl Aircraft {
     pub fn total_mass_kg(&self) -> f64 {
         self.masses.iter().map(|m| m.mass_kg).sum()
     }
+}
+
+/// A trailing-edge surface of the wing deflected symmetrically as a camber flap (flaps, or
+/// ailerons drooped as flaps).
+#[derive(Debug, Clone, PartialEq)]
+pub struct WingFlap {
+    /// Name used by the flap settings.
+    pub name: String,
+    /// Flap chord, fraction of the local chord.
+    pub chord_fraction: f64,
+    /// Inboard end, fraction of the semispan.
+    pub inboard_fraction: f64,
+    /// Outboard end, fraction of the semispan.
+    pub outboard_fraction: f64,
+}
+
+/// A named flap setting: a deflection for some of the wing's flaps.
+#[derive(Debug, Clone, PartialEq)]
+pub struct FlapSetting {
+    /// Name (e.g. thermal, cruise, speed).
+    pub name: String,
+    /// (index into `Aircraft::wing_flaps`, deflection rad, trailing edge down positive).
+    pub deflections: Vec<(usize, f64)>,
 }

@@ -43,6 +43,8 @@ pub struct CheckDocument {
     pub glide: GlideJson,
     /// The flight polar over the speed range, or null when it was not computed.
     pub flight_polar: Option<FlightPolarJson>,
+    /// The flight polar of each named flap setting.
+    pub flap_settings: Vec<FlapSettingJson>,
     /// Solves from the lifting-line model (decalage, CG, elevator schedule).
     pub solves: Option<SolvesJson>,
     /// Wing spanwise loading (lifting line), starboard half, root to tip.
@@ -483,10 +485,23 @@ pub struct FlightPolarJson {
     pub best_glide: PolarOptimumJson,
     /// Speed to fly through sinking air (no climb expected).
     pub speed_to_fly: Vec<SpeedToFlyJson>,
+    /// Speed to fly between thermals in still air for an expected climb (MacCready).
+    pub speed_to_fly_between_thermals: Vec<ThermalSpeedJson>,
     /// Where each airfoil's section drag comes from.
     pub profile_drag: Vec<ProfileDragJson>,
     /// The polar, in rising speed.
     pub points: Vec<PolarPointJson>,
+}
+
+/// `/flap_settings/N`
+#[derive(Debug, Serialize)]
+pub struct FlapSettingJson {
+    /// The setting's name.
+    pub name: String,
+    /// Its polar (the fields of `/flight_polar`), or null.
+    pub polar: Option<FlightPolarJson>,
+    /// Why there is no polar, or null.
+    pub no_polar: Option<String>,
 }
 
 /// `/flight_polar/min_sink`, `/flight_polar/best_glide`
@@ -544,6 +559,19 @@ pub struct SpeedToFlyJson {
     pub speed_m_s: f64,
     /// Glide ratio over the ground in that air.
     pub glide_ratio_in_air: f64,
+    /// True when it is the top of the range.
+    pub at_top_speed: bool,
+}
+
+/// `/flight_polar/speed_to_fly_between_thermals/N`
+#[derive(Debug, Serialize)]
+pub struct ThermalSpeedJson {
+    /// Expected climb in the next thermal, m/s (the MacCready setting).
+    pub climb_m_s: f64,
+    /// Airspeed to fly between thermals, m/s.
+    pub speed_m_s: f64,
+    /// Mean cross-country speed, m/s.
+    pub cross_country_speed_m_s: f64,
     /// True when it is the top of the range.
     pub at_top_speed: bool,
 }
@@ -606,6 +634,16 @@ fn flight_polar_json(aircraft: &Aircraft, p: &GlidePolar) -> FlightPolarJson {
                 air_sink_m_s: s.air_sink_m_s,
                 speed_m_s: r(s.speed_m_s, 3),
                 glide_ratio_in_air: r(s.glide_ratio_in_air, 2),
+                at_top_speed: s.at_top_speed,
+            })
+            .collect(),
+        speed_to_fly_between_thermals: p
+            .speed_to_fly_between_thermals
+            .iter()
+            .map(|s| ThermalSpeedJson {
+                climb_m_s: s.climb_m_s,
+                speed_m_s: r(s.speed_m_s, 3),
+                cross_country_speed_m_s: r(s.cross_country_speed_m_s, 3),
                 at_top_speed: s.at_top_speed,
             })
             .collect(),
@@ -961,6 +999,25 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             .glide_polar
             .as_ref()
             .map(|p| flight_polar_json(aircraft, p)),
+        flap_settings: a
+            .flap_polars
+            .iter()
+            .map(|s| FlapSettingJson {
+                name: s.name.clone(),
+                polar: s
+                    .polar
+                    .as_ref()
+                    .ok()
+                    .map(|p| flight_polar_json(aircraft, p)),
+                no_polar: s.polar.as_ref().err().map(|e| match e {
+                    crate::analysis::glide::NoPolar::Failed(e) => e.to_string(),
+                    crate::analysis::glide::NoPolar::NoStall => "no trimmed stall".to_string(),
+                    crate::analysis::glide::NoPolar::NoTrimControl => {
+                        "no pitch control".to_string()
+                    }
+                }),
+            })
+            .collect(),
         cautions: a.cautions.iter().map(CautionJson::from).collect(),
     }
 }

@@ -177,11 +177,10 @@ pub struct GlideChart {
     pub method: String,
 }
 
-/// The glide case of an analysed configuration, labelled `label`.
-pub fn glide_case(a: &Analysis, label: &str) -> Option<GlideCase> {
-    let p = a.glide_polar.as_ref()?;
-    Some(GlideCase {
-        label: label.to_string(),
+/// The glide case of a polar, labelled `label`.
+fn case_of(p: &crate::analysis::glide::GlidePolar, label: String) -> GlideCase {
+    GlideCase {
+        label,
         points: p
             .points
             .iter()
@@ -195,23 +194,44 @@ pub fn glide_case(a: &Analysis, label: &str) -> Option<GlideCase> {
             p.best_glide.point.glide_ratio,
         ),
         stall_speed_m_s: p.stall_speed_m_s,
-    })
+    }
 }
 
-/// The sink chart of `a`, with `ballast` cases (label, analysis) overlaid.
+/// The glide case of an analysed configuration, labelled `label`.
+pub fn glide_case(a: &Analysis, label: &str) -> Option<GlideCase> {
+    a.glide_polar
+        .as_ref()
+        .map(|p| case_of(p, label.to_string()))
+}
+
+/// Most curves on the sink chart (the configuration, its flap settings, ballast cases).
+pub const MAX_GLIDE_CASES: usize = 4;
+
+/// The sink chart of `a`: its polar, then its flap settings' polars, then the `ballast`
+/// cases (label, analysis), at most [`MAX_GLIDE_CASES`] curves in all.
 pub fn glide_chart(a: &Analysis, ballast: &[(String, Analysis)]) -> Option<GlideChart> {
-    let mut cases = vec![glide_case(
-        a,
-        &format!("{} g", fmt(1000.0 * a.mass.total_kg, 0)),
-    )?];
+    let mass = |x: &Analysis| fmt(1000.0 * x.mass.total_kg, 0);
+    let flapped = !a.flap_polars.is_empty();
+    let first_label = if flapped {
+        format!("{} g, flaps neutral", mass(a))
+    } else {
+        format!("{} g", mass(a))
+    };
+    let mut cases = vec![glide_case(a, &first_label)?];
+    for s in &a.flap_polars {
+        if let Ok(p) = &s.polar {
+            cases.push(case_of(
+                p,
+                format!("flaps {}", crate::printable::printable(&s.name)),
+            ));
+        }
+    }
     for (name, b) in ballast {
-        if let Some(c) = glide_case(
-            b,
-            &format!("{name}: {} g", fmt(1000.0 * b.mass.total_kg, 0)),
-        ) {
+        if let Some(c) = glide_case(b, &format!("{name}: {} g", mass(b))) {
             cases.push(c);
         }
     }
+    cases.truncate(MAX_GLIDE_CASES);
     Some(GlideChart {
         cases,
         method: "Trimmed at each speed; section drag from viscous polars at each strip's \

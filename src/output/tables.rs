@@ -91,6 +91,14 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str, u: UnitSyst
         out.push_str(&glide_polar_table(aircraft, p).to_string());
         out.push_str("\n\nSpeed to fly through sinking air\n");
         out.push_str(&speed_to_fly_table(p).to_string());
+        out.push_str("\n\nSpeed to fly between thermals (still air, MacCready setting)\n");
+        out.push_str(&thermal_speed_table(p).to_string());
+        if !a.flap_polars.is_empty() {
+            out.push_str("\n\nFlap settings (each trimmed over its speed range)\n");
+            out.push_str(&flap_settings_table(aircraft, p, &a.flap_polars).to_string());
+            out.push_str("\n\nLeast sink at each speed, by flap setting\n");
+            out.push_str(&best_setting_table(p, &a.flap_polars).to_string());
+        }
     }
     if let Some(t) = solves_table(aircraft, a) {
         if aircraft.stabiliser.is_some() {
@@ -762,6 +770,129 @@ fn glide_polar_table(aircraft: &Aircraft, p: &crate::analysis::glide::GlidePolar
         t.add_row(row);
     }
     right_align(&mut t, 0..columns.len() - 1);
+    t
+}
+
+/// One row per flap setting (the plain wing first): least sink, best glide, control.
+fn flap_settings_table(
+    aircraft: &Aircraft,
+    base: &crate::analysis::glide::GlidePolar,
+    settings: &[crate::analysis::glide::SettingPolar],
+) -> Table {
+    let control = format!(
+        "{} at best glide (deg, down +)",
+        aircraft.pitch_control_name()
+    );
+    let mut t = table(&[
+        "setting",
+        "stall (m/s)",
+        "least sink (m/s)",
+        "at (m/s)",
+        "best glide",
+        "at (m/s)",
+        &control,
+    ]);
+    let row = |t: &mut Table, name: &str, p: &crate::analysis::glide::GlidePolar| {
+        t.add_row(vec![
+            name.to_string(),
+            num(p.stall_speed_m_s, 1),
+            num(p.min_sink.point.sink_m_s, 3),
+            num(p.min_sink.point.speed_m_s, 1),
+            num(p.best_glide.point.glide_ratio, 1),
+            num(p.best_glide.point.speed_m_s, 1),
+            num(p.best_glide.point.trim.control_rad.to_degrees(), 1),
+        ]);
+    };
+    row(&mut t, "flaps neutral", base);
+    for s in settings {
+        match &s.polar {
+            Ok(p) => row(&mut t, &crate::printable::printable(&s.name), p),
+            Err(_) => {
+                t.add_row(vec![
+                    crate::printable::printable(&s.name).into_owned(),
+                    "no polar (see the cautions)".to_string(),
+                ]);
+            }
+        }
+    }
+    right_align(&mut t, 1..7);
+    t
+}
+
+/// Rows of the best-setting table.
+const BEST_SETTING_ROWS: usize = 10;
+
+/// At speeds across the range, the setting (or neutral flaps) with the least sink there.
+fn best_setting_table(
+    base: &crate::analysis::glide::GlidePolar,
+    settings: &[crate::analysis::glide::SettingPolar],
+) -> Table {
+    use crate::analysis::glide::sink_at;
+    let mut t = table(&[
+        "speed (m/s)",
+        "least sink with",
+        "sink (m/s)",
+        "neutral flaps (m/s)",
+    ]);
+    let polars: Vec<(&str, &crate::analysis::glide::GlidePolar)> =
+        std::iter::once(("flaps neutral", base))
+            .chain(
+                settings
+                    .iter()
+                    .filter_map(|s| s.polar.as_ref().ok().map(|p| (s.name.as_str(), p))),
+            )
+            .collect();
+    let lo = polars
+        .iter()
+        .map(|p| p.1.stall_speed_m_s)
+        .fold(f64::INFINITY, f64::min);
+    let hi = base.top_speed_m_s;
+    for k in 0..BEST_SETTING_ROWS {
+        let v = lo + (hi - lo) * (k as f64 + 0.5) / BEST_SETTING_ROWS as f64;
+        let best = polars
+            .iter()
+            .filter_map(|(n, p)| sink_at(p, v).map(|s| (*n, s)))
+            .min_by(|a, b| a.1.total_cmp(&b.1));
+        let neutral = sink_at(base, v).map_or("-".to_string(), |s| num(s, 3));
+        match best {
+            Some((name, sink)) => t.add_row(vec![
+                num(v, 1),
+                crate::printable::printable(name).into_owned(),
+                num(sink, 3),
+                neutral,
+            ]),
+            None => t.add_row(vec![
+                num(v, 1),
+                "none trims here".into(),
+                "-".into(),
+                neutral,
+            ]),
+        };
+    }
+    right_align(&mut t, 0..1);
+    right_align(&mut t, 2..4);
+    t
+}
+
+/// The speed to fly between thermals for a few expected climbs.
+fn thermal_speed_table(p: &crate::analysis::glide::GlidePolar) -> Table {
+    let mut t = table(&[
+        "next climb expected (m/s)",
+        "fly at (m/s)",
+        "mean cross-country speed (km/h)",
+    ]);
+    for s in &p.speed_to_fly_between_thermals {
+        t.add_row(vec![
+            num(s.climb_m_s, 1),
+            format!(
+                "{}{}",
+                num(s.speed_m_s, 1),
+                if s.at_top_speed { " (top speed)" } else { "" }
+            ),
+            num(3.6 * s.cross_country_speed_m_s, 1),
+        ]);
+    }
+    right_align(&mut t, 0..3);
     t
 }
 

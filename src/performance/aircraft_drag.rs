@@ -89,6 +89,9 @@ pub struct AircraftDrag<'a> {
     sections: &'a [SectionDrag],
     body: Option<BodyDragInput>,
     nu_m2_s: f64,
+    /// Per strip, the lift coefficient a camber flap adds to the section at a given angle;
+    /// the plain section's drag is looked up at the strip's cl less this (empty: none).
+    cl_shift: Vec<f64>,
 }
 
 /// The strips of `system` with their airfoils and areas (the surfaces of `aircraft`: wing,
@@ -166,7 +169,24 @@ impl<'a> AircraftDrag<'a> {
                 width_m: f.max_width_m,
             }),
             nu_m2_s,
+            cl_shift: Vec::new(),
         })
+    }
+
+    /// The same source with camber-flap lift shifts per strip (parallel to the strips): a
+    /// flapped section's drag is taken as the plain section's at the cl it would have at the
+    /// same angle without the flap (the drag polar moves along cl with the camber; the hinge's
+    /// own drag is not included: a judgement, said in the flap-setting note).
+    pub fn with_cl_shifts(mut self, shifts: &[f64]) -> Self {
+        self.cl_shift = shifts.to_vec();
+        self
+    }
+
+    /// The lift coefficient strip `k` is looked up at, its own (on its own dynamic pressure,
+    /// less any flap shift), from its free-stream-referred `cl`.
+    pub fn lookup_cl(&self, k: usize, cl: f64) -> f64 {
+        let eta = self.strips.get(k).map_or(1.0, |s| s.eta.max(1e-6));
+        cl / eta - self.cl_shift.get(k).copied().unwrap_or(0.0)
     }
 
     /// The strips.
@@ -230,10 +250,10 @@ impl DragSource for AircraftDrag<'_> {
         let s_ref = self.system.reference().area_m2;
         let mut profile = 0.0;
         let mut beyond = false;
-        for (strip, cl) in self.strips.iter().zip(&trim.strip_cl) {
+        for (k, (strip, cl)) in self.strips.iter().zip(&trim.strip_cl).enumerate() {
             let eta = strip.eta.max(1e-6);
             let re = speed_m_s * eta.sqrt() * strip.chord_m / self.nu_m2_s;
-            let cl_own = cl / eta;
+            let cl_own = self.lookup_cl(k, *cl);
             let (i, o, w) = strip.airfoils;
             let a = self.sections[i].cd(cl_own, re);
             let cd = if w > 0.0 && o != i {

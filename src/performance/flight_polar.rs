@@ -162,6 +162,9 @@ pub struct SpeedToFly {
     pub glide_ratio_in_air: f64,
     /// True when the best speed is the top of the range.
     pub at_top_speed: bool,
+    /// Mean cross-country speed when each glide is followed by a climb at `climb_m_s`,
+    /// `V_h m / (m + w + s)`, m/s (0 when no climb is expected).
+    pub cross_country_speed_m_s: f64,
 }
 
 /// The computed polar.
@@ -382,6 +385,11 @@ impl<T: Clone> FlightPolar<T> {
             speed_m_s: p.speed_m_s,
             glide_ratio_in_air: p.horizontal_speed_m_s() / (p.sink_m_s + air_sink_m_s),
             at_top_speed: o.at_top_speed,
+            cross_country_speed_m_s: if climb_m_s > 0.0 {
+                p.horizontal_speed_m_s() * climb_m_s / (climb_m_s + p.sink_m_s + air_sink_m_s)
+            } else {
+                0.0
+            },
         })
     }
 }

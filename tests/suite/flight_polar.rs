@@ -144,6 +144,26 @@ fn speed_to_fly_matches_the_tangent_closed_form() {
             );
         }
     }
+    // Between thermals in still air with a climb m expected (the MacCready setting) the same
+    // tangent is drawn from (0, -m): the same quartic with s replaced by m, and the mean
+    // cross-country speed is V_h m / (m + w) (MacCready 1958; from memory).
+    for m in [0.5, 1.0, 2.0] {
+        let mut v: f64 = 30.0;
+        for _ in 0..100 {
+            v -= (2.0 * a * v.powi(4) - m * v - 2.0 * b) / (8.0 * a * v.powi(3) - m);
+        }
+        let stf = p.speed_to_fly(&src, 0.0, m).unwrap();
+        assert_relative_eq!(stf.speed_m_s, v, max_relative = 0.01);
+        let w_at = {
+            let cl = 2.0 * c.mass_kg * G0 / (c.density_kg_m3 * c.area_m2 * stf.speed_m_s.powi(2));
+            stf.speed_m_s * (src.cd0 + src.k * cl * cl) / cl
+        };
+        assert_relative_eq!(
+            stf.cross_country_speed_m_s,
+            stf.speed_m_s * m / (m + w_at),
+            max_relative = 0.01
+        );
+    }
     // Faster in stronger sink.
     let v: Vec<f64> = [0.0, 1.0, 2.0]
         .iter()

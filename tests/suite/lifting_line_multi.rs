@@ -355,6 +355,8 @@ fn aircraft_builder_uses_wing_and_stabiliser() {
             dynamic_pressure_ratio: 1.0,
         }),
         elevons: None,
+        wing_flaps: Vec::new(),
+        flap_settings: Vec::new(),
         fuselage: None,
         fin: None,
         tolerances: Default::default(),

@@ -13,6 +13,7 @@ mod common;
 mod file_output;
 mod fin;
 mod flap_correction;
+mod flap_settings;
 mod flight_polar;
 mod fuselage;
 mod fuzz_properties;
