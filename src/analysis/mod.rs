@@ -287,9 +287,13 @@ pub struct GlideFigures {
 }
 
 impl Analysis {
-    /// The headline glide figures.
-    pub fn glide_figures(&self) -> GlideFigures {
-        match &self.glide_polar {
+    /// The headline glide figures; `None` when the aircraft is unstable at its CG (it cannot
+    /// hold a trimmed glide, so no glide figure means anything).
+    pub fn glide_figures(&self) -> Option<GlideFigures> {
+        if self.headline.static_margin <= 0.0 {
+            return None;
+        }
+        Some(match &self.glide_polar {
             Some(p) => GlideFigures {
                 from_flight_polar: true,
                 best_glide_ratio: p.best_glide.point.glide_ratio,
@@ -311,7 +315,7 @@ impl Analysis {
                     best_glide_at_stall: g.best_glide.limited_by_cl_max,
                 }
             }
-        }
+        })
     }
 }
 
@@ -595,8 +599,17 @@ pub fn analyse_with(
             return Err(AnalysisError::NonFinite { quantity: name });
         }
     }
+    let unstable = full.as_ref().is_some_and(|f| f.static_margin <= 0.0);
+    if options.flight_polar && unstable {
+        cautions.push(Caution::new(
+            Level::Note,
+            "no-flight-polar",
+            "At this CG the aircraft is unstable in pitch (negative static margin): it cannot \
+             hold a trimmed glide, so no glide figures are given.",
+        ));
+    }
     let (glide_polar, flap_polars) = match (options.flight_polar, system, full.as_ref()) {
-        (true, Ok(system), Some(f)) => {
+        (true, Ok(system), Some(f)) if !unstable => {
             let glide_input = glide::GlideInput {
                 aircraft,
                 system,

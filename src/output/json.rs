@@ -431,18 +431,19 @@ pub struct SpanwiseJson {
 /// from the parabolic estimate.
 #[derive(Debug, Serialize)]
 pub struct GlideJson {
-    /// `flight-polar` or `parabolic-estimate`.
+    /// `flight-polar`, `parabolic-estimate`, or `none-unstable` (negative static margin: no
+    /// glide figures).
     pub source: &'static str,
-    /// Best glide ratio (horizontal distance over height lost).
-    pub best_glide_ratio: f64,
+    /// Best glide ratio (horizontal distance over height lost), or null.
+    pub best_glide_ratio: Option<f64>,
     /// m/s
-    pub best_glide_speed_m_s: f64,
+    pub best_glide_speed_m_s: Option<f64>,
     /// Minimum sink rate, m/s.
-    pub min_sink_m_s: f64,
+    pub min_sink_m_s: Option<f64>,
     /// m/s
-    pub min_sink_speed_m_s: f64,
+    pub min_sink_speed_m_s: Option<f64>,
     /// True when minimum sink lies on the stall end of the range (not a true optimum).
-    pub min_sink_at_stall: bool,
+    pub min_sink_at_stall: Option<bool>,
     /// Span efficiency C_L^2 / (pi A C_Di) at best glide (from the wake in the flight polar;
     /// the Oswald estimate in the parabolic one).
     pub span_efficiency: Option<f64>,
@@ -671,27 +672,24 @@ fn glide_json(a: &Analysis) -> GlideJson {
         min_sink_speed_m_s: r(g.performance.min_sink.speed_m_s, 3),
         min_sink_at_cl_max: g.performance.min_sink.limited_by_cl_max,
     };
-    match &a.glide_polar {
-        Some(p) => GlideJson {
-            source: "flight-polar",
-            best_glide_ratio: r(p.best_glide.point.glide_ratio, 3),
-            best_glide_speed_m_s: r(p.best_glide.point.speed_m_s, 3),
-            min_sink_m_s: r(p.min_sink.point.sink_m_s, 4),
-            min_sink_speed_m_s: r(p.min_sink.point.speed_m_s, 3),
-            min_sink_at_stall: p.min_sink.at_stall,
-            span_efficiency: p.best_glide.point.trim.span_efficiency.map(|e| r(e, 4)),
-            parabolic_cross_check: cross,
+    let figures = a.glide_figures();
+    GlideJson {
+        source: match (&figures, &a.glide_polar) {
+            (None, _) => "none-unstable",
+            (Some(_), Some(_)) => "flight-polar",
+            (Some(_), None) => "parabolic-estimate",
         },
-        None => GlideJson {
-            source: "parabolic-estimate",
-            best_glide_ratio: cross.best_glide_ratio,
-            best_glide_speed_m_s: cross.best_glide_speed_m_s,
-            min_sink_m_s: cross.min_sink_m_s,
-            min_sink_speed_m_s: cross.min_sink_speed_m_s,
-            min_sink_at_stall: cross.min_sink_at_cl_max,
-            span_efficiency: Some(cross.oswald_span_efficiency),
-            parabolic_cross_check: cross,
+        best_glide_ratio: figures.map(|g| r(g.best_glide_ratio, 3)),
+        best_glide_speed_m_s: figures.map(|g| r(g.best_glide_speed_m_s, 3)),
+        min_sink_m_s: figures.map(|g| r(g.min_sink_m_s, 4)),
+        min_sink_speed_m_s: figures.map(|g| r(g.min_sink_speed_m_s, 3)),
+        min_sink_at_stall: figures.map(|g| g.min_sink_at_stall),
+        span_efficiency: match (&figures, &a.glide_polar) {
+            (None, _) => None,
+            (Some(_), Some(p)) => p.best_glide.point.trim.span_efficiency.map(|e| r(e, 4)),
+            (Some(_), None) => Some(cross.oswald_span_efficiency),
         },
+        parabolic_cross_check: cross,
     }
 }
 

@@ -496,31 +496,35 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             ),
         ));
     }
-    let g = a.glide_figures();
-    let at_stall = |limited: bool| if limited { ", at the stall" } else { "" };
-    let est = if g.from_flight_polar {
-        ""
-    } else {
-        " (parabolic)"
-    };
-    out.push(kf(
-        &format!("Best glide{est}"),
-        format!(
-            "{} at {} m/s{}",
-            fmt(g.best_glide_ratio, 1),
-            fmt(g.best_glide_speed_m_s, 1),
-            at_stall(g.best_glide_at_stall)
-        ),
-    ));
-    out.push(kf(
-        &format!("Minimum sink{est}"),
-        format!(
-            "{} m/s at {} m/s{}",
-            fmt(g.min_sink_m_s, 2),
-            fmt(g.min_sink_speed_m_s, 1),
-            at_stall(g.min_sink_at_stall)
-        ),
-    ));
+    match a.glide_figures() {
+        None => out.push(kf("Glide", "none: unstable at this CG".to_string())),
+        Some(g) => {
+            let at_stall = |limited: bool| if limited { ", at the stall" } else { "" };
+            let est = if g.from_flight_polar {
+                ""
+            } else {
+                " (parabolic)"
+            };
+            out.push(kf(
+                &format!("Best glide{est}"),
+                format!(
+                    "{} at {} m/s{}",
+                    fmt(g.best_glide_ratio, 1),
+                    fmt(g.best_glide_speed_m_s, 1),
+                    at_stall(g.best_glide_at_stall)
+                ),
+            ));
+            out.push(kf(
+                &format!("Minimum sink{est}"),
+                format!(
+                    "{} m/s at {} m/s{}",
+                    fmt(g.min_sink_m_s, 2),
+                    fmt(g.min_sink_speed_m_s, 1),
+                    at_stall(g.min_sink_at_stall)
+                ),
+            ));
+        }
+    }
     out.push(kf(
         "Reynolds number (MAC)",
         crate::caution::reynolds_text(a.reynolds_mac),

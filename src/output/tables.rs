@@ -607,33 +607,43 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
             String::new(),
         ]);
     }
-    let g = a.glide_figures();
-    let flag = |limited: bool| if limited { " (at the stall)" } else { "" };
-    let from = if g.from_flight_polar {
-        ""
-    } else {
-        " (parabolic estimate)"
-    };
-    t.add_row(vec![
-        format!("best glide ratio{from}"),
-        format!(
-            "{} at {} m/s{}",
-            num(g.best_glide_ratio, 1),
-            num(g.best_glide_speed_m_s, 1),
-            flag(g.best_glide_at_stall)
-        ),
-        String::new(),
-    ]);
-    t.add_row(vec![
-        format!("minimum sink{from}"),
-        format!(
-            "{} at {} m/s{}",
-            num(g.min_sink_m_s, 2),
-            num(g.min_sink_speed_m_s, 1),
-            flag(g.min_sink_at_stall)
-        ),
-        "m/s".into(),
-    ]);
+    match a.glide_figures() {
+        None => {
+            t.add_row(vec![
+                "best glide ratio, minimum sink".into(),
+                "none: unstable at this CG".into(),
+                String::new(),
+            ]);
+        }
+        Some(g) => {
+            let flag = |limited: bool| if limited { " (at the stall)" } else { "" };
+            let from = if g.from_flight_polar {
+                ""
+            } else {
+                " (parabolic estimate)"
+            };
+            t.add_row(vec![
+                format!("best glide ratio{from}"),
+                format!(
+                    "{} at {} m/s{}",
+                    num(g.best_glide_ratio, 1),
+                    num(g.best_glide_speed_m_s, 1),
+                    flag(g.best_glide_at_stall)
+                ),
+                String::new(),
+            ]);
+            t.add_row(vec![
+                format!("minimum sink{from}"),
+                format!(
+                    "{} at {} m/s{}",
+                    num(g.min_sink_m_s, 2),
+                    num(g.min_sink_speed_m_s, 1),
+                    flag(g.min_sink_at_stall)
+                ),
+                "m/s".into(),
+            ]);
+        }
+    }
     t.add_row(vec![
         "Reynolds number on MAC".into(),
         crate::caution::reynolds_text(a.reynolds_mac),

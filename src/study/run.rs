@@ -250,7 +250,7 @@ impl<'a> Study<'a> {
         let h = &a.headline;
         let standing = crate::caution::safety_caution().code;
         PointFigures {
-            glide: a.glide_polar.as_ref().map(|_| a.glide_figures()),
+            glide: a.glide_polar.as_ref().and_then(|_| a.glide_figures()),
             mass_kg: a.mass.total_kg,
             cg_x_m: a.mass.cg_x_m,
             neutral_point_x_m: h.neutral_point_x_m,

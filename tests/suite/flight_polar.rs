@@ -205,7 +205,7 @@ fn demo_minimum_sink_lies_above_the_stall() {
     assert!(first.sink_m_s > p.min_sink.point.sink_m_s);
     assert!(last.sink_m_s > 3.0 * p.min_sink.point.sink_m_s);
     // The headline figures read the flight polar, not the parabolic cross-check.
-    let g = a.glide_figures();
+    let g = a.glide_figures().unwrap();
     assert!(g.from_flight_polar);
     assert_relative_eq!(g.min_sink_m_s, p.min_sink.point.sink_m_s);
 }
@@ -308,4 +308,21 @@ fn json_carries_the_flight_polar() {
     assert_eq!(v["flight_polar"]["trimmed_by"], "elevator");
     assert!(v["flight_polar"]["speed_to_fly"].as_array().unwrap().len() == 4);
     assert!(v["glide"]["parabolic_cross_check"]["cd0"].as_f64().unwrap() > 0.0);
+}
+
+// An aircraft unstable at its CG cannot hold a trimmed glide: no glide figures at all (an
+// error or a caution rather than a number on the unsafe side), and a note says why.
+#[test]
+fn an_unstable_aircraft_gets_no_glide_figures() {
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml")
+        .unwrap()
+        .replace("x = -340", "x = 300");
+    let ac = trimline::input::parse_aircraft(&text, "unstable.toml", None).unwrap();
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    assert!(a.headline.static_margin < 0.0);
+    assert!(a.glide_polar.is_none() && a.glide_figures().is_none());
+    assert!(a.cautions.iter().any(|c| c.code == "no-flight-polar"));
+    let v = serde_json::to_value(trimline::output::json::check_document(&ac, &a, "u")).unwrap();
+    assert_eq!(v["glide"]["source"], "none-unstable");
+    assert!(v["glide"]["min_sink_m_s"].is_null());
 }

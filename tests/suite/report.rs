@@ -80,7 +80,7 @@ fn demo_report_is_one_page_with_the_analysis_figures() {
         format!("{:.0} g", a.mass.total_kg * 1000.0),
         format!("{:.1} % MAC", 100.0 * a.headline.static_margin),
         format!("{:.1} m/s", a.headline.stall_speed_m_s),
-        format!("{:.1} at", a.glide_figures().best_glide_ratio),
+        format!("{:.1} at", a.glide_figures().unwrap().best_glide_ratio),
         "0123456789abcdef".to_string(),
         "2026-01-02".to_string(),
         format!("trimline {}", env!("CARGO_PKG_VERSION")),

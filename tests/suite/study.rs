@@ -483,7 +483,7 @@ fn the_control_at_the_neutral_trim_speed_is_zero() {
 fn glide_columns_equal_check_at_the_same_point() {
     let base = demo();
     let x0 = analyse(&base, &AnalysisOptions::default()).unwrap();
-    let g = x0.glide_figures();
+    let g = x0.glide_figures().unwrap();
     assert!(g.from_flight_polar);
     let cg_mm = format!("cg={:.6}", 1000.0 * x0.mass.cg_x_m);
     let out = trimline(&["sweep", "--vary", &cg_mm, "--glide", "--json"]);
