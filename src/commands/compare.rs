@@ -62,12 +62,21 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
                     .map(|s| (s.apply(&aircraft), s.name.clone())),
             );
         }
-        for (v, column) in variants {
-            let a = analyse(&v, &AnalysisOptions::default())
-                .with_context(|| format!("analysing {} ({source})", v.name))?;
-            let mut k = KeyFigures::of(&v, &a);
-            k.name = column;
-            out.push((k, source.clone()));
+        // The configurations are independent: analysed in parallel over the cores, kept in
+        // their order (the polar cache is shared, so a polar is computed once).
+        use rayon::prelude::*;
+        let figures: Vec<anyhow::Result<KeyFigures>> = variants
+            .par_iter()
+            .map(|(v, column)| {
+                let a = analyse(v, &AnalysisOptions::default())
+                    .with_context(|| format!("analysing {} ({source})", v.name))?;
+                let mut k = KeyFigures::of(v, &a);
+                k.name = column.clone();
+                Ok(k)
+            })
+            .collect();
+        for k in figures {
+            out.push((k?, source.clone()));
         }
     }
     let mut figures: Vec<KeyFigures> = out.iter().map(|c| c.0.clone()).collect();

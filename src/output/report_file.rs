@@ -38,11 +38,10 @@ fn analysed_report(
     source: ReportSource,
     paper: Paper,
 ) -> Result<(Vec<u8>, Analysis), AnalysisError> {
-    let analysis = analyse(aircraft, &AnalysisOptions::default())?;
-    let mut data = report::build(aircraft, &analysis, source);
     // The file's ballast cases overlaid on the sink chart (a case that fails to analyse is
-    // left out; `compare` reports it).
-    let ballast: Vec<(String, Analysis)> = aircraft
+    // left out; `compare` reports it), analysed beside the configuration itself.
+    use rayon::prelude::*;
+    let cases: Vec<&crate::model::Setup> = aircraft
         .setups
         .iter()
         .filter(|s| {
@@ -51,12 +50,22 @@ fn analysed_report(
                 .any(|c| matches!(c, crate::model::Change::Ballast { .. }))
         })
         .take(MAX_BALLAST_CASES)
-        .filter_map(|s| {
-            analyse(&s.apply(aircraft), &AnalysisOptions::default())
-                .ok()
-                .map(|a| (s.name.clone(), a))
-        })
         .collect();
+    let (analysis, ballast) = rayon::join(
+        || analyse(aircraft, &AnalysisOptions::default()),
+        || -> Vec<(String, Analysis)> {
+            cases
+                .par_iter()
+                .filter_map(|s| {
+                    analyse(&s.apply(aircraft), &AnalysisOptions::default())
+                        .ok()
+                        .map(|a| (s.name.clone(), a))
+                })
+                .collect()
+        },
+    );
+    let analysis = analysis?;
+    let mut data = report::build(aircraft, &analysis, source);
     data.glide = report::glide_chart(&analysis, &ballast);
     Ok((pdf::trim_report(&data, paper), analysis))
 }
