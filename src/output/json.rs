@@ -745,17 +745,6 @@ fn surface_json(s: &crate::stability::classical::EquivalentSurface) -> SurfaceJs
 
 /// Build the JSON document for an analysed aircraft.
 pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckDocument {
-    let g = &a.wing_geometry;
-    let est = &a.classical;
-    let h = &a.headline;
-    let full_trim = a.full.as_ref().and_then(|f| f.trim.as_ref());
-    let band_pos = if a.mass.cg_x_m < a.band.forward_x_m - 5e-4 {
-        "forward"
-    } else if a.mass.cg_x_m > a.band.aft_x_m + 5e-4 {
-        "aft"
-    } else {
-        "inside"
-    };
     CheckDocument {
         trimline_version: env!("CARGO_PKG_VERSION"),
         aircraft: AircraftJson {
@@ -770,254 +759,310 @@ pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckD
             pressure_pa: r(a.air.pressure_pa, 1),
             viscosity_pa_s: a.air.viscosity_pa_s,
         },
-        mass: MassJson {
-            total_kg: r(a.mass.total_kg, 5),
-            wing_loading_kg_m2: r(a.wing_loading_kg_m2, 4),
-            items: aircraft
-                .masses
-                .iter()
-                .map(|m| MassItemJson {
-                    name: m.name.clone(),
-                    mass_kg: r(m.mass_kg, 5),
-                    x_m: r(m.x_m, 5),
-                    z_m: m.z_m.map(|z| r(z, 5)),
-                })
-                .collect(),
-        },
-        balance: BalanceJson {
-            cg_x_m: r(a.mass.cg_x_m, 5),
-            cg_z_m: a.mass.cg_z_m.map(|z| r(z, 5)),
-            cg_percent_mac: r(g.percent_mac(a.mass.cg_x_m), 2),
-            cg_sigma_m: r(finite_or_zero(a.cg_spread.sigma_m), 5),
-            cg_aft_end_x_m: r(a.mass.cg_x_m + 2.0 * finite_or_zero(a.cg_spread.sigma_m), 5),
-            band: BandJson {
-                forward_x_m: r(a.band.forward_x_m, 5),
-                aft_x_m: r(a.band.aft_x_m, 5),
-                forward_percent_mac: r(g.percent_mac(a.band.forward_x_m), 2),
-                aft_percent_mac: r(g.percent_mac(a.band.aft_x_m), 2),
-                min_static_margin_percent: r(100.0 * aircraft.margin_limits.min_static_margin, 2),
-                max_static_margin_percent: r(100.0 * aircraft.margin_limits.max_static_margin, 2),
-                from_defaults: aircraft.margin_limits.from_defaults,
-                forward_limit: match a.band.forward_limit {
-                    ForwardLimit::StaticMargin => "static-margin",
-                    ForwardLimit::ElevatorAuthority => "elevator-authority",
-                    ForwardLimit::TailStall => "tail-stall",
-                },
-                cg_position: band_pos,
-            },
-            ballast: a
-                .ballast
-                .iter()
-                .map(|b| {
-                    let max_kg = aircraft
-                        .ballast_bays
-                        .iter()
-                        .find(|bay| bay.name == b.bay)
-                        .map(|bay| bay.max_mass_kg)
-                        .unwrap_or(0.0);
-                    let (status, mass_kg, needed_kg) = match b.outcome {
-                        BallastOutcome::NotNeeded => ("not-needed", Some(0.0), None),
-                        BallastOutcome::Reachable { mass_kg } => {
-                            ("reachable", Some(r(mass_kg, 5)), None)
-                        }
-                        BallastOutcome::ExceedsBay { needed_kg, .. } => {
-                            ("exceeds-bay", None, Some(r(needed_kg, 5)))
-                        }
-                        BallastOutcome::WrongSide => ("wrong-side", None, None),
-                    };
-                    BallastJson {
-                        bay: b.bay.clone(),
-                        target_cg_x_m: r(b.target_x_m, 5),
-                        status,
-                        mass_kg,
-                        needed_kg,
-                        max_kg: r(max_kg, 5),
-                    }
-                })
-                .collect(),
-            weighed: a.weighed.map(|w| WeighedJson {
-                total_kg: r(w.total_kg, 5),
-                cg_x_m: r(w.cg_x_m, 5),
-                cg_percent_mac: r(g.percent_mac(w.cg_x_m), 2),
-                cg_difference_m: r(w.cg_x_m - a.mass.cg_x_m, 5),
-                mass_difference_kg: r(w.total_kg - a.mass.total_kg, 5),
-            }),
-        },
+        mass: mass_json(aircraft, a),
+        balance: balance_json(aircraft, a),
         wing: surface_json(&a.wing),
-
-        stabiliser: aircraft
-            .stabiliser
-            .as_ref()
-            .zip(a.stabiliser.as_ref())
-            .map(|(s, eq)| {
-                let tv = a.tail_volume;
-                StabiliserJson {
-                    role: match s.role {
-                        StabiliserRole::Tail => "tail",
-                        StabiliserRole::Canard => "canard",
-                    },
-                    surface: surface_json(eq),
-                    arm_m: r(tv.map(|t| t.arm_m).unwrap_or(0.0), 5),
-                    volume_coefficient: r(tv.map(|t| t.coefficient).unwrap_or(0.0), 4),
-                    decalage_deg: r(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 3),
-                }
-            }),
+        stabiliser: stabiliser_json(aircraft, a),
         fin: a.fin.as_ref().map(|n| FinNoteJson {
             fin: n.fin.as_ref().map(fin_figures_json),
             vee_tail: n.vee_tail.as_ref().map(fin_figures_json),
         }),
-        sections: aircraft
-            .airfoils
-            .iter()
-            .zip(&a.sections)
-            .map(|(af, s)| SectionJson {
-                name: af.name.clone(),
-                method: s.method.as_str(),
-                alpha_zero_lift_deg: r(s.alpha_zero_lift_rad.to_degrees(), 4),
-                cl_alpha_per_rad: r(s.cl_alpha_per_rad, 4),
-                cm_ac: r(s.cm_ac, 5),
-                aerodynamic_center_x_c: r(s.x_ac_c, 4),
-                cl_max: r(s.cl_max, 3),
-                cl_max_source: match s.cl_max_source {
-                    ClMaxSource::Given => "given",
-                    ClMaxSource::Default => "default",
-                },
-            })
-            .collect(),
-        stability: StabilityJson {
-            method: h.method.as_str(),
-            spanwise_strips: a.numerics.strips_per_half_span,
-            chordwise_panels: match a.numerics.wing_model {
-                crate::model::WingModel::VortexLattice => a.numerics.chordwise_panels,
-                crate::model::WingModel::LiftingLine => 1,
-            },
-            classical_neutral_point_x_m: r(est.neutral_point_x_m, 5),
-            neutral_point_difference_percent_mac: r(
-                100.0 * (h.neutral_point_x_m - est.neutral_point_x_m) / g.mac_m,
-                2,
-            ),
-            neutral_point_x_m: r(h.neutral_point_x_m, 5),
-            neutral_point_percent_mac: r(g.percent_mac(h.neutral_point_x_m), 2),
-            static_margin_percent: r(100.0 * h.static_margin, 2),
-            neutral_point_forward_end_x_m: r(
-                h.neutral_point_x_m - 2.0 * finite_or_zero(a.neutral_point_spread.sigma_m),
-                5,
-            ),
-            aft_limit_from_range_x_m: r(
-                h.neutral_point_x_m
-                    - 2.0 * finite_or_zero(a.neutral_point_spread.sigma_m)
-                    - aircraft.margin_limits.min_static_margin * g.mac_m,
-                5,
-            ),
-            downwash_gradient: r(
-                full_trim.map_or(est.downwash_gradient, |t| t.downwash_gradient),
-                4,
-            ),
-            aircraft_cl_alpha_per_rad: r(
-                a.full
-                    .as_ref()
-                    .map_or(est.aircraft_lift_slope_per_rad, |f| f.cl_alpha_per_rad),
-                4,
-            ),
-            cm_alpha_per_rad: r(
-                -h.static_margin
-                    * a.full
-                        .as_ref()
-                        .map_or(est.aircraft_lift_slope_per_rad, |f| f.cl_alpha_per_rad),
-                4,
-            ),
-        },
-        trim: TrimJson {
-            found: h.trim.is_some(),
-            cl: h.trim.map(|t| r(t.cl, 4)),
-            alpha_deg: h.trim.map(|t| r(t.alpha_rad.to_degrees(), 3)),
-            speed_m_s: h.trim.map(|t| r(t.speed_m_s, 3)),
-            stabiliser_cl: h.trim.map(|t| r(t.stabiliser_cl, 4)),
-            reynolds_mac: r(a.reynolds_mac, 0),
-            elevator_deg: h.trim.map(|t| r(t.elevator_rad.to_degrees(), 3)),
-            stabiliser_load_n: full_trim
-                .filter(|_| aircraft.stabiliser.is_some())
-                .map(|t| r(t.stabiliser_load_n, 4)),
-            downwash_deg: full_trim
-                .filter(|_| aircraft.stabiliser.is_some())
-                .map(|t| r(t.downwash_rad.to_degrees(), 3)),
-            span_efficiency: full_trim.and_then(|t| t.span_efficiency).map(|e| r(e, 4)),
-        },
-        stall: StallJson {
-            cl_max: r(h.cl_max, 4),
-            speed_m_s: r(h.stall_speed_m_s, 3),
-            method: match h.method {
-                Method::Numerical(_) => "critical-section",
-                Method::Classical => "classical",
-            },
-            surface: h.stall_location.as_ref().map(|l| l.surface_name),
-            percent_semispan: h.stall_location.as_ref().map(|l| r(l.percent_semispan, 1)),
-            elevator_deg: a
-                .full
-                .as_ref()
-                .and_then(|f| f.stall.as_ref())
-                .filter(|s| s.trimmed)
-                .map(|s| r(s.elevator_rad.to_degrees(), 2)),
-        },
-        solves: a.full.as_ref().map(|f| SolvesJson {
-            decalage_for_target: f.decalage_for_target.map(|d| DecalageJson {
-                speed_m_s: r(d.speed_m_s, 3),
-                cl: r(d.cl, 4),
-                stabiliser_incidence_deg: r(d.stabiliser_incidence_rad.to_degrees(), 3),
-                decalage_deg: r(d.decalage_rad.to_degrees(), 3),
-            }),
-            cg_for_target_speed_x_m: f.cg_for_target_x_m.map(|x| r(x, 5)),
-            pitch_control: aircraft
-                .pitch_control()
-                .map(|_| aircraft.pitch_control_name()),
-            top_speed_m_s: r(f.top_speed_m_s, 3),
-            elevator_schedule: f
-                .elevator_schedule
-                .iter()
-                .map(|p| ElevatorPointJson {
-                    speed_m_s: r(p.speed_m_s, 3),
-                    cl: r(p.cl, 4),
-                    elevator_deg: r(p.elevator_rad.to_degrees(), 3),
-                    within_limits: p.within_limits,
-                })
-                .collect(),
-            tailless: f.tailless.map(|t| TaillessJson {
-                design_cl: r(t.design_cl, 4),
-                cm_zero_lift: r(t.cm_zero_lift, 5),
-                cm_at_design: r(t.cm_at_design, 5),
-                washout_change_deg: t.washout_change_rad.map(|w| r(w.to_degrees(), 3)),
-                reflex_cm_change: r(t.reflex_cm_change, 5),
-                elevon_to_trim_deg: t.elevon_to_trim_rad.map(|d| r(d.to_degrees(), 3)),
-                elevon_within_throws: t.elevon_within_throws,
-            }),
-        }),
+        sections: sections_json(aircraft, a),
+        stability: stability_json(aircraft, a),
+        trim: trim_json(aircraft, a),
+        stall: stall_json(a),
+        solves: solves_json(aircraft, a),
         spanwise: spanwise_json(a),
         glide: glide_json(a),
         flight_polar: a
             .glide_polar
             .as_ref()
             .map(|p| flight_polar_json(aircraft, p)),
-        flap_settings: a
-            .flap_polars
-            .iter()
-            .map(|s| FlapSettingJson {
-                name: s.name.clone(),
-                polar: s
-                    .polar
-                    .as_ref()
-                    .ok()
-                    .map(|p| flight_polar_json(aircraft, p)),
-                no_polar: s.polar.as_ref().err().map(|e| match e {
-                    crate::analysis::glide::NoPolar::Failed(e) => e.to_string(),
-                    crate::analysis::glide::NoPolar::NoStall => "no trimmed stall".to_string(),
-                    crate::analysis::glide::NoPolar::NoTrimControl => {
-                        "no pitch control".to_string()
-                    }
-                }),
-            })
-            .collect(),
+        flap_settings: flap_settings_json(aircraft, a),
         cautions: a.cautions.iter().map(CautionJson::from).collect(),
     }
+}
+
+/// `/mass`
+fn mass_json(aircraft: &Aircraft, a: &Analysis) -> MassJson {
+    MassJson {
+        total_kg: r(a.mass.total_kg, 5),
+        wing_loading_kg_m2: r(a.wing_loading_kg_m2, 4),
+        items: aircraft
+            .masses
+            .iter()
+            .map(|m| MassItemJson {
+                name: m.name.clone(),
+                mass_kg: r(m.mass_kg, 5),
+                x_m: r(m.x_m, 5),
+                z_m: m.z_m.map(|z| r(z, 5)),
+            })
+            .collect(),
+    }
+}
+
+/// `/balance`
+fn balance_json(aircraft: &Aircraft, a: &Analysis) -> BalanceJson {
+    let g = &a.wing_geometry;
+    let band_pos = if a.mass.cg_x_m < a.band.forward_x_m - 5e-4 {
+        "forward"
+    } else if a.mass.cg_x_m > a.band.aft_x_m + 5e-4 {
+        "aft"
+    } else {
+        "inside"
+    };
+    BalanceJson {
+        cg_x_m: r(a.mass.cg_x_m, 5),
+        cg_z_m: a.mass.cg_z_m.map(|z| r(z, 5)),
+        cg_percent_mac: r(g.percent_mac(a.mass.cg_x_m), 2),
+        cg_sigma_m: r(finite_or_zero(a.cg_spread.sigma_m), 5),
+        cg_aft_end_x_m: r(a.mass.cg_x_m + 2.0 * finite_or_zero(a.cg_spread.sigma_m), 5),
+        band: BandJson {
+            forward_x_m: r(a.band.forward_x_m, 5),
+            aft_x_m: r(a.band.aft_x_m, 5),
+            forward_percent_mac: r(g.percent_mac(a.band.forward_x_m), 2),
+            aft_percent_mac: r(g.percent_mac(a.band.aft_x_m), 2),
+            min_static_margin_percent: r(100.0 * aircraft.margin_limits.min_static_margin, 2),
+            max_static_margin_percent: r(100.0 * aircraft.margin_limits.max_static_margin, 2),
+            from_defaults: aircraft.margin_limits.from_defaults,
+            forward_limit: match a.band.forward_limit {
+                ForwardLimit::StaticMargin => "static-margin",
+                ForwardLimit::ElevatorAuthority => "elevator-authority",
+                ForwardLimit::TailStall => "tail-stall",
+            },
+            cg_position: band_pos,
+        },
+        ballast: a
+            .ballast
+            .iter()
+            .map(|b| {
+                let max_kg = aircraft
+                    .ballast_bays
+                    .iter()
+                    .find(|bay| bay.name == b.bay)
+                    .map(|bay| bay.max_mass_kg)
+                    .unwrap_or(0.0);
+                let (status, mass_kg, needed_kg) = match b.outcome {
+                    BallastOutcome::NotNeeded => ("not-needed", Some(0.0), None),
+                    BallastOutcome::Reachable { mass_kg } => {
+                        ("reachable", Some(r(mass_kg, 5)), None)
+                    }
+                    BallastOutcome::ExceedsBay { needed_kg, .. } => {
+                        ("exceeds-bay", None, Some(r(needed_kg, 5)))
+                    }
+                    BallastOutcome::WrongSide => ("wrong-side", None, None),
+                };
+                BallastJson {
+                    bay: b.bay.clone(),
+                    target_cg_x_m: r(b.target_x_m, 5),
+                    status,
+                    mass_kg,
+                    needed_kg,
+                    max_kg: r(max_kg, 5),
+                }
+            })
+            .collect(),
+        weighed: a.weighed.map(|w| WeighedJson {
+            total_kg: r(w.total_kg, 5),
+            cg_x_m: r(w.cg_x_m, 5),
+            cg_percent_mac: r(g.percent_mac(w.cg_x_m), 2),
+            cg_difference_m: r(w.cg_x_m - a.mass.cg_x_m, 5),
+            mass_difference_kg: r(w.total_kg - a.mass.total_kg, 5),
+        }),
+    }
+}
+
+/// `/stabiliser`
+fn stabiliser_json(aircraft: &Aircraft, a: &Analysis) -> Option<StabiliserJson> {
+    aircraft
+        .stabiliser
+        .as_ref()
+        .zip(a.stabiliser.as_ref())
+        .map(|(s, eq)| {
+            let tv = a.tail_volume;
+            StabiliserJson {
+                role: match s.role {
+                    StabiliserRole::Tail => "tail",
+                    StabiliserRole::Canard => "canard",
+                },
+                surface: surface_json(eq),
+                arm_m: r(tv.map(|t| t.arm_m).unwrap_or(0.0), 5),
+                volume_coefficient: r(tv.map(|t| t.coefficient).unwrap_or(0.0), 4),
+                decalage_deg: r(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 3),
+            }
+        })
+}
+
+/// `/sections`
+fn sections_json(aircraft: &Aircraft, a: &Analysis) -> Vec<SectionJson> {
+    aircraft
+        .airfoils
+        .iter()
+        .zip(&a.sections)
+        .map(|(af, s)| SectionJson {
+            name: af.name.clone(),
+            method: s.method.as_str(),
+            alpha_zero_lift_deg: r(s.alpha_zero_lift_rad.to_degrees(), 4),
+            cl_alpha_per_rad: r(s.cl_alpha_per_rad, 4),
+            cm_ac: r(s.cm_ac, 5),
+            aerodynamic_center_x_c: r(s.x_ac_c, 4),
+            cl_max: r(s.cl_max, 3),
+            cl_max_source: match s.cl_max_source {
+                ClMaxSource::Given => "given",
+                ClMaxSource::Default => "default",
+            },
+        })
+        .collect()
+}
+
+/// `/stability`
+fn stability_json(aircraft: &Aircraft, a: &Analysis) -> StabilityJson {
+    let g = &a.wing_geometry;
+    let est = &a.classical;
+    let h = &a.headline;
+    let full_trim = a.full.as_ref().and_then(|f| f.trim.as_ref());
+    StabilityJson {
+        method: h.method.as_str(),
+        spanwise_strips: a.numerics.strips_per_half_span,
+        chordwise_panels: match a.numerics.wing_model {
+            crate::model::WingModel::VortexLattice => a.numerics.chordwise_panels,
+            crate::model::WingModel::LiftingLine => 1,
+        },
+        classical_neutral_point_x_m: r(est.neutral_point_x_m, 5),
+        neutral_point_difference_percent_mac: r(
+            100.0 * (h.neutral_point_x_m - est.neutral_point_x_m) / g.mac_m,
+            2,
+        ),
+        neutral_point_x_m: r(h.neutral_point_x_m, 5),
+        neutral_point_percent_mac: r(g.percent_mac(h.neutral_point_x_m), 2),
+        static_margin_percent: r(100.0 * h.static_margin, 2),
+        neutral_point_forward_end_x_m: r(
+            h.neutral_point_x_m - 2.0 * finite_or_zero(a.neutral_point_spread.sigma_m),
+            5,
+        ),
+        aft_limit_from_range_x_m: r(
+            h.neutral_point_x_m
+                - 2.0 * finite_or_zero(a.neutral_point_spread.sigma_m)
+                - aircraft.margin_limits.min_static_margin * g.mac_m,
+            5,
+        ),
+        downwash_gradient: r(
+            full_trim.map_or(est.downwash_gradient, |t| t.downwash_gradient),
+            4,
+        ),
+        aircraft_cl_alpha_per_rad: r(
+            a.full
+                .as_ref()
+                .map_or(est.aircraft_lift_slope_per_rad, |f| f.cl_alpha_per_rad),
+            4,
+        ),
+        cm_alpha_per_rad: r(
+            -h.static_margin
+                * a.full
+                    .as_ref()
+                    .map_or(est.aircraft_lift_slope_per_rad, |f| f.cl_alpha_per_rad),
+            4,
+        ),
+    }
+}
+
+/// `/trim`
+fn trim_json(aircraft: &Aircraft, a: &Analysis) -> TrimJson {
+    let h = &a.headline;
+    let full_trim = a.full.as_ref().and_then(|f| f.trim.as_ref());
+    TrimJson {
+        found: h.trim.is_some(),
+        cl: h.trim.map(|t| r(t.cl, 4)),
+        alpha_deg: h.trim.map(|t| r(t.alpha_rad.to_degrees(), 3)),
+        speed_m_s: h.trim.map(|t| r(t.speed_m_s, 3)),
+        stabiliser_cl: h.trim.map(|t| r(t.stabiliser_cl, 4)),
+        reynolds_mac: r(a.reynolds_mac, 0),
+        elevator_deg: h.trim.map(|t| r(t.elevator_rad.to_degrees(), 3)),
+        stabiliser_load_n: full_trim
+            .filter(|_| aircraft.stabiliser.is_some())
+            .map(|t| r(t.stabiliser_load_n, 4)),
+        downwash_deg: full_trim
+            .filter(|_| aircraft.stabiliser.is_some())
+            .map(|t| r(t.downwash_rad.to_degrees(), 3)),
+        span_efficiency: full_trim.and_then(|t| t.span_efficiency).map(|e| r(e, 4)),
+    }
+}
+
+/// `/stall`
+fn stall_json(a: &Analysis) -> StallJson {
+    let h = &a.headline;
+    StallJson {
+        cl_max: r(h.cl_max, 4),
+        speed_m_s: r(h.stall_speed_m_s, 3),
+        method: match h.method {
+            Method::Numerical(_) => "critical-section",
+            Method::Classical => "classical",
+        },
+        surface: h.stall_location.as_ref().map(|l| l.surface_name),
+        percent_semispan: h.stall_location.as_ref().map(|l| r(l.percent_semispan, 1)),
+        elevator_deg: a
+            .full
+            .as_ref()
+            .and_then(|f| f.stall.as_ref())
+            .filter(|s| s.trimmed)
+            .map(|s| r(s.elevator_rad.to_degrees(), 2)),
+    }
+}
+
+/// `/solves`
+fn solves_json(aircraft: &Aircraft, a: &Analysis) -> Option<SolvesJson> {
+    a.full.as_ref().map(|f| SolvesJson {
+        decalage_for_target: f.decalage_for_target.map(|d| DecalageJson {
+            speed_m_s: r(d.speed_m_s, 3),
+            cl: r(d.cl, 4),
+            stabiliser_incidence_deg: r(d.stabiliser_incidence_rad.to_degrees(), 3),
+            decalage_deg: r(d.decalage_rad.to_degrees(), 3),
+        }),
+        cg_for_target_speed_x_m: f.cg_for_target_x_m.map(|x| r(x, 5)),
+        pitch_control: aircraft
+            .pitch_control()
+            .map(|_| aircraft.pitch_control_name()),
+        top_speed_m_s: r(f.top_speed_m_s, 3),
+        elevator_schedule: f
+            .elevator_schedule
+            .iter()
+            .map(|p| ElevatorPointJson {
+                speed_m_s: r(p.speed_m_s, 3),
+                cl: r(p.cl, 4),
+                elevator_deg: r(p.elevator_rad.to_degrees(), 3),
+                within_limits: p.within_limits,
+            })
+            .collect(),
+        tailless: f.tailless.map(|t| TaillessJson {
+            design_cl: r(t.design_cl, 4),
+            cm_zero_lift: r(t.cm_zero_lift, 5),
+            cm_at_design: r(t.cm_at_design, 5),
+            washout_change_deg: t.washout_change_rad.map(|w| r(w.to_degrees(), 3)),
+            reflex_cm_change: r(t.reflex_cm_change, 5),
+            elevon_to_trim_deg: t.elevon_to_trim_rad.map(|d| r(d.to_degrees(), 3)),
+            elevon_within_throws: t.elevon_within_throws,
+        }),
+    })
+}
+
+/// `/flap_settings`
+fn flap_settings_json(aircraft: &Aircraft, a: &Analysis) -> Vec<FlapSettingJson> {
+    a.flap_polars
+        .iter()
+        .map(|s| FlapSettingJson {
+            name: s.name.clone(),
+            polar: s
+                .polar
+                .as_ref()
+                .ok()
+                .map(|p| flight_polar_json(aircraft, p)),
+            no_polar: s.polar.as_ref().err().map(|e| match e {
+                crate::analysis::glide::NoPolar::Failed(e) => e.to_string(),
+                crate::analysis::glide::NoPolar::NoStall => "no trimmed stall".to_string(),
+                crate::analysis::glide::NoPolar::NoTrimControl => "no pitch control".to_string(),
+            }),
+        })
+        .collect()
 }
 
 fn spanwise_json(a: &Analysis) -> Vec<SpanwiseJson> {
