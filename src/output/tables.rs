@@ -296,6 +296,8 @@ fn mass_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
     t
 }
 
+/// The balance table: CG, neutral point and their ranges, the recommended band, ballast and
+/// the CG for the target speed.
 fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
     let g = &a.wing_geometry;
     let h = &a.headline;
@@ -395,6 +397,19 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
             ),
         ]);
     }
+    band_rows(&mut t, aircraft, a, u);
+    ballast_rows(&mut t, a, u);
+    target_cg_rows(&mut t, aircraft, a, u);
+    right_align(&mut t, 1..3);
+    t
+}
+
+/// Rows of the recommended band, the MAC leading edge and the static margin.
+fn band_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitSystem) {
+    let g = &a.wing_geometry;
+    let pct = |x: f64| num(g.percent_mac(x), 1);
+    let h = &a.headline;
+    let mm = u.length_unit();
     let forward_note = match a.band.forward_limit {
         ForwardLimit::StaticMargin => format!(
             "static margin {} %",
@@ -443,6 +458,13 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
         num(100.0 * h.static_margin, 1),
         "neutral point minus CG".to_string(),
     ]);
+}
+
+/// One row per ballast bay: the target CG and the ballast that reaches it.
+fn ballast_rows(t: &mut Table, a: &Analysis, u: UnitSystem) {
+    let g = &a.wing_geometry;
+    let pct = |x: f64| num(g.percent_mac(x), 1);
+    let (mm, g_) = (u.length_unit(), u.mass_unit());
     for b in &a.ballast {
         let text = match b.outcome {
             BallastOutcome::NotNeeded => "none needed".to_string(),
@@ -478,6 +500,12 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
             text,
         ]);
     }
+}
+
+/// The CG that trims at the target speed with the present incidences.
+fn target_cg_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitSystem) {
+    let g = &a.wing_geometry;
+    let pct = |x: f64| num(g.percent_mac(x), 1);
     if let Some(f) = a.full.as_ref() {
         match (f.cg_for_target_x_m, aircraft.targets.trim_speed_m_s) {
             (Some(x), _) => t.add_row(vec![
@@ -502,11 +530,9 @@ fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
                     "none ahead of the neutral point: change the incidences instead".to_string()
                 },
             ]),
-            (None, None) => &mut t,
+            (None, None) => t,
         };
     }
-    right_align(&mut t, 1..3);
-    t
 }
 
 fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
