@@ -272,6 +272,13 @@ fn polar_on(
         cl_stall,
         top_speed_m_s: top,
         points: POLAR_POINTS,
+        // A control with no throw trims one speed only: put it on the grid.
+        trim_cl: input.full.trim.as_ref().map(|t| t.cl).filter(|_| {
+            input
+                .aircraft
+                .pitch_control()
+                .is_some_and(|p| p.max_up_rad + p.max_down_rad <= 0.0)
+        }),
     };
     let polar = flight_polar(&source, &cond).map_err(NoPolar::Failed)?;
     let speed_to_fly = AIR_SINK_RATES_M_S
@@ -424,13 +431,17 @@ pub fn glide_cautions(
         .filter(|q| !q.flyable)
         .map(|q| q.speed_m_s)
         .collect();
-    if let Some(first) = unflyable.first() {
+    if let (Some(lo), Some(hi)) = (
+        unflyable.iter().copied().reduce(f64::min),
+        unflyable.iter().copied().reduce(f64::max),
+    ) {
         cautions.push(Caution::new(
             Level::Warning,
             "polar-control-runs-out",
             format!(
-                "The {} cannot trim every speed of the range: from about {first:.1} m/s it needs \
-                 more than its throws; sink and glide are given only where it trims.",
+                "Between {lo:.1} and {hi:.1} m/s of the glide range the {} cannot trim within its \
+                 throws. Those speeds are marked in the glide table; least sink, best glide and \
+                 the speeds to fly use only the speeds it trims.",
                 aircraft.pitch_control_name()
             ),
         ));

@@ -284,6 +284,9 @@ pub struct GlideFigures {
     pub min_sink_at_stall: bool,
     /// True when best glide lies on the stall end.
     pub best_glide_at_stall: bool,
+    /// The slowest speed to fly for least sink, m/s: 1.2 times the stall speed (common
+    /// practice), when the least sink lies below it; `None` otherwise.
+    pub min_sink_slow_limit_m_s: Option<f64>,
 }
 
 impl Analysis {
@@ -293,28 +296,21 @@ impl Analysis {
         if self.headline.static_margin <= 0.0 {
             return None;
         }
-        Some(match &self.glide_polar {
-            Some(p) => GlideFigures {
-                from_flight_polar: true,
-                best_glide_ratio: p.best_glide.point.glide_ratio,
-                best_glide_speed_m_s: p.best_glide.point.speed_m_s,
-                min_sink_m_s: p.min_sink.point.sink_m_s,
-                min_sink_speed_m_s: p.min_sink.point.speed_m_s,
-                min_sink_at_stall: p.min_sink.at_stall,
-                best_glide_at_stall: p.best_glide.at_stall,
+        // Only the flight polar gives headline figures: the parabolic estimate (its least
+        // sink always at CL max) stays a cross-check in the JSON.
+        let p = self.glide_polar.as_ref()?;
+        Some(GlideFigures {
+            from_flight_polar: true,
+            best_glide_ratio: p.best_glide.point.glide_ratio,
+            best_glide_speed_m_s: p.best_glide.point.speed_m_s,
+            min_sink_m_s: p.min_sink.point.sink_m_s,
+            min_sink_speed_m_s: p.min_sink.point.speed_m_s,
+            min_sink_at_stall: p.min_sink.at_stall,
+            best_glide_at_stall: p.best_glide.at_stall,
+            min_sink_slow_limit_m_s: {
+                let v = glide::MIN_SINK_STALL_MARGIN * p.stall_speed_m_s;
+                (p.min_sink.point.speed_m_s < v).then_some(v)
             },
-            None => {
-                let g = &self.glide.performance;
-                GlideFigures {
-                    from_flight_polar: false,
-                    best_glide_ratio: g.best_glide.glide_ratio,
-                    best_glide_speed_m_s: g.best_glide.speed_m_s,
-                    min_sink_m_s: g.min_sink.sink_m_s,
-                    min_sink_speed_m_s: g.min_sink.speed_m_s,
-                    min_sink_at_stall: g.min_sink.limited_by_cl_max,
-                    best_glide_at_stall: g.best_glide.limited_by_cl_max,
-                }
-            }
         })
     }
 }
@@ -728,9 +724,24 @@ pub fn analyse_with(
         2.0 * neutral_point_spread.sigma_m,
         mac,
         (mass.cg_x_m, 2.0 * cg_spread.sigma_m),
-        band.aft_x_m,
+        (band.forward_x_m, band.aft_x_m),
         &mut cautions,
     );
+    // Tolerances that spread the CG over more than the mean chord are almost certainly typed
+    // wrong (a kilogram for a gram, a tolerance on the wrong item).
+    if (4.0 * cg_spread.sigma_m).is_finite() && 4.0 * cg_spread.sigma_m > mac {
+        cautions.push(Caution::new(
+            Level::Warning,
+            "tolerances-too-large",
+            format!(
+                "The mass and position tolerances spread the CG over {:.0} mm (two standard \
+                 deviations each way), more than the {:.0} mm mean chord: check the [tolerances] \
+                 and the items' own tolerances (g and mm).",
+                1000.0 * 4.0 * cg_spread.sigma_m,
+                1000.0 * mac
+            ),
+        ));
+    }
     cautions.push(safety_caution());
     Ok(Analysis {
         numerics: numerics_used(aircraft, options),
@@ -1603,10 +1614,11 @@ fn uncertain_aft_limit_caution(
     spread_m: f64,
     mac_m: f64,
     cg: (f64, f64),
-    band_aft_x_m: f64,
+    band: (f64, f64),
     cautions: &mut Vec<Caution>,
 ) {
     let (cg_x_m, cg_spread_m) = cg;
+    let (band_forward_x_m, band_aft_x_m) = band;
     let spread_m = if spread_m.is_finite() { spread_m } else { 0.0 };
     let cg_spread_m = if cg_spread_m.is_finite() {
         cg_spread_m
@@ -1618,7 +1630,9 @@ fn uncertain_aft_limit_caution(
     }
     let limit = neutral_point_x_m - spread_m - aircraft.margin_limits.min_static_margin * mac_m;
     let cg_aft_end = cg_x_m + cg_spread_m;
-    if cg_aft_end > limit && cg_x_m <= band_aft_x_m {
+    // Inside the band only: forward or aft of it, other cautions speak.
+    let inside = cg_x_m >= band_forward_x_m - 5e-4 && cg_x_m <= band_aft_x_m;
+    if cg_aft_end > limit && inside {
         let cg_text = if cg_spread_m > 0.0 {
             format!(
                 "The CG ({:.0} mm, and up to {:.0} mm with two standard deviations of the \
@@ -1629,6 +1643,23 @@ fn uncertain_aft_limit_caution(
         } else {
             format!("The CG ({:.0} mm)", 1000.0 * cg_x_m)
         };
+        let balance_at = limit - cg_spread_m;
+        let advice = if balance_at >= band_forward_x_m {
+            format!(
+                "For the first flights balance at {:.0} mm or further forward.",
+                1000.0 * balance_at
+            )
+        } else {
+            // The advice would leave the band: the uncertainties are too large for any CG in
+            // it to be safely ahead of the limit.
+            format!(
+                "No CG in the recommended band keeps the whole uncertain range ahead of that \
+                 limit: weigh the items and measure their positions again to narrow the \
+                 tolerances, and meanwhile balance at the band's forward end ({:.0} mm) and \
+                 test-glide with care.",
+                1000.0 * band_forward_x_m
+            )
+        };
         cautions.push(Caution::new(
             Level::Warning,
             "cg-aft-of-uncertain-limit",
@@ -1636,12 +1667,11 @@ fn uncertain_aft_limit_caution(
                 "{cg_text} is inside the recommended band but {:.0} mm aft of {:.0} mm, the \
                  aft limit measured from the forward end of the neutral point's uncertainty range \
                  ({:.0} mm ahead of it: two standard deviations from common-practice spreads of \
-                 tail efficiency, downwash, fuselage and section lift slopes). For the first \
-                 flights balance at {:.0} mm or further forward.",
+                 tail efficiency, downwash, fuselage and section lift slopes). {}",
                 1000.0 * (cg_aft_end - limit),
                 1000.0 * limit,
                 1000.0 * spread_m,
-                1000.0 * (limit - cg_spread_m)
+                advice
             ),
         ));
     }

@@ -110,7 +110,7 @@ pub fn run(args: &CheckArgs) -> anyhow::Result<super::Finish> {
         trimline::output::fs::write_file(
             path,
             trimline::output::tables::glide_csv(p).as_bytes(),
-            &super::write_options(args.follow_link),
+            &super::csv_write_options(args.follow_link, b"speed_m_s,sink_m_s,"),
         )
         .with_context(|| {
             format!(

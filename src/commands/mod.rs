@@ -45,6 +45,19 @@ pub fn pdf_write_options(follow_link: bool) -> trimline::output::fs::WriteOption
     }
 }
 
+/// How the commands write a CSV whose header starts with `header`: as [`write_options`], and
+/// an existing file is replaced only if it starts with the same header (a CSV this command
+/// wrote before); an aircraft file or any other file given as the CSV by mistake is refused.
+pub fn csv_write_options(
+    follow_link: bool,
+    header: &'static [u8],
+) -> trimline::output::fs::WriteOptions {
+    trimline::output::fs::WriteOptions {
+        replace_only_if_starts_with: Some(header),
+        ..write_options(follow_link)
+    }
+}
+
 /// How the commands write files: atomically, a symbolic link at the target refused unless
 /// `--follow-link` was given.
 pub fn write_options(follow_link: bool) -> trimline::output::fs::WriteOptions {

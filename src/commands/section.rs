@@ -162,7 +162,7 @@ pub fn run(args: &SectionArgs) -> anyhow::Result<()> {
         write_file(
             path,
             surface_csv(&surface).as_bytes(),
-            &super::write_options(args.follow_link),
+            &super::csv_write_options(args.follow_link, b"x_c,y_c,cp"),
         )
         .context("writing the CSV file")?;
     }
@@ -170,7 +170,7 @@ pub fn run(args: &SectionArgs) -> anyhow::Result<()> {
         write_file(
             path,
             polar_csv(&report.viscous).as_bytes(),
-            &super::write_options(args.follow_link),
+            &super::csv_write_options(args.follow_link, b"reynolds,transition_n,"),
         )
         .with_context(|| format!("writing {}", printable(&path.display().to_string())))?;
     }

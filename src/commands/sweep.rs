@@ -87,7 +87,7 @@ pub fn run(args: &SweepArgs) -> anyhow::Result<super::Finish> {
         write_file(
             path,
             text.as_bytes(),
-            &super::write_options(args.follow_link),
+            &super::csv_write_options(args.follow_link, b"index,"),
         )
         .context("writing the CSV file")?;
     }

@@ -192,7 +192,7 @@ pub fn write_file(path: &Path, bytes: &[u8], options: &WriteOptions) -> Result<(
                 what: if magic == b"%PDF-" {
                     "a PDF"
                 } else {
-                    "the kind of file written"
+                    "a CSV file this command wrote"
                 },
             });
         }

@@ -431,8 +431,8 @@ pub struct SpanwiseJson {
 /// from the parabolic estimate.
 #[derive(Debug, Serialize)]
 pub struct GlideJson {
-    /// `flight-polar`, `parabolic-estimate`, or `none-unstable` (negative static margin: no
-    /// glide figures).
+    /// `flight-polar`; `none-unstable` (negative static margin: no glide figures) or `none`
+    /// (no glide polar could be computed: see the cautions).
     pub source: &'static str,
     /// Best glide ratio (horizontal distance over height lost), or null.
     pub best_glide_ratio: Option<f64>,
@@ -444,6 +444,9 @@ pub struct GlideJson {
     pub min_sink_speed_m_s: Option<f64>,
     /// True when minimum sink lies on the stall end of the range (not a true optimum).
     pub min_sink_at_stall: Option<bool>,
+    /// 1.2 times the stall speed when the least sink lies below it (fly above it), m/s, or
+    /// null.
+    pub min_sink_slow_limit_m_s: Option<f64>,
     /// Span efficiency C_L^2 / (pi A C_Di) at best glide (from the wake in the flight polar;
     /// the Oswald estimate in the parabolic one).
     pub span_efficiency: Option<f64>,
@@ -515,6 +518,8 @@ pub struct PolarOptimumJson {
     pub at_stall: bool,
     /// True when it lies on the top-speed end.
     pub at_top_speed: bool,
+    /// True when it lies where the control runs out.
+    pub at_control_limit: bool,
 }
 
 /// `/flight_polar/points/N`
@@ -621,6 +626,7 @@ fn flight_polar_json(aircraft: &Aircraft, p: &GlidePolar) -> FlightPolarJson {
         point: polar_point_json(&o.point),
         at_stall: o.at_stall,
         at_top_speed: o.at_top_speed,
+        at_control_limit: o.at_control_limit,
     };
     FlightPolarJson {
         trimmed_by: trimmed_by(aircraft, p.control),
@@ -675,15 +681,16 @@ fn glide_json(a: &Analysis) -> GlideJson {
     let figures = a.glide_figures();
     GlideJson {
         source: match (&figures, &a.glide_polar) {
-            (None, _) => "none-unstable",
-            (Some(_), Some(_)) => "flight-polar",
-            (Some(_), None) => "parabolic-estimate",
+            (None, _) if a.headline.static_margin <= 0.0 => "none-unstable",
+            (None, _) => "none",
+            (Some(_), _) => "flight-polar",
         },
         best_glide_ratio: figures.map(|g| r(g.best_glide_ratio, 3)),
         best_glide_speed_m_s: figures.map(|g| r(g.best_glide_speed_m_s, 3)),
         min_sink_m_s: figures.map(|g| r(g.min_sink_m_s, 4)),
         min_sink_speed_m_s: figures.map(|g| r(g.min_sink_speed_m_s, 3)),
         min_sink_at_stall: figures.map(|g| g.min_sink_at_stall),
+        min_sink_slow_limit_m_s: figures.and_then(|g| g.min_sink_slow_limit_m_s.map(|v| r(v, 3))),
         span_efficiency: match (&figures, &a.glide_polar) {
             (None, _) => None,
             (Some(_), Some(p)) => p.best_glide.point.trim.span_efficiency.map(|e| r(e, 4)),

@@ -57,6 +57,16 @@ pub struct KeyFigure {
     pub value: String,
 }
 
+impl KeyFigure {
+    /// A figure with its label and formatted value.
+    pub fn new(label: &str, value: String) -> KeyFigure {
+        KeyFigure {
+            label: label.to_string(),
+            value,
+        }
+    }
+}
+
 /// The chord line of a mean aerodynamic chord in the top view.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct MacLine {
@@ -434,53 +444,7 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             ),
         ));
     }
-    let elevon_trim = a
-        .full
-        .as_ref()
-        .and_then(|f| f.tailless)
-        .filter(|_| aircraft.elevons.is_some());
-    out.push(kf(
-        if elevon_trim.is_some() {
-            "Elevons to trim"
-        } else {
-            "Decalage"
-        },
-        match &aircraft.stabiliser {
-            Some(st) => {
-                // Front surface minus rear surface incidence.
-                let (front, back, front_name, back_name) = match st.role {
-                    StabiliserRole::Tail => (&aircraft.wing, &st.surface, "wing", "tail"),
-                    StabiliserRole::Canard => (&st.surface, &aircraft.wing, "canard", "wing"),
-                };
-                format!(
-                    "{}\u{b0} ({front_name} {}\u{b0}, {back_name} {}\u{b0})",
-                    fmt((front.incidence_rad - back.incidence_rad).to_degrees(), 2),
-                    fmt(front.incidence_rad.to_degrees(), 2),
-                    fmt(back.incidence_rad.to_degrees(), 2)
-                )
-            }
-            None => match elevon_trim {
-                Some(t) => match t.elevon_to_trim_rad {
-                    Some(d) if d.to_degrees().abs() < 0.05 => {
-                        format!("neutral at CL {}", fmt(t.design_cl, 2))
-                    }
-                    Some(d) => format!(
-                        "{}\u{b0} {} at CL {}{}",
-                        fmt(d.abs().to_degrees(), 1),
-                        if d < 0.0 { "up" } else { "down" },
-                        fmt(t.design_cl, 2),
-                        if t.elevon_within_throws {
-                            ""
-                        } else {
-                            ", beyond the throws"
-                        }
-                    ),
-                    None => format!("none trims at CL {}", fmt(t.design_cl, 2)),
-                },
-                None => "n/a (tailless)".to_string(),
-            },
-        },
-    ));
+    out.push(decalage_figure(aircraft, a));
     out.push(kf("Ballast needed", ballast_text(aircraft, a)));
     if let Some(d) = a.full.as_ref().and_then(|f| f.decalage_for_target) {
         out.push(kf(
@@ -496,8 +460,76 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             ),
         ));
     }
+    out.extend(glide_figures(a));
+    out.push(kf(
+        "Reynolds number (MAC)",
+        crate::caution::reynolds_text(a.reynolds_mac),
+    ));
+    out
+}
+
+/// The decalage key figure (or, on a tailless wing with elevons, the elevons to trim).
+fn decalage_figure(aircraft: &Aircraft, a: &Analysis) -> KeyFigure {
+    let elevon_trim = a
+        .full
+        .as_ref()
+        .and_then(|f| f.tailless)
+        .filter(|_| aircraft.elevons.is_some());
+    let label = if elevon_trim.is_some() {
+        "Elevons to trim"
+    } else {
+        "Decalage"
+    };
+    let value = match &aircraft.stabiliser {
+        Some(st) => {
+            // Front surface minus rear surface incidence.
+            let (front, back, front_name, back_name) = match st.role {
+                StabiliserRole::Tail => (&aircraft.wing, &st.surface, "wing", "tail"),
+                StabiliserRole::Canard => (&st.surface, &aircraft.wing, "canard", "wing"),
+            };
+            format!(
+                "{}\u{b0} ({front_name} {}\u{b0}, {back_name} {}\u{b0})",
+                fmt((front.incidence_rad - back.incidence_rad).to_degrees(), 2),
+                fmt(front.incidence_rad.to_degrees(), 2),
+                fmt(back.incidence_rad.to_degrees(), 2)
+            )
+        }
+        None => match elevon_trim {
+            Some(t) => match t.elevon_to_trim_rad {
+                Some(d) if d.to_degrees().abs() < 0.05 => {
+                    format!("neutral at CL {}", fmt(t.design_cl, 2))
+                }
+                Some(d) => format!(
+                    "{}\u{b0} {} at CL {}{}",
+                    fmt(d.abs().to_degrees(), 1),
+                    if d < 0.0 { "up" } else { "down" },
+                    fmt(t.design_cl, 2),
+                    if t.elevon_within_throws {
+                        ""
+                    } else {
+                        ", beyond the throws"
+                    }
+                ),
+                None => format!("none trims at CL {}", fmt(t.design_cl, 2)),
+            },
+            None => "n/a (tailless)".to_string(),
+        },
+    };
+    KeyFigure::new(label, value)
+}
+
+/// The glide key figures (none on an aircraft unstable at its CG).
+fn glide_figures(a: &Analysis) -> Vec<KeyFigure> {
+    let mut out = Vec::new();
     match a.glide_figures() {
-        None => out.push(kf("Glide", "none: unstable at this CG".to_string())),
+        None => out.push(KeyFigure::new(
+            "Glide",
+            if a.headline.static_margin <= 0.0 {
+                "none: unstable at this CG".to_string()
+            } else {
+                "none: no glide polar (see the cautions)".to_string()
+            },
+        )),
         Some(g) => {
             let at_stall = |limited: bool| if limited { ", at the stall" } else { "" };
             let est = if g.from_flight_polar {
@@ -505,7 +537,7 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             } else {
                 " (parabolic)"
             };
-            out.push(kf(
+            out.push(KeyFigure::new(
                 &format!("Best glide{est}"),
                 format!(
                     "{} at {} m/s{}",
@@ -514,21 +546,19 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
                     at_stall(g.best_glide_at_stall)
                 ),
             ));
-            out.push(kf(
+            out.push(KeyFigure::new(
                 &format!("Minimum sink{est}"),
                 format!(
-                    "{} m/s at {} m/s{}",
+                    "{} m/s at {} m/s{}{}",
                     fmt(g.min_sink_m_s, 2),
                     fmt(g.min_sink_speed_m_s, 1),
-                    at_stall(g.min_sink_at_stall)
+                    at_stall(g.min_sink_at_stall),
+                    g.min_sink_slow_limit_m_s
+                        .map_or(String::new(), |v| format!("; fly above {}", fmt(v, 1)))
                 ),
             ));
         }
     }
-    out.push(kf(
-        "Reynolds number (MAC)",
-        crate::caution::reynolds_text(a.reynolds_mac),
-    ));
     out
 }
 

@@ -637,7 +637,11 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
         None => {
             t.add_row(vec![
                 "best glide ratio, minimum sink".into(),
-                "none: unstable at this CG".into(),
+                if a.headline.static_margin <= 0.0 {
+                    "none: unstable at this CG".into()
+                } else {
+                    "none: no glide polar (see the cautions)".into()
+                },
                 String::new(),
             ]);
         }
@@ -658,10 +662,13 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
                 ),
                 String::new(),
             ]);
+            let near = g.min_sink_slow_limit_m_s.map_or(String::new(), |v| {
+                format!("; near the stall: fly above {} m/s", num(v, 1))
+            });
             t.add_row(vec![
                 format!("minimum sink{from}"),
                 format!(
-                    "{} at {} m/s{}",
+                    "{} at {} m/s{}{near}",
                     num(g.min_sink_m_s, 2),
                     num(g.min_sink_speed_m_s, 1),
                     flag(g.min_sink_at_stall)
@@ -910,6 +917,17 @@ fn best_setting_table(
     t
 }
 
+/// What to say after a speed to fly that lies on an end of the speeds flown.
+fn end_note(s: &crate::performance::flight_polar::SpeedToFly) -> &'static str {
+    if s.at_control_limit {
+        " (the fastest the control trims)"
+    } else if s.at_top_speed {
+        " (top speed)"
+    } else {
+        ""
+    }
+}
+
 /// The speed to fly between thermals for a few expected climbs.
 fn thermal_speed_table(p: &crate::analysis::glide::GlidePolar) -> Table {
     let mut t = table(&[
@@ -920,11 +938,7 @@ fn thermal_speed_table(p: &crate::analysis::glide::GlidePolar) -> Table {
     for s in &p.speed_to_fly_between_thermals {
         t.add_row(vec![
             num(s.climb_m_s, 1),
-            format!(
-                "{}{}",
-                num(s.speed_m_s, 1),
-                if s.at_top_speed { " (top speed)" } else { "" }
-            ),
+            format!("{}{}", num(s.speed_m_s, 1), end_note(s)),
             num(3.6 * s.cross_country_speed_m_s, 1),
         ]);
     }
@@ -942,11 +956,7 @@ fn speed_to_fly_table(p: &crate::analysis::glide::GlidePolar) -> Table {
     for s in &p.speed_to_fly {
         t.add_row(vec![
             num(s.air_sink_m_s, 1),
-            format!(
-                "{}{}",
-                num(s.speed_m_s, 1),
-                if s.at_top_speed { " (top speed)" } else { "" }
-            ),
+            format!("{}{}", num(s.speed_m_s, 1), end_note(s)),
             num(s.glide_ratio_in_air, 1),
         ]);
     }

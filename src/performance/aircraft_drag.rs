@@ -148,12 +148,13 @@ impl<'a> AircraftDrag<'a> {
         nu_m2_s: f64,
     ) -> Option<AircraftDrag<'a>> {
         let pitch_control = aircraft.pitch_control();
+        // The pitch control trims every speed, checked against its throws (an all-moving
+        // tail is an elevator of full chord; a control with no throw trims one speed only).
+        // A stabiliser without any control would be re-rigged by its incidence.
         let control = match (pitch_control, aircraft.stabiliser.as_ref()) {
-            (Some(p), _) if p.max_up_rad + p.max_down_rad > 0.0 && p.chord_fraction > 0.0 => {
-                TrimControl::Elevator
-            }
-            (_, Some(_)) => TrimControl::Incidence(1),
-            _ => return None,
+            (Some(_), _) => TrimControl::Elevator,
+            (None, Some(_)) => TrimControl::Incidence(1),
+            (None, None) => return None,
         };
         Some(AircraftDrag {
             system,

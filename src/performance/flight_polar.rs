@@ -78,6 +78,9 @@ pub struct PolarConditions {
     pub top_speed_m_s: f64,
     /// Points on the grid (at least 3).
     pub points: usize,
+    /// A lift coefficient always put on the grid (the trim with the control neutral, so that
+    /// an aircraft whose control cannot move still has its one flyable speed), if any.
+    pub trim_cl: Option<f64>,
 }
 
 /// One point of steady gliding flight.
@@ -147,6 +150,9 @@ pub struct Optimum<T> {
     pub at_stall: bool,
     /// True when it lies on the fast end.
     pub at_top_speed: bool,
+    /// True when it lies where the control runs out (the end of the trimmable speeds, which
+    /// is not an end of the range).
+    pub at_control_limit: bool,
 }
 
 /// The speed to fly through air sinking at a given rate.
@@ -162,6 +168,8 @@ pub struct SpeedToFly {
     pub glide_ratio_in_air: f64,
     /// True when the best speed is the top of the range.
     pub at_top_speed: bool,
+    /// True when the best speed is where the control runs out.
+    pub at_control_limit: bool,
     /// Mean cross-country speed when each glide is followed by a climb at `climb_m_s`,
     /// `V_h m / (m + w + s)`, m/s (0 when no climb is expected).
     pub cross_country_speed_m_s: f64,
@@ -319,12 +327,15 @@ fn optimum<D: DragSource>(
     }
     // On the end of the range when the best grid point is the end one and the refined point
     // did not move inside it by more than a grid-step fraction.
-    let at_stall = best == first && chosen.cl >= points[first].cl - 1e-9;
-    let at_top_speed = best == last && chosen.cl <= points[last].cl + 1e-9;
+    let on_slow_end = best == first && chosen.cl >= points[first].cl - 1e-9;
+    let on_fast_end = best == last && chosen.cl <= points[last].cl + 1e-9;
+    let at_stall = on_slow_end && first == 0;
+    let at_top_speed = on_fast_end && last + 1 == points.len();
     Ok(Optimum {
         point: chosen,
         at_stall,
         at_top_speed,
+        at_control_limit: (on_slow_end && !at_stall) || (on_fast_end && !at_top_speed),
     })
 }
 
@@ -343,15 +354,28 @@ pub fn flight_polar<D: DragSource>(
             top_m_s: cond.top_speed_m_s,
         });
     }
-    let mut points = Vec::with_capacity(n);
-    for k in 0..n {
-        let v = stall_m_s + (cond.top_speed_m_s - stall_m_s) * k as f64 / (n - 1) as f64;
-        // The stall end exactly at the stall C_L (no rounding through the speed).
-        let cl = if k == 0 {
-            cond.cl_stall
-        } else {
-            grid_cl(cond, v)
-        };
+    let mut cls: Vec<f64> = (0..n)
+        .map(|k| {
+            let v = stall_m_s + (cond.top_speed_m_s - stall_m_s) * k as f64 / (n - 1) as f64;
+            // The stall end exactly at the stall C_L (no rounding through the speed).
+            if k == 0 {
+                cond.cl_stall
+            } else {
+                grid_cl(cond, v)
+            }
+        })
+        .collect();
+    let cl_top = grid_cl(cond, cond.top_speed_m_s);
+    if let Some(t) = cond
+        .trim_cl
+        .filter(|c| c.is_finite() && *c < cond.cl_stall && *c > cl_top)
+    {
+        cls.push(t);
+        // Rising speed: falling lift coefficient.
+        cls.sort_by(|a, b| b.total_cmp(a));
+    }
+    let mut points = Vec::with_capacity(cls.len());
+    for cl in cls {
         if let Some(t) = source.trim(cl) {
             points.push(glide_at(source, t, cl, cond)?);
         }
@@ -385,6 +409,7 @@ impl<T: Clone> FlightPolar<T> {
             speed_m_s: p.speed_m_s,
             glide_ratio_in_air: p.horizontal_speed_m_s() / (p.sink_m_s + air_sink_m_s),
             at_top_speed: o.at_top_speed,
+            at_control_limit: o.at_control_limit,
             cross_country_speed_m_s: if climb_m_s > 0.0 {
                 p.horizontal_speed_m_s() * climb_m_s / (climb_m_s + p.sink_m_s + air_sink_m_s)
             } else {
@@ -431,6 +456,7 @@ mod tests {
             cl_stall: 1.2,
             top_speed_m_s: 20.0,
             points: 10,
+            trim_cl: None,
         };
         let p = flight_polar(&s, &c).unwrap();
         for q in &p.points {
@@ -450,6 +476,7 @@ mod tests {
             cl_stall: 1.2,
             top_speed_m_s: 1.0,
             points: 10,
+            trim_cl: None,
         };
         assert!(matches!(
             flight_polar(&s, &c),

@@ -219,6 +219,22 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
         .unwrap()
         .message;
     assert!(msg.contains("tolerances"), "{msg}");
+    assert!(msg.contains("or further forward"), "{msg}");
+    // Tolerances so large that the advice would leave the band: the caution says no CG in
+    // the band is safe enough and sends the builder to the band's forward end, never to a
+    // position outside it.
+    let wild = one_mass(x_mm, "x_tolerance = 200\n");
+    let msg = &wild
+        .cautions
+        .iter()
+        .find(|c| c.code == "cg-aft-of-uncertain-limit")
+        .expect("the caution is raised")
+        .message;
+    let fwd = format!("{:.0} mm", 1000.0 * wild.band.forward_x_m);
+    assert!(
+        msg.contains("No CG in the recommended band") && msg.contains(&fwd),
+        "{msg}"
+    );
 }
 
 fn check(args: &[&str], text: &str) -> std::process::Output {

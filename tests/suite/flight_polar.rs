@@ -40,6 +40,7 @@ fn conditions(mass_kg: f64) -> PolarConditions {
         cl_stall: 1.4,
         top_speed_m_s: 25.0,
         points: 40,
+        trim_cl: None,
     }
 }
 
@@ -325,4 +326,66 @@ fn an_unstable_aircraft_gets_no_glide_figures() {
     let v = serde_json::to_value(trimline::output::json::check_document(&ac, &a, "u")).unwrap();
     assert_eq!(v["glide"]["source"], "none-unstable");
     assert!(v["glide"]["min_sink_m_s"].is_null());
+}
+
+// A CSV path that names an existing file that is not such a CSV (the aircraft file itself,
+// given by mistake) is refused and the file is left as it was; an earlier glide CSV is
+// replaced. The same guard holds for `sweep --csv`.
+#[test]
+fn glide_csv_never_replaces_the_aircraft_file() {
+    let dir = crate::common::scratch_in("glide-csv", "guard");
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml").unwrap();
+    let plane = dir.join("plane.toml");
+    std::fs::write(&plane, &text).unwrap();
+    let out =
+        crate::common::run_trimline(&["check", "plane.toml", "--glide-csv", "plane.toml"], &dir);
+    assert_eq!(out.status.code(), Some(1));
+    assert_eq!(std::fs::read_to_string(&plane).unwrap(), text);
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("not replaced"), "{err}");
+    // A glide CSV written before is replaced.
+    for _ in 0..2 {
+        let out =
+            crate::common::run_trimline(&["check", "plane.toml", "--glide-csv", "g.csv"], &dir);
+        assert!(out.status.success() || out.status.code() == Some(3));
+    }
+    let csv = std::fs::read_to_string(dir.join("g.csv")).unwrap();
+    assert!(csv.starts_with("speed_m_s,sink_m_s,"));
+    assert_eq!(csv.lines().count(), 41);
+    let out = crate::common::run_trimline(
+        &[
+            "sweep",
+            "plane.toml",
+            "--vary",
+            "cg=70,75",
+            "--csv",
+            "plane.toml",
+        ],
+        &dir,
+    );
+    assert_eq!(out.status.code(), Some(1));
+    assert_eq!(std::fs::read_to_string(&plane).unwrap(), text);
+}
+
+// An elevator with no throw trims one speed only: the glide polar says the control runs out
+// instead of re-rigging the tail at every speed.
+#[test]
+fn an_elevator_without_throw_trims_one_speed_only() {
+    let text = std::fs::read_to_string("aircraft/larkspire-2000.toml")
+        .unwrap()
+        .replace("elevator_up = 12", "elevator_up = 0")
+        .replace("elevator_down = 12", "elevator_down = 0");
+    let ac = trimline::input::parse_aircraft(&text, "fixed.toml", None).unwrap();
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    assert!(a
+        .cautions
+        .iter()
+        .any(|c| c.code == "polar-control-runs-out"));
+    // Its one flyable speed is the trim with the elevator neutral.
+    let p = a.glide_polar.as_ref().unwrap();
+    let flyable: Vec<_> = p.points.iter().filter(|q| q.flyable).collect();
+    assert_eq!(flyable.len(), 1);
+    let trim = a.headline.trim.unwrap();
+    assert_relative_eq!(flyable[0].cl, trim.cl, max_relative = 1e-9);
+    assert_relative_eq!(p.min_sink.point.cl, trim.cl, max_relative = 1e-9);
 }

@@ -300,7 +300,12 @@ pub fn glide_chart(c: &mut Canvas, area: Frame, data: &GlideChart) {
         .map(|p| p.0)
         .fold(first.stall_speed_m_s, f64::min);
     let v_hi = all.clone().map(|p| p.0).fold(v_lo + 1.0, f64::max);
-    let s_hi = all.map(|p| p.1).fold(0.1, f64::max);
+    // The useful part of a sink polar is near its least sink: the scale stops at five times
+    // the least sink (the fast end runs off the top, clipped).
+    let s_hi = all
+        .map(|p| p.1)
+        .fold(0.1, f64::max)
+        .min(5.0 * first.min_sink.1.max(0.05));
     let x = Axis::nice(0.0_f64.max(0.9 * v_lo), v_hi, 5, "airspeed (m/s)");
     let y = Axis::nice(0.0, 1.05 * s_hi, 5, "sink rate (m/s)");
     let pens = [

@@ -69,10 +69,16 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     if data.glide.is_some() && chart_h - shortfall < MIN_CHART_H + extra {
         // Too crowded for a third chart: the page keeps the two balance charts (the glide
         // figures stay in the key figures and in `check`).
-        let two = ReportData {
+        let mut two = ReportData {
             glide: None,
             ..data.clone()
         };
+        two.cautions.push(crate::caution::Caution::new(
+            crate::caution::Level::Note,
+            "sink-chart-left-out",
+            "The sink chart is left out of this page for room; `trimline check` prints the \
+             glide table.",
+        ));
         return draw(&two, paper);
     }
     let notes = data
@@ -519,6 +525,21 @@ mod tests {
         }
         assert_clean_layout(&d, Paper::A4);
         assert_clean_layout(&d, Paper::Letter);
+        // A page without the sink chart says so (or says that notes were left out).
+        for paper in [Paper::A4, Paper::Letter] {
+            let texts: Vec<String> = draw(&d, paper)
+                .text_boxes()
+                .iter()
+                .map(|t| t.text.clone())
+                .collect();
+            let all = texts.join(" ");
+            assert!(
+                all.contains("Sink rate against airspeed")
+                    || all.contains("sink chart is left out")
+                    || all.contains("notes are left out"),
+                "{paper:?}"
+            );
+        }
         // The alarm stays on its bar inside the balance box (58 mm wide at the left margin).
         let c = draw(&d, Paper::A4);
         let alarm = c
