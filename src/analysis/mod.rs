@@ -1660,8 +1660,14 @@ fn uncertain_aft_limit_caution(
                 1000.0 * band_forward_x_m
             )
         };
+        // A CG range that reaches behind the neutral point itself may be unstable.
+        let level = if cg_aft_end >= neutral_point_x_m {
+            Level::Danger
+        } else {
+            Level::Warning
+        };
         cautions.push(Caution::new(
-            Level::Warning,
+            level,
             "cg-aft-of-uncertain-limit",
             format!(
                 "{cg_text} is inside the recommended band but {:.0} mm aft of {:.0} mm, the \

@@ -577,7 +577,11 @@ fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Table {
                     let decimals = if (kg * 1000.0).abs() < 10.0 { 1 } else { 0 };
                     format!("{} {}", u.mass(kg, decimals), u.mass_unit())
                 },
-                "negative: a download".into(),
+                if ft.stabiliser_load_n < 0.0 {
+                    "a download".into()
+                } else {
+                    "an upload".into()
+                },
             ]);
             let canard = aircraft
                 .stabiliser

@@ -224,12 +224,21 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
     // the band is safe enough and sends the builder to the band's forward end, never to a
     // position outside it.
     let wild = one_mass(x_mm, "x_tolerance = 200\n");
-    let msg = &wild
+    let caution = wild
         .cautions
         .iter()
         .find(|c| c.code == "cg-aft-of-uncertain-limit")
-        .expect("the caution is raised")
-        .message;
+        .expect("the caution is raised");
+    // Its CG range reaches behind the neutral point: a danger, not a warning.
+    assert_eq!(caution.level, trimline::caution::Level::Danger);
+    let level_with = with
+        .cautions
+        .iter()
+        .find(|c| c.code == "cg-aft-of-uncertain-limit")
+        .unwrap()
+        .level;
+    assert_eq!(level_with, trimline::caution::Level::Warning);
+    let msg = &caution.message;
     let fwd = format!("{:.0} mm", 1000.0 * wild.band.forward_x_m);
     assert!(
         msg.contains("No CG in the recommended band") && msg.contains(&fwd),
