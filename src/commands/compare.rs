@@ -151,6 +151,25 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
              ballast bay that reaches the target).\n",
             trimline::output::compare::compare_table_in(&figures, args.unit_system.into())
         ))?;
+        // Which warnings and dangers each column raised (`check --setup NAME` prints them).
+        let mut named = String::new();
+        for k in figures.iter().filter(|k| !k.caution_codes.is_empty()) {
+            let codes: Vec<String> = k
+                .caution_codes
+                .iter()
+                .map(|(l, c)| format!("{}:{c}", l.as_str()))
+                .collect();
+            named.push_str(&format!(
+                "  {}: {}\n",
+                trimline::printable::printable(&k.name),
+                codes.join(" ")
+            ));
+        }
+        if !named.is_empty() {
+            super::emit(&format!(
+                "Warnings and dangers raised (read them with `trimline check --setup NAME`):\n{named}"
+            ))?;
+        }
     }
     Ok(super::Finish::from_dangers(
         dangers,

@@ -250,3 +250,31 @@ fn compare_json_numbers_are_rounded_and_counts_are_integers() {
         assert_eq!(counts, 4 * columns, "warnings and dangers in both maps");
     }
 }
+
+// The table names the warnings and dangers of each column (their counts alone leave the
+// builder guessing), with the same codes as `check --setup` of that column.
+#[test]
+fn compare_names_each_columns_cautions() {
+    let out = trimline(&["compare", "aircraft/larkspire-2000.toml"]);
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(text.contains("Warnings and dangers raised"), "{text}");
+    let check = trimline(&[
+        "check",
+        "aircraft/larkspire-2000.toml",
+        "--setup",
+        "battery 40 mm aft",
+        "--json",
+    ]);
+    let v: serde_json::Value = serde_json::from_slice(&check.stdout).unwrap();
+    let line = text
+        .lines()
+        .find(|l| l.trim_start().starts_with("battery 40 mm aft:"))
+        .expect("a line for the setup");
+    for c in v["cautions"].as_array().unwrap() {
+        let level = c["level"].as_str().unwrap();
+        if level == "warning" || level == "danger" {
+            let code = c["code"].as_str().unwrap();
+            assert!(line.contains(code), "{code} missing from {line}");
+        }
+    }
+}
