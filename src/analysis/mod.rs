@@ -99,7 +99,20 @@ fn fin_note(
     if let (Some(f), None) = (fin, vee_tail) {
         let (lo, hi) = FIN_VOLUME_RANGE;
         let v = f.volume_coefficient;
-        if v.is_finite() && !(lo..=hi).contains(&v) {
+        if f.arm_m.is_finite() && f.arm_m <= 0.0 {
+            // A fin at or ahead of the wing destabilises in yaw: most likely a position typed
+            // from another datum or in another unit.
+            cautions.push(Caution::new(
+                Level::Warning,
+                "fin-ahead-of-wing",
+                format!(
+                    "The fin's quarter chord lies {:.0} mm ahead of the wing's: a fin there \
+                     makes the aircraft unstable in yaw. Check fin.x (measured from the datum, \
+                     in mm unless a unit is written).",
+                    -1000.0 * f.arm_m
+                ),
+            ));
+        } else if v.is_finite() && !(lo..=hi).contains(&v) {
             cautions.push(Caution::new(
                 Level::Note,
                 "fin-volume-outside-range",

@@ -129,6 +129,26 @@ fn a_fin_outside_the_published_range_gets_a_note() {
     assert!(has(&a, "fin-volume-outside-range"));
 }
 
+// A fin ahead of the wing (here typed from the wrong end) destabilises in yaw: a warning
+// that names fin.x, not a volume note (common practice: the fin acts only behind the CG).
+#[test]
+fn a_fin_ahead_of_the_wing_is_a_warning() {
+    let ahead = FIN.replace("x = 840", "x = -300");
+    let a = analysis(&format!("{BASE}{ahead}"));
+    let c = a
+        .cautions
+        .iter()
+        .find(|c| c.code == "fin-ahead-of-wing")
+        .expect("warning raised");
+    assert_eq!(c.level, trimline::caution::Level::Warning);
+    assert!(c.message.contains("fin.x"), "{}", c.message);
+    assert!(!has(&a, "fin-volume-outside-range"));
+    assert!(!has(
+        &analysis(&format!("{BASE}{FIN}")),
+        "fin-ahead-of-wing"
+    ));
+}
+
 /// The base glider with its tail turned into a V-tail of 40 deg dihedral.
 fn vee(extra: &str) -> String {
     format!(
