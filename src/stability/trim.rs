@@ -495,33 +495,15 @@ pub fn full_stability_on(
 
     // Forward CG limit from elevator (or elevon) authority; not for a canard, whose elevator
     // works on the surface that must stall first.
-    let is_canard = input
-        .aircraft
-        .stabiliser
-        .as_ref()
-        .is_some_and(|s| s.role == StabiliserRole::Canard);
-    let (elevator_forward_limit_x_m, forward_limit_cause) = match pitch_control {
-        Some(p) if !is_canard => {
-            let full_up_rad = model_full_up_rad(p);
-            let find = || {
-                elevator_limit(
-                    system,
-                    map.as_ref(),
-                    &base,
-                    full_up_rad,
-                    neutral_point_x_m,
-                    c,
-                    z,
-                    fuselage_shift_m,
-                )
-            };
-            match memo {
-                Some(m) => m.get_or([z, full_up_rad, input.fuselage_cm_alpha_per_rad], find),
-                None => find(),
-            }
-        }
-        _ => (None, ForwardLimitCause::ControlAuthority),
-    };
+    let (elevator_forward_limit_x_m, forward_limit_cause) = forward_limit(
+        system,
+        map.as_ref(),
+        &base,
+        input,
+        memo,
+        neutral_point_x_m,
+        fuselage_shift_m,
+    );
 
     // Solves for a target speed: only for a stable aircraft (with the CG behind the neutral
     // point a trimmed state cannot be held, and rigging advice would mislead), and a CG for the
@@ -590,6 +572,49 @@ pub fn full_stability_on(
         top_speed_m_s,
         tailless,
     })
+}
+
+/// The forward CG limit (m) from full nose-up pitch control and its cause, from `memo` when it
+/// knows it; none for a canard, whose elevator works on the surface that must stall first.
+fn forward_limit(
+    system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
+    base: &FlightCondition,
+    input: &TrimInput<'_>,
+    memo: Option<&ForwardLimitMemo>,
+    neutral_point_x_m: f64,
+    fuselage_shift_m: f64,
+) -> (Option<f64>, ForwardLimitCause) {
+    let mac_m = system.reference().mac_m;
+    let z = input.cg_z_m;
+    let pitch_control = input.aircraft.pitch_control();
+    let is_canard = input
+        .aircraft
+        .stabiliser
+        .as_ref()
+        .is_some_and(|s| s.role == StabiliserRole::Canard);
+    match pitch_control {
+        Some(p) if !is_canard => {
+            let full_up_rad = model_full_up_rad(p);
+            let find = || {
+                elevator_limit(
+                    system,
+                    map,
+                    base,
+                    full_up_rad,
+                    neutral_point_x_m,
+                    mac_m,
+                    z,
+                    fuselage_shift_m,
+                )
+            };
+            match memo {
+                Some(m) => m.get_or([z, full_up_rad, input.fuselage_cm_alpha_per_rad], find),
+                None => find(),
+            }
+        }
+        _ => (None, ForwardLimitCause::ControlAuthority),
+    }
 }
 
 /// The trimmed state with neutral pitch control at the CG (`cg_eff_x_m`, shifted for the
