@@ -336,25 +336,44 @@ pub fn glide_cautions(
 ) {
     let p = match polar {
         Ok(p) => p,
-        Err(NoPolar::NoTrimControl) => {
+        Err(why) => {
+            no_polar_caution(why, cautions);
+            return;
+        }
+    };
+    min_sink_near_stall_caution(p, cautions);
+    early_separation_caution(p, cautions);
+    profile_drag_estimated_cautions(p, cautions);
+    polar_drag_extrapolated_note(p, cautions);
+    polar_control_runs_out_caution(aircraft, p, cautions);
+}
+
+/// The caution `no-flight-polar` saying why there is no flight polar (none when no stall was
+/// found).
+fn no_polar_caution(why: &NoPolar, cautions: &mut Vec<Caution>) {
+    match why {
+        NoPolar::NoTrimControl => {
             cautions.push(Caution::new(
                 Level::Note,
                 "no-flight-polar",
                 "Without a pitch control or a tailplane the aircraft flies at one trimmed speed \
-                 only, so no glide polar over speed is computed.",
+             only, so no glide polar over speed is computed.",
             ));
-            return;
         }
-        Err(NoPolar::NoStall) => return,
-        Err(NoPolar::Failed(e)) => {
+        NoPolar::NoStall => {}
+        NoPolar::Failed(e) => {
             cautions.push(Caution::new(
-                Level::Warning,
-                "no-flight-polar",
-                format!("The glide polar could not be computed ({e}); no sink or glide figures are given."),
-            ));
-            return;
+            Level::Warning,
+            "no-flight-polar",
+            format!("The glide polar could not be computed ({e}); no sink or glide figures are given."),
+        ));
         }
-    };
+    }
+}
+
+/// The warning `min-sink-near-stall` when the least sink lies at the stall or within
+/// `MIN_SINK_STALL_MARGIN` times the stall speed.
+fn min_sink_near_stall_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
     let vs = p.stall_speed_m_s;
     let ms = &p.min_sink;
     if ms.at_stall || ms.point.speed_m_s < MIN_SINK_STALL_MARGIN * vs {
@@ -373,6 +392,12 @@ pub fn glide_cautions(
             ),
         ));
     }
+}
+
+/// The warning `section-separates-early` when an airfoil's viscous polar separates below the
+/// cl it flies at the stall speed.
+fn early_separation_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
+    let vs = p.stall_speed_m_s;
     if let Some(e) = &p.early_separation {
         cautions.push(Caution::new(
             Level::Warning,
@@ -391,6 +416,11 @@ pub fn glide_cautions(
             ),
         ));
     }
+}
+
+/// The warning `profile-drag-estimated` for each airfoil whose section drag is the flat-plate
+/// estimate.
+fn profile_drag_estimated_cautions(p: &GlidePolar, cautions: &mut Vec<Caution>) {
     for s in &p.profile_sources {
         if let Some(reason) = &s.flat_plate_reason {
             cautions.push(Caution::new(
@@ -405,6 +435,11 @@ pub fn glide_cautions(
             ));
         }
     }
+}
+
+/// The note `polar-drag-extrapolated` with the speed range (m/s) where some flyable point's
+/// drag is continued beyond its section polar.
+fn polar_drag_extrapolated_note(p: &GlidePolar, cautions: &mut Vec<Caution>) {
     let extrapolated: Vec<f64> = p
         .points
         .iter()
@@ -425,6 +460,15 @@ pub fn glide_cautions(
             ),
         ));
     }
+}
+
+/// The warning `polar-control-runs-out` over the speeds (m/s) the pitch control cannot
+/// trim.
+fn polar_control_runs_out_caution(
+    aircraft: &Aircraft,
+    p: &GlidePolar,
+    cautions: &mut Vec<Caution>,
+) {
     let unflyable: Vec<f64> = p
         .points
         .iter()

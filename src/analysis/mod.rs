@@ -489,24 +489,15 @@ pub fn analyse_with(
         .as_ref()
         .map(|s| classical::equivalent_surface(&s.surface, thin_sections));
     let mass = balance::mass_summary(&aircraft.masses)?;
-    let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
-        StabiliserRole::Tail => StabiliserPlace::Tail,
-        StabiliserRole::Canard => StabiliserPlace::Canard,
-    });
     let fuselage_cm_alpha_per_rad = fuselage_cm_alpha(aircraft, &wing);
-    let estimate_input = classical::EstimateInput {
-        wing: &wing,
-        stabiliser: stabiliser.as_ref().zip(place),
-        mass_kg: mass.total_kg,
-        cg_x_m: mass.cg_x_m,
-        density_kg_m3: air.density_kg_m3,
+    let estimate_input = closed_form_input(
+        aircraft,
+        &wing,
+        stabiliser.as_ref(),
+        &mass,
+        &air,
         fuselage_cm_alpha_per_rad,
-        stabiliser_dynamic_pressure_ratio: aircraft
-            .stabiliser
-            .as_ref()
-            .map_or(1.0, |s| s.dynamic_pressure_ratio),
-        downwash_factor: 1.0,
-    };
+    );
     let estimate = classical::estimate(&estimate_input);
     let neutral_point_spread = crate::stability::uncertainty::linear_spread(
         &estimate_input,
@@ -520,66 +511,13 @@ pub fn analyse_with(
         fuselage_cm_alpha_per_rad,
         options,
     );
-    let full = match system
-        .map_err(Clone::clone)
-        .and_then(|system| trim::full_stability_on(system, &input, memo))
-    {
-        Ok(f) => Some(f),
-        Err(e) => {
-            cautions.push(Caution::new(
-                Level::Warning,
-                "lifting-line-failed",
-                format!(
-                    "The lifting-line model could not be solved ({e}); the figures come from the \
-                     closed-form estimate only, which ignores sweep, tail height and the spanwise loading."
-                ),
-            ));
-            None
-        }
-    };
+    let full = full_stability_or_caution(system, &input, memo, &mut cautions);
     let headline = headline_of(aircraft, full.as_ref(), &estimate);
 
     let mac = wing.geometry.mac_m;
     let np = headline.neutral_point_x_m;
-    let margin_forward_x_m = np - aircraft.margin_limits.max_static_margin * mac;
-    let elevator_limit = full.as_ref().and_then(|f| {
-        f.elevator_forward_limit_x_m
-            .map(|x| (x, f.forward_limit_cause))
-    });
-    let (forward_x_m, forward_limit) = match elevator_limit {
-        Some((x, cause)) if x > margin_forward_x_m => (
-            x,
-            match cause {
-                trim::ForwardLimitCause::ControlAuthority => ForwardLimit::ElevatorAuthority,
-                trim::ForwardLimitCause::StabiliserClMin => ForwardLimit::TailStall,
-            },
-        ),
-        _ => (margin_forward_x_m, ForwardLimit::StaticMargin),
-    };
-    let aft_x_m = np - aircraft.margin_limits.min_static_margin * mac;
-    // A control too weak to hold the stall even at the aft limit leaves no usable range: the
-    // band closes on its aft end and a danger says so (`cg-band-empty`).
-    let band_empty = forward_x_m > aft_x_m;
-    let band = CgBand {
-        forward_x_m: forward_x_m.min(aft_x_m),
-        aft_x_m,
-        forward_limit,
-    };
-    let ballast = match aircraft.targets.static_margin {
-        None => Vec::new(),
-        Some(sm) => {
-            let target_x_m = np - sm * mac;
-            aircraft
-                .ballast_bays
-                .iter()
-                .map(|bay| BallastAdvice {
-                    bay: bay.name.clone(),
-                    target_x_m,
-                    outcome: balance::ballast_for_target(&mass, bay, target_x_m),
-                })
-                .collect()
-        }
-    };
+    let (band, band_empty) = cg_band(aircraft, full.as_ref(), np, mac);
+    let ballast = ballast_advice(aircraft, &mass, np, mac);
     let speed = headline
         .trim
         .map(|t| t.speed_m_s)
@@ -594,7 +532,7 @@ pub fn analyse_with(
         &air,
         headline.cl_max,
     );
-    for (name, v) in [
+    require_finite(&[
         ("neutral point", headline.neutral_point_x_m),
         ("static margin", headline.static_margin),
         ("stall speed", headline.stall_speed_m_s),
@@ -603,87 +541,17 @@ pub fn analyse_with(
         ("zero-lift drag", glide.cd0),
         ("best glide", glide.performance.best_glide.glide_ratio),
         ("minimum sink", glide.performance.min_sink.sink_m_s),
-    ] {
-        if !v.is_finite() {
-            return Err(AnalysisError::NonFinite { quantity: name });
-        }
-    }
-    let unstable = full.as_ref().is_some_and(|f| f.static_margin <= 0.0);
-    if options.flight_polar && unstable {
-        cautions.push(Caution::new(
-            Level::Note,
-            "no-flight-polar",
-            "At this CG the aircraft is unstable in pitch (negative static margin): it cannot \
-             hold a trimmed glide, so no glide figures are given.",
-        ));
-    }
-    let (glide_polar, flap_polars) = match (options.flight_polar, system, full.as_ref()) {
-        (true, Ok(system), Some(f)) if !unstable => {
-            let glide_input = glide::GlideInput {
-                aircraft,
-                system,
-                sections,
-                full: f,
-                mass_kg: mass.total_kg,
-                cg_m: (input.cg_x_m, input.cg_z_m),
-                air: &air,
-                panels: options.panels,
-            };
-            let polar = glide::glide_polar(&glide_input);
-            glide::glide_cautions(aircraft, &polar, &mut cautions);
-            let settings = glide::setting_polars(&glide_input);
-            glide::setting_cautions(aircraft, &settings, &mut cautions);
-            (polar.ok(), settings)
-        }
-        _ => (None, Vec::new()),
-    };
-    if let Some(p) = &glide_polar {
-        for (name, v) in [
-            ("minimum sink", p.min_sink.point.sink_m_s),
-            ("best glide", p.best_glide.point.glide_ratio),
-        ] {
-            if !v.is_finite() {
-                return Err(AnalysisError::NonFinite { quantity: name });
-            }
-        }
-    }
-    let weighed = if aircraft.weighing.is_empty() {
-        None
-    } else {
-        Some(balance::weighing(&aircraft.weighing)?)
-    };
-    if let Some(w) = &weighed {
-        weighing_caution(w, &mass, &mut cautions);
-    }
-    let with_z = aircraft.masses.iter().filter(|m| m.z_m.is_some()).count();
-    if with_z > 0 && with_z < aircraft.masses.len() {
-        cautions.push(Caution::new(
-            Level::Note,
-            "vertical-cg-partial",
-            format!(
-                "{with_z} of the {} masses have a height (z); the vertical CG needs all of them, so it is \
-                 not used and moments are taken at the wing root's height. Give every mass a z to use it.",
-                aircraft.masses.len()
-            ),
-        ));
-    }
+    ])?;
+    let (glide_polar, flap_polars) =
+        flight_polar_if_asked(&input, system, full.as_ref(), &air, options, &mut cautions)?;
+    let weighed = weighing_if_any(aircraft, &mass, &mut cautions)?;
+    vertical_cg_partial_caution(aircraft, &mut cautions);
     let tail_volume = stabiliser
         .as_ref()
         .map(|s| planform::tail_volume(&wing.geometry, &s.geometry));
 
     if band_empty {
-        let control = aircraft.pitch_control_name();
-        cautions.push(Caution::new(
-            Level::Danger,
-            "cg-band-empty",
-            format!(
-                "Full up {control} cannot hold the wing at its stall even with the CG at the aft end \
-                 of the recommended range ({:.0} mm from the datum, static margin {:.0} %): there is no \
-                                  usable CG range. Give the {control} more throw or more chord before flying.",
-                aft_x_m * 1000.0,
-                100.0 * aircraft.margin_limits.min_static_margin
-            ),
-        ));
+        cg_band_empty_caution(aircraft, band.aft_x_m, &mut cautions);
     }
     let elevons_trim_it = full
         .as_ref()
@@ -710,16 +578,11 @@ pub fn analyse_with(
             &mut cautions,
         );
     }
-    let tip_chord_m = planform::station_at(
-        &aircraft.wing,
-        TIP_REYNOLDS_STATION * planform::half_span_length_m(&aircraft.wing),
-    )
-    .chord_m;
-    reynolds_caution(
+    tip_reynolds_caution(
+        aircraft,
+        &air,
         reynolds_mac,
         speed,
-        air.reynolds(headline.stall_speed_m_s, tip_chord_m),
-        tip_chord_m,
         headline.stall_speed_m_s,
         &mut cautions,
     );
@@ -782,6 +645,259 @@ pub fn analyse_with(
         flap_polars,
         cautions,
     })
+}
+
+/// The closed-form estimate's input: the equivalent wing and stabiliser (with its place, tail
+/// or canard), the mass and CG, the air density, the fuselage's pitching term and the
+/// stabiliser's dynamic-pressure ratio (1 without a stabiliser).
+fn closed_form_input<'a>(
+    aircraft: &Aircraft,
+    wing: &'a EquivalentSurface,
+    stabiliser: Option<&'a EquivalentSurface>,
+    mass: &MassSummary,
+    air: &AirState,
+    fuselage_cm_alpha_per_rad: f64,
+) -> classical::EstimateInput<'a> {
+    let place = aircraft.stabiliser.as_ref().map(|s| match s.role {
+        StabiliserRole::Tail => StabiliserPlace::Tail,
+        StabiliserRole::Canard => StabiliserPlace::Canard,
+    });
+    classical::EstimateInput {
+        wing,
+        stabiliser: stabiliser.zip(place),
+        mass_kg: mass.total_kg,
+        cg_x_m: mass.cg_x_m,
+        density_kg_m3: air.density_kg_m3,
+        fuselage_cm_alpha_per_rad,
+        stabiliser_dynamic_pressure_ratio: aircraft
+            .stabiliser
+            .as_ref()
+            .map_or(1.0, |s| s.dynamic_pressure_ratio),
+        downwash_factor: 1.0,
+    }
+}
+
+/// The full lifting-line balance and trim on `system`, or `None` with the warning
+/// `lifting-line-failed` when the system could not be built or solved.
+fn full_stability_or_caution(
+    system: Result<&MultiSurfaceSystem, &LiftingLineError>,
+    input: &trim::TrimInput<'_>,
+    memo: Option<&trim::ForwardLimitMemo>,
+    cautions: &mut Vec<Caution>,
+) -> Option<trim::FullStability> {
+    match system
+        .map_err(Clone::clone)
+        .and_then(|system| trim::full_stability_on(system, input, memo))
+    {
+        Ok(f) => Some(f),
+        Err(e) => {
+            cautions.push(Caution::new(
+                Level::Warning,
+                "lifting-line-failed",
+                format!(
+                    "The lifting-line model could not be solved ({e}); the figures come from the \
+                     closed-form estimate only, which ignores sweep, tail height and the spanwise loading."
+                ),
+            ));
+            None
+        }
+    }
+}
+
+/// The recommended CG band from the neutral point `np_x_m` and the wing's MAC `mac_m`: the
+/// aft end at the least static margin, the forward end at the greatest static margin or at the
+/// full model's forward limit when that lies further aft. The flag is true when that forward
+/// limit lies aft of the aft end (no usable range; the band then closes on its aft end).
+fn cg_band(
+    aircraft: &Aircraft,
+    full: Option<&trim::FullStability>,
+    np_x_m: f64,
+    mac_m: f64,
+) -> (CgBand, bool) {
+    let margin_forward_x_m = np_x_m - aircraft.margin_limits.max_static_margin * mac_m;
+    let elevator_limit = full.and_then(|f| {
+        f.elevator_forward_limit_x_m
+            .map(|x| (x, f.forward_limit_cause))
+    });
+    let (forward_x_m, forward_limit) = match elevator_limit {
+        Some((x, cause)) if x > margin_forward_x_m => (
+            x,
+            match cause {
+                trim::ForwardLimitCause::ControlAuthority => ForwardLimit::ElevatorAuthority,
+                trim::ForwardLimitCause::StabiliserClMin => ForwardLimit::TailStall,
+            },
+        ),
+        _ => (margin_forward_x_m, ForwardLimit::StaticMargin),
+    };
+    let aft_x_m = np_x_m - aircraft.margin_limits.min_static_margin * mac_m;
+    // A control too weak to hold the stall even at the aft limit leaves no usable range: the
+    // band closes on its aft end and a danger says so (`cg-band-empty`).
+    let band_empty = forward_x_m > aft_x_m;
+    let band = CgBand {
+        forward_x_m: forward_x_m.min(aft_x_m),
+        aft_x_m,
+        forward_limit,
+    };
+    (band, band_empty)
+}
+
+/// Ballast advice for every bay to reach the file's target static margin (none without a
+/// target), from the neutral point `np_x_m` and the wing's MAC `mac_m`.
+fn ballast_advice(
+    aircraft: &Aircraft,
+    mass: &MassSummary,
+    np_x_m: f64,
+    mac_m: f64,
+) -> Vec<BallastAdvice> {
+    match aircraft.targets.static_margin {
+        None => Vec::new(),
+        Some(sm) => {
+            let target_x_m = np_x_m - sm * mac_m;
+            aircraft
+                .ballast_bays
+                .iter()
+                .map(|bay| BallastAdvice {
+                    bay: bay.name.clone(),
+                    target_x_m,
+                    outcome: balance::ballast_for_target(mass, bay, target_x_m),
+                })
+                .collect()
+        }
+    }
+}
+
+/// The first named quantity that is not finite, as `AnalysisError::NonFinite`.
+fn require_finite(quantities: &[(&'static str, f64)]) -> Result<(), AnalysisError> {
+    for &(name, v) in quantities {
+        if !v.is_finite() {
+            return Err(AnalysisError::NonFinite { quantity: name });
+        }
+    }
+    Ok(())
+}
+
+/// The flight polar from the trimmed wing model, when asked for and the full model solved,
+/// with the glide cautions; an error when its minimum sink or best glide is not finite.
+fn flight_polar_if_asked(
+    input: &trim::TrimInput<'_>,
+    system: Result<&MultiSurfaceSystem, &LiftingLineError>,
+    full: Option<&trim::FullStability>,
+    air: &AirState,
+    options: &AnalysisOptions,
+    cautions: &mut Vec<Caution>,
+) -> Result<(Option<glide::GlidePolar>, Vec<glide::SettingPolar>), AnalysisError> {
+    let unstable = full.is_some_and(|f| f.static_margin <= 0.0);
+    if options.flight_polar && unstable {
+        cautions.push(Caution::new(
+            Level::Note,
+            "no-flight-polar",
+            "At this CG the aircraft is unstable in pitch (negative static margin): it cannot \
+             hold a trimmed glide, so no glide figures are given.",
+        ));
+    }
+    let (glide_polar, flap_polars) = match (options.flight_polar, system, full) {
+        (true, Ok(system), Some(f)) if !unstable => {
+            let glide_input = glide::GlideInput {
+                aircraft: input.aircraft,
+                system,
+                sections: input.sections,
+                full: f,
+                mass_kg: input.mass_kg,
+                cg_m: (input.cg_x_m, input.cg_z_m),
+                air,
+                panels: options.panels,
+            };
+            let polar = glide::glide_polar(&glide_input);
+            glide::glide_cautions(input.aircraft, &polar, cautions);
+            let settings = glide::setting_polars(&glide_input);
+            glide::setting_cautions(input.aircraft, &settings, cautions);
+            (polar.ok(), settings)
+        }
+        _ => (None, Vec::new()),
+    };
+    if let Some(p) = &glide_polar {
+        require_finite(&[
+            ("minimum sink", p.min_sink.point.sink_m_s),
+            ("best glide", p.best_glide.point.glide_ratio),
+        ])?;
+    }
+    Ok((glide_polar, flap_polars))
+}
+
+/// The mass and CG from the file's weighing, if it has one, with the caution comparing it
+/// with the listed masses.
+fn weighing_if_any(
+    aircraft: &Aircraft,
+    mass: &MassSummary,
+    cautions: &mut Vec<Caution>,
+) -> Result<Option<MassSummary>, AnalysisError> {
+    let weighed = if aircraft.weighing.is_empty() {
+        None
+    } else {
+        Some(balance::weighing(&aircraft.weighing)?)
+    };
+    if let Some(w) = &weighed {
+        weighing_caution(w, mass, cautions);
+    }
+    Ok(weighed)
+}
+
+/// The note `vertical-cg-partial` when some but not all masses have a height.
+fn vertical_cg_partial_caution(aircraft: &Aircraft, cautions: &mut Vec<Caution>) {
+    let with_z = aircraft.masses.iter().filter(|m| m.z_m.is_some()).count();
+    if with_z > 0 && with_z < aircraft.masses.len() {
+        cautions.push(Caution::new(
+            Level::Note,
+            "vertical-cg-partial",
+            format!(
+                "{with_z} of the {} masses have a height (z); the vertical CG needs all of them, so it is \
+                 not used and moments are taken at the wing root's height. Give every mass a z to use it.",
+                aircraft.masses.len()
+            ),
+        ));
+    }
+}
+
+/// The danger `cg-band-empty`: full nose-up control cannot hold the stall even with the CG at
+/// the band's aft end `aft_x_m`.
+fn cg_band_empty_caution(aircraft: &Aircraft, aft_x_m: f64, cautions: &mut Vec<Caution>) {
+    let control = aircraft.pitch_control_name();
+    cautions.push(Caution::new(
+        Level::Danger,
+        "cg-band-empty",
+        format!(
+            "Full up {control} cannot hold the wing at its stall even with the CG at the aft end \
+             of the recommended range ({:.0} mm from the datum, static margin {:.0} %): there is no \
+                              usable CG range. Give the {control} more throw or more chord before flying.",
+            aft_x_m * 1000.0,
+            100.0 * aircraft.margin_limits.min_static_margin
+        ),
+    ));
+}
+
+/// The Reynolds-number cautions on the MAC at `speed_m_s` and near the tip (at
+/// `TIP_REYNOLDS_STATION` of the half span) at the stall speed `stall_speed_m_s`.
+fn tip_reynolds_caution(
+    aircraft: &Aircraft,
+    air: &AirState,
+    reynolds_mac: f64,
+    speed_m_s: f64,
+    stall_speed_m_s: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    let tip_chord_m = planform::station_at(
+        &aircraft.wing,
+        TIP_REYNOLDS_STATION * planform::half_span_length_m(&aircraft.wing),
+    )
+    .chord_m;
+    reynolds_caution(
+        reynolds_mac,
+        speed_m_s,
+        air.reynolds(stall_speed_m_s, tip_chord_m),
+        tip_chord_m,
+        stall_speed_m_s,
+        cautions,
+    );
 }
 
 fn headline_of(
@@ -912,7 +1028,19 @@ fn balance_cautions(
     elevons_trim_it: bool,
     cautions: &mut Vec<Caution>,
 ) {
-    let mac_mm = mac_m * 1000.0;
+    static_margin_cautions(aircraft, mass, h, cautions);
+    cg_outside_band_caution(aircraft, mass, band, cautions);
+    trim_cautions(aircraft, mass, h, band, elevons_trim_it, cautions);
+    band_defaults_note(aircraft, mac_m, cautions);
+}
+
+/// The danger `static-margin-negative` or the warning `static-margin-low`.
+fn static_margin_cautions(
+    aircraft: &Aircraft,
+    mass: &MassSummary,
+    h: &Headline,
+    cautions: &mut Vec<Caution>,
+) {
     let sm_pct = 100.0 * h.static_margin;
     if h.static_margin < 0.0 {
         cautions.push(Caution::new(
@@ -934,6 +1062,16 @@ fn balance_cautions(
             ),
         ));
     }
+}
+
+/// The warning `cg-aft-of-band` or `cg-forward-of-band` (with why the forward limit is there),
+/// when the CG is more than half a millimetre outside the band.
+fn cg_outside_band_caution(
+    aircraft: &Aircraft,
+    mass: &MassSummary,
+    band: &CgBand,
+    cautions: &mut Vec<Caution>,
+) {
     let fwd = band.forward_x_m;
     let aft = band.aft_x_m;
     if mass.cg_x_m > aft + 5e-4 {
@@ -976,6 +1114,19 @@ fn balance_cautions(
             ),
         ));
     }
+}
+
+/// The cautions on the trim point: `trim-beyond-stall`, `trim-near-stall` (each with what to
+/// change to trim faster), or `no-trim` when a stable aircraft finds no trim (unless its
+/// elevons trim it within their throws).
+fn trim_cautions(
+    aircraft: &Aircraft,
+    mass: &MassSummary,
+    h: &Headline,
+    band: &CgBand,
+    elevons_trim_it: bool,
+    cautions: &mut Vec<Caution>,
+) {
     // With the incidences fixed, a CG further forward trims at a lower CL (faster): CL_trim =
     // Cm0 about the neutral point / static margin (Etkin & Reid, sec. 2.3).
     let rigging = if aircraft.stabiliser.is_some() {
@@ -1030,6 +1181,12 @@ fn balance_cautions(
             .to_string(),
         ));
     }
+}
+
+/// The note `band-defaults` when the band uses the common-practice static margins, on a mean
+/// chord of `mac_m`.
+fn band_defaults_note(aircraft: &Aircraft, mac_m: f64, cautions: &mut Vec<Caution>) {
+    let mac_mm = mac_m * 1000.0;
     if aircraft.margin_limits.from_defaults {
         cautions.push(Caution::new(
             Level::Note,
@@ -1088,6 +1245,23 @@ fn full_model_cautions(
     mac_m: f64,
     cg_x_m: f64,
     band_aft_x_m: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    stall_order_caution(aircraft, f, h, cautions);
+    elevator_authority_caution(aircraft, f, cautions);
+    tail_stall_in_range_caution(f, cautions);
+    if let Some(t) = &f.tailless {
+        tailless_trim_caution(aircraft, t, cg_x_m, band_aft_x_m, cautions);
+    }
+    models_disagree_note(aircraft, f, est, mac_m, cautions);
+}
+
+/// The caution on which surface stalls first and where: `tail-stalls-first` (downwards at
+/// cl_min, or at cl_max), `canard-stall-order` or `tip-stall`.
+fn stall_order_caution(
+    aircraft: &Aircraft,
+    f: &trim::FullStability,
+    h: &Headline,
     cautions: &mut Vec<Caution>,
 ) {
     if let Some(loc) = &h.stall_location {
@@ -1170,6 +1344,15 @@ fn full_model_cautions(
             _ => {}
         }
     }
+}
+
+/// The warning `elevator-authority` at the first speed of the elevator schedule that needs more
+/// pitch-control throw than the aircraft has.
+fn elevator_authority_caution(
+    aircraft: &Aircraft,
+    f: &trim::FullStability,
+    cautions: &mut Vec<Caution>,
+) {
     if let Some(s) = aircraft.pitch_control() {
         if let Some(p) = f.elevator_schedule.iter().find(|p| !p.within_limits) {
             let canard = aircraft
@@ -1202,6 +1385,11 @@ fn full_model_cautions(
             ));
         }
     }
+}
+
+/// The warning `tail-stall-in-range` at the first speed of the elevator schedule where the
+/// tailplane is at its negative cl limit.
+fn tail_stall_in_range_caution(f: &trim::FullStability, cautions: &mut Vec<Caution>) {
     if let Some(p) = f.elevator_schedule.iter().find(|p| p.stabiliser_at_cl_min) {
         cautions.push(Caution::new(
             Level::Warning,
@@ -1215,90 +1403,117 @@ fn full_model_cautions(
             ),
         ));
     }
-    if let Some(t) = &f.tailless {
-        let untrimmed = t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4;
-        if let (true, true, Some(d)) = (untrimmed, t.elevon_within_throws, t.elevon_to_trim_rad) {
-            // Here the wing lacks nose-up moment at the design CL (a stable wing's moment falls
-            // with CL), so the fixes are more washout where it helps, or reflex.
-            let washout = t
-                .washout_change_rad
-                .map(f64::to_degrees)
-                .filter(|w| *w < 0.0 && w.abs() <= MAX_USEFUL_WASHOUT_CHANGE_DEG)
-                .map(|w| format!("About {:.1} deg more tip washout, or airfoils", w.abs()))
-                .unwrap_or_else(|| "Airfoils".to_string());
-            cautions.push(Caution::new(
-                Level::Note,
-                "tailless-trim",
-                format!(
-                    "With the elevons neutral this tailless wing does not trim at its design CL {:.2} \
-                     (pitching moment {} there, {} at zero lift). It trims there with about {:.1} \
-                     deg of {} elevon, within the throws; that much throw is then not available for \
-                                          control. {washout} with about {:.3} more reflex (cm_ac) would trim it \
-                     with the elevons neutral.",
-                    t.design_cl,
-                    signed(t.cm_at_design, 3),
-                    signed(t.cm_zero_lift, 3),
-                    d.abs().to_degrees(),
-                    if d < 0.0 { "up" } else { "down" },
-                    t.reflex_cm_change
-                ),
-            ));
-        } else if untrimmed {
-            let level = if t.cm_zero_lift <= 0.0 {
-                Level::Danger
-            } else {
-                Level::Warning
-            };
-            let elevons = match (aircraft.elevons, t.elevon_to_trim_rad) {
-                (Some(_), Some(d)) => format!(
-                    "; the elevons would need {:.1} deg {}, beyond their throws",
-                    d.abs().to_degrees(),
-                    if d < 0.0 { "up" } else { "down" }
-                ),
-                (Some(_), None) => "; the elevons cannot trim it there".to_string(),
-                _ => String::new(),
-            };
-            // The remedies that apply: washout within what the file accepts, reflex, and a
-            // CG further aft only while the CG is still ahead of the band's aft end.
-            let mut remedies = Vec::new();
-            if let Some(w) = t.washout_change_rad {
-                let deg = w.to_degrees();
-                if deg.abs() <= MAX_USEFUL_WASHOUT_CHANGE_DEG {
-                    remedies.push(format!(
-                        "about {:.1} deg {} tip washout",
-                        deg.abs(),
-                        if deg < 0.0 { "more" } else { "less" }
-                    ));
-                }
-            }
-            remedies.push(format!(
-                "airfoils with about {:.3} more reflex (cm_ac)",
+}
+
+/// The caution `tailless-trim`: a note when the elevons trim the wing within their throws, a
+/// danger or warning with the remedies when nothing trims it at its design CL.
+fn tailless_trim_caution(
+    aircraft: &Aircraft,
+    t: &trim::TaillessCheck,
+    cg_x_m: f64,
+    band_aft_x_m: f64,
+    cautions: &mut Vec<Caution>,
+) {
+    let untrimmed = t.cm_zero_lift <= 0.0 || t.cm_at_design < -1e-4;
+    if let (true, true, Some(d)) = (untrimmed, t.elevon_within_throws, t.elevon_to_trim_rad) {
+        // Here the wing lacks nose-up moment at the design CL (a stable wing's moment falls
+        // with CL), so the fixes are more washout where it helps, or reflex.
+        let washout = t
+            .washout_change_rad
+            .map(f64::to_degrees)
+            .filter(|w| *w < 0.0 && w.abs() <= MAX_USEFUL_WASHOUT_CHANGE_DEG)
+            .map(|w| format!("About {:.1} deg more tip washout, or airfoils", w.abs()))
+            .unwrap_or_else(|| "Airfoils".to_string());
+        cautions.push(Caution::new(
+            Level::Note,
+            "tailless-trim",
+            format!(
+                "With the elevons neutral this tailless wing does not trim at its design CL {:.2} \
+                 (pitching moment {} there, {} at zero lift). It trims there with about {:.1} \
+                 deg of {} elevon, within the throws; that much throw is then not available for \
+                                      control. {washout} with about {:.3} more reflex (cm_ac) would trim it \
+                 with the elevons neutral.",
+                t.design_cl,
+                signed(t.cm_at_design, 3),
+                signed(t.cm_zero_lift, 3),
+                d.abs().to_degrees(),
+                if d < 0.0 { "up" } else { "down" },
                 t.reflex_cm_change
-            ));
-            // At zero lift the moment about the CG is a pure couple: moving the CG cannot make
-            // it positive, so a CG further aft only helps when it already is.
-            if cg_x_m < band_aft_x_m - 5e-4 && t.cm_zero_lift > 0.0 {
-                remedies.push("the CG moved aft within the recommended band".to_string());
-            }
-            let last = remedies.pop().unwrap_or_default();
-            let remedies = if remedies.is_empty() {
-                last
-            } else {
-                format!("{}, or {last}", remedies.join(", "))
-            };
-            cautions.push(Caution::new(
-                level,
-                "tailless-trim",
-                format!(
-                    "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
-                     {} there, {} at zero lift; it must be positive at zero lift){elevons}. It needs {remedies}.",
-                    t.design_cl,
-                    signed(t.cm_at_design, 3),
-                    signed(t.cm_zero_lift, 3),
-                ),
+            ),
+        ));
+    } else if untrimmed {
+        let level = if t.cm_zero_lift <= 0.0 {
+            Level::Danger
+        } else {
+            Level::Warning
+        };
+        let elevons = match (aircraft.elevons, t.elevon_to_trim_rad) {
+            (Some(_), Some(d)) => format!(
+                "; the elevons would need {:.1} deg {}, beyond their throws",
+                d.abs().to_degrees(),
+                if d < 0.0 { "up" } else { "down" }
+            ),
+            (Some(_), None) => "; the elevons cannot trim it there".to_string(),
+            _ => String::new(),
+        };
+        let remedies = tailless_remedies(t, cg_x_m, band_aft_x_m);
+        cautions.push(Caution::new(
+            level,
+            "tailless-trim",
+            format!(
+                "This tailless wing does not trim at its design CL {:.2} with this CG (pitching moment \
+                 {} there, {} at zero lift; it must be positive at zero lift){elevons}. It needs {remedies}.",
+                t.design_cl,
+                signed(t.cm_at_design, 3),
+                signed(t.cm_zero_lift, 3),
+            ),
+        ));
+    }
+}
+
+/// The remedies for a tailless wing that does not trim, in words: washout within what the file
+/// accepts, reflex, and a CG further aft (`cg_x_m`) only while it is ahead of the band's aft
+/// end `band_aft_x_m` and the moment at zero lift is positive.
+fn tailless_remedies(t: &trim::TaillessCheck, cg_x_m: f64, band_aft_x_m: f64) -> String {
+    // The remedies that apply: washout within what the file accepts, reflex, and a
+    // CG further aft only while the CG is still ahead of the band's aft end.
+    let mut remedies = Vec::new();
+    if let Some(w) = t.washout_change_rad {
+        let deg = w.to_degrees();
+        if deg.abs() <= MAX_USEFUL_WASHOUT_CHANGE_DEG {
+            remedies.push(format!(
+                "about {:.1} deg {} tip washout",
+                deg.abs(),
+                if deg < 0.0 { "more" } else { "less" }
             ));
         }
     }
+    remedies.push(format!(
+        "airfoils with about {:.3} more reflex (cm_ac)",
+        t.reflex_cm_change
+    ));
+    // At zero lift the moment about the CG is a pure couple: moving the CG cannot make
+    // it positive, so a CG further aft only helps when it already is.
+    if cg_x_m < band_aft_x_m - 5e-4 && t.cm_zero_lift > 0.0 {
+        remedies.push("the CG moved aft within the recommended band".to_string());
+    }
+    let last = remedies.pop().unwrap_or_default();
+    if remedies.is_empty() {
+        last
+    } else {
+        format!("{}, or {last}", remedies.join(", "))
+    }
+}
+
+/// The note `models-disagree` when the full model's and the closed form's neutral points
+/// differ by more than `MODELS_DISAGREE` of the MAC `mac_m`, with why and what to do.
+fn models_disagree_note(
+    aircraft: &Aircraft,
+    f: &trim::FullStability,
+    est: &ClassicalEstimate,
+    mac_m: f64,
+    cautions: &mut Vec<Caution>,
+) {
     let diff = (f.neutral_point_x_m - est.neutral_point_x_m) / mac_m;
     if diff.abs() > MODELS_DISAGREE {
         let model = match aircraft.numerics.wing_model {

@@ -507,26 +507,7 @@ impl Ctx<'_> {
 
     fn aircraft(&self, raw: RawAircraft) -> Result<Aircraft, InputError> {
         self.counts(&raw)?;
-        let accepted_name = || Some("any text in quotes, e.g. name = \"My glider\"".into());
-        let Some(raw_name) = &raw.name else {
-            return Err(InputError::new(
-                self.whole_file(),
-                "name",
-                "missing: the aircraft needs a `name` at the top of the file, before any [table]",
-                accepted_name(),
-            ));
-        };
-        let name = raw_name.get_ref().trim().to_string();
-        if name.is_empty() {
-            return Err(self.err(
-                &raw_name.span(),
-                "name",
-                "must not be empty",
-                accepted_name(),
-            ));
-        }
-        self.check_name_length(&name, &raw_name.span(), "name")?;
-        let name = printable(&name).into_owned();
+        let name = self.aircraft_name(raw.name.as_ref())?;
         let air = self.air(raw.air.as_ref())?;
         let (airfoils, ids) = self.airfoils(&raw.airfoils)?;
         let Some(raw_wing) = &raw.wing else {
@@ -541,28 +522,8 @@ impl Ctx<'_> {
             ));
         };
         let wing = self.wing(raw_wing, &ids)?;
-        let stabiliser = match &raw.stabiliser {
-            None => None,
-            Some(s) => {
-                let span = s.span();
-                Some(self.stabiliser(span, s.get_ref(), &ids)?)
-            }
-        };
-        let elevons = match (&raw_wing.get_ref().elevons, &stabiliser) {
-            (None, _) => None,
-            (Some(e), Some(_)) => return Err(self.err(
-                &e.span(),
-                "wing.elevons",
-                "elevons are modelled on a tailless wing only; this aircraft has a [stabiliser], \
-                     whose elevator does the pitching",
-                Some(
-                    "remove [wing.elevons], or set stabiliser.elevator_chord, elevator_up and \
-                         elevator_down"
-                        .into(),
-                ),
-            )),
-            (Some(e), None) => Some(self.elevons(e)?),
-        };
+        let (stabiliser, elevons) =
+            self.stabiliser_and_elevons(raw_wing, raw.stabiliser.as_ref(), &ids)?;
         if let Some(f) = raw
             .stabiliser
             .as_ref()
@@ -582,66 +543,10 @@ impl Ctx<'_> {
             .as_ref()
             .map(|f| self.fuselage(f))
             .transpose()?;
-        if raw.mass.is_empty() {
-            return Err(InputError::new(
-                self.whole_file(),
-                "mass",
-                "no mass items: the CG needs at least one [[mass]] entry",
-                Some("one or more [[mass]] tables with name, mass, x".into()),
-            ));
-        }
-        let masses = raw
-            .mass
-            .iter()
-            .enumerate()
-            .map(|(i, m)| self.mass_item(i, m))
-            .collect::<Result<Vec<_>, _>>()?;
-        self.unique_names(
-            raw.mass.iter().map(|m| m.get_ref().name.as_ref()),
-            "mass",
-            "setups refer to mass items by name",
-        )?;
-        let total: f64 = masses.iter().map(|m| m.mass_kg).sum();
-        if total <= 0.0 {
-            return Err(self.err(
-                &raw.mass[0].span(),
-                "mass",
-                "the masses add up to zero",
-                Some("a total mass above 0 g".into()),
-            ));
-        }
-        let area_m2 = crate::planform::geometry(&wing).area_m2;
-        if area_m2 > 0.0 && total / area_m2 > MAX_WING_LOADING_KG_M2 {
-            return Err(self.err(
-                &raw.mass[0].span(),
-                "mass",
-                format!(
-                    "the masses add up to {} g on a wing of {} dm^2: a wing loading of {} \
-                     kg/m^2, more than any aircraft this tool is for",
-                    fmt_num_short(1000.0 * total),
-                    fmt_num_short(100.0 * area_m2),
-                    fmt_num_short(total / area_m2)
-                ),
-                Some(format!(
-                    "a wing loading up to {} kg/m^2 (light aircraft reach about 150); bare \
-                     masses are in g and bare lengths in mm",
-                    fmt_num(MAX_WING_LOADING_KG_M2)
-                )),
-            ));
-        }
+        let masses = self.masses(&raw.mass, &wing)?;
         let tolerances = self.tolerances(raw.tolerances.as_ref())?;
         let fin = raw.fin.as_ref().map(|f| self.fin(f, &masses)).transpose()?;
-        let ballast_bays = raw
-            .ballast
-            .iter()
-            .enumerate()
-            .map(|(i, b)| self.ballast(i, b))
-            .collect::<Result<Vec<_>, _>>()?;
-        self.unique_names(
-            raw.ballast.iter().map(|b| b.get_ref().name.as_ref()),
-            "ballast",
-            "setups refer to ballast bays by name",
-        )?;
+        let ballast_bays = self.ballast_bays(&raw.ballast)?;
         let intended = raw
             .limits
             .as_ref()
@@ -652,28 +557,7 @@ impl Ctx<'_> {
         } else {
             MARGIN_PCT
         };
-        let targets = match &raw.targets {
-            None => Targets::default(),
-            Some(t) => Targets {
-                static_margin: self.margin(
-                    t.static_margin.as_ref(),
-                    "targets.static_margin",
-                    margin_bounds,
-                )?,
-                trim_speed_m_s: self.opt_quantity(
-                    t.trim_speed.as_ref(),
-                    "targets.trim_speed",
-                    Dimension::Speed,
-                    SPEED_M_S,
-                )?,
-                top_speed_m_s: self.opt_quantity(
-                    t.top_speed.as_ref(),
-                    "targets.top_speed",
-                    Dimension::Speed,
-                    SPEED_M_S,
-                )?,
-            },
-        };
+        let targets = self.targets(raw.targets.as_ref(), margin_bounds)?;
         let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref(), margin_bounds)?;
         let numerics = self.numerics(raw.numerics.as_ref())?;
         if let Some(s) = &stabiliser {
@@ -681,16 +565,12 @@ impl Ctx<'_> {
         }
         let weighing = self.weighing(&raw.weighing, "weighing")?;
 
-        let setups = raw
-            .setup
-            .iter()
-            .enumerate()
-            .map(|(i, s)| self.setup(i, s, &masses, &ballast_bays, &ids, stabiliser.is_some()))
-            .collect::<Result<Vec<_>, _>>()?;
-        self.unique_names(
-            raw.setup.iter().map(|s| s.get_ref().name.as_ref()),
-            "setup",
-            "`--setup NAME` could not choose the second one",
+        let setups = self.setups(
+            &raw.setup,
+            &masses,
+            &ballast_bays,
+            &ids,
+            stabiliser.is_some(),
         )?;
         let mut airfoils = airfoils;
         self.viscous_reynolds(
@@ -724,6 +604,191 @@ impl Ctx<'_> {
             setups,
             weighing,
         })
+    }
+
+    /// The aircraft's `name`: required, trimmed, not empty, within the name length limit,
+    /// with unprintable characters replaced.
+    fn aircraft_name(&self, raw_name: Option<&Spanned<String>>) -> Result<String, InputError> {
+        let accepted_name = || Some("any text in quotes, e.g. name = \"My glider\"".into());
+        let Some(raw_name) = raw_name else {
+            return Err(InputError::new(
+                self.whole_file(),
+                "name",
+                "missing: the aircraft needs a `name` at the top of the file, before any [table]",
+                accepted_name(),
+            ));
+        };
+        let name = raw_name.get_ref().trim().to_string();
+        if name.is_empty() {
+            return Err(self.err(
+                &raw_name.span(),
+                "name",
+                "must not be empty",
+                accepted_name(),
+            ));
+        }
+        self.check_name_length(&name, &raw_name.span(), "name")?;
+        Ok(printable(&name).into_owned())
+    }
+
+    /// The stabiliser (from its table) and the elevons (from `[wing.elevons]`), refusing
+    /// elevons on an aircraft that has a stabiliser.
+    fn stabiliser_and_elevons(
+        &self,
+        raw_wing: &Spanned<raw::RawSurface>,
+        raw_stabiliser: Option<&Spanned<raw::RawSurface>>,
+        ids: &BTreeMap<String, AirfoilId>,
+    ) -> Result<(Option<Stabiliser>, Option<PitchControl>), InputError> {
+        let stabiliser = match raw_stabiliser {
+            None => None,
+            Some(s) => {
+                let span = s.span();
+                Some(self.stabiliser(span, s.get_ref(), ids)?)
+            }
+        };
+        let elevons = match (&raw_wing.get_ref().elevons, &stabiliser) {
+            (None, _) => None,
+            (Some(e), Some(_)) => return Err(self.err(
+                &e.span(),
+                "wing.elevons",
+                "elevons are modelled on a tailless wing only; this aircraft has a [stabiliser], \
+                     whose elevator does the pitching",
+                Some(
+                    "remove [wing.elevons], or set stabiliser.elevator_chord, elevator_up and \
+                         elevator_down"
+                        .into(),
+                ),
+            )),
+            (Some(e), None) => Some(self.elevons(e)?),
+        };
+        Ok((stabiliser, elevons))
+    }
+
+    /// The `[[mass]]` items: at least one, names unique, a total above zero and a wing loading
+    /// on `wing` within `MAX_WING_LOADING_KG_M2`.
+    fn masses(
+        &self,
+        raw_masses: &[Spanned<raw::RawMass>],
+        wing: &Surface,
+    ) -> Result<Vec<MassItem>, InputError> {
+        if raw_masses.is_empty() {
+            return Err(InputError::new(
+                self.whole_file(),
+                "mass",
+                "no mass items: the CG needs at least one [[mass]] entry",
+                Some("one or more [[mass]] tables with name, mass, x".into()),
+            ));
+        }
+        let masses = raw_masses
+            .iter()
+            .enumerate()
+            .map(|(i, m)| self.mass_item(i, m))
+            .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw_masses.iter().map(|m| m.get_ref().name.as_ref()),
+            "mass",
+            "setups refer to mass items by name",
+        )?;
+        let total: f64 = masses.iter().map(|m| m.mass_kg).sum();
+        if total <= 0.0 {
+            return Err(self.err(
+                &raw_masses[0].span(),
+                "mass",
+                "the masses add up to zero",
+                Some("a total mass above 0 g".into()),
+            ));
+        }
+        let area_m2 = crate::planform::geometry(wing).area_m2;
+        if area_m2 > 0.0 && total / area_m2 > MAX_WING_LOADING_KG_M2 {
+            return Err(self.err(
+                &raw_masses[0].span(),
+                "mass",
+                format!(
+                    "the masses add up to {} g on a wing of {} dm^2: a wing loading of {} \
+                     kg/m^2, more than any aircraft this tool is for",
+                    fmt_num_short(1000.0 * total),
+                    fmt_num_short(100.0 * area_m2),
+                    fmt_num_short(total / area_m2)
+                ),
+                Some(format!(
+                    "a wing loading up to {} kg/m^2 (light aircraft reach about 150); bare \
+                     masses are in g and bare lengths in mm",
+                    fmt_num(MAX_WING_LOADING_KG_M2)
+                )),
+            ));
+        }
+        Ok(masses)
+    }
+
+    /// The `[[ballast]]` bays, names unique.
+    fn ballast_bays(
+        &self,
+        raw_ballast: &[Spanned<raw::RawBallast>],
+    ) -> Result<Vec<BallastBay>, InputError> {
+        let ballast_bays = raw_ballast
+            .iter()
+            .enumerate()
+            .map(|(i, b)| self.ballast(i, b))
+            .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw_ballast.iter().map(|b| b.get_ref().name.as_ref()),
+            "ballast",
+            "setups refer to ballast bays by name",
+        )?;
+        Ok(ballast_bays)
+    }
+
+    /// The `[targets]`: static margin within `margin_bounds` (percent), trim and top speeds.
+    fn targets(
+        &self,
+        raw_targets: Option<&raw::RawTargets>,
+        margin_bounds: Bounds,
+    ) -> Result<Targets, InputError> {
+        let targets = match raw_targets {
+            None => Targets::default(),
+            Some(t) => Targets {
+                static_margin: self.margin(
+                    t.static_margin.as_ref(),
+                    "targets.static_margin",
+                    margin_bounds,
+                )?,
+                trim_speed_m_s: self.opt_quantity(
+                    t.trim_speed.as_ref(),
+                    "targets.trim_speed",
+                    Dimension::Speed,
+                    SPEED_M_S,
+                )?,
+                top_speed_m_s: self.opt_quantity(
+                    t.top_speed.as_ref(),
+                    "targets.top_speed",
+                    Dimension::Speed,
+                    SPEED_M_S,
+                )?,
+            },
+        };
+        Ok(targets)
+    }
+
+    /// The `[[setup]]` tables, names unique.
+    fn setups(
+        &self,
+        raw_setups: &[Spanned<raw::RawSetup>],
+        masses: &[MassItem],
+        bays: &[BallastBay],
+        ids: &BTreeMap<String, AirfoilId>,
+        has_stabiliser: bool,
+    ) -> Result<Vec<Setup>, InputError> {
+        let setups = raw_setups
+            .iter()
+            .enumerate()
+            .map(|(i, s)| self.setup(i, s, masses, bays, ids, has_stabiliser))
+            .collect::<Result<Vec<_>, _>>()?;
+        self.unique_names(
+            raw_setups.iter().map(|s| s.get_ref().name.as_ref()),
+            "setup",
+            "`--setup NAME` could not choose the second one",
+        )?;
+        Ok(setups)
     }
 
     /// The Reynolds number of each viscous airfoil that has none in the file: from the target
@@ -841,152 +906,188 @@ impl Ctx<'_> {
         let mut list = Vec::new();
         let mut ids = BTreeMap::new();
         for (name, spanned) in raw {
-            let field = format!("airfoils.{name}");
-            let a = spanned.get_ref();
-            let span = spanned.span();
-            let count = [
-                a.naca.is_some(),
-                a.joukowski.is_some(),
-                a.karman_trefftz.is_some(),
-                a.coordinates.is_some(),
-            ]
-            .iter()
-            .filter(|b| **b)
-            .count();
-            if count != 1 {
-                return Err(self.err(
-                    &span,
-                    &field,
-                    if count == 0 {
-                        "no shape given"
-                    } else {
-                        "more than one shape given"
-                    },
-                    Some("exactly one of naca, joukowski, karman_trefftz, coordinates".into()),
-                ));
-            }
-            let shape = if let Some(n) = &a.naca {
-                let text = match n.get_ref() {
-                    toml::Value::String(s) => s.clone(),
-                    toml::Value::Integer(i) => format!("{i:04}"),
-                    other => {
-                        return Err(self.err(
-                            &n.span(),
-                            &format!("{field}.naca"),
-                            format!("expected a designation, found {}", other.type_str()),
-                            Some(
-                                "a 4- or 5-digit designation such as \"2412\" or \"23012\"".into(),
-                            ),
-                        ));
-                    }
-                };
-                let designation: String = text
-                    .trim()
-                    .trim_start_matches(|c: char| {
-                        c.eq_ignore_ascii_case(&'n')
-                            || c.eq_ignore_ascii_case(&'a')
-                            || c.eq_ignore_ascii_case(&'c')
-                    })
-                    .trim()
-                    .to_string();
-                crate::section::naca::NacaProfile::parse(&designation).map_err(|e| {
-                    self.err(
-                        &n.span(),
-                        &format!("{field}.naca"),
-                        e.to_string(),
-                        Some(
-                            "a 4-digit (\"2412\") or 5-digit 2x0 series (\"23012\") designation"
-                                .into(),
-                        ),
-                    )
-                })?;
-                AirfoilShape::Naca(designation)
-            } else if let Some(j) = &a.joukowski {
-                let table_span = j.span();
-                let j = j.get_ref();
-                let path = format!("{field}.joukowski");
-                AirfoilShape::Joukowski {
-                    thickness_ratio: self.quantity(
-                        self.required(
-                            j.thickness.as_ref(),
-                            &table_span,
-                            &path,
-                            "thickness",
-                            Dimension::Percent,
-                            THICKNESS_PCT,
-                        )?,
-                        &format!("{path}.thickness"),
-                        Dimension::Percent,
-                        THICKNESS_PCT,
-                    )?,
-                    camber_ratio: self
-                        .opt_quantity(
-                            j.camber.as_ref(),
-                            &format!("{field}.joukowski.camber"),
-                            Dimension::Percent,
-                            CAMBER_PCT,
-                        )?
-                        .unwrap_or(0.0),
-                }
-            } else if let Some(k) = &a.karman_trefftz {
-                self.karman_trefftz(k, &format!("{field}.karman_trefftz"))?
-            } else if let Some(c) = &a.coordinates {
-                self.coordinates_shape(c, &format!("{field}.coordinates"))?
-            } else {
-                unreachable_shape()
-            };
-            let cl_max = self.opt_quantity(
-                a.cl_max.as_ref(),
-                &format!("{field}.cl_max"),
-                Dimension::Plain,
-                CL_MAX,
-            )?;
-            let method = match &a.method {
-                None => None,
-                Some(m) => {
-                    let text = m.get_ref().trim().to_ascii_lowercase();
-                    let Some(info) = registry::by_name(&text) else {
-                        return Err(self.err(
-                            &m.span(),
-                            &format!("{field}.method"),
-                            format!("unknown method `{}`", token(&text)),
-                            Some(registry::names()),
-                        ));
-                    };
-                    if !registry::accepts(info.method, &shape) {
-                        return Err(self.err(
-                            &m.span(),
-                            &format!("{field}.method"),
-                            "the exact method needs a joukowski or karman_trefftz airfoil",
-                            Some("thin, panel, viscous".into()),
-                        ));
-                    }
-                    Some(info.method)
-                }
-            };
-            let reynolds = self.opt_quantity(
-                a.reynolds.as_ref(),
-                &format!("{field}.reynolds"),
-                Dimension::Plain,
-                REYNOLDS,
-            )?;
-            let transition_n = self.opt_quantity(
-                a.transition_n.as_ref(),
-                &format!("{field}.transition_n"),
-                Dimension::Plain,
-                TRANSITION_N,
-            )?;
+            let airfoil = self.airfoil(name, spanned)?;
             ids.insert(name.clone(), AirfoilId(list.len()));
-            list.push(Airfoil {
-                name: printable(name).into_owned(),
-                shape,
-                cl_max,
-                method,
-                reynolds,
-                transition_n,
-            });
+            list.push(airfoil);
         }
         Ok((list, ids))
+    }
+
+    /// One `[airfoils.NAME]` table: exactly one shape, then cl_max, method, Reynolds number
+    /// and transition N.
+    fn airfoil(
+        &self,
+        name: &str,
+        spanned: &Spanned<raw::RawAirfoil>,
+    ) -> Result<Airfoil, InputError> {
+        let field = format!("airfoils.{name}");
+        let a = spanned.get_ref();
+        let span = spanned.span();
+        let count = [
+            a.naca.is_some(),
+            a.joukowski.is_some(),
+            a.karman_trefftz.is_some(),
+            a.coordinates.is_some(),
+        ]
+        .iter()
+        .filter(|b| **b)
+        .count();
+        if count != 1 {
+            return Err(self.err(
+                &span,
+                &field,
+                if count == 0 {
+                    "no shape given"
+                } else {
+                    "more than one shape given"
+                },
+                Some("exactly one of naca, joukowski, karman_trefftz, coordinates".into()),
+            ));
+        }
+        let shape = if let Some(n) = &a.naca {
+            self.naca_shape(n, &field)?
+        } else if let Some(j) = &a.joukowski {
+            self.joukowski_shape(j, &field)?
+        } else if let Some(k) = &a.karman_trefftz {
+            self.karman_trefftz(k, &format!("{field}.karman_trefftz"))?
+        } else if let Some(c) = &a.coordinates {
+            self.coordinates_shape(c, &format!("{field}.coordinates"))?
+        } else {
+            unreachable_shape()
+        };
+        let cl_max = self.opt_quantity(
+            a.cl_max.as_ref(),
+            &format!("{field}.cl_max"),
+            Dimension::Plain,
+            CL_MAX,
+        )?;
+        let method = self.airfoil_method(a.method.as_ref(), &shape, &field)?;
+        let reynolds = self.opt_quantity(
+            a.reynolds.as_ref(),
+            &format!("{field}.reynolds"),
+            Dimension::Plain,
+            REYNOLDS,
+        )?;
+        let transition_n = self.opt_quantity(
+            a.transition_n.as_ref(),
+            &format!("{field}.transition_n"),
+            Dimension::Plain,
+            TRANSITION_N,
+        )?;
+        Ok(Airfoil {
+            name: printable(name).into_owned(),
+            shape,
+            cl_max,
+            method,
+            reynolds,
+            transition_n,
+        })
+    }
+
+    /// `naca = "2412"` (or an integer): the designation without a leading "NACA", checked by
+    /// the NACA parser.
+    fn naca_shape(
+        &self,
+        n: &Spanned<toml::Value>,
+        field: &str,
+    ) -> Result<AirfoilShape, InputError> {
+        let text = match n.get_ref() {
+            toml::Value::String(s) => s.clone(),
+            toml::Value::Integer(i) => format!("{i:04}"),
+            other => {
+                return Err(self.err(
+                    &n.span(),
+                    &format!("{field}.naca"),
+                    format!("expected a designation, found {}", other.type_str()),
+                    Some("a 4- or 5-digit designation such as \"2412\" or \"23012\"".into()),
+                ));
+            }
+        };
+        let designation: String = text
+            .trim()
+            .trim_start_matches(|c: char| {
+                c.eq_ignore_ascii_case(&'n')
+                    || c.eq_ignore_ascii_case(&'a')
+                    || c.eq_ignore_ascii_case(&'c')
+            })
+            .trim()
+            .to_string();
+        crate::section::naca::NacaProfile::parse(&designation).map_err(|e| {
+            self.err(
+                &n.span(),
+                &format!("{field}.naca"),
+                e.to_string(),
+                Some("a 4-digit (\"2412\") or 5-digit 2x0 series (\"23012\") designation".into()),
+            )
+        })?;
+        Ok(AirfoilShape::Naca(designation))
+    }
+
+    /// `joukowski = { thickness, camber }` as ratios of the chord (camber 0 when not given).
+    fn joukowski_shape(
+        &self,
+        j: &Spanned<raw::RawJoukowski>,
+        field: &str,
+    ) -> Result<AirfoilShape, InputError> {
+        let table_span = j.span();
+        let j = j.get_ref();
+        let path = format!("{field}.joukowski");
+        Ok(AirfoilShape::Joukowski {
+            thickness_ratio: self.quantity(
+                self.required(
+                    j.thickness.as_ref(),
+                    &table_span,
+                    &path,
+                    "thickness",
+                    Dimension::Percent,
+                    THICKNESS_PCT,
+                )?,
+                &format!("{path}.thickness"),
+                Dimension::Percent,
+                THICKNESS_PCT,
+            )?,
+            camber_ratio: self
+                .opt_quantity(
+                    j.camber.as_ref(),
+                    &format!("{field}.joukowski.camber"),
+                    Dimension::Percent,
+                    CAMBER_PCT,
+                )?
+                .unwrap_or(0.0),
+        })
+    }
+
+    /// The airfoil's `method`, by name from the registry, refused when it does not accept
+    /// `shape`.
+    fn airfoil_method(
+        &self,
+        m: Option<&Spanned<String>>,
+        shape: &AirfoilShape,
+        field: &str,
+    ) -> Result<Option<SectionMethod>, InputError> {
+        Ok(match m {
+            None => None,
+            Some(m) => {
+                let text = m.get_ref().trim().to_ascii_lowercase();
+                let Some(info) = registry::by_name(&text) else {
+                    return Err(self.err(
+                        &m.span(),
+                        &format!("{field}.method"),
+                        format!("unknown method `{}`", token(&text)),
+                        Some(registry::names()),
+                    ));
+                };
+                if !registry::accepts(info.method, shape) {
+                    return Err(self.err(
+                        &m.span(),
+                        &format!("{field}.method"),
+                        "the exact method needs a joukowski or karman_trefftz airfoil",
+                        Some("thin, panel, viscous".into()),
+                    ));
+                }
+                Some(info.method)
+            }
+        })
     }
 
     /// `karman_trefftz = { thickness, camber, trailing_edge_angle }`. The largest angle depends
@@ -1641,22 +1742,35 @@ impl Ctx<'_> {
         let span = s.span();
         let s = s.get_ref();
         let name = self.required_name(s.name.as_ref(), &span, &path)?;
-        let find_item = |key: &str, table: &str, q: &Quantity| {
-            masses
-                .iter()
-                .position(|m| m.name == printable(key.trim()))
-                .ok_or_else(|| {
-                    let names: Vec<&str> = masses.iter().map(|m| m.name.as_str()).collect();
-                    self.err(
-                        &q.span(),
-                        &format!("{path}.{table}"),
-                        format!("no mass item named `{}`", token(key)),
-                        Some(one_of(&names)),
-                    )
-                })
-        };
         let mut changes = Vec::new();
-        for (bay_name, q) in &s.ballast {
+        self.setup_ballast(&path, &s.ballast, bays, &mut changes)?;
+        self.setup_masses(&path, s, masses, &mut changes)?;
+        self.setup_incidences(&path, s, has_stabiliser, &mut changes)?;
+        self.setup_airfoils(&path, &s.airfoils, ids, &mut changes)?;
+        if changes.is_empty() {
+            return Err(self.err(&span, &path, "the setup changes nothing", Some("one or more of ballast, mass_x, mass, wing_incidence, stabiliser_incidence, airfoils".into())));
+        }
+        let weighing = if s.weighing.is_empty() {
+            None
+        } else {
+            Some(self.weighing(&s.weighing, &format!("{path}.weighing"))?)
+        };
+        Ok(Setup {
+            name,
+            changes,
+            weighing,
+        })
+    }
+
+    /// A setup's `ballast` changes: each bay by name, its mass up to the bay's maximum.
+    fn setup_ballast(
+        &self,
+        path: &str,
+        ballast: &BTreeMap<String, Quantity>,
+        bays: &[BallastBay],
+        changes: &mut Vec<Change>,
+    ) -> Result<(), InputError> {
+        for (bay_name, q) in ballast {
             let bay = bays
                 .iter()
                 .position(|b| b.name == printable(bay_name.trim()))
@@ -1682,6 +1796,31 @@ impl Ctx<'_> {
             )?;
             changes.push(Change::Ballast { bay, mass_kg });
         }
+        Ok(())
+    }
+
+    /// A setup's `mass_x` (position) then `mass` changes, each mass item by name.
+    fn setup_masses(
+        &self,
+        path: &str,
+        s: &raw::RawSetup,
+        masses: &[MassItem],
+        changes: &mut Vec<Change>,
+    ) -> Result<(), InputError> {
+        let find_item = |key: &str, table: &str, q: &Quantity| {
+            masses
+                .iter()
+                .position(|m| m.name == printable(key.trim()))
+                .ok_or_else(|| {
+                    let names: Vec<&str> = masses.iter().map(|m| m.name.as_str()).collect();
+                    self.err(
+                        &q.span(),
+                        &format!("{path}.{table}"),
+                        format!("no mass item named `{}`", token(key)),
+                        Some(one_of(&names)),
+                    )
+                })
+        };
         for (item_name, q) in &s.mass_x {
             let item = find_item(item_name, "mass_x", q)?;
             let x_m = self.quantity(
@@ -1702,6 +1841,18 @@ impl Ctx<'_> {
             )?;
             changes.push(Change::ItemMass { item, mass_kg });
         }
+        Ok(())
+    }
+
+    /// A setup's `wing_incidence` and `stabiliser_incidence` changes (the latter refused
+    /// without a stabiliser).
+    fn setup_incidences(
+        &self,
+        path: &str,
+        s: &raw::RawSetup,
+        has_stabiliser: bool,
+        changes: &mut Vec<Change>,
+    ) -> Result<(), InputError> {
         if let Some(q) = &s.wing_incidence {
             changes.push(Change::WingIncidence(self.quantity(
                 q,
@@ -1729,7 +1880,18 @@ impl Ctx<'_> {
                 INCIDENCE_DEG,
             )?));
         }
-        for (from, to) in &s.airfoils {
+        Ok(())
+    }
+
+    /// A setup's `airfoils` swaps, both names among the file's airfoils.
+    fn setup_airfoils(
+        &self,
+        path: &str,
+        airfoils: &BTreeMap<String, Spanned<String>>,
+        ids: &BTreeMap<String, AirfoilId>,
+        changes: &mut Vec<Change>,
+    ) -> Result<(), InputError> {
+        for (from, to) in airfoils {
             let known = || {
                 let names: Vec<&str> = ids.keys().map(String::as_str).collect();
                 Some(one_of(&names))
@@ -1755,19 +1917,7 @@ impl Ctx<'_> {
                 to: to_id,
             });
         }
-        if changes.is_empty() {
-            return Err(self.err(&span, &path, "the setup changes nothing", Some("one or more of ballast, mass_x, mass, wing_incidence, stabiliser_incidence, airfoils".into())));
-        }
-        let weighing = if s.weighing.is_empty() {
-            None
-        } else {
-            Some(self.weighing(&s.weighing, &format!("{path}.weighing"))?)
-        };
-        Ok(Setup {
-            name,
-            changes,
-            weighing,
-        })
+        Ok(())
     }
 
     fn fuselage(&self, f: &Spanned<raw::RawFuselage>) -> Result<Fuselage, InputError> {

@@ -124,13 +124,7 @@ pub(crate) fn condense(
     wake: &Vec3,
     cores: Cores,
 ) -> Result<Condensed, LiftingLineError> {
-    let n = stations.len();
-    let reps: Vec<usize> = (0..n).filter(|&i| mirror[i] >= i).collect();
-    let mut rep_of = vec![0; n];
-    for (r, &i) in reps.iter().enumerate() {
-        rep_of[i] = r;
-        rep_of[mirror[i]] = r;
-    }
+    let (reps, rep_of) = representatives(mirror);
     let m = reps.len();
     let np = m * n_c;
     if np > MAX_HALF_PANELS {
@@ -140,8 +134,35 @@ pub(crate) fn condense(
             range: "at most 2000 (about 32 MB and a few seconds to factor)",
         });
     }
-    let rows: Vec<PanelRow> = reps
-        .iter()
+    let rows = panel_rows(stations, &reps, n_c);
+    let (elements, x_bound) = bound_elements(stations, mirror, &rep_of, n_c, np);
+    let k_fold = folded_influence(&rows, &elements, np, wake, cores);
+    if k_fold.iter().any(|v| !v.is_finite()) {
+        return Err(LiftingLineError::NonFinite {
+            quantity: "lattice influence matrix",
+        });
+    }
+    let (strip_m, strip_q) = strip_sums(k_fold, &x_bound, m, n_c)?;
+    expand_condensed(stations, mirror, &rep_of, strip_m, &strip_q)
+}
+
+/// The representative stations (the starboard half and any centre station, in order) and
+/// each station's index among them (a port station takes its mirror image's).
+fn representatives(mirror: &[usize]) -> (Vec<usize>, Vec<usize>) {
+    let n = mirror.len();
+    let reps: Vec<usize> = (0..n).filter(|&i| mirror[i] >= i).collect();
+    let mut rep_of = vec![0; n];
+    for (r, &i) in reps.iter().enumerate() {
+        rep_of[i] = r;
+        rep_of[mirror[i]] = r;
+    }
+    (reps, rep_of)
+}
+
+/// The control point, normal and surface of every chordwise panel of the representative
+/// strips `reps`, strip by strip.
+fn panel_rows(stations: &[Station], reps: &[usize], n_c: usize) -> Vec<PanelRow> {
+    reps.iter()
         .flat_map(|&i| {
             let st = &stations[i];
             (0..n_c).map(move |k| PanelRow {
@@ -150,10 +171,33 @@ pub(crate) fn condense(
                 surface: st.surface,
             })
         })
-        .collect();
-    // Folded influence: the column of a starboard panel collects its own horseshoe and its
-    // mirror image's.
-    let mut k_fold = DMatrix::<f64>::zeros(np, np);
+        .collect()
+}
+
+/// Per strip and chordwise row: the bound segment, its x, and the cores of its two legs.
+struct Element {
+    a: Vec3,
+    b: Vec3,
+    col: usize,
+    surface: usize,
+    width_m: f64,
+    width_a_m: f64,
+    width_b_m: f64,
+    /// The leg at `a` is the `b` leg of the previous element in this list (same line,
+    /// same start, same core): it is taken from there instead of evaluated again.
+    shares_a: bool,
+}
+
+/// The bound segments of every strip's chordwise rows (all stations, row by row), with the
+/// folded column each belongs to, and the x of each representative panel's bound segment, m.
+fn bound_elements(
+    stations: &[Station],
+    mirror: &[usize],
+    rep_of: &[usize],
+    n_c: usize,
+    np: usize,
+) -> (Vec<Element>, Vec<f64>) {
+    let n = stations.len();
     let mut x_bound = vec![0.0; np];
     // A trailing leg on a side edge shared by two strips uses the mean of their widths for
     // its core, so that the two legs on that line (one from each strip's panel) cancel to
@@ -172,19 +216,6 @@ pub(crate) fn condense(
         };
         neighbour.map_or(sj.width_m, |i| 0.5 * (sj.width_m + stations[i].width_m))
     };
-    // Per strip and chordwise row: the bound segment, its x, and the cores of its two legs.
-    struct Element {
-        a: Vec3,
-        b: Vec3,
-        col: usize,
-        surface: usize,
-        width_m: f64,
-        width_a_m: f64,
-        width_b_m: f64,
-        /// The leg at `a` is the `b` leg of the previous element in this list (same line,
-        /// same start, same core): it is taken from there instead of evaluated again.
-        shares_a: bool,
-    }
     let mut elements = Vec::with_capacity(n * n_c);
     for k in 0..n_c {
         for (j, sj) in stations.iter().enumerate() {
@@ -208,9 +239,22 @@ pub(crate) fn condense(
             });
         }
     }
+    (elements, x_bound)
+}
+
+/// The folded influence matrix: the column of a starboard panel collects its own horseshoe's
+/// normal velocity at each panel row's control point and its mirror image's.
+fn folded_influence(
+    rows: &[PanelRow],
+    elements: &[Element],
+    np: usize,
+    wake: &Vec3,
+    cores: Cores,
+) -> DMatrix<f64> {
+    let mut k_fold = DMatrix::<f64>::zeros(np, np);
     for (r, row) in rows.iter().enumerate() {
         let mut previous_b_leg = Vec3::zeros();
-        for e in &elements {
+        for e in elements {
             let fraction = if row.surface == e.surface {
                 cores.self_fraction
             } else {
@@ -228,11 +272,18 @@ pub(crate) fn condense(
             k_fold[(r, e.col)] += v.dot(&row.normal);
         }
     }
-    if k_fold.iter().any(|v| !v.is_finite()) {
-        return Err(LiftingLineError::NonFinite {
-            quantity: "lattice influence matrix",
-        });
-    }
+    k_fold
+}
+
+/// Solve the folded lattice for a unit boundary angle on each representative strip and sum
+/// each strip's panels: the strip circulation matrix and its x moment (m).
+fn strip_sums(
+    k_fold: DMatrix<f64>,
+    x_bound: &[f64],
+    m: usize,
+    n_c: usize,
+) -> Result<(DMatrix<f64>, DMatrix<f64>), LiftingLineError> {
+    let np = m * n_c;
     // Right-hand sides: a unit boundary angle on each strip's panels.
     let mut e = DMatrix::<f64>::zeros(np, m);
     for r in 0..m {
@@ -260,12 +311,26 @@ pub(crate) fn condense(
             strip_q[(r, c)] = q;
         }
     }
+    Ok((strip_m, strip_q))
+}
+
+/// Condense onto the strips and unfold onto every station: the induced matrix (the strip
+/// circulation matrix's inverse with the two-dimensional self term taken out) and each
+/// strip's lift x offset from its control point, m.
+fn expand_condensed(
+    stations: &[Station],
+    mirror: &[usize],
+    rep_of: &[usize],
+    strip_m: DMatrix<f64>,
+    strip_q: &DMatrix<f64>,
+) -> Result<Condensed, LiftingLineError> {
+    let n = stations.len();
     let lu_m = strip_m.lu();
     check_pivots(lu_m.u().diagonal().as_slice())?;
     let m_inv = lu_m
         .try_inverse()
         .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
-    let r_fold = &strip_q * &m_inv;
+    let r_fold = strip_q * &m_inv;
     let mut induced = DMatrix::<f64>::zeros(n, n);
     let mut lift_x_offset = DMatrix::<f64>::zeros(n, n);
     for (i, si) in stations.iter().enumerate() {

@@ -418,92 +418,20 @@ impl MultiSurfaceSystem {
         options: LiftingLineOptions,
     ) -> Result<Self, LiftingLineError> {
         check_options(&options, &reference, inputs.len())?;
-        for e in inputs.iter().filter_map(|i| i.elevator) {
-            let ok = e.dalpha0_per_rad_deflection.is_finite()
-                && e.dcm_ac_per_rad_deflection.is_finite()
-                && (0.0..1.0).contains(&e.inboard_fraction)
-                && e.outboard_fraction > e.inboard_fraction
-                && e.outboard_fraction <= 1.0;
-            if !ok {
-                return Err(LiftingLineError::InvalidInput {
-                    parameter: "elevator span fractions",
-                    value: e.outboard_fraction - e.inboard_fraction,
-                    range: "finite effects, 0 <= inboard < outboard <= 1",
-                });
-            }
-        }
-        let mut stations = Vec::new();
-        let mut surfaces = Vec::with_capacity(inputs.len());
-        for (index, input) in inputs.iter().enumerate() {
-            let start = stations.len();
-            let per_half = strips_per_half(&options, input.surface, inputs[0].surface);
-            discretise(input, index, &options, per_half, &mut stations)?;
-            let g = planform::geometry(input.surface);
-            surfaces.push(SurfaceInfo {
-                name: input.surface.name.clone(),
-                range: start..stations.len(),
-                area_m2: g.area_m2,
-                aspect_ratio: g.aspect_ratio,
-                elevator: input.elevator,
-            });
-        }
+        check_elevators(inputs)?;
+        let (stations, surfaces) = discretise_surfaces(inputs, &options)?;
         let n = stations.len();
         let wake = Vec3::new(
             options.wake_angle_rad.cos(),
             0.0,
             options.wake_angle_rad.sin(),
         );
-        let mut induced = DMatrix::<f64>::zeros(n, n);
-        let mut trefftz = DMatrix::<f64>::zeros(n, n);
         // Every surface is the mirror image of itself about y = 0 and its stations run from port
         // tip to starboard tip, so the mirror of station i is start + end - 1 - i, and the
         // influence of horseshoe j at control point i equals that of mirror(j) at mirror(i).
-        // Rows of the starboard half (and a centre station) are computed, the others copied:
-        // half the kernel evaluations, which dominate the build.
-        let mirror: Vec<usize> = stations
-            .iter()
-            .enumerate()
-            .map(|(i, st)| {
-                let r = &surfaces[st.surface].range;
-                r.start + r.end - 1 - i
-            })
-            .collect();
-        // Trailing legs are shared: the outboard leg of one horseshoe is the inboard leg of the
-        // next (with opposite sign), so each node's leg is evaluated once per control point. A
-        // leg's core uses the mean width of the segments that share it.
-        let nodes = trailing_nodes(&stations, &surfaces);
-        let mut legs = vec![Vec3::zeros(); nodes.len()];
-        let mut lines = vec![Vec3::zeros(); nodes.len()];
-        for (i, si) in stations.iter().enumerate() {
-            if mirror[i] < i {
-                continue;
-            }
-            let fraction = |surface: usize| {
-                if surface == si.surface {
-                    options.self_core_fraction
-                } else {
-                    options.wake_core_fraction
-                }
-            };
-            for (k, node) in nodes.iter().enumerate() {
-                let core = fraction(node.surface) * node.width_m;
-                legs[k] = semi_infinite_velocity(&si.control, &node.point, &wake, core);
-                lines[k] = trefftz_line_velocity(&si.control, &node.point, &wake, core);
-            }
-            let normal_t = trefftz_normal(si, &wake);
-            for (j, sj) in stations.iter().enumerate() {
-                let core = fraction(sj.surface) * sj.width_m;
-                let (ka, kb) = (j + sj.surface, j + sj.surface + 1);
-                let v = segment_velocity(&si.control, &sj.node_a, &sj.node_b, core) + legs[kb]
-                    - legs[ka];
-                let vt = lines[kb] - lines[ka];
-                let (a, t) = (v.dot(&si.normal), vt.dot(&normal_t));
-                induced[(i, j)] = a;
-                trefftz[(i, j)] = t;
-                induced[(mirror[i], mirror[j])] = a;
-                trefftz[(mirror[i], mirror[j])] = t;
-            }
-        }
+        let mirror = mirror_stations(&stations, &surfaces);
+        let (mut induced, trefftz) =
+            horseshoe_influences(&stations, &surfaces, &mirror, &options, &wake);
         if induced.iter().any(|v| !v.is_finite()) {
             return Err(LiftingLineError::NonFinite {
                 quantity: "influence matrix",
@@ -529,42 +457,8 @@ impl MultiSurfaceSystem {
                 .map(|s| 0.5 * s.chord_m * s.section.cl_alpha_per_rad),
         );
         let matrix = system_matrix(&induced, &d, &vec![true; n]);
-        let unit_count = UNIT_FIRST_INCIDENCE + surfaces.len();
-        let mut rhs = DMatrix::<f64>::zeros(n, unit_count);
-        for (i, st) in stations.iter().enumerate() {
-            rhs[(i, UNIT_CONSTANT)] =
-                d[i] * (st.geometric_angle_rad - st.section.alpha_zero_lift_rad);
-            rhs[(i, UNIT_ALPHA)] = d[i] * st.normal_z;
-            if let Some(e) = surfaces[st.surface].elevator {
-                rhs[(i, UNIT_ELEVATOR)] = -d[i] * e.dalpha0_per_rad_deflection * st.control_share;
-            }
-            rhs[(i, UNIT_FIRST_INCIDENCE + st.surface)] = d[i];
-        }
-        // Every unit input is symmetric (alpha, elevator, incidences), so every unit solution
-        // is: solve for the starboard half (and any centre station) with the port columns
-        // folded onto their mirror images, an LU of half the size (an eighth of the work), then
-        // copy. The residual is checked on the full system, which also confirms the symmetry.
-        let reps: Vec<usize> = (0..n).filter(|&i| mirror[i] >= i).collect();
-        let mut rep_of = vec![0; n];
-        for (r, &i) in reps.iter().enumerate() {
-            rep_of[i] = r;
-            rep_of[mirror[i]] = r;
-        }
-        let m = reps.len();
-        let mut folded = DMatrix::<f64>::zeros(m, m);
-        for j in 0..n {
-            for (r, &i) in reps.iter().enumerate() {
-                folded[(r, rep_of[j])] += matrix[(i, j)];
-            }
-        }
-        let folded_rhs = rhs.select_rows(reps.iter());
-        let lu = folded.lu();
-        check_pivots(lu.u().diagonal().as_slice())?;
-        let half = lu
-            .solve(&folded_rhs)
-            .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
-        let units = half.select_rows(rep_of.iter());
-        check_residual(&matrix, &units, &rhs)?;
+        let rhs = unit_right_hand_sides(&stations, &surfaces, &d);
+        let (lu, reps, rep_of, units) = solve_unit_inputs(&matrix, &rhs, &mirror)?;
         let mut system = MultiSurfaceSystem {
             folded_lu: lu,
             reps,
@@ -972,6 +866,182 @@ impl MultiSurfaceSystem {
     }
 }
 
+/// Refuse an elevator with non-finite effects or span fractions outside
+/// 0 <= inboard < outboard <= 1.
+fn check_elevators(inputs: &[SurfaceInput<'_>]) -> Result<(), LiftingLineError> {
+    for e in inputs.iter().filter_map(|i| i.elevator) {
+        let ok = e.dalpha0_per_rad_deflection.is_finite()
+            && e.dcm_ac_per_rad_deflection.is_finite()
+            && (0.0..1.0).contains(&e.inboard_fraction)
+            && e.outboard_fraction > e.inboard_fraction
+            && e.outboard_fraction <= 1.0;
+        if !ok {
+            return Err(LiftingLineError::InvalidInput {
+                parameter: "elevator span fractions",
+                value: e.outboard_fraction - e.inboard_fraction,
+                range: "finite effects, 0 <= inboard < outboard <= 1",
+            });
+        }
+    }
+    Ok(())
+}
+
+/// Cut every surface into its stations (in input order) and describe each surface: name, range
+/// of stations, area, aspect ratio and elevator.
+fn discretise_surfaces(
+    inputs: &[SurfaceInput<'_>],
+    options: &LiftingLineOptions,
+) -> Result<(Vec<Station>, Vec<SurfaceInfo>), LiftingLineError> {
+    let mut stations = Vec::new();
+    let mut surfaces = Vec::with_capacity(inputs.len());
+    for (index, input) in inputs.iter().enumerate() {
+        let start = stations.len();
+        let per_half = strips_per_half(options, input.surface, inputs[0].surface);
+        discretise(input, index, options, per_half, &mut stations)?;
+        let g = planform::geometry(input.surface);
+        surfaces.push(SurfaceInfo {
+            name: input.surface.name.clone(),
+            range: start..stations.len(),
+            area_m2: g.area_m2,
+            aspect_ratio: g.aspect_ratio,
+            elevator: input.elevator,
+        });
+    }
+    Ok((stations, surfaces))
+}
+
+/// The mirror image about y = 0 of every station: `start + end - 1 - i` on its own surface.
+fn mirror_stations(stations: &[Station], surfaces: &[SurfaceInfo]) -> Vec<usize> {
+    stations
+        .iter()
+        .enumerate()
+        .map(|(i, st)| {
+            let r = &surfaces[st.surface].range;
+            r.start + r.end - 1 - i
+        })
+        .collect()
+}
+
+/// The horseshoe influence matrices (normal velocity at each control point per unit
+/// circulation, and its Trefftz-plane counterpart) with the wake leaving along `wake`.
+/// Rows of the starboard half (and a centre station) are computed, the others copied from
+/// their mirror images: half the kernel evaluations, which dominate the build.
+fn horseshoe_influences(
+    stations: &[Station],
+    surfaces: &[SurfaceInfo],
+    mirror: &[usize],
+    options: &LiftingLineOptions,
+    wake: &Vec3,
+) -> (DMatrix<f64>, DMatrix<f64>) {
+    let n = stations.len();
+    let mut induced = DMatrix::<f64>::zeros(n, n);
+    let mut trefftz = DMatrix::<f64>::zeros(n, n);
+    // Trailing legs are shared: the outboard leg of one horseshoe is the inboard leg of the
+    // next (with opposite sign), so each node's leg is evaluated once per control point. A
+    // leg's core uses the mean width of the segments that share it.
+    let nodes = trailing_nodes(stations, surfaces);
+    let mut legs = vec![Vec3::zeros(); nodes.len()];
+    let mut lines = vec![Vec3::zeros(); nodes.len()];
+    for (i, si) in stations.iter().enumerate() {
+        if mirror[i] < i {
+            continue;
+        }
+        let fraction = |surface: usize| {
+            if surface == si.surface {
+                options.self_core_fraction
+            } else {
+                options.wake_core_fraction
+            }
+        };
+        for (k, node) in nodes.iter().enumerate() {
+            let core = fraction(node.surface) * node.width_m;
+            legs[k] = semi_infinite_velocity(&si.control, &node.point, wake, core);
+            lines[k] = trefftz_line_velocity(&si.control, &node.point, wake, core);
+        }
+        let normal_t = trefftz_normal(si, wake);
+        for (j, sj) in stations.iter().enumerate() {
+            let core = fraction(sj.surface) * sj.width_m;
+            let (ka, kb) = (j + sj.surface, j + sj.surface + 1);
+            let v =
+                segment_velocity(&si.control, &sj.node_a, &sj.node_b, core) + legs[kb] - legs[ka];
+            let vt = lines[kb] - lines[ka];
+            let (a, t) = (v.dot(&si.normal), vt.dot(&normal_t));
+            induced[(i, j)] = a;
+            trefftz[(i, j)] = t;
+            induced[(mirror[i], mirror[j])] = a;
+            trefftz[(mirror[i], mirror[j])] = t;
+        }
+    }
+    (induced, trefftz)
+}
+
+/// The right-hand sides of the unit solutions, one column each: the constant part, alpha,
+/// pitch control and each surface's incidence, scaled by the section factor `d` (c/2 times
+/// the lift slope).
+fn unit_right_hand_sides(
+    stations: &[Station],
+    surfaces: &[SurfaceInfo],
+    d: &DVector<f64>,
+) -> DMatrix<f64> {
+    let n = stations.len();
+    let unit_count = UNIT_FIRST_INCIDENCE + surfaces.len();
+    let mut rhs = DMatrix::<f64>::zeros(n, unit_count);
+    for (i, st) in stations.iter().enumerate() {
+        rhs[(i, UNIT_CONSTANT)] = d[i] * (st.geometric_angle_rad - st.section.alpha_zero_lift_rad);
+        rhs[(i, UNIT_ALPHA)] = d[i] * st.normal_z;
+        if let Some(e) = surfaces[st.surface].elevator {
+            rhs[(i, UNIT_ELEVATOR)] = -d[i] * e.dalpha0_per_rad_deflection * st.control_share;
+        }
+        rhs[(i, UNIT_FIRST_INCIDENCE + st.surface)] = d[i];
+    }
+    rhs
+}
+
+/// The factored folded system, the representative stations, each station's representative
+/// and the unit solutions of `matrix` for `rhs`, checked by their residual.
+#[allow(clippy::type_complexity)]
+fn solve_unit_inputs(
+    matrix: &DMatrix<f64>,
+    rhs: &DMatrix<f64>,
+    mirror: &[usize],
+) -> Result<
+    (
+        nalgebra::LU<f64, nalgebra::Dyn, nalgebra::Dyn>,
+        Vec<usize>,
+        Vec<usize>,
+        DMatrix<f64>,
+    ),
+    LiftingLineError,
+> {
+    let n = matrix.nrows();
+    // Every unit input is symmetric (alpha, elevator, incidences), so every unit solution
+    // is: solve for the starboard half (and any centre station) with the port columns
+    // folded onto their mirror images, an LU of half the size (an eighth of the work), then
+    // copy. The residual is checked on the full system, which also confirms the symmetry.
+    let reps: Vec<usize> = (0..n).filter(|&i| mirror[i] >= i).collect();
+    let mut rep_of = vec![0; n];
+    for (r, &i) in reps.iter().enumerate() {
+        rep_of[i] = r;
+        rep_of[mirror[i]] = r;
+    }
+    let m = reps.len();
+    let mut folded = DMatrix::<f64>::zeros(m, m);
+    for j in 0..n {
+        for (r, &i) in reps.iter().enumerate() {
+            folded[(r, rep_of[j])] += matrix[(i, j)];
+        }
+    }
+    let folded_rhs = rhs.select_rows(reps.iter());
+    let lu = folded.lu();
+    check_pivots(lu.u().diagonal().as_slice())?;
+    let half = lu
+        .solve(&folded_rhs)
+        .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
+    let units = half.select_rows(rep_of.iter());
+    check_residual(matrix, &units, rhs)?;
+    Ok((lu, reps, rep_of, units))
+}
+
 /// The start point of one trailing leg (a node of the discretisation).
 struct TrailingNode {
     point: Vec3,
@@ -1231,6 +1301,35 @@ fn discretise(
             range: "finite and > 0",
         });
     }
+    check_section_ids(input)?;
+    let half_breaks = station_break_points_m(input, total);
+    let semispan_y = station_at(surface, total).y_m;
+    let cluster = match options.model {
+        WingModel::LiftingLine => options.cluster_at_kinked_root,
+        WingModel::VortexLattice => true,
+    };
+    let split_at_root = cluster && root_is_kinked(surface);
+    for segment in segments(
+        total,
+        &half_breaks,
+        split_at_root,
+        per_half,
+        options.uniform_spacing,
+    ) {
+        out.push(strip_station(
+            input,
+            surface_index,
+            total,
+            semispan_y,
+            segment,
+        )?);
+    }
+    Ok(())
+}
+
+/// Refuse a surface whose panels name an airfoil index beyond the section models given.
+fn check_section_ids(input: &SurfaceInput<'_>) -> Result<(), LiftingLineError> {
+    let surface = input.surface;
     let check_id = |index: usize| {
         if index < input.sections.len() {
             Ok(())
@@ -1254,96 +1353,102 @@ fn discretise(
             check_id(e.tip_airfoil.0)?;
         }
     }
+    Ok(())
+}
+
+/// The break points of one half of the surface along its span line, m (`total_m` its length):
+/// panel joints and the ends of a part-span control, sorted.
+fn station_break_points_m(input: &SurfaceInput<'_>, total_m: f64) -> Vec<f64> {
+    let surface = input.surface;
     // Signed break points, port tip to starboard tip.
     let half_breaks: Vec<f64> = break_points_m(surface)
         .into_iter()
-        .filter(|b| *b > 1e-12 * total)
+        .filter(|b| *b > 1e-12 * total_m)
         .collect();
     // The ends of a part-span control are break points too, so that no segment straddles one.
     let mut half_breaks = half_breaks;
     if let Some(e) = &input.elevator {
         for f in [e.inboard_fraction, e.outboard_fraction] {
-            let s = f * total;
-            if s > 1e-9 * total
-                && s < (1.0 - 1e-9) * total
-                && half_breaks.iter().all(|b| (b - s).abs() > 1e-6 * total)
+            let s = f * total_m;
+            if s > 1e-9 * total_m
+                && s < (1.0 - 1e-9) * total_m
+                && half_breaks.iter().all(|b| (b - s).abs() > 1e-6 * total_m)
             {
                 half_breaks.push(s);
             }
         }
         half_breaks.sort_by(f64::total_cmp);
     }
-    let semispan_y = station_at(surface, total).y_m;
-    let cluster = match options.model {
-        WingModel::LiftingLine => options.cluster_at_kinked_root,
-        WingModel::VortexLattice => true,
-    };
-    let split_at_root = cluster && root_is_kinked(surface);
-    for (s0, s1, s_cp) in segments(
-        total,
-        &half_breaks,
-        split_at_root,
-        per_half,
-        options.uniform_spacing,
-    ) {
-        let a = quarter_chord_point(surface, s0);
-        let b = quarter_chord_point(surface, s1);
-        let (le_a, chord_a_m) = leading_edge_point(surface, s0);
-        let (le_b, chord_b_m) = leading_edge_point(surface, s1);
-        let t = (s_cp - s0) / (s1 - s0);
-        let control = a + (b - a) * t;
-        let st = station_at(surface, s_cp.abs());
-        let dl = b - a;
-        let width_m = (dl.y * dl.y + dl.z * dl.z).sqrt();
-        if !(width_m > 0.0 && st.chord_m > 0.0 && dl.y > 0.0) {
-            return Err(LiftingLineError::InvalidInput {
-                parameter: "station chord_m or width_m",
-                value: st.chord_m.min(width_m),
-                range: "> 0 at every control point (surface must have area and span)",
-            });
-        }
-        let normal = Vec3::new(0.0, -dl.z, dl.y) / width_m;
-        let control_share = input.elevator.map_or(0.0, |e| {
-            let (lo, hi) = (s0.abs().min(s1.abs()), s0.abs().max(s1.abs()));
-            let covered =
-                (hi.min(e.outboard_fraction * total) - lo.max(e.inboard_fraction * total)).max(0.0);
-            (covered / (hi - lo)).clamp(0.0, 1.0)
-        });
-        let section = input.sections[st.airfoil_inboard.0]
-            .blend(&input.sections[st.airfoil_outboard.0], st.airfoil_weight);
-        if !(section.cl_alpha_per_rad.is_finite() && section.cl_alpha_per_rad > 0.0) {
-            return Err(LiftingLineError::InvalidInput {
-                parameter: "section cl_alpha_per_rad",
-                value: section.cl_alpha_per_rad,
-                range: "finite and > 0",
-            });
-        }
-        out.push(Station {
-            surface: surface_index,
-            s_m: s_cp,
-            y_m: control.y,
-            x_m: control.x,
-            z_m: control.z,
-            chord_m: st.chord_m,
-            dy_m: dl.y,
-            width_m,
-            geometric_angle_rad: surface.incidence_rad + st.twist_rad,
-            normal_z: normal.z,
-            percent_semispan: 100.0 * control.y.abs() / semispan_y,
-            section,
-            control_share,
-            node_a: a,
-            node_b: b,
-            control,
-            normal,
-            le_a,
-            le_b,
-            chord_a_m,
-            chord_b_m,
-            control_t: t,
+    half_breaks
+}
+
+/// The station of one strip of the surface, from the strip's ends `s0`, `s1` and control point
+/// `s_cp` along the span line (m, negative to port); `total` is the half-span length and
+/// `semispan_y` the tip's y, m.
+fn strip_station(
+    input: &SurfaceInput<'_>,
+    surface_index: usize,
+    total: f64,
+    semispan_y: f64,
+    (s0, s1, s_cp): (f64, f64, f64),
+) -> Result<Station, LiftingLineError> {
+    let surface = input.surface;
+    let a = quarter_chord_point(surface, s0);
+    let b = quarter_chord_point(surface, s1);
+    let (le_a, chord_a_m) = leading_edge_point(surface, s0);
+    let (le_b, chord_b_m) = leading_edge_point(surface, s1);
+    let t = (s_cp - s0) / (s1 - s0);
+    let control = a + (b - a) * t;
+    let st = station_at(surface, s_cp.abs());
+    let dl = b - a;
+    let width_m = (dl.y * dl.y + dl.z * dl.z).sqrt();
+    if !(width_m > 0.0 && st.chord_m > 0.0 && dl.y > 0.0) {
+        return Err(LiftingLineError::InvalidInput {
+            parameter: "station chord_m or width_m",
+            value: st.chord_m.min(width_m),
+            range: "> 0 at every control point (surface must have area and span)",
         });
     }
-    Ok(())
+    let normal = Vec3::new(0.0, -dl.z, dl.y) / width_m;
+    let control_share = input.elevator.map_or(0.0, |e| {
+        let (lo, hi) = (s0.abs().min(s1.abs()), s0.abs().max(s1.abs()));
+        let covered =
+            (hi.min(e.outboard_fraction * total) - lo.max(e.inboard_fraction * total)).max(0.0);
+        (covered / (hi - lo)).clamp(0.0, 1.0)
+    });
+    let section = input.sections[st.airfoil_inboard.0]
+        .blend(&input.sections[st.airfoil_outboard.0], st.airfoil_weight);
+    if !(section.cl_alpha_per_rad.is_finite() && section.cl_alpha_per_rad > 0.0) {
+        return Err(LiftingLineError::InvalidInput {
+            parameter: "section cl_alpha_per_rad",
+            value: section.cl_alpha_per_rad,
+            range: "finite and > 0",
+        });
+    }
+    Ok(Station {
+        surface: surface_index,
+        s_m: s_cp,
+        y_m: control.y,
+        x_m: control.x,
+        z_m: control.z,
+        chord_m: st.chord_m,
+        dy_m: dl.y,
+        width_m,
+        geometric_angle_rad: surface.incidence_rad + st.twist_rad,
+        normal_z: normal.z,
+        percent_semispan: 100.0 * control.y.abs() / semispan_y,
+        section,
+        control_share,
+        node_a: a,
+        node_b: b,
+        control,
+        normal,
+        le_a,
+        le_b,
+        chord_a_m,
+        chord_b_m,
+        control_t: t,
+    })
 }
 
 #[cfg(test)]

@@ -20,8 +20,9 @@ use std::f64::consts::PI;
 use nalgebra::{DMatrix, DVector};
 
 use super::multi_surface::{
-    trefftz_width_m, FlightCondition, MultiSurfaceSystem, SolveStatus, UnitSums,
+    trefftz_width_m, FlightCondition, MultiSurfaceSystem, SolveStatus, SurfaceInfo, UnitSums,
 };
+use super::vortex::Vec3;
 use super::LiftingLineError;
 
 /// One station of the spanwise table.
@@ -159,18 +160,67 @@ pub(crate) fn assemble(
     status: SolveStatus,
 ) -> Result<LiftingLineResult, LiftingLineError> {
     let reference = system.reference();
-    let (s_ref, c_ref) = (reference.area_m2, reference.mac_m);
-    let wake = system.wake_direction();
-    let stations = system.stations();
     let induced = system.induced() * gamma;
-    let offsets = system.lift_x_offsets(&DMatrix::from_column_slice(
-        gamma.len(),
-        1,
-        gamma.as_slice(),
-    ));
-    let trefftz = system.trefftz() * gamma;
+    let state = SolvedState {
+        cond,
+        gamma,
+        tangent,
+        offsets: system.lift_x_offsets(&DMatrix::from_column_slice(
+            gamma.len(),
+            1,
+            gamma.as_slice(),
+        )),
+        trefftz: system.trefftz() * gamma,
+        wake: system.wake_direction(),
+    };
 
-    let table: Vec<StationResult> = stations
+    let table = station_table(system, gamma, geo, &induced);
+
+    let mut surfaces = Vec::with_capacity(system.surface_count());
+    for (s, info) in system.surfaces().iter().enumerate() {
+        surfaces.push(surface_result(system, s, info, &state, &table));
+    }
+    let cl: f64 = surfaces.iter().map(|s| s.cl).sum();
+    let cdi: f64 = surfaces.iter().map(|s| s.induced_drag).sum();
+    let result = LiftingLineResult {
+        condition: cond.clone(),
+        status,
+        cl,
+        lift_slope_per_rad: surfaces.iter().map(|s| s.lift_slope_per_rad).sum(),
+        induced_drag: cdi,
+        span_efficiency: efficiency(cl, cdi, reference.aspect_ratio()),
+        stall: stall_of(&table, 0..table.len()),
+        surfaces,
+        stations: table,
+    };
+    if !result_is_finite(&result) {
+        return Err(LiftingLineError::NonFinite { quantity: "result" });
+    }
+    Ok(result)
+}
+
+/// A solved state of the system, as [`assemble`] takes it apart: the condition, the
+/// circulations / speed (m) and their derivative with alpha, each station's lift x offset
+/// (m, one column), the Trefftz-plane normal-wash per unit speed and the wake direction.
+struct SolvedState<'a> {
+    cond: &'a FlightCondition,
+    gamma: &'a DVector<f64>,
+    tangent: &'a DVector<f64>,
+    offsets: DMatrix<f64>,
+    trefftz: DVector<f64>,
+    wake: Vec3,
+}
+
+/// The spanwise table of a solved state: `gamma` the circulations / speed (m), `geo` the
+/// geometric angles and `induced` the induced angles (rad).
+fn station_table(
+    system: &MultiSurfaceSystem,
+    gamma: &DVector<f64>,
+    geo: &DVector<f64>,
+    induced: &DVector<f64>,
+) -> Vec<StationResult> {
+    system
+        .stations()
         .iter()
         .enumerate()
         .map(|(i, st)| {
@@ -189,74 +239,98 @@ pub(crate) fn assemble(
                 circulation_per_speed_m: gamma[i],
             }
         })
-        .collect();
+        .collect()
+}
 
-    let mut surfaces = Vec::with_capacity(system.surface_count());
-    for (s, info) in system.surfaces().iter().enumerate() {
-        let mut sums = UnitSums::default();
-        let (mut slope, mut cdi) = (0.0, 0.0);
-        let (mut eps_w, mut deps_w, mut weight) = (0.0, 0.0, 0.0);
-        for i in info.range.clone() {
-            let st = &stations[i];
-            let lift = 2.0 * gamma[i] * st.dy_m / s_ref;
-            sums.cl += lift;
-            sums.mx -= (lift * st.x_m + 2.0 * offsets[(i, 0)] * st.dy_m / s_ref) / c_ref;
-            sums.mz -= lift * st.z_m / c_ref;
-            let cm_ac = st.section.cm_ac
-                + info.elevator.map_or(0.0, |e| {
-                    e.dcm_ac_per_rad_deflection * cond.elevator_rad * st.control_share
-                });
-            // Section moment about the quarter chord: cm_ac + cl (1/4 - x_ac/c).
-            let cm_qc = cm_ac + table[i].cl * (0.25 - st.section.x_ac_c);
-            sums.sec += st.chord_m * st.chord_m * st.dy_m * cm_qc / (s_ref * c_ref);
-            slope += 2.0 * tangent[i] * st.dy_m / s_ref;
-            cdi -= gamma[i] * trefftz[i] * trefftz_width_m(st, &wake) / s_ref;
-            // Downwash from the other surfaces only.
-            let (mut from_others, mut d_from_others) = (0.0, 0.0);
-            for (j, sj) in stations.iter().enumerate() {
-                if sj.surface != s {
-                    let a = system.induced()[(i, j)];
-                    from_others += a * gamma[j];
-                    d_from_others += a * tangent[j];
-                }
-            }
-            let w = st.chord_m * st.dy_m;
-            eps_w -= w * from_others;
-            deps_w -= w * d_from_others;
-            weight += w;
-        }
-        let own = s_ref / info.area_m2;
-        let cl_own = sums.cl * own;
-        let cdi_own = cdi * own;
-        surfaces.push(SurfaceResult {
-            name: info.name.clone(),
-            cl: sums.cl,
-            cl_own_area: cl_own,
-            lift_slope_per_rad: slope,
-            induced_drag: cdi,
-            span_efficiency: efficiency(cl_own, cdi_own, info.aspect_ratio),
-            downwash_rad: eps_w / weight,
-            downwash_gradient: deps_w / weight,
-            stall: stall_of(&table, info.range.clone()),
-            sums,
-            alpha_rad: cond.alpha_rad,
-            mac_m: c_ref,
-        });
+/// The coefficients of surface `s` (described by `info`) in a solved state: lift, moments,
+/// lift slope, induced drag, span efficiency, downwash from the other surfaces and its
+/// gradient (chord-weighted over the span), and the station nearest stall.
+fn surface_result(
+    system: &MultiSurfaceSystem,
+    s: usize,
+    info: &SurfaceInfo,
+    state: &SolvedState<'_>,
+    table: &[StationResult],
+) -> SurfaceResult {
+    let reference = system.reference();
+    let (s_ref, c_ref) = (reference.area_m2, reference.mac_m);
+    let stations = system.stations();
+    let SolvedState {
+        cond,
+        gamma,
+        tangent,
+        offsets,
+        trefftz,
+        wake,
+    } = state;
+    let mut sums = UnitSums::default();
+    let (mut slope, mut cdi) = (0.0, 0.0);
+    let (mut eps_w, mut deps_w, mut weight) = (0.0, 0.0, 0.0);
+    for i in info.range.clone() {
+        let st = &stations[i];
+        let lift = 2.0 * gamma[i] * st.dy_m / s_ref;
+        sums.cl += lift;
+        sums.mx -= (lift * st.x_m + 2.0 * offsets[(i, 0)] * st.dy_m / s_ref) / c_ref;
+        sums.mz -= lift * st.z_m / c_ref;
+        let cm_ac = st.section.cm_ac
+            + info.elevator.map_or(0.0, |e| {
+                e.dcm_ac_per_rad_deflection * cond.elevator_rad * st.control_share
+            });
+        // Section moment about the quarter chord: cm_ac + cl (1/4 - x_ac/c).
+        let cm_qc = cm_ac + table[i].cl * (0.25 - st.section.x_ac_c);
+        sums.sec += st.chord_m * st.chord_m * st.dy_m * cm_qc / (s_ref * c_ref);
+        slope += 2.0 * tangent[i] * st.dy_m / s_ref;
+        cdi -= gamma[i] * trefftz[i] * trefftz_width_m(st, wake) / s_ref;
+        // Downwash from the other surfaces only.
+        let (from_others, d_from_others) = downwash_from_others(system, s, i, gamma, tangent);
+        let w = st.chord_m * st.dy_m;
+        eps_w -= w * from_others;
+        deps_w -= w * d_from_others;
+        weight += w;
     }
-    let cl: f64 = surfaces.iter().map(|s| s.cl).sum();
-    let cdi: f64 = surfaces.iter().map(|s| s.induced_drag).sum();
-    let result = LiftingLineResult {
-        condition: cond.clone(),
-        status,
-        cl,
-        lift_slope_per_rad: surfaces.iter().map(|s| s.lift_slope_per_rad).sum(),
+    let own = s_ref / info.area_m2;
+    let cl_own = sums.cl * own;
+    let cdi_own = cdi * own;
+    SurfaceResult {
+        name: info.name.clone(),
+        cl: sums.cl,
+        cl_own_area: cl_own,
+        lift_slope_per_rad: slope,
         induced_drag: cdi,
-        span_efficiency: efficiency(cl, cdi, reference.aspect_ratio()),
-        stall: stall_of(&table, 0..table.len()),
-        surfaces,
-        stations: table,
-    };
-    let finite = result.cl.is_finite()
+        span_efficiency: efficiency(cl_own, cdi_own, info.aspect_ratio),
+        downwash_rad: eps_w / weight,
+        downwash_gradient: deps_w / weight,
+        stall: stall_of(table, info.range.clone()),
+        sums,
+        alpha_rad: cond.alpha_rad,
+        mac_m: c_ref,
+    }
+}
+
+/// The induced angle at station `i` from the circulations of the surfaces other than
+/// `surface` alone (rad), and its derivative with alpha.
+fn downwash_from_others(
+    system: &MultiSurfaceSystem,
+    surface: usize,
+    i: usize,
+    gamma: &DVector<f64>,
+    tangent: &DVector<f64>,
+) -> (f64, f64) {
+    let stations = system.stations();
+    let (mut from_others, mut d_from_others) = (0.0, 0.0);
+    for (j, sj) in stations.iter().enumerate() {
+        if sj.surface != surface {
+            let a = system.induced()[(i, j)];
+            from_others += a * gamma[j];
+            d_from_others += a * tangent[j];
+        }
+    }
+    (from_others, d_from_others)
+}
+
+/// True when the totals, every station and every surface of `result` are finite.
+fn result_is_finite(result: &LiftingLineResult) -> bool {
+    result.cl.is_finite()
         && result.induced_drag.is_finite()
         && result.lift_slope_per_rad.is_finite()
         && result.stations.iter().all(|s| {
@@ -266,11 +340,7 @@ pub(crate) fn assemble(
             s.downwash_rad.is_finite()
                 && s.downwash_gradient.is_finite()
                 && s.cm(0.0, 0.0).is_finite()
-        });
-    if !finite {
-        return Err(LiftingLineError::NonFinite { quantity: "result" });
-    }
-    Ok(result)
+        })
 }
 
 fn efficiency(cl: f64, cdi: f64, aspect_ratio: f64) -> Option<f64> {

@@ -469,12 +469,6 @@ pub fn full_stability_on(
     let z = input.cg_z_m;
     let base = system.condition(0.0);
     let pitch_control = input.aircraft.pitch_control();
-    let eta = input
-        .aircraft
-        .stabiliser
-        .as_ref()
-        .map_or(1.0, |s| s.dynamic_pressure_ratio);
-
     let coeffs = system.linear_coefficients(&base, input.cg_x_m, z)?;
     let cl_alpha = coeffs.cl_alpha_per_rad;
     let np_surfaces = system.neutral_point_x_m(&base, z)?;
@@ -485,40 +479,7 @@ pub fn full_stability_on(
     let static_margin = (neutral_point_x_m - input.cg_x_m) / c;
 
     // Trim at the CG with neutral elevator.
-    let trim = match system.alpha_for_zero_moment(&base, eff(input.cg_x_m), z) {
-        Ok(tp) if tp.cl > crate::stability::classical::MIN_TRIM_CL && static_margin > 0.0 => {
-            let mut cond = base.clone();
-            cond.alpha_rad = tp.alpha_rad;
-            let result = system.solve(&cond)?;
-            let speed = speed_at(input.mass_kg, input.density_kg_m3, area, result.cl);
-            let stab = result.surfaces.get(1);
-            let q = 0.5 * input.density_kg_m3 * speed * speed;
-            let (downwash_rad, mut downwash_gradient) =
-                stab.map_or((0.0, 0.0), |s| (s.downwash_rad, s.downwash_gradient));
-            // Trimmed beyond the stall (flagged elsewhere) the local gradient of the stalled
-            // wing is near zero; report the attached-flow gradient the neutral point uses.
-            if result.status != crate::lifting_line::SolveStatus::Linear {
-                if let Some(s) = system.solve(&base)?.surfaces.get(1) {
-                    downwash_gradient = s.downwash_gradient;
-                }
-            }
-            Some(FullTrim {
-                alpha_rad: tp.alpha_rad,
-                cl: result.cl,
-                speed_m_s: speed,
-                // The system's stabiliser coefficients are on the free stream's dynamic
-                // pressure; its own cl is on the dynamic pressure it meets.
-                stabiliser_cl: stab.map_or(0.0, |s| s.cl_own_area) / eta,
-                stabiliser_load_n: stab.map_or(0.0, |s| s.cl * q * area),
-                span_efficiency: result.span_efficiency,
-                downwash_rad,
-                downwash_gradient,
-                result,
-            })
-        }
-        Ok(_) | Err(LiftingLineError::NoTrim { .. }) => None,
-        Err(e) => return Err(e),
-    };
+    let trim = trim_at_cg(system, input, &base, eff(input.cg_x_m), static_margin)?;
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
     let map = StationMap::of(system, &base)?;
@@ -534,63 +495,32 @@ pub fn full_stability_on(
 
     // Forward CG limit from elevator (or elevon) authority; not for a canard, whose elevator
     // works on the surface that must stall first.
-    let is_canard = input
-        .aircraft
-        .stabiliser
-        .as_ref()
-        .is_some_and(|s| s.role == StabiliserRole::Canard);
-    let (elevator_forward_limit_x_m, forward_limit_cause) = match pitch_control {
-        Some(p) if !is_canard => {
-            let full_up_rad = model_full_up_rad(p);
-            let find = || {
-                elevator_limit(
-                    system,
-                    map.as_ref(),
-                    &base,
-                    full_up_rad,
-                    neutral_point_x_m,
-                    c,
-                    z,
-                    fuselage_shift_m,
-                )
-            };
-            match memo {
-                Some(m) => m.get_or([z, full_up_rad, input.fuselage_cm_alpha_per_rad], find),
-                None => find(),
-            }
-        }
-        _ => (None, ForwardLimitCause::ControlAuthority),
-    };
+    let (elevator_forward_limit_x_m, forward_limit_cause) = forward_limit(
+        system,
+        map.as_ref(),
+        &base,
+        input,
+        memo,
+        neutral_point_x_m,
+        fuselage_shift_m,
+    );
 
     // Solves for a target speed: only for a stable aircraft (with the CG behind the neutral
     // point a trimmed state cannot be held, and rigging advice would mislead), and a CG for the
     // target speed only where that CG is itself ahead of the neutral point.
-    let mut decalage_for_target = None;
-    let mut cg_for_target_x_m = None;
     let stable = static_margin > 0.0;
-    if let (Some(v), true) = (input.target_speed_m_s, stable) {
-        let cl_t = cl_at(input.mass_kg, input.density_kg_m3, area, v);
-        if let Some(stab) = &input.aircraft.stabiliser {
-            if let Ok(tp) =
-                system.trim_for_cl(&base, TrimControl::Incidence(1), cl_t, eff(input.cg_x_m), z)
-            {
-                let incidence = stab.surface.incidence_rad + tp.control_rad;
-                let wing_minus_stab = input.aircraft.wing.incidence_rad - incidence;
-                decalage_for_target = Some(DecalageSolve {
-                    speed_m_s: v,
-                    cl: cl_t,
-                    stabiliser_incidence_rad: incidence,
-                    decalage_rad: match stab.role {
-                        StabiliserRole::Tail => wing_minus_stab,
-                        StabiliserRole::Canard => -wing_minus_stab,
-                    },
-                });
-            }
-        }
-        cg_for_target_x_m = cg_for_cl(system, &base, cl_t, z)
-            .map(|x| x - fuselage_shift_m)
-            .filter(|x| *x < neutral_point_x_m);
-    }
+    let (decalage_for_target, cg_for_target_x_m) = match (input.target_speed_m_s, stable) {
+        (Some(v), true) => target_speed_solves(
+            system,
+            &base,
+            input,
+            v,
+            eff(input.cg_x_m),
+            fuselage_shift_m,
+            neutral_point_x_m,
+        ),
+        _ => (None, None),
+    };
 
     // Elevator schedule from 1.2 Vs to the top speed.
     let stall_speed = stall.as_ref().map(|s| s.speed_m_s);
@@ -598,30 +528,18 @@ pub fn full_stability_on(
         .top_speed_m_s
         .or(stall_speed.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
         .unwrap_or(0.0);
-    let mut elevator_schedule = Vec::new();
-    if let (Some(control), Some(vs), true) = (pitch_control, stall_speed, stable) {
-        let lo = SCHEDULE_LOW_SPEED_FACTOR * vs;
-        if top_speed_m_s > lo {
-            for k in 0..SCHEDULE_POINTS {
-                let v = lo + (top_speed_m_s - lo) * k as f64 / (SCHEDULE_POINTS - 1) as f64;
-                let cl = cl_at(input.mass_kg, input.density_kg_m3, area, v);
-                if let Ok(tp) =
-                    system.trim_for_cl(&base, TrimControl::Elevator, cl, eff(input.cg_x_m), z)
-                {
-                    let d = real_deflection_rad(control, tp.control_rad);
-                    let stalled =
-                        stabiliser_at_cl_min(system, &base, &tp, TrimControl::Elevator)?.is_some();
-                    elevator_schedule.push(ElevatorPoint {
-                        speed_m_s: v,
-                        cl,
-                        elevator_rad: d,
-                        within_limits: control.within_throws(d),
-                        stabiliser_at_cl_min: stalled,
-                    });
-                }
-            }
-        }
-    }
+    let elevator_schedule = match (pitch_control, stall_speed, stable) {
+        (Some(control), Some(vs), true) => elevator_schedule(
+            system,
+            &base,
+            input,
+            control,
+            vs,
+            top_speed_m_s,
+            eff(input.cg_x_m),
+        )?,
+        _ => Vec::new(),
+    };
 
     let tailless = if input.aircraft.stabiliser.is_some() || !stable {
         None
@@ -654,6 +572,176 @@ pub fn full_stability_on(
         top_speed_m_s,
         tailless,
     })
+}
+
+/// The forward CG limit (m) from full nose-up pitch control and its cause, from `memo` when it
+/// knows it; none for a canard, whose elevator works on the surface that must stall first.
+fn forward_limit(
+    system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
+    base: &FlightCondition,
+    input: &TrimInput<'_>,
+    memo: Option<&ForwardLimitMemo>,
+    neutral_point_x_m: f64,
+    fuselage_shift_m: f64,
+) -> (Option<f64>, ForwardLimitCause) {
+    let mac_m = system.reference().mac_m;
+    let z = input.cg_z_m;
+    let pitch_control = input.aircraft.pitch_control();
+    let is_canard = input
+        .aircraft
+        .stabiliser
+        .as_ref()
+        .is_some_and(|s| s.role == StabiliserRole::Canard);
+    match pitch_control {
+        Some(p) if !is_canard => {
+            let full_up_rad = model_full_up_rad(p);
+            let find = || {
+                elevator_limit(
+                    system,
+                    map,
+                    base,
+                    full_up_rad,
+                    neutral_point_x_m,
+                    mac_m,
+                    z,
+                    fuselage_shift_m,
+                )
+            };
+            match memo {
+                Some(m) => m.get_or([z, full_up_rad, input.fuselage_cm_alpha_per_rad], find),
+                None => find(),
+            }
+        }
+        _ => (None, ForwardLimitCause::ControlAuthority),
+    }
+}
+
+/// The trimmed state with neutral pitch control at the CG (`cg_eff_x_m`, shifted for the
+/// fuselage), when the aircraft is stable and trims at a positive lift.
+fn trim_at_cg(
+    system: &MultiSurfaceSystem,
+    input: &TrimInput<'_>,
+    base: &FlightCondition,
+    cg_eff_x_m: f64,
+    static_margin: f64,
+) -> Result<Option<FullTrim>, LiftingLineError> {
+    let area = system.reference().area_m2;
+    let z = input.cg_z_m;
+    let eta = input
+        .aircraft
+        .stabiliser
+        .as_ref()
+        .map_or(1.0, |s| s.dynamic_pressure_ratio);
+
+    Ok(match system.alpha_for_zero_moment(base, cg_eff_x_m, z) {
+        Ok(tp) if tp.cl > crate::stability::classical::MIN_TRIM_CL && static_margin > 0.0 => {
+            let mut cond = base.clone();
+            cond.alpha_rad = tp.alpha_rad;
+            let result = system.solve(&cond)?;
+            let speed = speed_at(input.mass_kg, input.density_kg_m3, area, result.cl);
+            let stab = result.surfaces.get(1);
+            let q = 0.5 * input.density_kg_m3 * speed * speed;
+            let (downwash_rad, mut downwash_gradient) =
+                stab.map_or((0.0, 0.0), |s| (s.downwash_rad, s.downwash_gradient));
+            // Trimmed beyond the stall (flagged elsewhere) the local gradient of the stalled
+            // wing is near zero; report the attached-flow gradient the neutral point uses.
+            if result.status != crate::lifting_line::SolveStatus::Linear {
+                if let Some(s) = system.solve(base)?.surfaces.get(1) {
+                    downwash_gradient = s.downwash_gradient;
+                }
+            }
+            Some(FullTrim {
+                alpha_rad: tp.alpha_rad,
+                cl: result.cl,
+                speed_m_s: speed,
+                // The system's stabiliser coefficients are on the free stream's dynamic
+                // pressure; its own cl is on the dynamic pressure it meets.
+                stabiliser_cl: stab.map_or(0.0, |s| s.cl_own_area) / eta,
+                stabiliser_load_n: stab.map_or(0.0, |s| s.cl * q * area),
+                span_efficiency: result.span_efficiency,
+                downwash_rad,
+                downwash_gradient,
+                result,
+            })
+        }
+        Ok(_) | Err(LiftingLineError::NoTrim { .. }) => None,
+        Err(e) => return Err(e),
+    })
+}
+
+/// For a target speed `speed_m_s`: the stabiliser incidence and decalage that trim there, and
+/// the CG that trims there (only where it lies ahead of the neutral point), m.
+fn target_speed_solves(
+    system: &MultiSurfaceSystem,
+    base: &FlightCondition,
+    input: &TrimInput<'_>,
+    speed_m_s: f64,
+    cg_eff_x_m: f64,
+    fuselage_shift_m: f64,
+    neutral_point_x_m: f64,
+) -> (Option<DecalageSolve>, Option<f64>) {
+    let area = system.reference().area_m2;
+    let z = input.cg_z_m;
+    let v = speed_m_s;
+    let mut decalage_for_target = None;
+    let cl_t = cl_at(input.mass_kg, input.density_kg_m3, area, v);
+    if let Some(stab) = &input.aircraft.stabiliser {
+        if let Ok(tp) = system.trim_for_cl(base, TrimControl::Incidence(1), cl_t, cg_eff_x_m, z) {
+            let incidence = stab.surface.incidence_rad + tp.control_rad;
+            let wing_minus_stab = input.aircraft.wing.incidence_rad - incidence;
+            decalage_for_target = Some(DecalageSolve {
+                speed_m_s: v,
+                cl: cl_t,
+                stabiliser_incidence_rad: incidence,
+                decalage_rad: match stab.role {
+                    StabiliserRole::Tail => wing_minus_stab,
+                    StabiliserRole::Canard => -wing_minus_stab,
+                },
+            });
+        }
+    }
+    let cg_for_target_x_m = cg_for_cl(system, base, cl_t, z)
+        .map(|x| x - fuselage_shift_m)
+        .filter(|x| *x < neutral_point_x_m);
+    (decalage_for_target, cg_for_target_x_m)
+}
+
+/// The elevator schedule of a stable aircraft from `SCHEDULE_LOW_SPEED_FACTOR` times the stall
+/// speed `stall_speed_m_s` to `top_speed_m_s`, trimmed at the CG (`cg_eff_x_m`).
+fn elevator_schedule(
+    system: &MultiSurfaceSystem,
+    base: &FlightCondition,
+    input: &TrimInput<'_>,
+    control: &PitchControl,
+    stall_speed_m_s: f64,
+    top_speed_m_s: f64,
+    cg_eff_x_m: f64,
+) -> Result<Vec<ElevatorPoint>, LiftingLineError> {
+    let area = system.reference().area_m2;
+    let z = input.cg_z_m;
+    let vs = stall_speed_m_s;
+    let mut elevator_schedule = Vec::new();
+    let lo = SCHEDULE_LOW_SPEED_FACTOR * vs;
+    if top_speed_m_s > lo {
+        for k in 0..SCHEDULE_POINTS {
+            let v = lo + (top_speed_m_s - lo) * k as f64 / (SCHEDULE_POINTS - 1) as f64;
+            let cl = cl_at(input.mass_kg, input.density_kg_m3, area, v);
+            if let Ok(tp) = system.trim_for_cl(base, TrimControl::Elevator, cl, cg_eff_x_m, z) {
+                let d = real_deflection_rad(control, tp.control_rad);
+                let stalled =
+                    stabiliser_at_cl_min(system, base, &tp, TrimControl::Elevator)?.is_some();
+                elevator_schedule.push(ElevatorPoint {
+                    speed_m_s: v,
+                    cl,
+                    elevator_rad: d,
+                    within_limits: control.within_throws(d),
+                    stabiliser_at_cl_min: stalled,
+                });
+            }
+        }
+    }
+    Ok(elevator_schedule)
 }
 
 /// The first limit met on the trimmed path.
