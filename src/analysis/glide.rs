@@ -469,16 +469,7 @@ fn polar_control_runs_out_caution(
     p: &GlidePolar,
     cautions: &mut Vec<Caution>,
 ) {
-    let unflyable: Vec<f64> = p
-        .points
-        .iter()
-        .filter(|q| !q.flyable)
-        .map(|q| q.speed_m_s)
-        .collect();
-    if let (Some(lo), Some(hi)) = (
-        unflyable.iter().copied().reduce(f64::min),
-        unflyable.iter().copied().reduce(f64::max),
-    ) {
+    if let Some((lo, hi)) = unflyable_range(p) {
         cautions.push(Caution::new(
             Level::Warning,
             "polar-control-runs-out",
@@ -615,16 +606,7 @@ pub fn setting_cautions(
                 ),
             )),
             Ok(p) => {
-                let out: Vec<f64> = p
-                    .points
-                    .iter()
-                    .filter(|q| !q.flyable)
-                    .map(|q| q.speed_m_s)
-                    .collect();
-                if let (Some(lo), Some(hi)) = (
-                    out.iter().copied().reduce(f64::min),
-                    out.iter().copied().reduce(f64::max),
-                ) {
+                if let Some((lo, hi)) = unflyable_range(p) {
                     cautions.push(Caution::new(
                         Level::Warning,
                         "flap-setting-control-runs-out",
@@ -652,4 +634,10 @@ pub fn sink_at(p: &GlidePolar, speed_m_s: f64) -> Option<f64> {
             let f = (speed_m_s - w[0].speed_m_s) / (w[1].speed_m_s - w[0].speed_m_s);
             w[0].sink_m_s + f * (w[1].sink_m_s - w[0].sink_m_s)
         })
+}
+
+/// The slowest and fastest speeds (m/s) of `p` that the pitch control cannot trim, if any.
+fn unflyable_range(p: &GlidePolar) -> Option<(f64, f64)> {
+    let speeds = p.points.iter().filter(|q| !q.flyable).map(|q| q.speed_m_s);
+    Some((speeds.clone().reduce(f64::min)?, speeds.reduce(f64::max)?))
 }
