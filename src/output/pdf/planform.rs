@@ -340,6 +340,11 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
         // Room for one label only: the CG.
         marks.retain(|m| m.text.starts_with("CG "));
     }
+    if area.top() - CAPTION.line_height_mm() - gap < area.y + caption_h {
+        // Not even one label and its heading fit beside this view: none (the balance box
+        // prints the figures).
+        marks.clear();
+    }
     let ideal: Vec<f64> = marks.iter().map(|mk| page((mk.x_m, 0.0)).1).collect();
     let mut placed = ideal.clone();
     if let Some(p0) = placed.first_mut() {
