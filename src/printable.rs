@@ -46,6 +46,17 @@ pub fn token(text: &str) -> String {
     out
 }
 
+/// Names for a list in a message, each quoted as [`token`] shows it and separated by
+/// commas: `'root', 'battery, 4 cells'` (quoted, so that a comma inside a name cannot be
+/// read as a separator).
+pub fn name_list<S: AsRef<str>>(names: &[S]) -> String {
+    names
+        .iter()
+        .map(|n| format!("'{}'", token(n.as_ref())))
+        .collect::<Vec<_>>()
+        .join(", ")
+}
+
 /// What an error about an unreadable value may quote of a file: the value's first word
 /// (letters, digits and `+-._%^/`; a number or a unit), with one short second word when it
 /// looks like a unit (`2 deg`), as [`token`] shows it, and "..." when anything was left

@@ -73,7 +73,7 @@ pub fn with_setup(aircraft: Aircraft, setup: Option<&str>) -> anyhow::Result<Air
             }
             anyhow::bail!(
                 "--setup {name}: no such setup (the file has: {})",
-                names.join(", ")
+                trimline::printable::name_list(&names)
             )
         }
     }

@@ -7,7 +7,7 @@ use std::path::PathBuf;
 use trimline::analysis::AnalysisOptions;
 use trimline::model::Aircraft;
 use trimline::output::fs::write_file;
-use trimline::printable::printable;
+use trimline::printable::{name_list, printable};
 use trimline::study::{Axis, Quantity, Study, MAX_POINTS};
 
 /// Arguments of `sweep`.
@@ -171,15 +171,12 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
                     .iter()
                     .position(|m| m.name == item)
                     .with_context(|| {
-                        let names: Vec<String> = aircraft
-                            .masses
-                            .iter()
-                            .map(|m| printable(&m.name).into_owned())
-                            .collect();
+                        let names: Vec<&str> =
+                            aircraft.masses.iter().map(|m| m.name.as_str()).collect();
                         format!(
                             "--vary {shown}: no mass item named '{}' (the file has: {})",
                             printable(item),
-                            names.join(", ")
+                            name_list(&names)
                         )
                     })
             };
@@ -190,10 +187,10 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
                         .iter()
                         .position(|b| b.name == item)
                         .with_context(|| {
-                            let names: Vec<String> = aircraft
+                            let names: Vec<&str> = aircraft
                                 .ballast_bays
                                 .iter()
-                                .map(|b| printable(&b.name).into_owned())
+                                .map(|b| b.name.as_str())
                                 .collect();
                             if names.is_empty() {
                                 format!("--vary {shown}: the file has no [[ballast]] bays")
@@ -201,7 +198,7 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
                                 format!(
                                     "--vary {shown}: no ballast bay named '{}' (the file has: {})",
                                     printable(item),
-                                    names.join(", ")
+                                    name_list(&names)
                                 )
                             }
                         })?;

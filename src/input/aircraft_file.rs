@@ -2369,8 +2369,7 @@ fn unit_slip_hint(v: f64, dim: Dimension, bounds: Bounds) -> String {
 
 /// "one of: a, b, c" for the accepted names of an error message.
 fn one_of<S: AsRef<str>>(names: &[S]) -> String {
-    let names: Vec<&str> = names.iter().map(AsRef::as_ref).collect();
-    format!("one of: {}", names.join(", "))
+    format!("one of: {}", crate::printable::name_list(names))
 }
 
 /// What a quantity accepts: its range in the default unit, and the units a string may carry.

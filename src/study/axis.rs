@@ -65,6 +65,33 @@ impl Quantity {
         }
     }
 
+    /// The name on the command line (`cg`, `ballast`, `mass`, `x`, `mass-scale`,
+    /// `stab-incidence`, `decalage`; the bay or item name follows a colon there).
+    pub fn option_name(&self) -> &'static str {
+        match self {
+            Quantity::CgX => "cg",
+            Quantity::Ballast(_) => "ballast",
+            Quantity::ItemMass(_) => "mass",
+            Quantity::ItemX(_) => "x",
+            Quantity::MassScale => "mass-scale",
+            Quantity::StabiliserIncidence => "stab-incidence",
+            Quantity::Decalage => "decalage",
+        }
+    }
+
+    /// The builder's unit of the command line's values (docs/sweep.md) and the factor from SI
+    /// to it: mm, g, deg, or none for the factor on every mass.
+    pub fn builder_unit(&self) -> (&'static str, f64) {
+        match self {
+            Quantity::CgX | Quantity::ItemX(_) => ("mm", 1000.0),
+            Quantity::Ballast(_) | Quantity::ItemMass(_) => ("g", 1000.0),
+            Quantity::MassScale => ("", 1.0),
+            Quantity::StabiliserIncidence | Quantity::Decalage => {
+                ("deg", 180.0 / std::f64::consts::PI)
+            }
+        }
+    }
+
     /// True for the quantities that change a surface's incidence (the wing system is then
     /// re-solved for the new boundary angles, not rebuilt).
     pub fn is_incidence(&self) -> bool {
@@ -123,13 +150,15 @@ pub enum StudyError {
         second: &'static str,
     },
     /// A value outside what the quantity accepts.
-    #[error("{quantity} value {value} is outside the accepted range {range}")]
+    #[error("{quantity} value {value}{unit} is outside the accepted range {range}")]
     OutOfRange {
-        /// The quantity's key.
+        /// The quantity's name on the command line.
         quantity: &'static str,
-        /// The value, in the unit the quantity's key ends in.
+        /// The value, in the builder's unit of the command line.
         value: f64,
-        /// The accepted range, in words.
+        /// That unit with a leading space ("" for a plain factor).
+        unit: String,
+        /// The accepted range, in words and the same unit.
         range: String,
     },
     /// The aircraft has nothing for this quantity to change.
@@ -144,9 +173,18 @@ pub enum StudyError {
 
 /// Check that `value` is one `quantity` accepts on `base`.
 pub fn check_value(base: &Aircraft, quantity: &Quantity, value: f64) -> Result<(), StudyError> {
+    let (unit, factor) = quantity.builder_unit();
+    // Shown to 6 significant figures: the value as the builder typed it, without the
+    // rounding noise of the unit conversion.
+    let shown = |v: f64| format!("{}", (v * factor * 1e6).round() / 1e6);
     let out = |range: String| StudyError::OutOfRange {
-        quantity: quantity.key(),
-        value: quantity.in_key_unit(value),
+        quantity: quantity.option_name(),
+        value: (value * factor * 1e6).round() / 1e6,
+        unit: if unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {unit}")
+        },
         range,
     };
     let not = |reason| StudyError::NotApplicable {
@@ -159,9 +197,8 @@ pub fn check_value(base: &Aircraft, quantity: &Quantity, value: f64) -> Result<(
     match quantity {
         Quantity::CgX => {
             if value.abs() > MAX_CG_DISTANCE_M {
-                return Err(out(format!(
-                    "-{MAX_CG_DISTANCE_M} to {MAX_CG_DISTANCE_M} m"
-                )));
+                let m = shown(MAX_CG_DISTANCE_M);
+                return Err(out(format!("-{m} to {m} {unit}")));
             }
         }
         Quantity::Ballast(bay) => {
@@ -170,7 +207,10 @@ pub fn check_value(base: &Aircraft, quantity: &Quantity, value: f64) -> Result<(
                 .get(*bay)
                 .ok_or_else(|| not("no such ballast bay"))?;
             if !(0.0..=b.max_mass_kg).contains(&value) {
-                return Err(out(format!("0 to {} kg (the bay's limit)", b.max_mass_kg)));
+                return Err(out(format!(
+                    "0 to {} {unit} (the bay's limit)",
+                    shown(b.max_mass_kg)
+                )));
             }
         }
         Quantity::ItemMass(item) => {
@@ -179,7 +219,7 @@ pub fn check_value(base: &Aircraft, quantity: &Quantity, value: f64) -> Result<(
                 .ok_or_else(|| not("no such mass item"))?;
             // The aircraft file's own limit for one mass item (1 t).
             if !(0.0..=1000.0).contains(&value) {
-                return Err(out("0 to 1000 kg".into()));
+                return Err(out(format!("0 to {} {unit}", shown(1000.0))));
             }
         }
         Quantity::ItemX(item) => {
@@ -187,9 +227,8 @@ pub fn check_value(base: &Aircraft, quantity: &Quantity, value: f64) -> Result<(
                 .get(*item)
                 .ok_or_else(|| not("no such mass item"))?;
             if value.abs() > MAX_CG_DISTANCE_M {
-                return Err(out(format!(
-                    "-{MAX_CG_DISTANCE_M} to {MAX_CG_DISTANCE_M} m"
-                )));
+                let m = shown(MAX_CG_DISTANCE_M);
+                return Err(out(format!("-{m} to {m} {unit}")));
             }
         }
         Quantity::MassScale => {

@@ -299,7 +299,7 @@ fn bad_fins_are_located_errors() {
     assert!(e.starts_with(&format!("bad.toml:{}:13:", line0 + 7)), "{e}");
     assert!(e.contains("fin.mass_item"), "{e}");
     assert!(e.contains("no mass item named `rudder`"), "{e}");
-    assert!(e.contains("fuselage, fin"), "{e}");
+    assert!(e.contains("'fuselage', 'fin'"), "{e}");
 
     let e = error_of(&format!("{BASE}{FIN}mass = 20\n"));
     assert!(e.contains("mass"), "{e}");

@@ -184,7 +184,7 @@ fn bad_flap_input_is_a_located_error_with_the_accepted_range() {
         e.starts_with(&format!("bad.toml:{l}:")) && e.contains("flap_setting.deflect.flapz"),
         "{e}"
     );
-    assert!(e.contains("one of: flaps"), "{e}");
+    assert!(e.contains("one of: 'flaps'"), "{e}");
     // A deflection beyond linear theory.
     let text = with(&format!(
         "{FLAPS}\n[[flap_setting]]\nname = \"t\"\ndeflect = {{ flaps = 30 }}\n"

@@ -88,7 +88,7 @@ fn text_where_number_expected() {
 fn unknown_airfoil_lists_the_known_ones() {
     let e = error_of(&GOOD.replace("airfoil = \"a\"", "airfoil = \"b\""));
     assert!(e.contains("no airfoil named `b`"), "{e}");
-    assert!(e.contains("one of: a"), "{e}");
+    assert!(e.contains("one of: 'a'"), "{e}");
 }
 
 #[test]

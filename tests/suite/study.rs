@@ -355,7 +355,14 @@ fn bad_axes_are_refused_naming_the_option_and_the_accepted_form() {
         (&["ballast:tail=0,10"][..], "no ballast bay named 'tail'"),
         (&["mass:anvil=1"][..], "no mass item named 'anvil'"),
         (&["stab-incidence=1,20"][..], "outside the accepted range"),
-        (&["ballast:nose=0,100"][..], "the bay's limit"),
+        // In the unit the values were typed in (g), not the SI of the CSV columns.
+        (
+            &["ballast:nose=0,100"][..],
+            "ballast value 100 g is outside the accepted range 0 to 80 g (the bay's limit)",
+        ),
+        (&["cg=0,200000"][..], "cg value 200000 mm is outside"),
+        // Names are quoted in the list, so a comma inside one is not read as a separator.
+        (&["mass:anvil=1"][..], "'receiver', 'battery, 4 cells', "),
         (&["mass-scale=0,1"][..], "outside the accepted range"),
     ] {
         let (code, err) = refused(vary);
