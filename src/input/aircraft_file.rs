@@ -19,6 +19,14 @@ use std::ops::Range;
 use std::path::{Path, PathBuf};
 use toml::Spanned;
 
+/// A trailing-edge control's chord and span range, fractions (of the local chord and of the
+/// semispan).
+struct ControlSpan {
+    chord_fraction: f64,
+    inboard_fraction: f64,
+    outboard_fraction: f64,
+}
+
 mod flaps;
 
 /// Smallest recommended static margin when the file gives none, fraction of MAC
@@ -1518,60 +1526,83 @@ impl Ctx<'_> {
     }
 
     /// `[wing.elevons]`.
-    fn elevons(&self, e: &Spanned<raw::RawElevons>) -> Result<PitchControl, InputError> {
-        let path = "wing.elevons";
-        let span = e.span();
-        let e = e.get_ref();
-        let chord = self.required_quantity(
-            e.chord.as_ref(),
-            &span,
+    /// A trailing-edge control's chord (`chord`, % of the local chord) and its span range
+    /// (`inboard` to `outboard`, % of the semispan, the outboard end outboard of the inboard
+    /// end), all three required in the table `path` at `table_span`: the elevons' and each
+    /// camber flap's.
+    fn control_span(
+        &self,
+        (chord, inboard, outboard): (Option<&Quantity>, Option<&Quantity>, Option<&Quantity>),
+        table_span: &Range<usize>,
+        path: &str,
+    ) -> Result<ControlSpan, InputError> {
+        let chord_fraction = self.required_quantity(
+            chord,
+            table_span,
             path,
             "chord",
             Dimension::Percent,
             ELEVON_CHORD_PCT,
         )?;
-        let inboard = self.required_quantity(
-            e.inboard.as_ref(),
-            &span,
+        let inboard_fraction = self.required_quantity(
+            inboard,
+            table_span,
             path,
             "inboard",
             Dimension::Percent,
             SEMISPAN_PCT,
         )?;
         let outboard_q = self.required(
-            e.outboard.as_ref(),
-            &span,
+            outboard,
+            table_span,
             path,
             "outboard",
             Dimension::Percent,
             SEMISPAN_PCT,
         )?;
-        let outboard = self.quantity(
-            outboard_q,
-            "wing.elevons.outboard",
-            Dimension::Percent,
-            SEMISPAN_PCT,
-        )?;
-        if outboard <= inboard {
+        let field = format!("{path}.outboard");
+        let outboard_fraction =
+            self.quantity(outboard_q, &field, Dimension::Percent, SEMISPAN_PCT)?;
+        if outboard_fraction <= inboard_fraction {
             return Err(self.err(
                 &outboard_q.span(),
-                "wing.elevons.outboard",
+                &field,
                 format!(
                     "the outboard end ({} %) must lie outboard of the inboard end ({} %)",
-                    fmt_num(100.0 * outboard),
-                    fmt_num(100.0 * inboard)
+                    fmt_num(100.0 * outboard_fraction),
+                    fmt_num(100.0 * inboard_fraction)
                 ),
                 Some(format!(
                     "more than {} % to 100 % of the semispan",
-                    fmt_num(100.0 * inboard)
+                    fmt_num(100.0 * inboard_fraction)
                 )),
             ));
         }
+        Ok(ControlSpan {
+            chord_fraction,
+            inboard_fraction,
+            outboard_fraction,
+        })
+    }
+
+    fn elevons(&self, e: &Spanned<raw::RawElevons>) -> Result<PitchControl, InputError> {
+        let path = "wing.elevons";
+        let span = e.span();
+        let e = e.get_ref();
+        let ControlSpan {
+            chord_fraction,
+            inboard_fraction,
+            outboard_fraction,
+        } = self.control_span(
+            (e.chord.as_ref(), e.inboard.as_ref(), e.outboard.as_ref()),
+            &span,
+            path,
+        )?;
         let throw = DEFAULT_ELEVATOR_THROW_DEG.to_radians();
         Ok(PitchControl {
-            chord_fraction: chord,
-            inboard_fraction: inboard,
-            outboard_fraction: outboard,
+            chord_fraction,
+            inboard_fraction,
+            outboard_fraction,
             max_up_rad: self
                 .opt_quantity(
                     e.up.as_ref(),
