@@ -10,31 +10,14 @@ use trimline::model::Aircraft;
 use trimline::stability::trim::build_system;
 
 /// A conventional high-aspect-ratio model: rectangular AR-10 wing, tail 4.5 chords behind.
-const GLIDER: &str = r#"
-name = "Law glider"
-[airfoils.w]
-naca = "2412"
-cl_max = 1.2
-[airfoils.t]
-naca = "0009"
-cl_max = 0.9
-[wing]
-root_chord = 200
-incidence = 2
-airfoil = "w"
-[[wing.panel]]
-span = 1000
-tip_chord = 200
-[stabiliser]
-x = 900
-z = 0
-incidence = 0
-root_chord = 100
-airfoil = "t"
-[[stabiliser.panel]]
-span = 250
-tip_chord = 100
-[[mass]]
+const GLIDER: &str = crate::small_glider!(
+    name: "Law glider",
+    top: "",
+    wing: "",
+    wing_panel: "tip_chord = 200\n",
+    stabiliser: "x = 900\nz = 0\nincidence = 0\nroot_chord = 100\n",
+    stabiliser_panel: "span = 250\ntip_chord = 100\n",
+    rest: r#"[[mass]]
 name = "all"
 mass = 1000
 x = 60
@@ -45,7 +28,8 @@ max = 500
 [targets]
 static_margin = 10
 trim_speed = 10
-"#;
+"#,
+);
 
 fn load(text: &str) -> Aircraft {
     parse_aircraft(text, "test.toml", None).expect("valid test aircraft")
