@@ -591,7 +591,7 @@ fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
         .ballast
         .iter()
         .map(|b| match b.outcome {
-            BallastOutcome::NotNeeded => format!("{}: none", b.bay),
+            BallastOutcome::NotNeeded => format!("{}: 0 g, none needed", b.bay),
             BallastOutcome::Reachable { mass_kg } => {
                 format!("{}: {} g", b.bay, fmt(mass_kg * 1000.0, 0))
             }

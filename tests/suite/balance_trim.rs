@@ -654,3 +654,59 @@ fn unstable_tailless_wing_gets_no_rigging_advice() {
     assert!(f.elevator_schedule.is_empty());
     assert!(!a.cautions.iter().any(|c| c.code == "tailless-trim"));
 }
+
+// With the CG forward of the CG for the target static margin the margin is already larger
+// than the target (static margin = (x_np - x_cg) / MAC, Etkin and Reid, Dynamics of Flight,
+// ch. 2): a nose bay has nothing to add. The glider's CG at 60 mm lies forward of that point
+// (about 92 mm, from the 6 % margin at 100 mm of `ballast_reaches_the_target_margin`), so
+// every output says 0 g and "none needed" instead of "n/a" or "cannot help".
+#[test]
+fn cg_forward_of_the_target_needs_no_ballast() {
+    use trimline::balance::BallastOutcome;
+    let ac = load(GLIDER);
+    let a = analyse(&ac, &opts()).unwrap();
+    assert!(
+        a.mass.cg_x_m < a.ballast[0].target_x_m,
+        "CG not forward of the target"
+    );
+    assert_eq!(a.ballast[0].outcome, BallastOutcome::NotNeeded);
+    let tables = trimline::output::tables::check_report(
+        &ac,
+        &a,
+        "t.toml",
+        trimline::output::units::UnitSystem::Metric,
+    );
+    assert!(tables.contains("0 g, none needed"), "{tables}");
+    let json =
+        serde_json::to_value(trimline::output::json::check_document(&ac, &a, "t.toml")).unwrap();
+    let advice = &json["balance"]["ballast"][0];
+    assert_eq!(advice["status"], "not-needed");
+    assert_eq!(advice["mass_kg"].as_f64(), Some(0.0));
+    let k = trimline::analysis::KeyFigures::of(&ac, &a);
+    let cells = trimline::output::compare::compare_cells(&[k.clone(), k]);
+    let row = cells
+        .iter()
+        .find(|c| c.0 == "ballast for target margin g")
+        .expect("a ballast row");
+    assert_eq!(row.1[0], "0.0, none needed");
+    assert_eq!(row.1[1], "0.0, none needed (=)");
+    let key = trimline::output::report::build(
+        &ac,
+        &a,
+        trimline::output::report::ReportSource {
+            file_name: "t.toml".into(),
+            content_hash: String::new(),
+            date: String::new(),
+        },
+    );
+    let ballast = key
+        .key_figures
+        .iter()
+        .find(|f| f.label == "Ballast needed")
+        .unwrap();
+    assert!(
+        ballast.value.starts_with("nose: 0 g, none needed"),
+        "{}",
+        ballast.value
+    );
+}

@@ -203,7 +203,7 @@ fn ballast_rows(t: &mut Table, a: &Analysis, u: UnitSystem) {
     let (mm, g_) = (u.length_unit(), u.mass_unit());
     for b in &a.ballast {
         let text = match b.outcome {
-            BallastOutcome::NotNeeded => "none needed".to_string(),
+            BallastOutcome::NotNeeded => format!("{} {g_}, none needed", u.mass(0.0, 0)),
             BallastOutcome::Reachable { mass_kg } => format!("add {} {g_}", u.mass(mass_kg, 1)),
             BallastOutcome::ExceedsBay { needed_kg, max_kg } => format!(
                 "needs {} {g_}, bay holds {} {g_}: cannot reach the target",
