@@ -10,6 +10,7 @@ use super::chart::Frame;
 use crate::output::report::{fmt, Outline, TopView};
 
 mod labels;
+mod mac_label;
 
 use labels::leader_labels;
 
@@ -357,19 +358,28 @@ fn mac_line(c: &mut Canvas, view: &TopView, place: Placement) {
     c.line(a, b, Pen::solid(1.6));
     c.line((a.0 - 1.2, a.1), (a.0 + 1.2, a.1), Pen::solid(0.8));
     c.line((b.0 - 1.2, b.1), (b.0 + 1.2, b.1), Pen::solid(0.8));
-    // On a white ground so it stays legible where it crosses the outline.
+    // Outside the outlines, so it covers no part of the planform; on a white ground so it
+    // stays legible over the centre line or a scale bar.
     let mac_font = Font::regular(6.5);
     let mac_text = format!("MAC {} mm", fmt(m.chord_m * 1000.0, 0));
-    let mac_base = 0.5 * (a.1 + b.1) - 0.5 * mac_font.cap_height_mm();
-    c.rect(
-        a.0 + 1.0,
-        mac_base - 0.6,
+    let outlines: Vec<Vec<(f64, f64)>> = std::iter::once(&view.wing)
+        .chain(view.stabiliser.as_ref().map(|(_, o)| o))
+        .chain(view.fuselage.as_ref())
+        .map(|o| o.iter().map(|&q| place.page(q)).collect())
+        .collect();
+    let size = (
         mac_font.width_mm(&mac_text) + 1.0,
         mac_font.cap_height_mm() + 1.2,
-        Some(1.0),
-        None,
     );
-    c.text(a.0 + 1.5, mac_base, &mac_text, mac_font, Align::Left);
+    let label = mac_label::place(a, b, size, &outlines);
+    c.rect(label.x, label.y, label.w, label.h, Some(1.0), None);
+    c.text(
+        label.x + 0.5,
+        label.y + 0.6,
+        &mac_text,
+        mac_font,
+        Align::Left,
+    );
 }
 
 /// The side view at the top view's scale, nose up, z (up) to the right, right of the top view
