@@ -55,12 +55,18 @@ fn inside(p: (f64, f64), outline: &[(f64, f64)]) -> bool {
 }
 
 /// True when the segments `e` and `f` cross or touch.
+#[allow(clippy::float_cmp)] // exactly on one line: the collinear case
 fn crosses(e: ((f64, f64), (f64, f64)), f: ((f64, f64), (f64, f64))) -> bool {
     let side = |a: (f64, f64), b: (f64, f64), p: (f64, f64)| {
         (b.0 - a.0) * (p.1 - a.1) - (b.1 - a.1) * (p.0 - a.0)
     };
     let (d1, d2) = (side(f.0, f.1, e.0), side(f.0, f.1, e.1));
     let (d3, d4) = (side(e.0, e.1, f.0), side(e.0, e.1, f.1));
+    if d1 == 0.0 && d2 == 0.0 {
+        // On one line: they meet only where their extents overlap.
+        let apart = |a: f64, b: f64, c: f64, d: f64| a.max(b) < c.min(d) || c.max(d) < a.min(b);
+        return !(apart(e.0 .0, e.1 .0, f.0 .0, f.1 .0) || apart(e.0 .1, e.1 .1, f.0 .1, f.1 .1));
+    }
     d1 * d2 <= 0.0 && d3 * d4 <= 0.0
 }
 
