@@ -136,7 +136,12 @@ fn malformed_numbers_are_not_a_number_with_the_accepted_form() {
     check(
         &e,
         "bad.toml:14:5: mass[0].x:",
-        &["is not a number", "too large", "a number such as 12"],
+        // The field's range (README: positions -50000 to 50000 mm), not the bare number form.
+        &[
+            "is not a number",
+            "too large",
+            "accepted: -50000 mm to 50000 mm",
+        ],
     );
     let e = error_of(&edit("x = 60", "x = 1e400"));
     check(
