@@ -7,6 +7,7 @@
 //!
 //! Everything between `input` and `output` is the numerical core: it does no I/O,
 //! prints nothing and works in SI units with angles in radians.
+#![warn(clippy::too_many_lines)]
 #![deny(clippy::print_stdout, clippy::print_stderr)]
 
 pub mod analysis;

@@ -1,4 +1,5 @@
 //! The `trimline` command line: parse arguments, load, analyse, render, map errors to exit codes.
+#![warn(clippy::too_many_lines)]
 #![allow(clippy::print_stdout, clippy::print_stderr)]
 
 mod commands;

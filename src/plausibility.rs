@@ -27,6 +27,17 @@ pub const MARGIN_FRACTION_SLIP: f64 = 0.01;
 /// `mass_kg`.
 pub fn cautions(aircraft: &Aircraft, wing: &PlanformGeometry, mass_kg: f64) -> Vec<Caution> {
     let mut out = Vec::new();
+    margin_cautions(aircraft, &mut out);
+    overlap_caution(aircraft, &mut out);
+    if wing.area_m2 > 0.0 && wing.span_m > 0.0 {
+        wing_loading_caution(wing, mass_kg, &mut out);
+        proportion_cautions(aircraft, wing, &mut out);
+    }
+    out
+}
+
+/// A negative static margin asked for, and a margin that looks typed as a fraction.
+fn margin_cautions(aircraft: &Aircraft, out: &mut Vec<Caution>) {
     let limits = &aircraft.margin_limits;
     let negative_target = aircraft.targets.static_margin.is_some_and(|m| m < 0.0);
     if limits.min_static_margin < 0.0 || negative_target {
@@ -74,6 +85,10 @@ pub fn cautions(aircraft: &Aircraft, wing: &PlanformGeometry, mass_kg: f64) -> V
             ));
         }
     }
+}
+
+/// The stabiliser overlapping the wing in the top view.
+fn overlap_caution(aircraft: &Aircraft, out: &mut Vec<Caution>) {
     if let Some(stab) = &aircraft.stabiliser {
         if let Some(o) = crate::planform::plan_overlap(&aircraft.wing, &stab.surface) {
             out.push(Caution::new(
@@ -93,54 +108,59 @@ pub fn cautions(aircraft: &Aircraft, wing: &PlanformGeometry, mass_kg: f64) -> V
             ));
         }
     }
-    if wing.area_m2 > 0.0 && wing.span_m > 0.0 {
-        let loading = mass_kg / wing.area_m2;
-        let (lo, hi) = USUAL_WING_LOADING_KG_M2;
-        if loading < lo || loading > hi {
+}
+
+/// A wing loading outside the usual range (`wing` with a positive area and span).
+fn wing_loading_caution(wing: &PlanformGeometry, mass_kg: f64, out: &mut Vec<Caution>) {
+    let loading = mass_kg / wing.area_m2;
+    let (lo, hi) = USUAL_WING_LOADING_KG_M2;
+    if loading < lo || loading > hi {
+        out.push(Caution::new(
+            Level::Warning,
+            "wing-loading-unusual",
+            format!(
+                "The wing loading is {:.2} kg/m^2 ({:.1} g/dm^2), outside the usual {lo} to \
+                 {hi} kg/m^2 of models and light aircraft: check the masses and the \
+                 planform (bare masses are grams, bare lengths millimetres).",
+                loading,
+                10.0 * loading
+            ),
+        ));
+    }
+}
+
+/// A fuselage or tail arm long for the span (`wing` with a positive span).
+fn proportion_cautions(aircraft: &Aircraft, wing: &PlanformGeometry, out: &mut Vec<Caution>) {
+    if let Some(f) = &aircraft.fuselage {
+        if f.length_m > MAX_USUAL_FUSELAGE_PER_SPAN * wing.span_m {
             out.push(Caution::new(
                 Level::Warning,
-                "wing-loading-unusual",
+                "proportions-unusual",
                 format!(
-                    "The wing loading is {:.2} kg/m^2 ({:.1} g/dm^2), outside the usual {lo} to \
-                     {hi} kg/m^2 of models and light aircraft: check the masses and the \
-                     planform (bare masses are grams, bare lengths millimetres).",
-                    loading,
-                    10.0 * loading
+                    "The fuselage ({:.0} mm) is {:.1} times the wing span ({:.0} mm); \
+                     usual is at most {MAX_USUAL_FUSELAGE_PER_SPAN}: check fuselage.length.",
+                    1000.0 * f.length_m,
+                    f.length_m / wing.span_m,
+                    1000.0 * wing.span_m
                 ),
             ));
         }
-        if let Some(f) = &aircraft.fuselage {
-            if f.length_m > MAX_USUAL_FUSELAGE_PER_SPAN * wing.span_m {
-                out.push(Caution::new(
-                    Level::Warning,
-                    "proportions-unusual",
-                    format!(
-                        "The fuselage ({:.0} mm) is {:.1} times the wing span ({:.0} mm); \
-                         usual is at most {MAX_USUAL_FUSELAGE_PER_SPAN}: check fuselage.length.",
-                        1000.0 * f.length_m,
-                        f.length_m / wing.span_m,
-                        1000.0 * wing.span_m
-                    ),
-                ));
-            }
-        }
-        if let Some(s) = &aircraft.stabiliser {
-            let arm = (s.surface.root_le_x_m - aircraft.wing.root_le_x_m).abs();
-            if arm > MAX_USUAL_TAIL_ARM_PER_SPAN * wing.span_m {
-                out.push(Caution::new(
-                    Level::Warning,
-                    "proportions-unusual",
-                    format!(
-                        "The stabiliser is {:.0} mm from the wing, {:.1} times the wing span \
-                         ({:.0} mm); usual is at most {MAX_USUAL_TAIL_ARM_PER_SPAN}: check \
-                         stabiliser.x.",
-                        1000.0 * arm,
-                        arm / wing.span_m,
-                        1000.0 * wing.span_m
-                    ),
-                ));
-            }
+    }
+    if let Some(s) = &aircraft.stabiliser {
+        let arm = (s.surface.root_le_x_m - aircraft.wing.root_le_x_m).abs();
+        if arm > MAX_USUAL_TAIL_ARM_PER_SPAN * wing.span_m {
+            out.push(Caution::new(
+                Level::Warning,
+                "proportions-unusual",
+                format!(
+                    "The stabiliser is {:.0} mm from the wing, {:.1} times the wing span \
+                     ({:.0} mm); usual is at most {MAX_USUAL_TAIL_ARM_PER_SPAN}: check \
+                     stabiliser.x.",
+                    1000.0 * arm,
+                    arm / wing.span_m,
+                    1000.0 * wing.span_m
+                ),
+            ));
         }
     }
-    out
 }

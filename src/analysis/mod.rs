@@ -5,9 +5,9 @@
 //! the decisions a builder needs (CG band, ballast advice, cautions) and their thresholds,
 //! which are common practice and documented in `docs/cautions.md`.
 
-use crate::atmosphere::{self, AirState};
+use crate::atmosphere::AirState;
 use crate::balance::{self, BallastOutcome, MassSummary};
-use crate::caution::{safety_caution, Caution, Level};
+use crate::caution::{Caution, Level};
 use crate::model::{Aircraft, StabiliserRole};
 use crate::performance::drag::{self, BodyDragInput, SurfaceDragInput};
 use crate::performance::polar::{oswald_straight_wing, GlidePerformance, PolarInput};
@@ -20,7 +20,10 @@ use crate::stability::classical::{self, ClassicalEstimate, EquivalentSurface, St
 use crate::stability::trim;
 use thiserror::Error;
 
+mod chain;
 pub mod glide;
+
+pub use chain::analyse_with;
 
 /// Trim speed below this multiple of the stall speed gives a caution (common practice: 1.2,
 /// the margin a pilot keeps in turbulence).
@@ -465,186 +468,6 @@ pub fn analyse(aircraft: &Aircraft, options: &AnalysisOptions) -> Result<Analysi
         lifting_line_options(aircraft, options),
     );
     analyse_with(aircraft, &sections, system.as_ref(), None, options)
-}
-
-/// Run the chain on `aircraft` with its sections and its factored wing system already made
-/// (by [`section_set`] and `trim::build_system` of this aircraft, or of one that differs only
-/// in masses, with the incidence changes applied by `MultiSurfaceSystem::with_angle_change`);
-/// `system` is the build's error when it failed; `memo` remembers the forward CG limit found
-/// on that system for later calls. Gives what [`analyse`] gives.
-pub fn analyse_with(
-    aircraft: &Aircraft,
-    section_set: &SectionSet,
-    system: Result<&MultiSurfaceSystem, &LiftingLineError>,
-    memo: Option<&trim::ForwardLimitMemo>,
-    options: &AnalysisOptions,
-) -> Result<Analysis, AnalysisError> {
-    let mut cautions = section_set.cautions.clone();
-    let air = atmosphere::air_state(&aircraft.air);
-    let sections = &section_set.models;
-    let thin_sections = &section_set.thin;
-    let wing = classical::equivalent_surface(&aircraft.wing, thin_sections);
-    let stabiliser = aircraft
-        .stabiliser
-        .as_ref()
-        .map(|s| classical::equivalent_surface(&s.surface, thin_sections));
-    let mass = balance::mass_summary(&aircraft.masses)?;
-    let fuselage_cm_alpha_per_rad = fuselage_cm_alpha(aircraft, &wing);
-    let estimate_input = closed_form_input(
-        aircraft,
-        &wing,
-        stabiliser.as_ref(),
-        &mass,
-        &air,
-        fuselage_cm_alpha_per_rad,
-    );
-    let estimate = classical::estimate(&estimate_input);
-    let neutral_point_spread = crate::stability::uncertainty::linear_spread(
-        &estimate_input,
-        &crate::stability::uncertainty::COMMON_SPREADS,
-    );
-    let input = trim_input(
-        aircraft,
-        sections,
-        &mass,
-        &air,
-        fuselage_cm_alpha_per_rad,
-        options,
-    );
-    let full = full_stability_or_caution(system, &input, memo, &mut cautions);
-    let headline = headline_of(aircraft, full.as_ref(), &estimate);
-
-    let mac = wing.geometry.mac_m;
-    let np = headline.neutral_point_x_m;
-    let (band, band_empty) = cg_band(aircraft, full.as_ref(), np, mac);
-    let ballast = ballast_advice(aircraft, &mass, np, mac);
-    let speed = headline
-        .trim
-        .map(|t| t.speed_m_s)
-        .unwrap_or(headline.stall_speed_m_s);
-    let reynolds_mac = air.reynolds(speed, mac);
-    let wing_loading_kg_m2 = mass.total_kg / wing.geometry.area_m2;
-    let glide = glide_estimate(
-        aircraft,
-        &wing,
-        stabiliser.as_ref(),
-        &mass,
-        &air,
-        headline.cl_max,
-    );
-    require_finite(&[
-        ("neutral point", headline.neutral_point_x_m),
-        ("static margin", headline.static_margin),
-        ("stall speed", headline.stall_speed_m_s),
-        ("wing loading", wing_loading_kg_m2),
-        ("Reynolds number", reynolds_mac),
-        ("zero-lift drag", glide.cd0),
-        ("best glide", glide.performance.best_glide.glide_ratio),
-        ("minimum sink", glide.performance.min_sink.sink_m_s),
-    ])?;
-    let (glide_polar, flap_polars) =
-        flight_polar_if_asked(&input, system, full.as_ref(), &air, options, &mut cautions)?;
-    let weighed = weighing_if_any(aircraft, &mass, &mut cautions)?;
-    vertical_cg_partial_caution(aircraft, &mut cautions);
-    let tail_volume = stabiliser
-        .as_ref()
-        .map(|s| planform::tail_volume(&wing.geometry, &s.geometry));
-
-    if band_empty {
-        cg_band_empty_caution(aircraft, band.aft_x_m, &mut cautions);
-    }
-    let elevons_trim_it = full
-        .as_ref()
-        .and_then(|f| f.tailless)
-        .is_some_and(|t| t.elevon_to_trim_rad.is_some() && t.elevon_within_throws);
-    balance_cautions(
-        aircraft,
-        &mass,
-        &headline,
-        &band,
-        mac,
-        elevons_trim_it,
-        &mut cautions,
-    );
-    if let Some(f) = &full {
-        full_model_cautions(
-            aircraft,
-            f,
-            &headline,
-            &estimate,
-            mac,
-            mass.cg_x_m,
-            band.aft_x_m,
-            &mut cautions,
-        );
-    }
-    tip_reynolds_caution(
-        aircraft,
-        &air,
-        reynolds_mac,
-        speed,
-        headline.stall_speed_m_s,
-        &mut cautions,
-    );
-    cautions.extend(crate::plausibility::cautions(
-        aircraft,
-        &wing.geometry,
-        mass.total_kg,
-    ));
-    let cg_spread =
-        crate::stability::uncertainty::cg_spread(&aircraft.masses, &aircraft.tolerances);
-    let fin = fin_note(aircraft, &wing.geometry, &mut cautions);
-    uncertain_aft_limit_caution(
-        aircraft,
-        headline.neutral_point_x_m,
-        2.0 * neutral_point_spread.sigma_m,
-        mac,
-        (mass.cg_x_m, 2.0 * cg_spread.sigma_m),
-        (band.forward_x_m, band.aft_x_m),
-        &mut cautions,
-    );
-    // Tolerances that spread the CG over more than the mean chord are almost certainly typed
-    // wrong (a kilogram for a gram, a tolerance on the wrong item).
-    if (4.0 * cg_spread.sigma_m).is_finite() && 4.0 * cg_spread.sigma_m > mac {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "tolerances-too-large",
-            format!(
-                "The mass and position tolerances spread the CG over {:.0} mm (two standard \
-                 deviations each way), more than the {:.0} mm mean chord: check the [tolerances] \
-                 and the items' own tolerances (g and mm).",
-                1000.0 * 4.0 * cg_spread.sigma_m,
-                1000.0 * mac
-            ),
-        ));
-    }
-    cautions.push(safety_caution());
-    Ok(Analysis {
-        numerics: numerics_used(aircraft, options),
-        air,
-        sections: sections.clone(),
-        wing_geometry: wing.geometry,
-        stabiliser_geometry: stabiliser.map(|s| s.geometry),
-        tail_volume,
-        mass,
-        wing_loading_kg_m2,
-        wing,
-        stabiliser,
-        classical: estimate,
-        full,
-        neutral_point_spread,
-        cg_spread,
-        fin,
-        headline,
-        band,
-        ballast,
-        reynolds_mac,
-        weighed,
-        glide,
-        glide_polar,
-        flap_polars,
-        cautions,
-    })
 }
 
 /// The closed-form estimate's input: the equivalent wing and stabiliser (with its place, tail

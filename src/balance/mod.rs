@@ -75,7 +75,8 @@ pub fn with_added_mass(m: &MassSummary, mass_kg: f64, x_m: f64, z_m: Option<f64>
 /// What a ballast bay can do for a target CG.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum BallastOutcome {
-    /// The CG is already at the target (within 0.5 mm): nothing to add.
+    /// The CG is already at the target (within 0.5 mm), or forward of it with the bay unable
+    /// to move it aft to the target (more static margin than the target): nothing to add.
     NotNeeded,
     /// This much ballast puts the CG on the target, within the bay's limit.
     Reachable {
@@ -103,6 +104,12 @@ pub fn ballast_for_target(m: &MassSummary, bay: &BallastBay, target_x_m: f64) ->
     // Mass at the bay pulls the CG toward the bay: the bay must lie beyond the target,
     // seen from the present CG.
     if lever == 0.0 || lever.signum() != shift.signum() {
+        // A CG forward of the target already has more static margin than asked for: the
+        // target is a least margin, so a bay that could only move the CG forward has nothing
+        // to do (common practice: a nose-heavy model is the safe side).
+        if shift > 0.0 {
+            return BallastOutcome::NotNeeded;
+        }
         return BallastOutcome::WrongSide;
     }
     let needed_kg = m.total_kg * shift / lever;

@@ -19,6 +19,14 @@ use std::ops::Range;
 use std::path::{Path, PathBuf};
 use toml::Spanned;
 
+/// A trailing-edge control's chord and span range, fractions (of the local chord and of the
+/// semispan).
+struct ControlSpan {
+    chord_fraction: f64,
+    inboard_fraction: f64,
+    outboard_fraction: f64,
+}
+
 mod flaps;
 
 /// Smallest recommended static margin when the file gives none, fraction of MAC
@@ -71,8 +79,66 @@ pub fn parse_aircraft(
         text,
         base_dir,
     };
-    let raw: RawAircraft = toml::from_str(text).map_err(|e| ctx.toml_error(&e))?;
+    let raw: RawAircraft = match toml::from_str(text) {
+        Ok(raw) => raw,
+        Err(e) => return Err(with_field_range(ctx.toml_error(&e), text, file, base_dir)),
+    };
     ctx.aircraft(raw)
+}
+
+/// A number too large for the TOML reader (`1e400`) is refused before any field is looked
+/// at, so its error cannot name the field's range. Read the file again with that number
+/// replaced by one as long that the reader takes but no field accepts (`9e300`, the exponent
+/// padded with zeros): when the field's own check then refuses it at the same place, its
+/// accepted range joins the first error. Any other error is returned as it is.
+fn with_field_range(
+    err: InputError,
+    text: &str,
+    file: &str,
+    base_dir: Option<&Path>,
+) -> InputError {
+    if !err.problem.ends_with("is not a number (too large)") || err.accepted.is_none() {
+        return err;
+    }
+    let Some(start) = offset_of(text, err.location.line, err.location.column) else {
+        return err;
+    };
+    let token_len = text[start..]
+        .find(|c: char| !(c.is_ascii_alphanumeric() || matches!(c, '.' | '_' | '+' | '-')))
+        .unwrap_or(text.len() - start);
+    let digits_at = start + usize::from(text[start..].starts_with(['+', '-']));
+    let digits_len = start + token_len - digits_at;
+    // "9e" + zeros + "300": a finite number of the same length, so every place stays put.
+    let Some(zeros) = digits_len.checked_sub(5) else {
+        return err;
+    };
+    let stand_in = format!("9e{}300", "0".repeat(zeros));
+    let mut again = String::with_capacity(text.len());
+    again.push_str(&text[..digits_at]);
+    again.push_str(&stand_in);
+    again.push_str(&text[start + token_len..]);
+    match parse_aircraft(&again, file, base_dir) {
+        Err(e) if e.location == err.location && e.field == err.field && e.accepted.is_some() => {
+            InputError {
+                accepted: e.accepted,
+                ..err
+            }
+        }
+        _ => err,
+    }
+}
+
+/// The byte offset of 1-based `line` and `column` (in characters) in `text`.
+fn offset_of(text: &str, line: usize, column: usize) -> Option<usize> {
+    let line_start = if line <= 1 {
+        0
+    } else {
+        text.match_indices('\n').nth(line - 2)?.0 + 1
+    };
+    let rest = &text[line_start..];
+    rest.char_indices()
+        .nth(column.checked_sub(1)?)
+        .map(|(i, _)| line_start + i)
 }
 
 struct Ctx<'a> {
@@ -409,18 +475,19 @@ impl Ctx<'_> {
         };
         let in_default = si / super::units::from_default_unit(1.0, dim);
         if !bounds.contains(in_default) {
-            let bare = matches!(q.get_ref(), toml::Value::Integer(_) | toml::Value::Float(_));
+            let hint = match q.get_ref() {
+                toml::Value::Integer(_) | toml::Value::Float(_) => {
+                    unit_slip_hint(in_default, dim, bounds)
+                }
+                toml::Value::String(text) => missing_unit_hint(text, dim),
+                _ => String::new(),
+            };
             return Err(self.err(
                 &span,
                 field,
                 format!(
-                    "{} is out of range{}",
+                    "{} is out of range{hint}",
                     format!("{} {}", fmt_num_short(in_default), dim.default_unit()).trim_end(),
-                    if bare {
-                        unit_slip_hint(in_default, dim, bounds)
-                    } else {
-                        String::new()
-                    }
                 ),
                 accepted(),
             ));
@@ -1518,60 +1585,83 @@ impl Ctx<'_> {
     }
 
     /// `[wing.elevons]`.
-    fn elevons(&self, e: &Spanned<raw::RawElevons>) -> Result<PitchControl, InputError> {
-        let path = "wing.elevons";
-        let span = e.span();
-        let e = e.get_ref();
-        let chord = self.required_quantity(
-            e.chord.as_ref(),
-            &span,
+    /// A trailing-edge control's chord (`chord`, % of the local chord) and its span range
+    /// (`inboard` to `outboard`, % of the semispan, the outboard end outboard of the inboard
+    /// end), all three required in the table `path` at `table_span`: the elevons' and each
+    /// camber flap's.
+    fn control_span(
+        &self,
+        (chord, inboard, outboard): (Option<&Quantity>, Option<&Quantity>, Option<&Quantity>),
+        table_span: &Range<usize>,
+        path: &str,
+    ) -> Result<ControlSpan, InputError> {
+        let chord_fraction = self.required_quantity(
+            chord,
+            table_span,
             path,
             "chord",
             Dimension::Percent,
             ELEVON_CHORD_PCT,
         )?;
-        let inboard = self.required_quantity(
-            e.inboard.as_ref(),
-            &span,
+        let inboard_fraction = self.required_quantity(
+            inboard,
+            table_span,
             path,
             "inboard",
             Dimension::Percent,
             SEMISPAN_PCT,
         )?;
         let outboard_q = self.required(
-            e.outboard.as_ref(),
-            &span,
+            outboard,
+            table_span,
             path,
             "outboard",
             Dimension::Percent,
             SEMISPAN_PCT,
         )?;
-        let outboard = self.quantity(
-            outboard_q,
-            "wing.elevons.outboard",
-            Dimension::Percent,
-            SEMISPAN_PCT,
-        )?;
-        if outboard <= inboard {
+        let field = format!("{path}.outboard");
+        let outboard_fraction =
+            self.quantity(outboard_q, &field, Dimension::Percent, SEMISPAN_PCT)?;
+        if outboard_fraction <= inboard_fraction {
             return Err(self.err(
                 &outboard_q.span(),
-                "wing.elevons.outboard",
+                &field,
                 format!(
                     "the outboard end ({} %) must lie outboard of the inboard end ({} %)",
-                    fmt_num(100.0 * outboard),
-                    fmt_num(100.0 * inboard)
+                    fmt_num(100.0 * outboard_fraction),
+                    fmt_num(100.0 * inboard_fraction)
                 ),
                 Some(format!(
                     "more than {} % to 100 % of the semispan",
-                    fmt_num(100.0 * inboard)
+                    fmt_num(100.0 * inboard_fraction)
                 )),
             ));
         }
+        Ok(ControlSpan {
+            chord_fraction,
+            inboard_fraction,
+            outboard_fraction,
+        })
+    }
+
+    fn elevons(&self, e: &Spanned<raw::RawElevons>) -> Result<PitchControl, InputError> {
+        let path = "wing.elevons";
+        let span = e.span();
+        let e = e.get_ref();
+        let ControlSpan {
+            chord_fraction,
+            inboard_fraction,
+            outboard_fraction,
+        } = self.control_span(
+            (e.chord.as_ref(), e.inboard.as_ref(), e.outboard.as_ref()),
+            &span,
+            path,
+        )?;
         let throw = DEFAULT_ELEVATOR_THROW_DEG.to_radians();
         Ok(PitchControl {
-            chord_fraction: chord,
-            inboard_fraction: inboard,
-            outboard_fraction: outboard,
+            chord_fraction,
+            inboard_fraction,
+            outboard_fraction,
             max_up_rad: self
                 .opt_quantity(
                     e.up.as_ref(),
@@ -2365,6 +2455,22 @@ fn unit_slip_hint(v: f64, dim: Dimension, bounds: Bounds) -> String {
     } else {
         String::new()
     }
+}
+
+/// For a quoted number without a unit (`"0.15"`), which is read in the default unit: a hint
+/// that the unit is missing, naming the units accepted; empty for any other text.
+fn missing_unit_hint(text: &str, dim: Dimension) -> String {
+    let t = text.trim();
+    if matches!(dim, Dimension::Plain) || t.parse::<f64>().is_err() {
+        return String::new();
+    }
+    format!(
+        "; \"{t}\" has no unit, so it is read in {}: write the unit inside the quotes, one \
+         of {} (e.g. \"{}\")",
+        dim.default_unit(),
+        dim.accepted_units(),
+        example_for(dim)
+    )
 }
 
 /// "one of: a, b, c" for the accepted names of an error message.

@@ -17,6 +17,9 @@ enum JsonNumber {
 }
 
 /// One row of the comparison: a label, a unit and how to read a value from the figures.
+/// The ballast row's label; a ballast of zero there reads "none needed".
+const BALLAST_LABEL: &str = "ballast for target margin g";
+
 struct Row {
     label: &'static str,
     /// Decimals in the table.
@@ -136,7 +139,7 @@ const ROWS: &[Row] = &[
         value: |k| k.best_glide.map(|m| m.1),
     },
     Row {
-        label: "ballast for target margin g",
+        label: BALLAST_LABEL,
         decimals: 1,
         json: JsonNumber::Decimals(2),
         value: |k| k.ballast_kg.as_ref().map(|b| b.1 * 1000.0),
@@ -199,12 +202,20 @@ pub fn compare_cells_in(
             let decimals = row.decimals + extra;
             let value = |k: &KeyFigures| (row.value)(k).map(|v| v * factor);
             let base = columns.first().and_then(value);
+            let shown_value = |v: f64| {
+                let s = num(v, decimals);
+                if row.label == BALLAST_LABEL && s.chars().all(|c| c == '0' || c == '.') {
+                    format!("{s}, none needed")
+                } else {
+                    s
+                }
+            };
             let cells = columns
                 .iter()
                 .enumerate()
                 .map(|(i, k)| match (value(k).filter(|v| v.is_finite()), base) {
                     (None, _) => "n/a".to_string(),
-                    (Some(v), _) if i == 0 => num(v, decimals),
+                    (Some(v), _) if i == 0 => shown_value(v),
                     (Some(v), Some(b)) => {
                         // The difference of the values as printed, so that "(=)" never
                         // stands beside two numbers that print differently.
@@ -216,13 +227,13 @@ pub fn compare_cells_in(
                             .chars()
                             .all(|c| c == '0' || c == '.')
                         {
-                            format!("{} (=)", num(v, decimals))
+                            format!("{} (=)", shown_value(v))
                         } else {
                             let sign = if d > 0.0 { "+" } else { "" };
-                            format!("{} ({sign}{shown})", num(v, decimals))
+                            format!("{} ({sign}{shown})", shown_value(v))
                         }
                     }
-                    (Some(v), None) => num(v, decimals),
+                    (Some(v), None) => shown_value(v),
                 })
                 .collect();
             let label = if from_mac_le {

@@ -9,9 +9,13 @@
 use crate::analysis::Analysis;
 use crate::balance::BallastOutcome;
 use crate::caution::{Caution, Level, SAFETY_MESSAGE};
-use crate::model::{Aircraft, SectionMethod, StabiliserRole, Surface};
+use crate::model::{Aircraft, StabiliserRole, Surface};
 use crate::planform;
 use crate::stability::classical::{self, EstimateInput, StabiliserPlace};
+
+mod methods;
+
+pub use methods::methods;
 
 /// Where the report's input came from, for its title block.
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -389,38 +393,8 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
             "Wing loading",
             format!("{} g/dm\u{b2}", fmt(a.wing_loading_kg_m2 * 10.0, 1)),
         ),
-        kf("CG", {
-            let spread = 2.0 * a.cg_spread.sigma_m;
-            let range = if spread.is_finite() && spread > 0.0 {
-                format!(
-                    "; aft end of its range {} mm, from your tolerances",
-                    fmt((a.mass.cg_x_m + spread) * 1000.0, 0)
-                )
-            } else {
-                String::new()
-            };
-            format!(
-                "{} % MAC ({} mm from datum{range})",
-                fmt(g.percent_mac(a.mass.cg_x_m), 1),
-                fmt(a.mass.cg_x_m * 1000.0, 0)
-            )
-        }),
-        kf("Neutral point", {
-            let spread = 2.0 * a.neutral_point_spread.sigma_m;
-            let range = if spread.is_finite() && spread > 0.0 {
-                format!(
-                    "; forward end of its range {} mm",
-                    fmt((h.neutral_point_x_m - spread) * 1000.0, 0)
-                )
-            } else {
-                String::new()
-            };
-            format!(
-                "{} % MAC ({} mm from datum{range})",
-                fmt(g.percent_mac(h.neutral_point_x_m), 1),
-                fmt(h.neutral_point_x_m * 1000.0, 0)
-            )
-        }),
+        kf("CG", cg_figure(a)),
+        kf("Neutral point", neutral_point_figure(a)),
         kf(
             "Static margin",
             format!("{} % MAC", fmt(100.0 * h.static_margin, 1)),
@@ -466,6 +440,47 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
         crate::caution::reynolds_text(a.reynolds_mac),
     ));
     out
+}
+
+/// The CG key figure: % MAC and mm from the datum, with the aft end of its range when the
+/// file gives tolerances.
+fn cg_figure(a: &Analysis) -> String {
+    let g = &a.wing_geometry;
+    let spread = 2.0 * a.cg_spread.sigma_m;
+    let range = if spread.is_finite() && spread > 0.0 {
+        format!(
+            "; aft end of its range {} mm, from your tolerances",
+            fmt((a.mass.cg_x_m + spread) * 1000.0, 0)
+        )
+    } else {
+        String::new()
+    };
+    format!(
+        "{} % MAC ({} mm from datum{range})",
+        fmt(g.percent_mac(a.mass.cg_x_m), 1),
+        fmt(a.mass.cg_x_m * 1000.0, 0)
+    )
+}
+
+/// The neutral point key figure: % MAC and mm from the datum, with the forward end of its
+/// range.
+fn neutral_point_figure(a: &Analysis) -> String {
+    let g = &a.wing_geometry;
+    let h = &a.headline;
+    let spread = 2.0 * a.neutral_point_spread.sigma_m;
+    let range = if spread.is_finite() && spread > 0.0 {
+        format!(
+            "; forward end of its range {} mm",
+            fmt((h.neutral_point_x_m - spread) * 1000.0, 0)
+        )
+    } else {
+        String::new()
+    };
+    format!(
+        "{} % MAC ({} mm from datum{range})",
+        fmt(g.percent_mac(h.neutral_point_x_m), 1),
+        fmt(h.neutral_point_x_m * 1000.0, 0)
+    )
 }
 
 /// The decalage key figure (or, on a tailless wing with elevons, the elevons to trim).
@@ -576,7 +591,7 @@ fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
         .ballast
         .iter()
         .map(|b| match b.outcome {
-            BallastOutcome::NotNeeded => format!("{}: none", b.bay),
+            BallastOutcome::NotNeeded => format!("{}: 0 g, none needed", b.bay),
             BallastOutcome::Reachable { mass_kg } => {
                 format!("{}: {} g", b.bay, fmt(mass_kg * 1000.0, 0))
             }
@@ -986,115 +1001,6 @@ fn mass_rows(aircraft: &Aircraft, a: &Analysis) -> Vec<MassRow> {
         }
     }
     rows
-}
-
-/// Methods and their sources, one line each (the report's footer; `check` prints them too).
-pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
-    let mut used: Vec<SectionMethod> = a.sections.iter().map(|s| s.method).collect();
-    used.sort_by_key(|m| m.as_str());
-    used.dedup();
-    let sections: Vec<&str> = used
-        .iter()
-        .map(|m| crate::section::registry::info(*m).described_as)
-        .collect();
-    let mut out = vec![format!(
-        "Airfoil sections: {}; section cl max as given in the file or a default.",
-        sections.join("; ")
-    )];
-    let surfaces = match aircraft.stabiliser.as_ref().map(|s| s.role) {
-        Some(StabiliserRole::Tail) => format!(
-            "Wing and tail together: {}, tail in the wing's wake",
-            super::wing_model_method(&aircraft.numerics)
-        ),
-        Some(StabiliserRole::Canard) => format!(
-            "Canard and wing together: {}, wing in the canard's wake",
-            super::wing_model_method(&aircraft.numerics)
-        ),
-        None => format!(
-            "Tailless wing: {}",
-            super::wing_model_method(&aircraft.numerics)
-        ),
-    };
-    let pitch = match aircraft.pitch_control() {
-        Some(p) if p.chord_fraction > 0.0 => format!(
-            "; {} by Glauert's plain-flap theory (Houghton and Carpenter, Aerodynamics for Engineering Students) with the hinge-gap loss of 15 % (Raymer, Aircraft Design, 6th ed., sec. 16.3); the further loss at deflections beyond about 12 deg is not modelled, so the forward CG limit from full up throw is somewhat optimistic",
-            aircraft.pitch_control_name()
-        ),
-        Some(_) => "; all-moving stabiliser turned as a whole".to_string(),
-        None => String::new(),
-    };
-    let eta = match &aircraft.stabiliser {
-        Some(s) => format!(
-            "; {} dynamic-pressure ratio {:.2}{}",
-            if s.role == StabiliserRole::Canard {
-                "canard"
-            } else {
-                "tail"
-            },
-            s.dynamic_pressure_ratio,
-            if s.role == StabiliserRole::Tail
-                && (s.dynamic_pressure_ratio - crate::model::DEFAULT_TAIL_DYNAMIC_PRESSURE_RATIO)
-                    .abs()
-                    < 1e-12
-            {
-                " (default; Etkin and Reid, Raymer)"
-            } else {
-                ""
-            }
-        ),
-        None => String::new(),
-    };
-    let fuselage = if aircraft.fuselage.is_some() {
-        "; fuselage by Gilruth and White (NACA Report 711)"
-    } else {
-        ""
-    };
-    out.push(
-        "Planform area, span and MAC: exact integrals (Raymer, Aircraft Design: A Conceptual Approach, 6th ed., sec. 7.3)."
-            .to_string(),
-    );
-    let reference_height = match a.mass.cg_z_m {
-        Some(z) => format!(
-            "; moment reference at the CG's height z = {:.0} mm",
-            z * 1000.0
-        ),
-        None => "; moment reference at the wing root's height (not every mass has a z)".to_string(),
-    };
-    out.push(format!(
-        "{surfaces}; neutral point where dCm/dCL = 0, static margin, trim from Cm = 0 about the CG (Etkin and Reid, Dynamics of Flight, 3rd ed., ch. 2){reference_height}{eta}{pitch}{fuselage}."
-    ));
-    out.extend([
-        "Stall: first section to reach its cl max, or a stabiliser section its negative cl limit, on the trimmed path (critical-section method); stall speed from W = 1/2 rho V\u{b2} S CLmax (Anderson, Introduction to Flight, ch. 5). Cross-check: Helmbold lift slope and the closed-form neutral point (McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 8-9).",
-        "Glide: trimmed polar, viscous strip drag, wake induced drag (Raymer, ch. 12). Air: ISA (US Standard Atmosphere, 1976).",
-    ]
-    .iter()
-    .map(|s| s.to_string()));
-    if let Some(note) = &a.fin {
-        let mut parts = Vec::new();
-        if let Some(f) = &note.fin {
-            parts.push(format!(
-                "fin volume coefficient S_v l_v / (S b) {:.3} (typical 0.02 to 0.09, Raymer, Aircraft Design, sec. 6.4)",
-                f.volume_coefficient
-            ));
-        }
-        if let Some(v) = &note.vee_tail {
-            parts.push(format!(
-                "the V-tail is the fin: side area x sin\u{b2} of the dihedral (Purser and Campbell, NACA Report 823), volume coefficient {:.3}, no fin caution",
-                v.volume_coefficient
-            ));
-        }
-        out.push(format!(
-            "Fin: {}; a lateral note only, it does not enter the pitch figures.",
-            parts.join("; ")
-        ));
-    }
-    if a.cg_spread.sigma_m > 0.0 {
-        out.push(
-            "CG range: your mass and position tolerances as standard deviations, propagated to first order (ISO Guide to the Expression of Uncertainty in Measurement, sec. 5.1)."
-                .to_string(),
-        );
-    }
-    out
 }
 
 /// Name of a caution level as the cautions box prints it (danger in capitals).

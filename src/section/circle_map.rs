@@ -147,6 +147,63 @@ const SHAPE_TOLERANCE: f64 = 1e-11;
 /// small steps of its own).
 const SHAPE_STALL_TOLERANCE: f64 = 1e-6;
 
+/// Refuses a thickness ratio outside 0 < t/c < 0.4 or a camber ratio outside 0 <= f/c < 0.15.
+fn check_shape(thickness_ratio: f64, camber_ratio: f64) -> Result<(), CircleMapError> {
+    if !(thickness_ratio > 0.0 && thickness_ratio < MAX_THICKNESS_RATIO) {
+        return Err(CircleMapError::Shape {
+            what: "thickness ratio",
+            value: thickness_ratio,
+            range: "0 < t/c < 0.4",
+        });
+    }
+    if !(0.0..MAX_CAMBER_RATIO).contains(&camber_ratio) {
+        return Err(CircleMapError::Shape {
+            what: "camber ratio",
+            value: camber_ratio,
+            range: "0 <= f/c < 0.15",
+        });
+    }
+    Ok(())
+}
+
+/// Newton's step for the centre from the mismatch `r` and its Jacobian `j` (None when the
+/// Jacobian is singular); a symmetric section moves along the axis only.
+fn newton_step(j: [[f64; 2]; 2], r: [f64; 2], symmetric: bool) -> Option<[f64; 2]> {
+    let det = j[0][0] * j[1][1] - j[0][1] * j[1][0];
+    if symmetric {
+        // A symmetric section keeps its centre on the axis; camber stays zero.
+        let step = -r[0] / j[0][0];
+        step.is_finite().then_some([step, 0.0])
+    } else if det.is_finite() && det.abs() > 1e-300 {
+        Some([
+            -(j[1][1] * r[0] - j[0][1] * r[1]) / det,
+            -(-j[1][0] * r[0] + j[0][0] * r[1]) / det,
+        ])
+    } else {
+        None
+    }
+}
+
+/// The proportional update of the thin-section estimates (t/c ~ 1.3 eps, f/c ~ mu_y / (2 b))
+/// from the centre `mu`, its mismatch `r` and the wanted `(thickness, camber)` ratios.
+fn proportional_step(
+    mu: [f64; 2],
+    r: [f64; 2],
+    (thickness_ratio, camber_ratio): (f64, f64),
+    b: f64,
+    symmetric: bool,
+) -> [f64; 2] {
+    let (t, f) = (r[0] + thickness_ratio, r[1] + camber_ratio);
+    [
+        mu[0] * thickness_ratio / t - mu[0],
+        if symmetric {
+            0.0
+        } else {
+            2.0 * b * (camber_ratio - f)
+        },
+    ]
+}
+
 impl<M: CircleMap> CircleAirfoil<M> {
     /// Builds the airfoil for a circle centred at `(mu_x, mu_y)` (units of b) through `b`.
     pub(crate) fn with_map(map: M, mu_x: f64, mu_y: f64) -> Result<Self, CircleMapError> {
@@ -195,20 +252,7 @@ impl<M: CircleMap> CircleAirfoil<M> {
         thickness_ratio: f64,
         camber_ratio: f64,
     ) -> Result<Self, CircleMapError> {
-        if !(thickness_ratio > 0.0 && thickness_ratio < MAX_THICKNESS_RATIO) {
-            return Err(CircleMapError::Shape {
-                what: "thickness ratio",
-                value: thickness_ratio,
-                range: "0 < t/c < 0.4",
-            });
-        }
-        if !(0.0..MAX_CAMBER_RATIO).contains(&camber_ratio) {
-            return Err(CircleMapError::Shape {
-                what: "camber ratio",
-                value: camber_ratio,
-                range: "0 <= f/c < 0.15",
-            });
-        }
+        check_shape(thickness_ratio, camber_ratio)?;
         let b = make_map().b();
         // The airfoil of a centre and its mismatch (infinite if the shape cannot be measured).
         let eval = |mu: [f64; 2]| -> (Self, [f64; 2]) {
@@ -255,32 +299,10 @@ impl<M: CircleMap> CircleAirfoil<M> {
                 [(rx[0] - r[0]) / hx, (ry[0] - r[0]) / hy],
                 [(rx[1] - r[1]) / hx, (ry[1] - r[1]) / hy],
             ];
-            let det = j[0][0] * j[1][1] - j[0][1] * j[1][0];
-            let newton = if symmetric {
-                // A symmetric section keeps its centre on the axis; camber stays zero.
-                let step = -r[0] / j[0][0];
-                step.is_finite().then_some([step, 0.0])
-            } else if det.is_finite() && det.abs() > 1e-300 {
-                Some([
-                    -(j[1][1] * r[0] - j[0][1] * r[1]) / det,
-                    -(-j[1][0] * r[0] + j[0][0] * r[1]) / det,
-                ])
-            } else {
-                None
-            };
+            let newton = newton_step(j, r, symmetric);
             // The proportional update of the thin-section estimates, used when Newton's step
             // does not reduce the mismatch.
-            let fallback = {
-                let (t, f) = (r[0] + thickness_ratio, r[1] + camber_ratio);
-                [
-                    mu[0] * thickness_ratio / t - mu[0],
-                    if symmetric {
-                        0.0
-                    } else {
-                        2.0 * b * (camber_ratio - f)
-                    },
-                ]
-            };
+            let fallback = proportional_step(mu, r, (thickness_ratio, camber_ratio), b, symmetric);
             let mut moved = false;
             for step in newton.into_iter().chain(std::iter::once(fallback)) {
                 if !(step[0].is_finite() && step[1].is_finite()) {

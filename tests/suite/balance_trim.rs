@@ -10,31 +10,14 @@ use trimline::model::Aircraft;
 use trimline::stability::trim::build_system;
 
 /// A conventional high-aspect-ratio model: rectangular AR-10 wing, tail 4.5 chords behind.
-const GLIDER: &str = r#"
-name = "Law glider"
-[airfoils.w]
-naca = "2412"
-cl_max = 1.2
-[airfoils.t]
-naca = "0009"
-cl_max = 0.9
-[wing]
-root_chord = 200
-incidence = 2
-airfoil = "w"
-[[wing.panel]]
-span = 1000
-tip_chord = 200
-[stabiliser]
-x = 900
-z = 0
-incidence = 0
-root_chord = 100
-airfoil = "t"
-[[stabiliser.panel]]
-span = 250
-tip_chord = 100
-[[mass]]
+const GLIDER: &str = crate::small_glider!(
+    name: "Law glider",
+    top: "",
+    wing: "",
+    wing_panel: "tip_chord = 200\n",
+    stabiliser: "x = 900\nz = 0\nincidence = 0\nroot_chord = 100\n",
+    stabiliser_panel: "span = 250\ntip_chord = 100\n",
+    rest: r#"[[mass]]
 name = "all"
 mass = 1000
 x = 60
@@ -45,7 +28,8 @@ max = 500
 [targets]
 static_margin = 10
 trim_speed = 10
-"#;
+"#,
+);
 
 fn load(text: &str) -> Aircraft {
     parse_aircraft(text, "test.toml", None).expect("valid test aircraft")
@@ -669,4 +653,60 @@ fn unstable_tailless_wing_gets_no_rigging_advice() {
     assert!(f.tailless.is_none());
     assert!(f.elevator_schedule.is_empty());
     assert!(!a.cautions.iter().any(|c| c.code == "tailless-trim"));
+}
+
+// With the CG forward of the CG for the target static margin the margin is already larger
+// than the target (static margin = (x_np - x_cg) / MAC, Etkin and Reid, Dynamics of Flight,
+// ch. 2): a nose bay has nothing to add. The glider's CG at 60 mm lies forward of that point
+// (about 92 mm, from the 6 % margin at 100 mm of `ballast_reaches_the_target_margin`), so
+// every output says 0 g and "none needed" instead of "n/a" or "cannot help".
+#[test]
+fn cg_forward_of_the_target_needs_no_ballast() {
+    use trimline::balance::BallastOutcome;
+    let ac = load(GLIDER);
+    let a = analyse(&ac, &opts()).unwrap();
+    assert!(
+        a.mass.cg_x_m < a.ballast[0].target_x_m,
+        "CG not forward of the target"
+    );
+    assert_eq!(a.ballast[0].outcome, BallastOutcome::NotNeeded);
+    let tables = trimline::output::tables::check_report(
+        &ac,
+        &a,
+        "t.toml",
+        trimline::output::units::UnitSystem::Metric,
+    );
+    assert!(tables.contains("0 g, none needed"), "{tables}");
+    let json =
+        serde_json::to_value(trimline::output::json::check_document(&ac, &a, "t.toml")).unwrap();
+    let advice = &json["balance"]["ballast"][0];
+    assert_eq!(advice["status"], "not-needed");
+    assert_eq!(advice["mass_kg"].as_f64(), Some(0.0));
+    let k = trimline::analysis::KeyFigures::of(&ac, &a);
+    let cells = trimline::output::compare::compare_cells(&[k.clone(), k]);
+    let row = cells
+        .iter()
+        .find(|c| c.0 == "ballast for target margin g")
+        .expect("a ballast row");
+    assert_eq!(row.1[0], "0.0, none needed");
+    assert_eq!(row.1[1], "0.0, none needed (=)");
+    let key = trimline::output::report::build(
+        &ac,
+        &a,
+        trimline::output::report::ReportSource {
+            file_name: "t.toml".into(),
+            content_hash: String::new(),
+            date: String::new(),
+        },
+    );
+    let ballast = key
+        .key_figures
+        .iter()
+        .find(|f| f.label == "Ballast needed")
+        .unwrap();
+    assert!(
+        ballast.value.starts_with("nose: 0 g, none needed"),
+        "{}",
+        ballast.value
+    );
 }

@@ -13,28 +13,14 @@ use trimline::input::parse_aircraft;
 use trimline::model::{ItemTolerance, MassItem, Tolerances};
 use trimline::stability::uncertainty::cg_spread;
 
-const GLIDER: &str = r#"name = "Tolerance glider"
-[airfoils.w]
-naca = "2412"
-cl_max = 1.2
-[airfoils.t]
-naca = "0009"
-cl_max = 0.9
-[wing]
-root_chord = 200
-incidence = 2
-airfoil = "w"
-[[wing.panel]]
-span = 1000
-tip_chord = 150
-[stabiliser]
-x = 850
-root_chord = 110
-airfoil = "t"
-[[stabiliser.panel]]
-span = 300
-tip_chord = 90
-[[mass]]
+const GLIDER: &str = crate::small_glider!(
+    name: "Tolerance glider",
+    top: "",
+    wing: "",
+    wing_panel: "tip_chord = 150\n",
+    stabiliser: "x = 850\nroot_chord = 110\n",
+    stabiliser_panel: "span = 300\ntip_chord = 90\n",
+    rest: r#"[[mass]]
 name = "fuselage"
 mass = 300
 x = 100
@@ -42,7 +28,8 @@ x = 100
 name = "nose"
 mass = 200
 x = -50
-"#;
+"#,
+);
 
 fn item(name: &str, g: f64, x_mm: f64) -> MassItem {
     MassItem {

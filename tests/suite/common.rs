@@ -131,3 +131,44 @@ pub fn run_trimline(args: &[&str], dir: &std::path::Path) -> std::process::Outpu
         .output()
         .expect("the binary runs")
 }
+
+/// The suite's small test glider as aircraft-file text (a `&'static str`, so a module can keep
+/// it in a `const`): airfoils `w` (NACA 2412, cl_max 1.2) and `t` (NACA 0009, cl_max 0.9); a
+/// wing of 200 mm root chord at 2 deg incidence with one panel of 1000 mm; a stabiliser of
+/// one panel. Each argument is literal text, lines ending in a newline: `top` after the name
+/// (e.g. a datum), `wing` before the wing's root chord (e.g. its x), `wing_panel` after the
+/// panel's span (its tip chord, or nothing for a rectangular wing), `stabiliser` its keys
+/// before its airfoil (place, incidences, root chord), `stabiliser_panel` its panel, `rest`
+/// what follows (masses, ballast, targets).
+#[macro_export]
+macro_rules! small_glider {
+    (
+        name: $name:literal,
+        top: $top:literal,
+        wing: $wing:literal,
+        wing_panel: $wing_panel:literal,
+        stabiliser: $stab:literal,
+        stabiliser_panel: $stab_panel:literal,
+        rest: $rest:literal $(,)?
+    ) => {
+        concat!(
+            "name = \"",
+            $name,
+            "\"\n",
+            $top,
+            "[airfoils.w]\nnaca = \"2412\"\ncl_max = 1.2\n",
+            "[airfoils.t]\nnaca = \"0009\"\ncl_max = 0.9\n",
+            "[wing]\n",
+            $wing,
+            "root_chord = 200\nincidence = 2\nairfoil = \"w\"\n",
+            "[[wing.panel]]\nspan = 1000\n",
+            $wing_panel,
+            "[stabiliser]\n",
+            $stab,
+            "airfoil = \"t\"\n",
+            "[[stabiliser.panel]]\n",
+            $stab_panel,
+            $rest
+        )
+    };
+}

@@ -21,27 +21,14 @@ use trimline::output::report::{self, ReportSource};
 
 /// A rectangular wing (MAC = chord = 200 mm, MAC quarter chord at x = 50 mm, span 2 m,
 /// area 0.4 m^2: worked by hand) and a flat tail.
-const BASE: &str = r#"name = "Fin glider"
-[airfoils.w]
-naca = "2412"
-cl_max = 1.2
-[airfoils.t]
-naca = "0009"
-cl_max = 0.9
-[wing]
-root_chord = 200
-incidence = 2
-airfoil = "w"
-[[wing.panel]]
-span = 1000
-[stabiliser]
-x = 850
-root_chord = 110
-airfoil = "t"
-[[stabiliser.panel]]
-span = 300
-tip_chord = 90
-[[mass]]
+const BASE: &str = crate::small_glider!(
+    name: "Fin glider",
+    top: "",
+    wing: "",
+    wing_panel: "",
+    stabiliser: "x = 850\nroot_chord = 110\n",
+    stabiliser_panel: "span = 300\ntip_chord = 90\n",
+    rest: r#"[[mass]]
 name = "fuselage"
 mass = 600
 x = 50
@@ -49,7 +36,8 @@ x = 50
 name = "fin"
 mass = 20
 x = 900
-"#;
+"#,
+);
 
 /// A fin of root chord 160, tip chord 80, height 200 mm, leading edge swept 30 deg, its root
 /// leading edge at x = 840 mm.

@@ -136,7 +136,12 @@ fn malformed_numbers_are_not_a_number_with_the_accepted_form() {
     check(
         &e,
         "bad.toml:14:5: mass[0].x:",
-        &["is not a number", "too large", "a number such as 12"],
+        // The field's range (README: positions -50000 to 50000 mm), not the bare number form.
+        &[
+            "is not a number",
+            "too large",
+            "accepted: -50000 mm to 50000 mm",
+        ],
     );
     let e = error_of(&edit("x = 60", "x = 1e400"));
     check(
@@ -545,4 +550,47 @@ fn bare_word_value_is_explained() {
         assert!(e.contains("text in quotes"), "{e}");
         assert!(!e.contains("`true`") && !e.contains("`false`"), "{e}");
     }
+}
+
+// A length in quotes without a unit is read in mm (aircraft/README.md, units); a quoted
+// "0.15" meant as metres is then out of range, and the error says the unit is missing and
+// which units the key takes (mm, cm, m, in, ft: the README's list for lengths).
+#[test]
+fn quoted_number_without_a_unit_gets_a_missing_unit_hint() {
+    let e = error_of(&edit("root_chord = 200", "root_chord = \"0.15\""));
+    check(
+        &e,
+        "bad.toml:5:14: wing.root_chord:",
+        &[
+            "0.15 mm is out of range",
+            "\"0.15\" has no unit",
+            "read in mm",
+            "mm, cm, m, in, ft",
+            "accepted: 5 mm to 10000 mm",
+        ],
+    );
+    // A bare number keeps its own hint; a quoted value with its unit gets none.
+    let with_unit = error_of(&edit("root_chord = 200", "root_chord = \"0.15 mm\""));
+    assert!(!with_unit.contains("has no unit"), "{with_unit}");
+}
+
+// A number too large for a 64-bit float or integer is refused by the TOML reader before
+// the field's check; the error still gives the field's accepted range (the README's span
+// range, 5 mm to 30000 mm), at the number's own place.
+#[test]
+fn number_too_large_to_read_names_the_fields_range() {
+    for big in ["1e400", "-1e400", "99999999999999999999"] {
+        let e = error_of(&edit("span = 600", &format!("span = {big}")));
+        check(
+            &e,
+            "bad.toml:9:8: wing.panel[0].span:",
+            &["is not a number (too large)", "accepted: 5 mm to 30000 mm"],
+        );
+    }
+    let e = error_of(&edit("mass = 300", "mass = 1e400"));
+    check(
+        &e,
+        "bad.toml:13:8: mass[0].mass:",
+        &["too large", "accepted: 0 g to"],
+    );
 }

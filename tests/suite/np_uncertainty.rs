@@ -13,33 +13,19 @@ use trimline::stability::uncertainty::{
     linear_spread, monte_carlo_sigma_m, Spreads, COMMON_SPREADS,
 };
 
-const GLIDER: &str = r#"
-name = "Spread glider"
-[airfoils.w]
-naca = "2412"
-cl_max = 1.2
-[airfoils.t]
-naca = "0009"
-cl_max = 0.9
-[wing]
-root_chord = 200
-incidence = 2
-airfoil = "w"
-[[wing.panel]]
-span = 1000
-tip_chord = 150
-[stabiliser]
-x = 850
-root_chord = 110
-airfoil = "t"
-[[stabiliser.panel]]
-span = 300
-tip_chord = 90
-[[mass]]
+const GLIDER: &str = crate::small_glider!(
+    name: "Spread glider",
+    top: "",
+    wing: "",
+    wing_panel: "tip_chord = 150\n",
+    stabiliser: "x = 850\nroot_chord = 110\n",
+    stabiliser_panel: "span = 300\ntip_chord = 90\n",
+    rest: r#"[[mass]]
 name = "all"
 mass = 1000
 x = 60
-"#;
+"#,
+);
 
 fn with_input<R>(extra: &str, f: impl FnOnce(&EstimateInput<'_>) -> R) -> R {
     let ac = parse_aircraft(&format!("{GLIDER}{extra}"), "t.toml", None).unwrap();

@@ -281,3 +281,96 @@ fn demo_page_text_matches_the_golden_file() {
         );
     }
 }
+
+/// A filled polygon of the page: its fill grey and its points, pt.
+type FilledPolygon = (f64, Vec<(f64, f64)>);
+
+/// The filled polygons of page 1 with their fill grey, and the white box drawn just before
+/// the text run that starts with `label` (its ground), in pt, read with lopdf.
+fn polygons_and_ground_of(bytes: &[u8], label: &str) -> (Vec<FilledPolygon>, [f64; 4]) {
+    let doc = lopdf::Document::load_mem(bytes).unwrap();
+    let page = *doc.get_pages().get(&1).unwrap();
+    let content = lopdf::content::Content::decode(&doc.get_page_content(page)).unwrap();
+    let num = |o: &lopdf::Object| o.as_float().map(f64::from).unwrap_or(0.0);
+    let (mut grey, mut path, mut polys) = (0.0, Vec::new(), Vec::new());
+    let mut ground = None;
+    for op in &content.operations {
+        match op.operator.as_str() {
+            "g" => grey = num(&op.operands[0]),
+            "m" => path = vec![(num(&op.operands[0]), num(&op.operands[1]))],
+            "l" => path.push((num(&op.operands[0]), num(&op.operands[1]))),
+            "f" | "F" | "b" | "B" | "f*" | "b*" | "B*" if path.len() >= 3 => {
+                polys.push((grey, std::mem::take(&mut path)));
+            }
+            "Tj" => {
+                let bytes = op.operands[0].as_str().unwrap_or_default();
+                if String::from_utf8_lossy(bytes).starts_with(label) {
+                    let (_, p) = polys.last().expect("a ground before the label");
+                    let xs = p.iter().map(|q| q.0);
+                    let ys = p.iter().map(|q| q.1);
+                    ground = Some([
+                        xs.clone().fold(f64::INFINITY, f64::min),
+                        ys.clone().fold(f64::INFINITY, f64::min),
+                        xs.fold(f64::NEG_INFINITY, f64::max),
+                        ys.fold(f64::NEG_INFINITY, f64::max),
+                    ]);
+                }
+            }
+            _ => {}
+        }
+    }
+    (polys, ground.expect("the label was drawn"))
+}
+
+/// Even-odd rule: `p` inside the closed polygon `poly`.
+fn inside(p: (f64, f64), poly: &[(f64, f64)]) -> bool {
+    let n = poly.len();
+    (0..n).fold(false, |odd, i| {
+        let (a, b) = (poly[i], poly[(i + n - 1) % n]);
+        let crosses =
+            (a.1 > p.1) != (b.1 > p.1) && p.0 < a.0 + (p.1 - a.1) * (b.0 - a.0) / (b.1 - a.1);
+        odd != crosses
+    })
+}
+
+// The MAC label of the top view lies outside every surface outline (the wing and tail drawn
+// in grey 0.95), so it covers no part of the planform (drawing practice: a label beside
+// the drawing, not on it; common practice). Checked on the box's corners and centre and on
+// every outline point inside the box.
+#[test]
+fn mac_label_lies_outside_the_planform() {
+    for file in [
+        "larkspire-2000.toml",
+        "merrowtail-1700.toml",
+        "skerrywing-900.toml",
+        "wrenfield-1400.toml",
+    ] {
+        let text = std::fs::read_to_string(
+            Path::new(env!("CARGO_MANIFEST_DIR"))
+                .join("aircraft")
+                .join(file),
+        )
+        .unwrap();
+        let aircraft = parse_aircraft(&text, file, None).unwrap();
+        let bytes = report_pdf(&aircraft, source(), Paper::A4).unwrap();
+        let (polys, [x0, y0, x1, y1]) = polygons_and_ground_of(&bytes, "MAC ");
+        let probes = [
+            (x0, y0),
+            (x1, y0),
+            (x0, y1),
+            (x1, y1),
+            (0.5 * (x0 + x1), 0.5 * (y0 + y1)),
+        ];
+        for (grey, poly) in polys.iter().filter(|(g, _)| (g - 0.95).abs() < 1e-3) {
+            assert!(
+                probes.iter().all(|&p| !inside(p, poly)),
+                "{file}: the MAC label covers an outline (grey {grey})"
+            );
+            assert!(
+                poly.iter()
+                    .all(|&(x, y)| !(x > x0 && x < x1 && y > y0 && y < y1)),
+                "{file}: an outline runs through the MAC label"
+            );
+        }
+    }
+}

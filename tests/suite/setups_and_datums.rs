@@ -8,31 +8,14 @@
 use trimline::analysis::{analyse, to_common_reference, AnalysisOptions, KeyFigures};
 use trimline::input::parse_aircraft;
 
-const BASE: &str = r#"
-name = "Datum glider"
-datum = "DATUM"
-[airfoils.w]
-naca = "2412"
-cl_max = 1.2
-[airfoils.t]
-naca = "0009"
-cl_max = 0.9
-[wing]
-x = WING_X
-root_chord = 200
-incidence = 2
-airfoil = "w"
-[[wing.panel]]
-span = 1000
-tip_chord = 200
-[stabiliser]
-x = STAB_X
-root_chord = 100
-airfoil = "t"
-[[stabiliser.panel]]
-span = 250
-tip_chord = 100
-[[mass]]
+const BASE: &str = crate::small_glider!(
+    name: "Datum glider",
+    top: "datum = \"DATUM\"\n",
+    wing: "x = WING_X\n",
+    wing_panel: "tip_chord = 200\n",
+    stabiliser: "x = STAB_X\nroot_chord = 100\n",
+    stabiliser_panel: "span = 250\ntip_chord = 100\n",
+    rest: r#"[[mass]]
 name = "airframe"
 mass = 900
 x = MASS_X
@@ -65,7 +48,8 @@ reading = 350
 [[setup]]
 name = "less decalage"
 wing_incidence = 1.5
-"#;
+"#,
+);
 
 /// The aircraft with every position measured from a datum `shift_mm` ahead of the wing root.
 fn text(shift_mm: f64, datum: &str) -> String {

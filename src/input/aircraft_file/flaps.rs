@@ -1,7 +1,7 @@
 //! `[[wing.flap]]` and `[[flap_setting]]`: the wing's camber flaps and the named settings
 //! that deflect them.
 
-use super::{fmt_num, one_of, Bounds, Ctx, ELEVON_CHORD_PCT, SEMISPAN_PCT};
+use super::{fmt_num, one_of, Bounds, ControlSpan, Ctx};
 use crate::input::error::InputError;
 use crate::input::raw;
 use crate::input::units::Dimension;
@@ -79,51 +79,15 @@ impl Ctx<'_> {
                     Some("a name no other flap has".into()),
                 ));
             }
-            let chord = self.required_quantity(
-                r.chord.as_ref(),
+            let ControlSpan {
+                chord_fraction,
+                inboard_fraction: inboard,
+                outboard_fraction: outboard,
+            } = self.control_span(
+                (r.chord.as_ref(), r.inboard.as_ref(), r.outboard.as_ref()),
                 &span,
                 path,
-                "chord",
-                Dimension::Percent,
-                ELEVON_CHORD_PCT,
             )?;
-            let inboard = self.required_quantity(
-                r.inboard.as_ref(),
-                &span,
-                path,
-                "inboard",
-                Dimension::Percent,
-                SEMISPAN_PCT,
-            )?;
-            let outboard_q = self.required(
-                r.outboard.as_ref(),
-                &span,
-                path,
-                "outboard",
-                Dimension::Percent,
-                SEMISPAN_PCT,
-            )?;
-            let outboard = self.quantity(
-                outboard_q,
-                "wing.flap.outboard",
-                Dimension::Percent,
-                SEMISPAN_PCT,
-            )?;
-            if outboard <= inboard {
-                return Err(self.err(
-                    &outboard_q.span(),
-                    "wing.flap.outboard",
-                    format!(
-                        "the outboard end ({} %) must lie outboard of the inboard end ({} %)",
-                        fmt_num(100.0 * outboard),
-                        fmt_num(100.0 * inboard)
-                    ),
-                    Some(format!(
-                        "more than {} % to 100 % of the semispan",
-                        fmt_num(100.0 * inboard)
-                    )),
-                ));
-            }
             let overlaps = |a: f64, b: f64| inboard < b - 1e-9 && a < outboard - 1e-9;
             let clash = out
                 .iter()
@@ -148,7 +112,7 @@ impl Ctx<'_> {
             }
             out.push(WingFlap {
                 name,
-                chord_fraction: chord,
+                chord_fraction,
                 inboard_fraction: inboard,
                 outboard_fraction: outboard,
             });

@@ -158,6 +158,47 @@ pub fn spanwise_chart(c: &mut Canvas, area: Frame, data: &SpanwiseData) {
 /// speed cannot be flown: that part of the curve is drawn thin and dashed and named in the
 /// legend.
 pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
+    let (x, y) = trim_speed_axes(data);
+    let trim_pen = Pen::solid(1.3);
+    let stall_pen = Pen::solid(0.9).with_dash(Dash::Dotted);
+    let band_pen = Pen::solid(0.35).with_grey(0.45);
+    let edge_pen = Pen::solid(0.6).with_dash(Dash::Dashed);
+    let cg_pen = Pen::solid(0.6).with_dash(Dash::DashDot);
+    let below_pen = Pen::solid(0.5).with_dash(Dash::Dashed);
+    let stalled = |v: f64| v < data.stall_speed_m_s;
+    let any_below = data.points.iter().any(|p| p.1.is_some_and(stalled));
+    let legend = trim_speed_legend(data, (trim_pen, stall_pen, band_pen), any_below);
+    let axes = chart_frame(
+        c,
+        area,
+        "Trim speed against CG position",
+        x,
+        y,
+        &legend,
+        &data.method,
+    );
+    axes.x_band(c, data.band_mm.0, data.band_mm.1, band_pen);
+    axes.vline(c, data.band_mm.0, edge_pen);
+    axes.vline(c, data.band_mm.1, edge_pen);
+    axes.hline(c, data.stall_speed_m_s, stall_pen);
+    let line: Vec<Option<(f64, f64)>> = data
+        .points
+        .iter()
+        .map(|&(x, v)| v.map(|v| (x, v)))
+        .collect();
+    axes.series(c, &stall_part(&line, data.stall_speed_m_s, false), trim_pen);
+    if any_below {
+        axes.series(c, &stall_part(&line, data.stall_speed_m_s, true), below_pen);
+    }
+    axes.vline(c, data.cg_mm, cg_pen);
+    cg_symbol_on_curve(c, &axes, data);
+    if !line.iter().any(Option::is_some) {
+        no_trim_message(c, &axes);
+    }
+}
+
+/// The CG axis over the sweep and the speed axis over the trim and stall speeds.
+fn trim_speed_axes(data: &TrimSweep) -> (Axis, Axis) {
     let speeds: Vec<f64> = data
         .points
         .iter()
@@ -177,15 +218,17 @@ pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
     let x_hi = xs.fold(f64::NEG_INFINITY, f64::max);
     let x = Axis::nice(x_lo, x_hi, 6, "CG, mm aft of the wing root leading edge");
     let y = Axis::nice(lo, hi, 5, "speed, m/s");
-    let trim_pen = Pen::solid(1.3);
-    let stall_pen = Pen::solid(0.9).with_dash(Dash::Dotted);
-    let band_pen = Pen::solid(0.35).with_grey(0.45);
-    let edge_pen = Pen::solid(0.6).with_dash(Dash::Dashed);
-    let cg_pen = Pen::solid(0.6).with_dash(Dash::DashDot);
-    let below_pen = Pen::solid(0.5).with_dash(Dash::Dashed);
-    let stalled = |v: f64| v < data.stall_speed_m_s;
-    let any_below = data.points.iter().any(|p| p.1.is_some_and(stalled));
-    let legend = vec![
+    (x, y)
+}
+
+/// The legend of the trim-speed chart, with the `(trim, stall, band)` pens; `any_below` when
+/// part of the curve lies below the stall speed.
+fn trim_speed_legend(
+    data: &TrimSweep,
+    (trim_pen, stall_pen, band_pen): (Pen, Pen, Pen),
+    any_below: bool,
+) -> Vec<(Swatch, String)> {
+    vec![
         (
             Swatch::Line(trim_pen, None),
             if any_below {
@@ -210,48 +253,35 @@ pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
             Swatch::CgSymbol,
             format!("CG from mass list {} mm", fmt(data.cg_mm, 0)),
         ),
-    ];
-    let axes = chart_frame(
-        c,
-        area,
-        "Trim speed against CG position",
-        x,
-        y,
-        &legend,
-        &data.method,
-    );
-    axes.x_band(c, data.band_mm.0, data.band_mm.1, band_pen);
-    axes.vline(c, data.band_mm.0, edge_pen);
-    axes.vline(c, data.band_mm.1, edge_pen);
-    axes.hline(c, data.stall_speed_m_s, stall_pen);
-    let line: Vec<Option<(f64, f64)>> = data
-        .points
-        .iter()
-        .map(|&(x, v)| v.map(|v| (x, v)))
-        .collect();
+    ]
+}
+
+/// The points of `line` on the flyable (`below` false) or stalled side of `stall_speed_m_s`.
+fn stall_part(
+    line: &[Option<(f64, f64)>],
+    stall_speed_m_s: f64,
+    below: bool,
+) -> Vec<Option<(f64, f64)>> {
+    let stalled = |v: f64| v < stall_speed_m_s;
     // Each point belongs to the flyable or the stalled curve; a segment that crosses the
     // stall line is drawn in both, so the curve stays continuous.
-    let part = |below: bool| -> Vec<Option<(f64, f64)>> {
-        (0..line.len())
-            .map(|i| {
-                let mine = |j: usize| {
-                    line.get(j)
-                        .copied()
-                        .flatten()
-                        .filter(|p| stalled(p.1) == below)
-                };
-                let p = line[i]?;
-                let neighbour = i.checked_sub(1).and_then(mine).or_else(|| mine(i + 1));
-                (stalled(p.1) == below || neighbour.is_some()).then_some(p)
-            })
-            .collect()
-    };
-    axes.series(c, &part(false), trim_pen);
-    if any_below {
-        axes.series(c, &part(true), below_pen);
-    }
-    axes.vline(c, data.cg_mm, cg_pen);
-    // The balance symbol on the curve at the present CG (nearest sweep point that trims).
+    (0..line.len())
+        .map(|i| {
+            let mine = |j: usize| {
+                line.get(j)
+                    .copied()
+                    .flatten()
+                    .filter(|p| stalled(p.1) == below)
+            };
+            let p = line[i]?;
+            let neighbour = i.checked_sub(1).and_then(mine).or_else(|| mine(i + 1));
+            (stalled(p.1) == below || neighbour.is_some()).then_some(p)
+        })
+        .collect()
+}
+
+/// The balance symbol on the curve at the present CG (nearest sweep point that trims).
+fn cg_symbol_on_curve(c: &mut Canvas, axes: &Axes, data: &TrimSweep) {
     let at_cg = data
         .points
         .iter()
@@ -266,25 +296,27 @@ pub fn trim_speed_chart(c: &mut Canvas, area: Frame, data: &TrimSweep) {
             c.cg_symbol(axes.map((data.cg_mm, v)), 1.3);
         }
     }
-    if !line.iter().any(Option::is_some) {
-        let f = axes.frame;
-        let msg_w = TITLE_FONT.width_mm("no trimmed flight in this CG range") + 3.0;
-        c.rect(
-            f.x + 0.5 * (f.w - msg_w),
-            f.y + 0.5 * f.h - 1.5,
-            msg_w,
-            TITLE_FONT.cap_height_mm() + 3.0,
-            Some(1.0),
-            Some(Pen::solid(0.4)),
-        );
-        c.text(
-            f.x + 0.5 * f.w,
-            f.y + 0.5 * f.h,
-            "no trimmed flight in this CG range",
-            TITLE_FONT,
-            Align::Centre,
-        );
-    }
+}
+
+/// A boxed message in the middle of the plot when nothing trims over the CG range.
+fn no_trim_message(c: &mut Canvas, axes: &Axes) {
+    let f = axes.frame;
+    let msg_w = TITLE_FONT.width_mm("no trimmed flight in this CG range") + 3.0;
+    c.rect(
+        f.x + 0.5 * (f.w - msg_w),
+        f.y + 0.5 * f.h - 1.5,
+        msg_w,
+        TITLE_FONT.cap_height_mm() + 3.0,
+        Some(1.0),
+        Some(Pen::solid(0.4)),
+    );
+    c.text(
+        f.x + 0.5 * f.w,
+        f.y + 0.5 * f.h,
+        "no trimmed flight in this CG range",
+        TITLE_FONT,
+        Align::Centre,
+    );
 }
 
 /// The sink chart: sink rate against airspeed for this configuration (solid) and the ballast

@@ -58,8 +58,20 @@ pub fn draw(d: &CompareData, paper: Paper) -> Canvas {
     let x0 = MARGIN;
     let w = pw - 2.0 * MARGIN;
     let mut y = ph - MARGIN - TITLE.cap_height_mm();
+    y = title_block(&mut c, d, x0, y, w);
+    y = key_figures_table(&mut c, d, x0, y, w);
 
-    // Title block.
+    // CG against band and neutral point, one row per configuration.
+    y = cg_chart(&mut c, d, x0, y, w);
+    y -= GAP;
+    y = cautions_list(&mut c, d, x0, y, w);
+    safety_box(&mut c, x0, y, w);
+    c
+}
+
+/// The title block: title, date and version, the input files; returns the baseline below it.
+fn title_block(c: &mut Canvas, d: &CompareData, x0: f64, top: f64, w: f64) -> f64 {
+    let mut y = top;
     c.text(x0, y, "Setup comparison", TITLE, Align::Left);
     let info = [
         format!("Comparison, {}", d.date),
@@ -77,8 +89,12 @@ pub fn draw(d: &CompareData, paper: Paper) -> Canvas {
         y -= SMALL.line_height_mm();
     }
     y -= GAP;
+    y
+}
 
-    // The table.
+/// The key-figures table with its footnote; returns the baseline below it.
+fn key_figures_table(c: &mut Canvas, d: &CompareData, x0: f64, top: f64, w: f64) -> f64 {
+    let mut y = top;
     let n = d.names.len().max(1);
     let label_w = 52.0;
     let col_w = (w - label_w) / n as f64;
@@ -137,12 +153,12 @@ pub fn draw(d: &CompareData, paper: Paper) -> Canvas {
         Align::Left,
     );
     y -= SMALL.line_height_mm() + GAP;
+    y
+}
 
-    // CG against band and neutral point, one row per configuration.
-    y = cg_chart(&mut c, d, x0, y, w);
-    y -= GAP;
-
-    // Cautions per configuration.
+/// The warnings and dangers raised per configuration; returns the baseline below them.
+fn cautions_list(c: &mut Canvas, d: &CompareData, x0: f64, top: f64, w: f64) -> f64 {
+    let mut y = top;
     c.text(x0, y, "Warnings and dangers raised", HEAD, Align::Left);
     y -= HEAD.line_height_mm() + 0.5;
     for (name, codes) in &d.cautions {
@@ -171,8 +187,11 @@ pub fn draw(d: &CompareData, paper: Paper) -> Canvas {
         Align::Left,
     );
     y -= SMALL.line_height_mm() + GAP;
+    y
+}
 
-    // Standing safety caution, boxed.
+/// The standing safety caution, boxed, from the baseline `y`.
+fn safety_box(c: &mut Canvas, x0: f64, y: f64, w: f64) {
     let lines = metrics::wrap(SAFETY_MESSAGE, Face::Bold, BODY_BOLD.size_pt, w - 4.0);
     let box_h = lines.len() as f64 * BODY_BOLD.line_height_mm() + 3.0;
     c.rect(x0, y - box_h + 3.0, w, box_h, None, Some(Pen::solid(0.8)));
@@ -181,7 +200,6 @@ pub fn draw(d: &CompareData, paper: Paper) -> Canvas {
         c.text(x0 + 2.0, yl, l, BODY_BOLD, Align::Left);
         yl -= BODY_BOLD.line_height_mm();
     }
-    c
 }
 
 /// The CG chart; returns the baseline below it.

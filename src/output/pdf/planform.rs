@@ -7,7 +7,12 @@
 
 use super::canvas::{Align, Canvas, Dash, Font, Marker, Pen};
 use super::chart::Frame;
-use crate::output::report::{fmt, TopView};
+use crate::output::report::{fmt, Outline, TopView};
+
+mod labels;
+mod mac_label;
+
+use labels::leader_labels;
 
 const LABEL: Font = Font::regular(7.0);
 const LABEL_BOLD: Font = Font::bold(7.5);
@@ -206,64 +211,111 @@ pub fn height_needed(width: f64, max_height: f64, view: &TopView) -> f64 {
     }
 }
 
+/// Where the views sit on the page: the top view's centre line `cx` and top `top` (mm), the
+/// scale `k` (mm of paper per m) and the aircraft's most forward x `x_min` (m).
+#[derive(Clone, Copy)]
+struct Placement {
+    cx: f64,
+    top: f64,
+    k: f64,
+    x_min: f64,
+}
+
+impl Placement {
+    /// The page point (mm) of the top view's (x, y), m.
+    fn page(&self, p: (f64, f64)) -> (f64, f64) {
+        (
+            self.cx + p.1 * self.k,
+            self.top - (p.0 - self.x_min) * self.k,
+        )
+    }
+}
+
 /// Draw `view` inside `area`. Returns the scale denominator N (drawing is 1:N), NaN when the
 /// view has nothing to draw.
 pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     let marks = marks(view);
-    let Some(Layout {
-        label_w,
-        caption_h,
-        draw,
-        n,
-        x_min,
-        x_max,
-        y_max,
-        z_range,
-    }) = layout(area, view, &marks)
-    else {
+    let Some(l) = layout(area, view, &marks) else {
         return f64::NAN;
     };
-    let k = 1000.0 / n;
+    let k = 1000.0 / l.n;
     // The top view and, at its right, the side view, centred together across the frame.
     let has_side = !side_points(view).is_empty();
     let side_w = if has_side {
-        SIDE_GAP_MM + (z_range.1 - z_range.0) * k
+        SIDE_GAP_MM + (l.z_range.1 - l.z_range.0) * k
     } else {
         0.0
     };
+    let draw = l.draw;
     let cx = draw.x + 0.5 * (draw.w - side_w);
     let cx = cx
-        .max(draw.x + y_max * k)
-        .min(draw.x + draw.w - side_w - y_max * k);
-    let top = draw.top() - 0.5 * (draw.h - (x_max - x_min) * k);
-    let page = |p: (f64, f64)| (cx + p.1 * k, top - (p.0 - x_min) * k);
+        .max(draw.x + l.y_max * k)
+        .min(draw.x + draw.w - side_w - l.y_max * k);
+    let top = draw.top() - 0.5 * (draw.h - (l.x_max - l.x_min) * k);
+    let place = Placement {
+        cx,
+        top,
+        k,
+        x_min: l.x_min,
+    };
+    let page = |p: (f64, f64)| place.page(p);
 
-    let outline = Pen::solid(0.8);
-    if let Some(f) = &view.fuselage {
-        let p: Vec<_> = f.iter().map(|&q| page(q)).collect();
-        c.polygon(&p, Some(0.85), Some(Pen::solid(0.5)));
-    }
-    let wing: Vec<_> = view.wing.iter().map(|&q| page(q)).collect();
-    c.polygon(&wing, Some(0.95), Some(outline));
-    if let Some((_, o)) = &view.stabiliser {
-        let p: Vec<_> = o.iter().map(|&q| page(q)).collect();
-        c.polygon(&p, Some(0.95), Some(outline));
-    }
+    let wing_and_stabiliser: Vec<&Outline> = std::iter::once(&view.wing)
+        .chain(view.stabiliser.as_ref().map(|(_, o)| o))
+        .collect();
+    outlines(c, view.fuselage.as_ref(), &wing_and_stabiliser, page);
     for o in &view.controls {
         let p: Vec<_> = o.iter().map(|&q| page(q)).collect();
         c.polygon(&p, Some(0.82), Some(Pen::solid(0.4)));
     }
     c.line(
         (cx, top + 2.0),
-        (cx, top - (x_max - x_min) * k - 2.0),
+        (cx, top - (l.x_max - l.x_min) * k - 2.0),
         Pen::solid(0.3).with_dash(Dash::DashDot),
     );
 
     // Balance marks across the wing root: half-width w_mark on each side of the centre line.
-    let w_mark = (0.22 * y_max * k).clamp(6.0, 0.5 * draw.w);
+    let w_mark = (0.22 * l.y_max * k).clamp(6.0, 0.5 * draw.w);
+    balance_marks(c, view, place, w_mark);
+    mac_line(c, view, place);
+    leader_labels(c, area, &l, marks, place, w_mark);
+
+    // The fin seen from above: a line on the centre line.
+    if let Some((x0, x1)) = view.fin_x_m {
+        c.line(page((x0, 0.0)), page((x1, 0.0)), Pen::solid(1.4));
+    }
+    if has_side {
+        side_view(c, view, place, l.y_max, l.z_range);
+    }
+    caption_and_scale_bar(c, area, draw, k, l.n);
+    l.n
+}
+
+/// The fuselage (lighter) and then each surface outline, through `to_page` (m to page mm):
+/// the drawing run the top view and the side view share.
+fn outlines(
+    c: &mut Canvas,
+    fuselage: Option<&Outline>,
+    surfaces: &[&Outline],
+    to_page: impl Fn((f64, f64)) -> (f64, f64),
+) {
+    if let Some(f) = fuselage {
+        let p: Vec<_> = f.iter().map(|&q| to_page(q)).collect();
+        c.polygon(&p, Some(0.85), Some(Pen::solid(0.5)));
+    }
+    for o in surfaces {
+        let p: Vec<_> = o.iter().map(|&q| to_page(q)).collect();
+        c.polygon(&p, Some(0.95), Some(Pen::solid(0.8)));
+    }
+}
+
+/// The recommended band (hatched), the neutral point, the target CG and the CG across the
+/// wing root, `w_mark` mm each side of the centre line.
+fn balance_marks(c: &mut Canvas, view: &TopView, place: Placement, w_mark: f64) {
+    let cx = place.cx;
     let (b0, b1) = (
-        page((view.band_x_m.0, 0.0)).1,
-        page((view.band_x_m.1, 0.0)).1,
+        place.page((view.band_x_m.0, 0.0)).1,
+        place.page((view.band_x_m.1, 0.0)).1,
     );
     if b0.is_finite() && b1.is_finite() {
         let (lo, hi) = (b0.min(b1), b0.max(b1));
@@ -278,7 +330,7 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
             Some(Pen::solid(0.5)),
         );
     }
-    let np_y = page((view.neutral_point_x_m, 0.0)).1;
+    let np_y = place.page((view.neutral_point_x_m, 0.0)).1;
     c.line(
         (cx - w_mark, np_y),
         (cx + w_mark, np_y),
@@ -286,145 +338,68 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
     );
     c.marker((cx + w_mark, np_y), Marker::Triangle, 2.2, Pen::solid(0.7));
     if let Some(t) = view.target_x_m {
-        let ty = page((t, 0.0)).1;
+        let ty = place.page((t, 0.0)).1;
         c.line(
             (cx - w_mark, ty),
             (cx + w_mark, ty),
             Pen::solid(0.7).with_dash(Dash::Dotted),
         );
     }
-    let cg_y = page((view.cg_x_m, 0.0)).1;
+    let cg_y = place.page((view.cg_x_m, 0.0)).1;
     c.line((cx - w_mark, cg_y), (cx + w_mark, cg_y), Pen::solid(1.2));
     c.cg_symbol((cx, cg_y), 1.8);
+}
 
-    // MAC on the starboard half, with end ticks and its length.
+/// The MAC on the starboard half, with end ticks and its length.
+fn mac_line(c: &mut Canvas, view: &TopView, place: Placement) {
     let m = view.mac;
-    let a = page((m.le_x_m, m.y_m));
-    let b = page((m.le_x_m + m.chord_m, m.y_m));
+    let a = place.page((m.le_x_m, m.y_m));
+    let b = place.page((m.le_x_m + m.chord_m, m.y_m));
     c.line(a, b, Pen::solid(1.6));
     c.line((a.0 - 1.2, a.1), (a.0 + 1.2, a.1), Pen::solid(0.8));
     c.line((b.0 - 1.2, b.1), (b.0 + 1.2, b.1), Pen::solid(0.8));
-    // On a white ground so it stays legible where it crosses the outline.
+    // Outside the outlines, so it covers no part of the planform; on a white ground so it
+    // stays legible over the centre line or a scale bar.
     let mac_font = Font::regular(6.5);
     let mac_text = format!("MAC {} mm", fmt(m.chord_m * 1000.0, 0));
-    let mac_base = 0.5 * (a.1 + b.1) - 0.5 * mac_font.cap_height_mm();
-    c.rect(
-        a.0 + 1.0,
-        mac_base - 0.6,
+    let outlines: Vec<Vec<(f64, f64)>> = std::iter::once(&view.wing)
+        .chain(view.stabiliser.as_ref().map(|(_, o)| o))
+        .chain(view.fuselage.as_ref())
+        .map(|o| o.iter().map(|&q| place.page(q)).collect())
+        .collect();
+    let size = (
         mac_font.width_mm(&mac_text) + 1.0,
         mac_font.cap_height_mm() + 1.2,
-        Some(1.0),
-        None,
     );
-    c.text(a.0 + 1.5, mac_base, &mac_text, mac_font, Align::Left);
+    let label = mac_label::place(a, b, size, &outlines);
+    c.rect(label.x, label.y, label.w, label.h, Some(1.0), None);
+    c.text(
+        label.x + 0.5,
+        label.y + 0.6,
+        &mac_text,
+        mac_font,
+        Align::Left,
+    );
+}
 
-    // Leader labels, spread apart vertically so none overlap. On a view too short for all of
-    // them, the least needed go first: the root leading edge (always 0), then the target, then
-    // the band's ends (the balance box prints the band in figures), then the neutral point.
-    let gap = LABEL_BOLD.line_height_mm();
-    let capacity = ((area.top() - CAPTION.line_height_mm() - gap - (area.y + caption_h)) / gap)
-        .floor()
-        .max(0.0) as usize
-        + 1;
-    let mut marks = marks;
-    if marks.len() > capacity {
-        marks.retain(|m| !m.is_root);
-    }
-    if marks.len() > capacity {
-        marks.retain(|m| !m.text.starts_with("target"));
-    }
-    if marks.len() > capacity {
-        marks.retain(|m| !m.text.starts_with("forward limit") && !m.text.starts_with("aft limit"));
-    }
-    if marks.len() > capacity {
-        // Room for one label only: the CG.
-        marks.retain(|m| m.text.starts_with("CG "));
-    }
-    if area.top() - CAPTION.line_height_mm() - gap < area.y + caption_h {
-        // Not even one label and its heading fit beside this view: none (the balance box
-        // prints the figures).
-        marks.clear();
-    }
-    let ideal: Vec<f64> = marks.iter().map(|mk| page((mk.x_m, 0.0)).1).collect();
-    let mut placed = ideal.clone();
-    if let Some(p0) = placed.first_mut() {
-        *p0 = p0.min(area.top() - CAPTION.line_height_mm() - gap);
-    }
-    for i in 1..placed.len() {
-        placed[i] = placed[i].min(placed[i - 1] - gap);
-    }
-    let floor = area.y + caption_h;
-    if let Some(&last) = placed.last() {
-        if last < floor {
-            let lift = floor - last;
-            for p in &mut placed {
-                *p += lift;
-            }
-        }
-    }
-    // On a short view the lifted stack can reach above the view; then spread the labels evenly
-    // between the floor and the top instead (closer together, still in order).
-    let top_limit = area.top() - CAPTION.line_height_mm() - gap;
-    if placed.first().is_some_and(|&p| p > top_limit) && placed.len() > 1 {
-        let step = (top_limit - floor) / (placed.len() - 1) as f64;
-        for (i, p) in placed.iter_mut().enumerate() {
-            *p = top_limit - step * i as f64;
-        }
-    }
-    let col_right = area.x + label_w;
-    if let Some(&first) = placed.first() {
-        c.text_grey(
-            col_right,
-            first + gap,
-            "mm aft of root LE",
-            CAPTION,
-            Align::Right,
-            0.3,
-        );
-    }
-    let port_end = cx - w_mark;
-    for ((mk, &y_ideal), &y_label) in marks.iter().zip(&ideal).zip(&placed) {
-        // The root leading edge is a point on the centre line; the others are mark lines.
-        let end = if mk.is_root { cx } else { port_end };
-        c.text(
-            col_right,
-            y_label - 0.5 * mk.font.cap_height_mm(),
-            &mk.text,
-            mk.font,
-            Align::Right,
-        );
-        let leader = Pen::solid(0.3).with_grey(0.2);
-        c.polyline(
-            &[
-                (col_right + 0.8, y_label),
-                (col_right + 2.5, y_label),
-                (end - 2.0, y_ideal),
-                (end, y_ideal),
-            ],
-            leader,
-        );
-    }
+/// The side view at the top view's scale, nose up, z (up) to the right, right of the top view
+/// (half-span `y_max`, m; heights `z_range`, m): x rows line up with the top view's.
+fn side_view(c: &mut Canvas, view: &TopView, place: Placement, y_max: f64, z_range: (f64, f64)) {
+    let k = place.k;
+    let sx0 = place.cx + y_max * k + SIDE_GAP_MM;
+    let side_page = |p: (f64, f64)| {
+        (
+            sx0 + (p.1 - z_range.0) * k,
+            place.top - (p.0 - place.x_min) * k,
+        )
+    };
+    let side: Vec<&Outline> = view.side.iter().collect();
+    outlines(c, view.side_fuselage.as_ref(), &side, side_page);
+}
 
-    // The fin seen from above: a line on the centre line.
-    if let Some((x0, x1)) = view.fin_x_m {
-        c.line(page((x0, 0.0)), page((x1, 0.0)), Pen::solid(1.4));
-    }
-    // The side view at the same scale, nose up, z (up) to the right: x rows line up with
-    // the top view's.
-    if has_side {
-        let sx0 = cx + y_max * k + SIDE_GAP_MM;
-        let side_page = |p: (f64, f64)| (sx0 + (p.1 - z_range.0) * k, top - (p.0 - x_min) * k);
-        if let Some(f) = &view.side_fuselage {
-            let p: Vec<_> = f.iter().map(|&q| side_page(q)).collect();
-            c.polygon(&p, Some(0.85), Some(Pen::solid(0.5)));
-        }
-        for o in &view.side {
-            let p: Vec<_> = o.iter().map(|&q| side_page(q)).collect();
-            c.polygon(&p, Some(0.95), Some(outline));
-        }
-    }
-
-    // Caption and a 100 mm (or shorter) scale bar.
+/// The caption and a 100 mm (or shorter) scale bar under the drawing (`k` mm of paper per m,
+/// scale 1:`n`).
+fn caption_and_scale_bar(c: &mut Canvas, area: Frame, draw: Frame, k: f64, n: f64) {
     let bar_m = [0.5, 0.2, 0.1, 0.05]
         .into_iter()
         .find(|len| len * k <= 0.3 * draw.w)
@@ -464,7 +439,6 @@ pub fn top_view(c: &mut Canvas, area: Frame, view: &TopView) -> f64 {
         CAPTION,
         Align::Left,
     );
-    n
 }
 
 #[cfg(test)]

@@ -67,19 +67,7 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     let min_view = planform::min_height(&data.top_view);
     let shortfall = (min_view - view_h).max(0.0);
     if data.glide.is_some() && chart_h - shortfall < MIN_CHART_H + extra {
-        // Too crowded for a third chart: the page keeps the two balance charts (the glide
-        // figures stay in the key figures and in `check`).
-        let mut two = ReportData {
-            glide: None,
-            ..data.clone()
-        };
-        two.cautions.push(crate::caution::Caution::new(
-            crate::caution::Level::Note,
-            "sink-chart-left-out",
-            "The sink chart is left out of this page for room; `trimline check` prints the \
-             glide table.",
-        ));
-        return draw(&two, paper);
+        return draw(&without_sink_chart(data), paper);
     }
     let notes = data
         .cautions
@@ -87,19 +75,7 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
         .filter(|c| c.level == crate::caution::Level::Note)
         .count();
     if data.glide.is_none() && chart_h - shortfall < MIN_CHART_H && notes > 1 {
-        // Still too crowded: the notes give way (warnings and dangers always stay), with one
-        // line saying where to read them.
-        let mut lean = data.clone();
-        lean.cautions
-            .retain(|c| c.level != crate::caution::Level::Note);
-        lean.cautions.push(crate::caution::Caution::new(
-            crate::caution::Level::Note,
-            "notes-left-out",
-            format!(
-                "{notes} notes are left out of this page for room; `trimline check` prints them."
-            ),
-        ));
-        return draw(&lean, paper);
+        return draw(&without_notes(data, notes), paper);
     }
     chart_h = (chart_h - shortfall).max(MIN_CHART_H + extra);
     chart_h += spare.clamp(0.0, MAX_CHART_GROWTH);
@@ -122,22 +98,67 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
         mass_w,
     );
 
-    let columns = if data.glide.is_some() { 3.0 } else { 2.0 };
-    let part = (w - (columns - 1.0) * GAP) / columns;
-    let frame = |k: f64| Frame {
-        x: x0 + k * (part + GAP),
-        y: charts_y,
-        w: part,
-        h: chart_h,
-    };
-    charts::spanwise_chart(&mut c, frame(0.0), &data.spanwise);
-    charts::trim_speed_chart(&mut c, frame(1.0), &data.trim_sweep);
-    if let Some(g) = &data.glide {
-        charts::glide_chart(&mut c, frame(2.0), g);
-    }
+    charts_row(
+        &mut c,
+        data,
+        Frame {
+            x: x0,
+            y: charts_y,
+            w,
+            h: chart_h,
+        },
+    );
     cautions_box(&mut c, data, x0, caution_top, w);
     footer(&mut c, data, x0, MARGIN + footer_h, w, true);
     c
+}
+
+/// The page too crowded for a third chart: the two balance charts stay (the glide figures
+/// stay in the key figures and in `check`), with a note saying so.
+fn without_sink_chart(data: &ReportData) -> ReportData {
+    let mut two = ReportData {
+        glide: None,
+        ..data.clone()
+    };
+    two.cautions.push(crate::caution::Caution::new(
+        crate::caution::Level::Note,
+        "sink-chart-left-out",
+        "The sink chart is left out of this page for room; `trimline check` prints the \
+         glide table.",
+    ));
+    two
+}
+
+/// Still too crowded: the `notes` notes give way (warnings and dangers always stay), with one
+/// line saying where to read them.
+fn without_notes(data: &ReportData, notes: usize) -> ReportData {
+    let mut lean = data.clone();
+    lean.cautions
+        .retain(|c| c.level != crate::caution::Level::Note);
+    lean.cautions.push(crate::caution::Caution::new(
+        crate::caution::Level::Note,
+        "notes-left-out",
+        format!("{notes} notes are left out of this page for room; `trimline check` prints them."),
+    ));
+    lean
+}
+
+/// The charts side by side in `row`: spanwise lift, trim speed and, when there is a glide
+/// polar, sink.
+fn charts_row(c: &mut Canvas, data: &ReportData, row: Frame) {
+    let columns = if data.glide.is_some() { 3.0 } else { 2.0 };
+    let part = (row.w - (columns - 1.0) * GAP) / columns;
+    let frame = |k: f64| Frame {
+        x: row.x + k * (part + GAP),
+        y: row.y,
+        w: part,
+        h: row.h,
+    };
+    charts::spanwise_chart(c, frame(0.0), &data.spanwise);
+    charts::trim_speed_chart(c, frame(1.0), &data.trim_sweep);
+    if let Some(g) = &data.glide {
+        charts::glide_chart(c, frame(2.0), g);
+    }
 }
 
 /// Title, notes, and the input's identity at the right. Returns the y below the rule.

@@ -132,6 +132,8 @@ fn record(t: head::TurbulentState, ue: f64, nu: f64) -> LayerState {
 }
 
 /// Marches the layer over `stations` (see the module documentation).
+// split pending
+#[allow(clippy::too_many_lines)]
 pub fn march_surface(stations: &[Station], settings: &MarchSettings) -> SurfaceLayer {
     let nu = settings.nu;
     let mut states = Vec::with_capacity(stations.len());
