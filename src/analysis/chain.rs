@@ -44,7 +44,13 @@ pub fn analyse_with(
     );
     let full = full_stability_or_caution(system, &input, memo, &mut cautions);
     let headline = headline_of(aircraft, full.as_ref(), &estimate);
-    let derived = derived_figures(aircraft, &basis, full.as_ref(), &headline)?;
+    let derived = derived_figures(
+        aircraft,
+        &basis,
+        full.as_ref(),
+        &headline,
+        2.0 * neutral_point_spread.sigma_m,
+    )?;
     let (glide_polar, flap_polars) = flight_polar_if_asked(
         &input,
         system,
@@ -71,7 +77,6 @@ pub fn analyse_with(
     let cg_spread = uncertainty::cg_spread(&aircraft.masses, &aircraft.tolerances);
     let fin = fin_note(aircraft, &basis.wing.geometry, &mut cautions);
     spread_cautions(
-        aircraft,
         &basis,
         &headline,
         &neutral_point_spread,
@@ -176,16 +181,18 @@ struct Derived {
     glide: Glide,
 }
 
-/// The [`Derived`] figures, or an error when a headline number is not finite.
+/// The [`Derived`] figures (the band's aft end measured from the forward end of the neutral
+/// point's range, `np_spread_m` ahead of it), or an error when a headline number is not finite.
 fn derived_figures(
     aircraft: &Aircraft,
     b: &Basis,
     full: Option<&trim::FullStability>,
     headline: &Headline,
+    np_spread_m: f64,
 ) -> Result<Derived, AnalysisError> {
     let mac = b.wing.geometry.mac_m;
     let np = headline.neutral_point_x_m;
-    let (band, band_empty) = cg_band(aircraft, full, np, mac);
+    let (band, band_empty) = cg_band(aircraft, full, np, np_spread_m, mac);
     let ballast = ballast_advice(aircraft, &b.mass, np, mac);
     let speed_m_s = headline
         .trim
@@ -279,7 +286,6 @@ fn balance_and_model_cautions(
 /// The cautions on the spreads: a CG whose tolerance range reaches past the uncertain aft
 /// limit, and tolerances that spread the CG over more than the mean chord.
 fn spread_cautions(
-    aircraft: &Aircraft,
     b: &Basis,
     headline: &Headline,
     neutral_point_spread: &NeutralPointSpread,
@@ -289,10 +295,8 @@ fn spread_cautions(
 ) {
     let mac = b.wing.geometry.mac_m;
     uncertain_aft_limit_caution(
-        aircraft,
         headline.neutral_point_x_m,
         2.0 * neutral_point_spread.sigma_m,
-        mac,
         (b.mass.cg_x_m, 2.0 * cg_spread.sigma_m),
         (band.forward_x_m, band.aft_x_m),
         cautions,

@@ -208,10 +208,13 @@ pub enum AnalysisError {
 pub struct CgBand {
     /// Forward limit, m aft of the datum (at the largest recommended static margin).
     pub forward_x_m: f64,
-    /// Aft limit, m aft of the datum (at the smallest recommended static margin).
+    /// Aft limit, m aft of the datum: the smallest recommended static margin, measured from
+    /// the forward end of the neutral point's uncertainty range where it has one.
     pub aft_x_m: f64,
     /// What sets the forward limit.
     pub forward_limit: ForwardLimit,
+    /// What sets the aft limit.
+    pub aft_limit: AftLimit,
 }
 
 /// Advice for one ballast bay.
@@ -408,6 +411,18 @@ pub enum ForwardLimit {
     TailStall,
 }
 
+/// What sets the aft end of the recommended CG band.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum AftLimit {
+    /// The smallest recommended static margin on the computed neutral point (no uncertainty
+    /// range is known for it).
+    StaticMargin,
+    /// The smallest recommended static margin measured from the forward end of the neutral
+    /// point's uncertainty range (two standard deviations ahead of the computed point): a CG
+    /// there keeps that margin even if the neutral point lies at the forward end.
+    NeutralPointRange,
+}
+
 /// The section models of an aircraft's airfoils, computed once and reusable for every
 /// configuration that keeps the airfoils (masses, CG, incidences may change).
 #[derive(Debug, Clone, PartialEq)]
@@ -535,6 +550,7 @@ fn cg_band(
     aircraft: &Aircraft,
     full: Option<&trim::FullStability>,
     np_x_m: f64,
+    np_spread_m: f64,
     mac_m: f64,
 ) -> (CgBand, bool) {
     let margin_forward_x_m = np_x_m - aircraft.margin_limits.max_static_margin * mac_m;
@@ -552,7 +568,15 @@ fn cg_band(
         ),
         _ => (margin_forward_x_m, ForwardLimit::StaticMargin),
     };
-    let aft_x_m = np_x_m - aircraft.margin_limits.min_static_margin * mac_m;
+    // The aft end keeps the smallest margin even from the forward end of the neutral
+    // point's uncertainty range: the unsafe side of the estimate is a neutral point further
+    // forward than computed.
+    let (aft_from_x_m, aft_limit) = if np_spread_m.is_finite() && np_spread_m > 0.0 {
+        (np_x_m - np_spread_m, AftLimit::NeutralPointRange)
+    } else {
+        (np_x_m, AftLimit::StaticMargin)
+    };
+    let aft_x_m = aft_from_x_m - aircraft.margin_limits.min_static_margin * mac_m;
     // A control too weak to hold the stall even at the aft limit leaves no usable range: the
     // band closes on its aft end and a danger says so (`cg-band-empty`).
     let band_empty = forward_x_m > aft_x_m;
@@ -560,6 +584,7 @@ fn cg_band(
         forward_x_m: forward_x_m.min(aft_x_m),
         aft_x_m,
         forward_limit,
+        aft_limit,
     };
     (band, band_empty)
 }
@@ -902,10 +927,17 @@ fn cg_outside_band_caution(
             Level::Warning,
             "cg-aft-of-band",
             format!(
-                "The CG is {:.0} mm aft of the recommended band ({:.0} to {:.0} mm from the datum).",
+                "The CG is {:.0} mm aft of the recommended band ({:.0} to {:.0} mm from the datum){}.",
                 (mass.cg_x_m - aft) * 1000.0,
                 fwd * 1000.0,
-                aft * 1000.0
+                aft * 1000.0,
+                match band.aft_limit {
+                    AftLimit::NeutralPointRange => {
+                        ", whose aft end keeps the smallest static margin even if the neutral \
+                         point lies at the forward end of its uncertainty range"
+                    }
+                    AftLimit::StaticMargin => "",
+                }
             ),
         ));
     } else if mass.cg_x_m < fwd - 5e-4 {
@@ -1657,13 +1689,11 @@ pub fn trim_input<'a>(
 }
 
 /// A CG inside the recommended band whose range (`cg`: the CG and two standard deviations of
-/// the builder's tolerances) reaches aft of the aft limit measured from the forward end of the
-/// neutral point's uncertainty range (`spread_m`, two standard deviations).
+/// the builder's tolerances) reaches aft of the band's aft end (which is measured from the
+/// forward end of the neutral point's uncertainty range, `spread_m`, two standard deviations).
 fn uncertain_aft_limit_caution(
-    aircraft: &Aircraft,
     neutral_point_x_m: f64,
     spread_m: f64,
-    mac_m: f64,
     cg: (f64, f64),
     band: (f64, f64),
     cautions: &mut Vec<Caution>,
@@ -1679,25 +1709,16 @@ fn uncertain_aft_limit_caution(
     if spread_m <= 0.0 && cg_spread_m <= 0.0 {
         return;
     }
-    let limit = neutral_point_x_m - spread_m - aircraft.margin_limits.min_static_margin * mac_m;
+    // The band's aft end is the limit (it allows for the neutral point's range already).
+    let limit = band_aft_x_m;
     let cg_aft_end = cg_x_m + cg_spread_m;
     // Inside the band only: forward or aft of it, other cautions speak.
     let inside = cg_x_m >= band_forward_x_m - 5e-4 && cg_x_m <= band_aft_x_m;
     if cg_aft_end > limit && inside {
-        let cg_text = if cg_spread_m > 0.0 {
-            format!(
-                "The CG ({:.0} mm, and up to {:.0} mm with two standard deviations of the \
-                 builder's own mass and position tolerances)",
-                1000.0 * cg_x_m,
-                1000.0 * cg_aft_end
-            )
-        } else {
-            format!("The CG ({:.0} mm)", 1000.0 * cg_x_m)
-        };
         let balance_at = limit - cg_spread_m;
         let advice = if balance_at >= band_forward_x_m {
             format!(
-                "For the first flights balance at {:.0} mm or further forward.",
+                "For the first flights balance at {:.1} mm or further forward.",
                 1000.0 * balance_at
             )
         } else {
@@ -1706,7 +1727,7 @@ fn uncertain_aft_limit_caution(
             format!(
                 "No CG in the recommended band keeps the whole uncertain range ahead of that \
                  limit: weigh the items and measure their positions again to narrow the \
-                 tolerances, and meanwhile balance at the band's forward end ({:.0} mm) and \
+                 tolerances, and meanwhile balance at the band's forward end ({:.1} mm) and \
                  test-glide with care.",
                 1000.0 * band_forward_x_m
             )
@@ -1717,18 +1738,28 @@ fn uncertain_aft_limit_caution(
         } else {
             Level::Warning
         };
+        let limit_text = if spread_m > 0.0 {
+            format!(
+                "the band's aft end, {:.1} mm, which keeps the smallest margin from the forward \
+                 end of the neutral point's uncertainty range ({:.0} mm ahead of the computed \
+                 point: two standard deviations from common-practice spreads of tail \
+                 efficiency, downwash, fuselage and section lift slopes)",
+                1000.0 * limit,
+                1000.0 * spread_m
+            )
+        } else {
+            format!("the band's aft end, {:.1} mm", 1000.0 * limit)
+        };
         cautions.push(Caution::new(
             level,
             "cg-aft-of-uncertain-limit",
             format!(
-                "{cg_text} is inside the recommended band but {:.0} mm aft of {:.0} mm, the \
-                 aft limit measured from the forward end of the neutral point's uncertainty range \
-                 ({:.0} mm ahead of it: two standard deviations from common-practice spreads of \
-                 tail efficiency, downwash, fuselage and section lift slopes). {}",
+                "The CG ({:.1} mm) is inside the recommended band, but with two standard \
+                 deviations of the builder's own mass and position tolerances it may lie as far \
+                 aft as {:.1} mm, {:.1} mm aft of {limit_text}. {advice}",
+                1000.0 * cg_x_m,
+                1000.0 * cg_aft_end,
                 1000.0 * (cg_aft_end - limit),
-                1000.0 * limit,
-                1000.0 * spread_m,
-                advice
             ),
         ));
     }

@@ -2,7 +2,7 @@
 //! aft of the MAC leading edge. Every field is documented in `docs/json.md`.
 
 use crate::analysis::glide::GlidePolar;
-use crate::analysis::{Analysis, ForwardLimit, Method};
+use crate::analysis::{AftLimit, Analysis, ForwardLimit, Method};
 use crate::balance::BallastOutcome;
 use crate::caution::Caution;
 use crate::lifting_line::TrimControl;
@@ -186,6 +186,10 @@ pub struct BandJson {
     pub from_defaults: bool,
     /// What sets the forward limit: `static-margin` or `elevator-authority`.
     pub forward_limit: &'static str,
+    /// What sets the aft end: `static-margin` (the smallest margin on the computed
+    /// neutral point) or `neutral-point-range` (that margin from the forward end of the
+    /// neutral point's uncertainty range).
+    pub aft_limit: &'static str,
     /// Where the CG sits: `forward`, `inside`, `aft`.
     pub cg_position: &'static str,
 }
@@ -832,6 +836,10 @@ fn balance_json(aircraft: &Aircraft, a: &Analysis) -> BalanceJson {
             min_static_margin_percent: r(100.0 * aircraft.margin_limits.min_static_margin, 2),
             max_static_margin_percent: r(100.0 * aircraft.margin_limits.max_static_margin, 2),
             from_defaults: aircraft.margin_limits.from_defaults,
+            aft_limit: match a.band.aft_limit {
+                AftLimit::StaticMargin => "static-margin",
+                AftLimit::NeutralPointRange => "neutral-point-range",
+            },
             forward_limit: match a.band.forward_limit {
                 ForwardLimit::StaticMargin => "static-margin",
                 ForwardLimit::ElevatorAuthority => "elevator-authority",

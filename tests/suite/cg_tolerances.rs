@@ -188,6 +188,13 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
     let mac = first.wing_geometry.mac_m;
     let limit =
         first.headline.neutral_point_x_m - 2.0 * first.neutral_point_spread.sigma_m - 0.05 * mac; // the default smallest static margin with a tail, 5 %
+                                                                                                  // The recommended band's aft end is that limit (the unsafe side of the estimate is a
+                                                                                                  // neutral point further forward than computed), and says so.
+    assert!((first.band.aft_x_m - limit).abs() < 1e-12);
+    assert_eq!(
+        first.band.aft_limit,
+        trimline::analysis::AftLimit::NeutralPointRange
+    );
     let x_mm = (1000.0 * (limit - 0.003)).round();
     let has = |a: &trimline::analysis::Analysis| {
         a.cautions
@@ -207,6 +214,15 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
         .message;
     assert!(msg.contains("tolerances"), "{msg}");
     assert!(msg.contains("or further forward"), "{msg}");
+    // The CG is inside the band and only its tolerance range reaches past the aft end: the
+    // message says which is which, with the positions to 0.1 mm (a CG 0.3 mm ahead of the
+    // limit must not read as the same number as the limit).
+    assert!(
+        msg.contains("is inside the recommended band, but")
+            && msg.contains(&format!("{:.1} mm", 1000.0 * with.band.aft_x_m))
+            && msg.contains(&format!("as far aft as {:.1} mm", x_mm + 10.0)),
+        "{msg}"
+    );
     // Tolerances so large that the advice would leave the band: the caution says no CG in
     // the band is safe enough and sends the builder to the band's forward end, never to a
     // position outside it.
@@ -226,7 +242,7 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
         .level;
     assert_eq!(level_with, trimline::caution::Level::Warning);
     let msg = &caution.message;
-    let fwd = format!("{:.0} mm", 1000.0 * wild.band.forward_x_m);
+    let fwd = format!("{:.1} mm", 1000.0 * wild.band.forward_x_m);
     assert!(
         msg.contains("No CG in the recommended band") && msg.contains(&fwd),
         "{msg}"

@@ -2,7 +2,7 @@
 //! the CG for the target speed.
 
 use super::{num, right_align, table_in};
-use crate::analysis::{Analysis, ForwardLimit, Method};
+use crate::analysis::{AftLimit, Analysis, ForwardLimit, Method};
 use crate::balance::BallastOutcome;
 use crate::model::Aircraft;
 use crate::output::units::UnitSystem;
@@ -14,7 +14,7 @@ pub(super) fn balance_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) ->
     let mut t = table_in(u, &["quantity", "mm from datum", "% MAC", "note"]);
     cg_rows(&mut t, aircraft, a, u);
     neutral_point_rows(&mut t, aircraft, a, u);
-    spread_rows(&mut t, aircraft, a, u);
+    spread_rows(&mut t, a, u);
     band_rows(&mut t, aircraft, a, u);
     ballast_rows(&mut t, a, u);
     target_cg_rows(&mut t, aircraft, a, u);
@@ -95,7 +95,7 @@ fn neutral_point_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitS
 
 /// Rows of the neutral point's uncertainty range, the aft limit against its forward end and
 /// the CG's range from the builder's tolerances.
-fn spread_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitSystem) {
+fn spread_rows(t: &mut Table, a: &Analysis, u: UnitSystem) {
     let g = &a.wing_geometry;
     let h = &a.headline;
     let mm = u.length_unit();
@@ -110,16 +110,6 @@ fn spread_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitSystem) 
             format!(
                 "2 standard deviations ({} {mm}) of the inputs known least well (common-practice spreads)",
                 u.length(spread, 1)
-            ),
-        ]);
-        let aft = fwd_np - aircraft.margin_limits.min_static_margin * g.mac_m;
-        t.add_row(vec![
-            "aft CG limit against that end".to_string(),
-            u.length(aft, 1),
-            pct(aft),
-            format!(
-                "static margin {} % from the forward end of the neutral-point range",
-                num(100.0 * aircraft.margin_limits.min_static_margin, 0)
             ),
         ]);
     }
@@ -177,10 +167,21 @@ fn band_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitSystem) {
         "recommended CG, aft".to_string(),
         u.length(a.band.aft_x_m, 1),
         pct(a.band.aft_x_m),
-        format!(
-            "static margin {} %",
-            num(100.0 * aircraft.margin_limits.min_static_margin, 0)
-        ),
+        match a.band.aft_limit {
+            AftLimit::StaticMargin => format!(
+                "static margin {} %",
+                num(100.0 * aircraft.margin_limits.min_static_margin, 0)
+            ),
+            AftLimit::NeutralPointRange => format!(
+                "static margin {} % from the forward end of the neutral-point range ({} % on \
+                 the computed neutral point)",
+                num(100.0 * aircraft.margin_limits.min_static_margin, 0),
+                num(
+                    100.0 * (a.headline.neutral_point_x_m - a.band.aft_x_m) / g.mac_m,
+                    1
+                )
+            ),
+        },
     ]);
     t.add_row(vec![
         "MAC leading edge".to_string(),
