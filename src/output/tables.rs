@@ -536,7 +536,9 @@ fn best_setting_table(
 
 /// What to say after a speed to fly that lies on an end of the speeds flown.
 fn end_note(s: &crate::performance::flight_polar::SpeedToFly) -> &'static str {
-    if s.at_control_limit {
+    if s.at_control_limit && s.on_slow_end {
+        " (the slowest the control trims)"
+    } else if s.at_control_limit {
         " (the fastest the control trims)"
     } else if s.at_top_speed {
         " (top speed)"

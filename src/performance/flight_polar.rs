@@ -153,6 +153,9 @@ pub struct Optimum<T> {
     /// True when it lies where the control runs out (the end of the trimmable speeds, which
     /// is not an end of the range).
     pub at_control_limit: bool,
+    /// True when it lies on the slow end of the trimmable speeds (the stall, or where the
+    /// control runs out at the slow end).
+    pub on_slow_end: bool,
 }
 
 /// The speed to fly through air sinking at a given rate.
@@ -170,6 +173,8 @@ pub struct SpeedToFly {
     pub at_top_speed: bool,
     /// True when the best speed is where the control runs out.
     pub at_control_limit: bool,
+    /// True when the best speed is the slow end of the trimmable speeds.
+    pub on_slow_end: bool,
     /// Mean cross-country speed when each glide is followed by a climb at `climb_m_s`,
     /// `V_h m / (m + w + s)`, m/s (0 when no climb is expected).
     pub cross_country_speed_m_s: f64,
@@ -336,6 +341,7 @@ fn optimum<D: DragSource>(
         at_stall,
         at_top_speed,
         at_control_limit: (on_slow_end && !at_stall) || (on_fast_end && !at_top_speed),
+        on_slow_end,
     })
 }
 
@@ -410,6 +416,7 @@ impl<T: Clone> FlightPolar<T> {
             glide_ratio_in_air: p.horizontal_speed_m_s() / (p.sink_m_s + air_sink_m_s),
             at_top_speed: o.at_top_speed,
             at_control_limit: o.at_control_limit,
+            on_slow_end: o.on_slow_end,
             cross_country_speed_m_s: if climb_m_s > 0.0 {
                 p.horizontal_speed_m_s() * climb_m_s / (climb_m_s + p.sink_m_s + air_sink_m_s)
             } else {

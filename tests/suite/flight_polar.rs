@@ -389,3 +389,53 @@ fn an_elevator_without_throw_trims_one_speed_only() {
     assert_relative_eq!(flyable[0].cl, trim.cl, max_relative = 1e-9);
     assert_relative_eq!(p.min_sink.point.cl, trim.cl, max_relative = 1e-9);
 }
+
+/// The parabolic polar with the control running out beyond a lift coefficient: flyable only
+/// between `cl_low` and `cl_high`.
+struct Limited {
+    inner: Parabolic,
+    cl_low: f64,
+    cl_high: f64,
+}
+
+impl DragSource for Limited {
+    type Trim = f64;
+    fn trim(&self, cl: f64) -> Option<f64> {
+        Some(cl)
+    }
+    fn drag(&self, cl: &f64, speed_m_s: f64) -> Drag {
+        self.inner.drag(cl, speed_m_s)
+    }
+    fn flyable(&self, cl: &f64) -> bool {
+        (self.cl_low..=self.cl_high).contains(cl)
+    }
+}
+
+// Which end of the trimmable speeds an optimum sits on, when the control runs out: the
+// parabolic polar's best glide lies at CL sqrt(CD0 / k) = 0.73 (Anderson, Introduction to
+// Flight, ch. 6); a control that trims only CL 0.2-0.5 (it cannot fly slower) puts the best
+// glide on the slow end of what it trims, one that trims only CL 1.0 and above on the fast
+// end. The table words them "the slowest" and "the fastest the control trims".
+#[test]
+fn an_optimum_where_the_control_runs_out_says_which_end() {
+    let inner = || Parabolic {
+        cd0: 0.015,
+        k: 1.0 / (std::f64::consts::PI * 12.0 * 0.95),
+    };
+    for (cl_low, cl_high, slow) in [(0.2, 0.5, true), (1.0, 2.0, false)] {
+        let src = Limited {
+            inner: inner(),
+            cl_low,
+            cl_high,
+        };
+        let p = flight_polar(&src, &conditions(1.5)).unwrap();
+        let s = p.speed_to_fly(&src, 0.0, 0.0).unwrap();
+        assert!(s.at_control_limit, "{cl_low}-{cl_high}: {s:?}");
+        assert_eq!(s.on_slow_end, slow, "{cl_low}-{cl_high}: {s:?}");
+        // On the last trimmable grid point (40 speeds: a step of a few hundredths in CL).
+        let cl = if slow { cl_high } else { cl_low };
+        let bg = &p.best_glide.point;
+        assert!((bg.cl - cl).abs() < 0.06, "best glide at CL {}", bg.cl);
+        assert!((cl_low..=cl_high).contains(&bg.cl));
+    }
+}
