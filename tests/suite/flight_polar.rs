@@ -432,10 +432,10 @@ fn an_optimum_where_the_control_runs_out_says_which_end() {
         let s = p.speed_to_fly(&src, 0.0, 0.0).unwrap();
         assert!(s.at_control_limit, "{cl_low}-{cl_high}: {s:?}");
         assert_eq!(s.on_slow_end, slow, "{cl_low}-{cl_high}: {s:?}");
-        // On the last trimmable grid point (40 speeds: a step of a few hundredths in CL).
+        // On the last trimmable grid point (40 speeds: within 10 % in CL).
         let cl = if slow { cl_high } else { cl_low };
         let bg = &p.best_glide.point;
-        assert!((bg.cl - cl).abs() < 0.06, "best glide at CL {}", bg.cl);
+        assert!((bg.cl / cl - 1.0).abs() < 0.1, "best glide at CL {}", bg.cl);
         assert!((cl_low..=cl_high).contains(&bg.cl));
     }
 }
