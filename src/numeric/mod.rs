@@ -1,0 +1,6 @@
+//! Small numerical methods shared by the models, pure and free of physics: each file one
+//! published method with its source.
+//!
+//! - [`brent`]: Brent's bracketing root finder for a continuous function of one variable.
+
+pub mod brent;
