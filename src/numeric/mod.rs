@@ -2,5 +2,7 @@
 //! published method with its source.
 //!
 //! - [`brent`]: Brent's bracketing root finder for a continuous function of one variable.
+//! - [`lu`]: LU factorisation with partial pivoting in buffers the caller keeps.
 
 pub mod brent;
+pub mod lu;

@@ -47,7 +47,7 @@
 
 use crate::lifting_line::{
     ElevatorEffect, FlightCondition, LiftingLineError, LiftingLineOptions, LiftingLineResult,
-    MultiSurfaceSystem, Reference, StationResult, SurfaceInput, TrimControl, TrimPoint,
+    MultiSurfaceSystem, NewtonWork, Reference, StationResult, SurfaceInput, TrimControl, TrimPoint,
 };
 use crate::model::{Aircraft, PitchControl, StabiliserRole};
 use crate::numeric::brent;
@@ -1043,7 +1043,8 @@ impl TrimmedPath<'_> {
 /// by the elevator about `x_ref`): a station of any surface at its cl_max, or, when
 /// `count_negative`, a stabiliser station at its cl_min; with the full solution there. Only
 /// positive trimmed lift is searched, which is the flight range (a scan over the angle of
-/// attack would also meet limits at negative lift that are never flown).
+/// attack would also meet limits at negative lift that are never flown). `work` holds the
+/// full solve's Newton buffers.
 fn first_trimmed_limit(
     system: &MultiSurfaceSystem,
     map: Option<&StationMap>,
@@ -1051,6 +1052,7 @@ fn first_trimmed_limit(
     x_ref: f64,
     z: f64,
     count_negative: bool,
+    work: &mut NewtonWork,
 ) -> Result<Option<TrimmedLimit>, LiftingLineError> {
     let path = TrimmedPath {
         system,
@@ -1065,7 +1067,7 @@ fn first_trimmed_limit(
     };
     let (station, negative) = found.limit;
     Ok(Some(TrimmedLimit {
-        result: system.solve(&path.condition(&found.point))?,
+        result: system.solve_with(&path.condition(&found.point), work)?,
         point: found.point,
         station,
         negative,
@@ -1085,11 +1087,13 @@ fn stall_at(
     let control = input.aircraft.pitch_control();
     let real = |model_rad: f64| control.map_or(model_rad, |p| real_deflection_rad(p, model_rad));
     let speed = |cl: f64| speed_at(input.mass_kg, input.density_kg_m3, area, cl);
+    // One set of Newton buffers for every full solve of this stall search.
+    let mut work = NewtonWork::default();
     // Trimmed with the elevator (or elevons) where there is one; where no trimmed stall
     // exists within the flight range (an unstable or badly rigged aircraft), the stall with
     // the elevator neutral is shown instead.
     let trimmed = if trimmed_by_elevator {
-        first_trimmed_limit(system, map, base, x_ref, z, true)?
+        first_trimmed_limit(system, map, base, x_ref, z, true, &mut work)?
     } else {
         None
     };
@@ -1097,7 +1101,7 @@ fn stall_at(
         let st = &system.stations()[t.station];
         let limit = if t.negative {
             // The positive stall it pre-empts, for the caution.
-            let otherwise = first_trimmed_limit(system, map, base, x_ref, z, false)?;
+            let otherwise = first_trimmed_limit(system, map, base, x_ref, z, false, &mut work)?;
             let cl = otherwise.map_or(f64::NAN, |o| o.result.cl);
             StallLimit::StabiliserClMin {
                 cl_max_otherwise: cl,
@@ -1124,7 +1128,7 @@ fn stall_at(
     };
     let mut cond = base.clone();
     cond.alpha_rad = alpha;
-    let result = system.solve(&cond)?;
+    let result = system.solve_with(&cond, &mut work)?;
     if result.cl <= 0.0 {
         return Ok(None);
     }
@@ -1594,7 +1598,9 @@ mod tests {
                 (a, b) => assert_eq!(a.is_some(), b.is_some(), "{name}"),
             }
             let old_test = |x: f64| -> Result<(), ForwardLimitCause> {
-                match first_trimmed_limit(system, map, &base, x + ex.shift_m, ex.z, true) {
+                let mut work = NewtonWork::default();
+                match first_trimmed_limit(system, map, &base, x + ex.shift_m, ex.z, true, &mut work)
+                {
                     Ok(Some(t)) if t.negative => Err(ForwardLimitCause::StabiliserClMin),
                     Ok(Some(t)) if t.point.control_rad >= full_up => Ok(()),
                     _ => Err(ForwardLimitCause::ControlAuthority),
