@@ -428,10 +428,12 @@ type ForwardLimit = (Option<f64>, ForwardLimitCause);
 /// Forward CG limits already found on one system, remembered by what they depend on: the
 /// CG height (the moment reference's z), the control's full-up throw and the fuselage term.
 /// The limit does not depend on the CG's x or on the mass (the trimmed stall is solved in
-/// coefficients), so a study over CG positions and masses finds it once per system.
+/// coefficients), so a study over CG positions and masses finds it once per system. The
+/// system's linear station map (three solves, the same for every CG and mass) is kept too.
 #[derive(Debug, Default)]
 pub struct ForwardLimitMemo {
     found: std::sync::Mutex<Vec<([u64; 3], ForwardLimit)>>,
+    map: std::sync::OnceLock<Result<Option<StationMap>, LiftingLineError>>,
 }
 
 impl ForwardLimitMemo {
@@ -451,6 +453,17 @@ impl ForwardLimitMemo {
             found.push((key, v));
         }
         v
+    }
+
+    /// The station map of the system, made by `make` the first time.
+    fn station_map(
+        &self,
+        make: impl FnOnce() -> Result<Option<StationMap>, LiftingLineError>,
+    ) -> Result<Option<&StationMap>, LiftingLineError> {
+        match self.map.get_or_init(make) {
+            Ok(map) => Ok(map.as_ref()),
+            Err(e) => Err(e.clone()),
+        }
     }
 }
 
@@ -483,10 +496,17 @@ pub fn full_stability_on(
     let trim = trim_at_cg(system, input, &base, eff(input.cg_x_m), static_margin)?;
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
-    let map = StationMap::of(system, &base)?;
+    let own_map;
+    let map = match memo {
+        Some(m) => m.station_map(|| StationMap::of(system, &base))?,
+        None => {
+            own_map = StationMap::of(system, &base)?;
+            own_map.as_ref()
+        }
+    };
     let stall = stall_at(
         system,
-        map.as_ref(),
+        map,
         &base,
         pitch_control.is_some(),
         eff(input.cg_x_m),
@@ -498,7 +518,7 @@ pub fn full_stability_on(
     // works on the surface that must stall first.
     let (elevator_forward_limit_x_m, forward_limit_cause) = forward_limit(
         system,
-        map.as_ref(),
+        map,
         &base,
         input,
         memo,
@@ -532,6 +552,7 @@ pub fn full_stability_on(
     let elevator_schedule = match (pitch_control, stall_speed, stable) {
         (Some(control), Some(vs), true) => elevator_schedule(
             system,
+            map,
             &base,
             input,
             control,
@@ -710,8 +731,10 @@ fn target_speed_solves(
 
 /// The elevator schedule of a stable aircraft from `SCHEDULE_LOW_SPEED_FACTOR` times the stall
 /// speed `stall_speed_m_s` to `top_speed_m_s`, trimmed at the CG (`cg_eff_x_m`).
+#[allow(clippy::too_many_arguments)]
 fn elevator_schedule(
     system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
     base: &FlightCondition,
     input: &TrimInput<'_>,
     control: &PitchControl,
@@ -730,8 +753,8 @@ fn elevator_schedule(
             let cl = cl_at(input.mass_kg, input.density_kg_m3, area, v);
             if let Ok(tp) = system.trim_for_cl(base, TrimControl::Elevator, cl, cg_eff_x_m, z) {
                 let d = real_deflection_rad(control, tp.control_rad);
-                let stalled =
-                    stabiliser_at_cl_min(system, base, &tp, TrimControl::Elevator)?.is_some();
+                let stalled = !map.is_some_and(|m| m.clearly_inside_limits(system, &tp))
+                    && stabiliser_at_cl_min(system, base, &tp, TrimControl::Elevator)?.is_some();
                 elevator_schedule.push(ElevatorPoint {
                     speed_m_s: v,
                     cl,
@@ -768,6 +791,7 @@ const TRIM_PATH_CL_TOP: f64 = 4.0;
 /// control, `cl_i = c0_i + ca_i alpha + cd_i delta` (exact below the stall limits: the
 /// lifting-line equations are linear there), found from three solves; lets the trimmed path
 /// be searched without a full solve at every step.
+#[derive(Debug)]
 struct StationMap {
     c0: Vec<f64>,
     ca: Vec<f64>,
@@ -812,6 +836,25 @@ impl StationMap {
             .map(|(c, (a, d))| c - a * alpha0 - d * delta0)
             .collect();
         Ok(Some(StationMap { c0, ca, cd }))
+    }
+}
+
+/// Margin in cl by which every station's cl from the linear map must lie inside its limits
+/// for a trimmed state to be taken as inside them without a full solve: the map gives the
+/// linear solution to round-off (about 1e-14 over the flight range), so with 1e-6 the full
+/// solve would be linear and find no station at a limit (the same answer, without it).
+const MAP_CLEAR_MARGIN: f64 = 1e-6;
+
+impl StationMap {
+    /// True when every station's cl in the elevator-trimmed state `tp` lies inside its cl_min
+    /// and cl_max by [`MAP_CLEAR_MARGIN`] on linear lift curves (no viscous polar).
+    fn clearly_inside_limits(&self, system: &MultiSurfaceSystem, tp: &TrimPoint) -> bool {
+        system.stations().iter().enumerate().all(|(i, st)| {
+            let cl = self.c0[i] + self.ca[i] * tp.alpha_rad + self.cd[i] * tp.control_rad;
+            st.section.polar.is_none()
+                && cl < st.section.cl_max - MAP_CLEAR_MARGIN
+                && cl > st.section.cl_min + MAP_CLEAR_MARGIN
+        })
     }
 }
 
@@ -1529,6 +1572,10 @@ mod tests {
     /// map, the full model's figures, the CG height and the fuselage shift.
     struct Example {
         aircraft: Aircraft,
+        sections: Vec<SectionModel>,
+        mass_kg: f64,
+        density_kg_m3: f64,
+        options: LiftingLineOptions,
         system: MultiSurfaceSystem,
         map: Option<StationMap>,
         full: FullStability,
@@ -1553,6 +1600,10 @@ mod tests {
         Example {
             shift_m: full.neutral_point_surfaces_x_m - full.neutral_point_x_m,
             cg_x_m: analysis.mass.cg_x_m,
+            sections: set.models.clone(),
+            mass_kg: analysis.mass.total_kg,
+            density_kg_m3: analysis.air.density_kg_m3,
+            options: ll,
             aircraft,
             system,
             map,
@@ -1734,5 +1785,64 @@ mod tests {
                 }
             }
         }
+    }
+
+    // The station map kept by the memo, and the elevator schedule's shortcut (no full solve
+    // where the map puts every station clearly inside its limits), change no figure: the full
+    // model with a memo (the second call reading it) equals the one without, and the schedule
+    // equals the one from a full solve at every point. No outside source: a law of the
+    // refactoring, checked on the example aircraft at their CG and 0.1 MAC further forward.
+    #[test]
+    fn kept_map_and_schedule_shortcut_change_no_figure() {
+        let mut schedule_points = 0;
+        for (name, text) in EXAMPLES {
+            let ex = example(text);
+            let mac = ex.system.reference().mac_m;
+            let memo = ForwardLimitMemo::default();
+            for dx in [0.0, -0.1 * mac] {
+                let input = TrimInput {
+                    aircraft: &ex.aircraft,
+                    sections: &ex.sections,
+                    mass_kg: ex.mass_kg,
+                    cg_x_m: ex.cg_x_m + dx,
+                    cg_z_m: ex.z,
+                    density_kg_m3: ex.density_kg_m3,
+                    fuselage_cm_alpha_per_rad: ex.shift_m * ex.full.cl_alpha_per_rad / mac,
+                    options: ex.options,
+                    target_speed_m_s: ex.aircraft.targets.trim_speed_m_s,
+                    top_speed_m_s: ex.aircraft.targets.top_speed_m_s,
+                };
+                let plain = full_stability_on(&ex.system, &input, None).unwrap();
+                for _ in 0..2 {
+                    let kept = full_stability_on(&ex.system, &input, Some(&memo)).unwrap();
+                    assert_eq!(kept, plain, "{name}");
+                }
+                let (Some(control), Some(stall)) = (ex.aircraft.pitch_control(), &plain.stall)
+                else {
+                    continue;
+                };
+                let base = ex.system.condition(0.0);
+                let schedule = |map: Option<&StationMap>| {
+                    elevator_schedule(
+                        &ex.system,
+                        map,
+                        &base,
+                        &input,
+                        control,
+                        stall.speed_m_s,
+                        plain.top_speed_m_s,
+                        input.cg_x_m + ex.shift_m,
+                    )
+                    .unwrap()
+                };
+                let (fast, full_solves) = (schedule(ex.map.as_ref()), schedule(None));
+                assert_eq!(fast, full_solves, "{name}");
+                schedule_points += fast.len();
+            }
+        }
+        assert!(
+            schedule_points >= 16,
+            "{schedule_points} schedule points compared"
+        );
     }
 }
