@@ -1178,11 +1178,11 @@ fn system_matrix_into(
 ) {
     let n = induced.nrows();
     out.fill_with_identity();
-    for i in 0..n {
-        if active[i] {
-            let di = d[i];
-            for j in 0..n {
-                out[(i, j)] -= di * induced[(i, j)];
+    // Column by column (the storage order); each entry is computed as before.
+    for j in 0..n {
+        for i in 0..n {
+            if active[i] {
+                out[(i, j)] -= d[i] * induced[(i, j)];
             }
         }
     }

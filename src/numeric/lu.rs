@@ -43,34 +43,38 @@ impl LuWork {
             self.lu = m.clone();
         }
         self.swaps.clear();
-        let lu = &mut self.lu;
+        let rows = self.lu.nrows();
+        let cols = self.lu.ncols();
         for i in 0..n {
+            // Column-major storage: column c is data[c * rows..(c + 1) * rows].
+            let data = self.lu.as_mut_slice();
             let mut piv = i;
-            let mut largest = lu[(i, i)].abs();
-            for r in i + 1..lu.nrows() {
-                let v = lu[(r, i)].abs();
-                if v > largest {
-                    largest = v;
-                    piv = r;
+            let mut largest = data[i * rows + i].abs();
+            for (r, v) in data[i * rows + i + 1..(i + 1) * rows].iter().enumerate() {
+                if v.abs() > largest {
+                    largest = v.abs();
+                    piv = i + 1 + r;
                 }
             }
-            let diag = lu[(piv, i)];
+            let diag = data[i * rows + piv];
             if diag == 0.0 {
                 continue;
             }
             if piv != i {
                 self.swaps.push((i, piv));
-                lu.swap_rows(i, piv);
+                self.lu.swap_rows(i, piv);
             }
+            let data = self.lu.as_mut_slice();
             let inv_diag = 1.0 / diag;
-            for r in i + 1..lu.nrows() {
-                lu[(r, i)] *= inv_diag;
+            for l in &mut data[i * rows + i + 1..(i + 1) * rows] {
+                *l *= inv_diag;
             }
-            for c in i + 1..lu.ncols() {
-                let p = lu[(i, c)];
-                for r in i + 1..lu.nrows() {
-                    let l = lu[(r, i)];
-                    lu[(r, c)] += -p * l;
+            let (head, tail) = data.split_at_mut((i + 1) * rows);
+            let multipliers = &head[i * rows + i + 1..];
+            for column in tail.chunks_exact_mut(rows).take(cols - i - 1) {
+                let p = column[i];
+                for (y, l) in column[i + 1..].iter_mut().zip(multipliers) {
+                    *y += -p * l;
                 }
             }
         }
@@ -93,21 +97,25 @@ impl LuWork {
         for &(i, j) in &self.swaps {
             b.swap_rows(i, j);
         }
+        let data = lu.as_slice();
+        let x = b.as_mut_slice();
         for i in 0..n.saturating_sub(1) {
-            let coeff = b[i];
-            for r in i + 1..n {
-                b[r] += -coeff * lu[(r, i)];
+            let coeff = x[i];
+            let below = &data[i * n + i + 1..(i + 1) * n];
+            for (y, l) in x[i + 1..].iter_mut().zip(below) {
+                *y += -coeff * l;
             }
         }
         for i in (0..n).rev() {
-            let diag = lu[(i, i)];
+            let diag = data[i * n + i];
             if diag == 0.0 {
                 return false;
             }
-            let coeff = b[i] / diag;
-            b[i] = coeff;
-            for r in 0..i {
-                b[r] += -coeff * lu[(r, i)];
+            let coeff = x[i] / diag;
+            x[i] = coeff;
+            let above = &data[i * n..i * n + i];
+            for (y, u) in x[..i].iter_mut().zip(above) {
+                *y += -coeff * u;
             }
         }
         true
