@@ -17,6 +17,7 @@ pub mod caution;
 pub mod input;
 pub mod lifting_line;
 pub mod model;
+pub mod numeric;
 pub mod output;
 pub mod performance;
 pub mod planform;

@@ -433,14 +433,23 @@ pub(crate) fn check_residual(
     residual_within_tolerance(finite, || (m * x - rhs).amax(), rhs.amax())
 }
 
-/// Residual check for a single right-hand side.
-pub(crate) fn check_vector_residual(
+/// Residual check for a single right-hand side, with the product m x written into `product`
+/// (sized like `x`) so that nothing is allocated.
+pub(crate) fn check_vector_residual_into(
     m: &DMatrix<f64>,
     x: &DVector<f64>,
     rhs: &DVector<f64>,
+    product: &mut DVector<f64>,
 ) -> Result<(), LiftingLineError> {
     let finite = x.iter().all(|v| v.is_finite());
-    residual_within_tolerance(finite, || (m * x - rhs).amax(), rhs.amax())
+    let residual_amax = || {
+        m.mul_to(x, product);
+        product
+            .iter()
+            .zip(rhs.iter())
+            .fold(0.0_f64, |acc, (p, r)| acc.max((p - r).abs()))
+    };
+    residual_within_tolerance(finite, residual_amax, rhs.amax())
 }
 
 /// The shared test of a linear solve: a finite solution whose largest residual, relative to

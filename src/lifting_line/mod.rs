@@ -35,7 +35,7 @@ pub mod vortex;
 pub use classical::{ClassicalSolution, ClassicalStation, ClassicalWing};
 pub use error::LiftingLineError;
 pub use multi_surface::{
-    ElevatorEffect, FlightCondition, LiftingLineOptions, MultiSurfaceSystem, Reference,
+    ElevatorEffect, FlightCondition, LiftingLineOptions, MultiSurfaceSystem, NewtonWork, Reference,
     SolveStatus, Station, SurfaceInput, WingModel, DEFAULT_CHORDWISE_PANELS,
     DEFAULT_STRIPS_PER_HALF_SPAN,
 };

@@ -87,7 +87,7 @@ use std::ops::Range;
 
 use nalgebra::{DMatrix, DVector};
 
-use super::classical::{check_pivots, check_residual, check_vector_residual};
+use super::classical::{check_pivots, check_residual, check_vector_residual_into};
 use super::lattice;
 use super::results::{self, LiftingLineResult};
 use super::vortex::{
@@ -96,6 +96,7 @@ use super::vortex::{
 use super::LiftingLineError;
 use crate::model::{Aircraft, Surface, SurfaceShape};
 pub use crate::model::{WingModel, DEFAULT_CHORDWISE_PANELS, DEFAULT_STRIPS_PER_HALF_SPAN};
+use crate::numeric::lu::LuWork;
 use crate::planform::{self, break_points_m, half_span_length_m, station_at};
 use crate::section::SectionModel;
 
@@ -754,6 +755,16 @@ impl MultiSurfaceSystem {
     /// Solve at `cond`: the superposed linear solution when every station is inside its cl
     /// limits, Newton's method on the flat-top section model otherwise.
     pub fn solve(&self, cond: &FlightCondition) -> Result<LiftingLineResult, LiftingLineError> {
+        self.solve_with(cond, &mut NewtonWork::default())
+    }
+
+    /// [`Self::solve`] with Newton's work buffers given, for a caller that solves many states
+    /// (the same result; the buffers are sized on first use and then reused).
+    pub fn solve_with(
+        &self,
+        cond: &FlightCondition,
+        work: &mut NewtonWork,
+    ) -> Result<LiftingLineResult, LiftingLineError> {
         let q = self.weights(cond)?;
         let (gamma, tangent) = self.linear_circulation(&q);
         let (geo, zero) = self.station_angles(cond);
@@ -764,7 +775,7 @@ impl MultiSurfaceSystem {
             cl > st.section.cl_max || cl < st.section.cl_min || st.section.polar.is_some()
         });
         let (gamma, tangent, status) = if beyond {
-            self.newton(gamma, &geo, &zero)?
+            self.newton(gamma, &geo, &zero, work)?
         } else {
             (gamma, tangent, SolveStatus::Linear)
         };
@@ -773,33 +784,33 @@ impl MultiSurfaceSystem {
 
     /// Newton's method on R(Gamma) = Gamma - (c/2) cl(alpha(Gamma)) with each station's lift
     /// curve ([`SectionModel::lift_point`]: the flat-top linear curve, or a viscous polar's).
+    /// Every iteration works in the buffers of `work` (sized on first use), so the iterations
+    /// and their backtracking allocate nothing.
     fn newton(
         &self,
         mut gamma: DVector<f64>,
         geo: &DVector<f64>,
         zero: &DVector<f64>,
+        work: &mut NewtonWork,
     ) -> Result<(DVector<f64>, DVector<f64>, SolveStatus), LiftingLineError> {
         let n = self.stations.len();
-        // Residual, which rows are on the attached part of their lift curve, and each row's
-        // (c/2) dcl/dalpha there (the Jacobian's diagonal factor).
-        let eval = |g: &DVector<f64>| -> (DVector<f64>, Vec<bool>, DVector<f64>) {
-            let alpha = geo + &self.induced * g;
-            let mut r = DVector::zeros(n);
-            let mut active = vec![true; n];
-            let mut d = DVector::zeros(n);
-            for (i, st) in self.stations.iter().enumerate() {
-                let shift = zero[i] - st.section.alpha_zero_lift_rad;
-                let lp = st.section.lift_point(alpha[i], shift);
-                active[i] = lp.attached;
-                d[i] = 0.5 * st.chord_m * lp.slope_per_rad;
-                r[i] = g[i] - 0.5 * st.chord_m * lp.cl;
-            }
-            (r, active, d)
-        };
+        work.size_for(n);
+        let NewtonWork {
+            alpha,
+            now,
+            trial_eval,
+            trial,
+            jacobian,
+            lu,
+            step,
+            rhs,
+            product,
+            pivots,
+        } = work;
         let scale = gamma.amax().max(1e-9);
         let tol = self.options.newton_relative_tolerance * scale;
-        let (mut r, mut active, mut d_full) = eval(&gamma);
-        let mut res = r.amax();
+        self.newton_eval(&gamma, geo, zero, alpha, now);
+        let mut res = now.r.amax();
         let mut iterations = 0;
         while res > tol {
             if iterations >= self.options.max_newton_iterations {
@@ -809,25 +820,26 @@ impl MultiSurfaceSystem {
                 });
             }
             iterations += 1;
-            let j = system_matrix(&self.induced, &d_full, &active);
-            let lu = j.clone().lu();
-            check_pivots(lu.u().diagonal().as_slice())?;
-            let rhs = -&r;
-            let step = lu
-                .solve(&rhs)
-                .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
-            check_vector_residual(&j, &step, &rhs)?;
+            system_matrix_into(&self.induced, &now.d, &now.active, jacobian);
+            lu.factor(jacobian);
+            pivots.clear();
+            pivots.extend(lu.pivots());
+            check_pivots(pivots)?;
+            rhs.zip_apply(&now.r, |b, r| *b = -r);
+            step.copy_from(rhs);
+            if !lu.solve_in_place(step) {
+                return Err(LiftingLineError::SingularSystem { pivot_ratio: 0.0 });
+            }
+            check_vector_residual_into(jacobian, step, rhs, product)?;
             // Backtracking: the residual is piecewise linear, a full step is normally exact.
             let mut lambda = 1.0;
             loop {
-                let trial = &gamma + &step * lambda;
-                let (r_t, a_t, d_t) = eval(&trial);
-                let res_t = r_t.amax();
+                trial.zip_zip_apply(&gamma, step, |t, g, s| *t = g + s * lambda);
+                self.newton_eval(trial, geo, zero, alpha, trial_eval);
+                let res_t = trial_eval.r.amax();
                 if res_t < res || lambda < 1e-3 {
-                    gamma = trial;
-                    r = r_t;
-                    active = a_t;
-                    d_full = d_t;
+                    std::mem::swap(&mut gamma, trial);
+                    std::mem::swap(now, trial_eval);
                     res = res_t;
                     break;
                 }
@@ -840,21 +852,23 @@ impl MultiSurfaceSystem {
             }
         }
         // Tangent d Gamma / d alpha at the solution: J t = d n_z on active rows.
-        let j = system_matrix(&self.induced, &d_full, &active);
-        let rhs = DVector::from_iterator(
-            n,
-            self.stations
-                .iter()
-                .zip(&active)
-                .zip(d_full.iter())
-                .map(|((s, a), d)| if *a { d * s.normal_z } else { 0.0 }),
-        );
-        let lu = j.clone().lu();
-        check_pivots(lu.u().diagonal().as_slice())?;
-        let tangent = lu
-            .solve(&rhs)
-            .ok_or(LiftingLineError::SingularSystem { pivot_ratio: 0.0 })?;
-        check_vector_residual(&j, &tangent, &rhs)?;
+        system_matrix_into(&self.induced, &now.d, &now.active, jacobian);
+        for (i, s) in self.stations.iter().enumerate() {
+            rhs[i] = if now.active[i] {
+                now.d[i] * s.normal_z
+            } else {
+                0.0
+            };
+        }
+        lu.factor(jacobian);
+        pivots.clear();
+        pivots.extend(lu.pivots());
+        check_pivots(pivots)?;
+        let mut tangent = rhs.clone();
+        if !lu.solve_in_place(&mut tangent) {
+            return Err(LiftingLineError::SingularSystem { pivot_ratio: 0.0 });
+        }
+        check_vector_residual_into(jacobian, &tangent, rhs, product)?;
         Ok((
             gamma,
             tangent,
@@ -863,6 +877,81 @@ impl MultiSurfaceSystem {
                 residual_m: res,
             },
         ))
+    }
+
+    /// Newton's residual at circulations `g`: the section angles (into `alpha`), and into
+    /// `out` the residual, which rows are on the attached part of their lift curve, and each
+    /// row's (c/2) dcl/dalpha there (the Jacobian's diagonal factor).
+    fn newton_eval(
+        &self,
+        g: &DVector<f64>,
+        geo: &DVector<f64>,
+        zero: &DVector<f64>,
+        alpha: &mut DVector<f64>,
+        out: &mut NewtonRows,
+    ) {
+        self.induced.mul_to(g, alpha);
+        *alpha += geo;
+        for (i, st) in self.stations.iter().enumerate() {
+            let shift = zero[i] - st.section.alpha_zero_lift_rad;
+            let lp = st.section.lift_point(alpha[i], shift);
+            out.active[i] = lp.attached;
+            out.d[i] = 0.5 * st.chord_m * lp.slope_per_rad;
+            out.r[i] = g[i] - 0.5 * st.chord_m * lp.cl;
+        }
+    }
+}
+
+/// Newton's residual rows at one set of circulations.
+#[derive(Debug, Clone, Default)]
+struct NewtonRows {
+    /// Residual Gamma - (c/2) cl, m.
+    r: DVector<f64>,
+    /// True on rows on the attached part of their lift curve.
+    active: Vec<bool>,
+    /// (c/2) dcl/dalpha, m per rad.
+    d: DVector<f64>,
+}
+
+/// Work buffers of Newton's method on the stalled system (see [`MultiSurfaceSystem::solve_with`]):
+/// made once, reused by every iteration and every solve given them.
+#[derive(Debug, Clone, Default)]
+pub struct NewtonWork {
+    alpha: DVector<f64>,
+    now: NewtonRows,
+    trial_eval: NewtonRows,
+    trial: DVector<f64>,
+    jacobian: DMatrix<f64>,
+    lu: LuWork,
+    step: DVector<f64>,
+    rhs: DVector<f64>,
+    product: DVector<f64>,
+    pivots: Vec<f64>,
+}
+
+impl NewtonWork {
+    /// Size every buffer for `n` stations (nothing is allocated when they already are).
+    fn size_for(&mut self, n: usize) {
+        if self.alpha.len() == n && self.jacobian.nrows() == n {
+            return;
+        }
+        let rows = || NewtonRows {
+            r: DVector::zeros(n),
+            active: vec![true; n],
+            d: DVector::zeros(n),
+        };
+        *self = NewtonWork {
+            alpha: DVector::zeros(n),
+            now: rows(),
+            trial_eval: rows(),
+            trial: DVector::zeros(n),
+            jacobian: DMatrix::zeros(n, n),
+            lu: LuWork::new(n),
+            step: DVector::zeros(n),
+            rhs: DVector::zeros(n),
+            product: DVector::zeros(n),
+            pivots: Vec::with_capacity(n),
+        };
     }
 }
 
@@ -1079,18 +1168,31 @@ fn trailing_nodes(stations: &[Station], surfaces: &[SurfaceInfo]) -> Vec<Trailin
     nodes
 }
 
-/// J = I - diag(d_active) A, with d zero on inactive (stalled) rows.
-fn system_matrix(induced: &DMatrix<f64>, d: &DVector<f64>, active: &[bool]) -> DMatrix<f64> {
+/// J = I - diag(d_active) A, with d zero on inactive (stalled) rows, written into `out`
+/// (already n x n).
+fn system_matrix_into(
+    induced: &DMatrix<f64>,
+    d: &DVector<f64>,
+    active: &[bool],
+    out: &mut DMatrix<f64>,
+) {
     let n = induced.nrows();
-    let mut m = DMatrix::<f64>::identity(n, n);
-    for i in 0..n {
-        if active[i] {
-            let di = d[i];
-            for j in 0..n {
-                m[(i, j)] -= di * induced[(i, j)];
+    out.fill_with_identity();
+    // Column by column (the storage order); each entry is computed as before.
+    for j in 0..n {
+        for i in 0..n {
+            if active[i] {
+                out[(i, j)] -= d[i] * induced[(i, j)];
             }
         }
     }
+}
+
+/// J = I - diag(d_active) A, with d zero on inactive (stalled) rows.
+fn system_matrix(induced: &DMatrix<f64>, d: &DVector<f64>, active: &[bool]) -> DMatrix<f64> {
+    let n = induced.nrows();
+    let mut m = DMatrix::<f64>::zeros(n, n);
+    system_matrix_into(induced, d, active, &mut m);
     m
 }
 
@@ -1595,6 +1697,124 @@ pub(crate) mod tests {
             3.0 * a.stations[5].circulation_per_speed_m,
             b.stations[5].circulation_per_speed_m,
             max_relative = 1e-12
+        );
+    }
+
+    /// Newton's method as it was before it kept its work buffers (new vectors, matrices and
+    /// an nalgebra LU at every iteration), kept as the reference for the test below.
+    fn newton_allocating(
+        sys: &MultiSurfaceSystem,
+        mut gamma: DVector<f64>,
+        geo: &DVector<f64>,
+        zero: &DVector<f64>,
+    ) -> (DVector<f64>, DVector<f64>, usize) {
+        let n = sys.stations.len();
+        let eval = |g: &DVector<f64>| -> (DVector<f64>, Vec<bool>, DVector<f64>) {
+            let alpha = geo + &sys.induced * g;
+            let mut r = DVector::zeros(n);
+            let mut active = vec![true; n];
+            let mut d = DVector::zeros(n);
+            for (i, st) in sys.stations.iter().enumerate() {
+                let shift = zero[i] - st.section.alpha_zero_lift_rad;
+                let lp = st.section.lift_point(alpha[i], shift);
+                active[i] = lp.attached;
+                d[i] = 0.5 * st.chord_m * lp.slope_per_rad;
+                r[i] = g[i] - 0.5 * st.chord_m * lp.cl;
+            }
+            (r, active, d)
+        };
+        let tol = sys.options.newton_relative_tolerance * gamma.amax().max(1e-9);
+        let (mut r, mut active, mut d_full) = eval(&gamma);
+        let mut res = r.amax();
+        let mut iterations = 0;
+        while res > tol && iterations < sys.options.max_newton_iterations {
+            iterations += 1;
+            let j = system_matrix(&sys.induced, &d_full, &active);
+            let step = j.clone().lu().solve(&-&r).unwrap();
+            let mut lambda = 1.0;
+            loop {
+                let trial = &gamma + &step * lambda;
+                let (r_t, a_t, d_t) = eval(&trial);
+                let res_t = r_t.amax();
+                if res_t < res || lambda < 1e-3 {
+                    (gamma, r, active, d_full, res) = (trial, r_t, a_t, d_t, res_t);
+                    break;
+                }
+                lambda *= 0.5;
+            }
+        }
+        let j = system_matrix(&sys.induced, &d_full, &active);
+        let rhs = DVector::from_iterator(
+            n,
+            sys.stations
+                .iter()
+                .zip(&active)
+                .zip(d_full.iter())
+                .map(|((s, a), d)| if *a { d * s.normal_z } else { 0.0 }),
+        );
+        let tangent = j.lu().solve(&rhs).unwrap();
+        (gamma, tangent, iterations)
+    }
+
+    // Newton's method in reused work buffers gives the same bits as the allocating version it
+    // replaced, on the example aircraft past their first stall (several stations held at
+    // cl_max, with and without elevator, one set of buffers for every solve). No outside
+    // source: a refactoring must not change the numbers (the buffers change only where the
+    // numbers are kept, the LU is nalgebra's operations in the same order).
+    #[test]
+    fn newton_reuses_buffers_with_the_same_bits() {
+        let examples = [
+            include_str!("../../aircraft/larkspire-2000.toml"),
+            include_str!("../../aircraft/merrowtail-1700.toml"),
+            include_str!("../../aircraft/skerrywing-900.toml"),
+            include_str!("../../aircraft/wrenfield-1400.toml"),
+        ];
+        let options = crate::analysis::AnalysisOptions {
+            flight_polar: false,
+            ..crate::analysis::AnalysisOptions::default()
+        };
+        let mut work = NewtonWork::default();
+        let mut newton_solves = 0;
+        for text in examples {
+            let ac = crate::input::parse_aircraft(text, "example.toml", None).unwrap();
+            let set = crate::analysis::section_set(&ac, &options).unwrap();
+            let ll = crate::analysis::lifting_line_options(&ac, &options);
+            let sys = crate::stability::trim::build_system(&ac, &set.models, ll).unwrap();
+            let (alpha_stall, _) = sys
+                .first_stall_alpha_rad(&sys.condition(0.0))
+                .unwrap()
+                .unwrap();
+            for (d_alpha, elevator) in [(0.002, 0.0), (0.03, 0.0), (0.1, -0.1), (0.25, 0.05)] {
+                let mut cond = sys.condition(alpha_stall + d_alpha);
+                cond.elevator_rad = elevator;
+                let q = sys.weights(&cond).unwrap();
+                let (gamma0, _) = sys.linear_circulation(&q);
+                let (geo, zero) = sys.station_angles(&cond);
+                let Ok((gamma, tangent, status)) =
+                    sys.newton(gamma0.clone(), &geo, &zero, &mut work)
+                else {
+                    continue;
+                };
+                let (g_ref, t_ref, iterations) = newton_allocating(&sys, gamma0, &geo, &zero);
+                let same = |a: &DVector<f64>, b: &DVector<f64>| {
+                    a.iter()
+                        .zip(b.iter())
+                        .all(|(x, y)| x.to_bits() == y.to_bits())
+                };
+                assert!(same(&gamma, &g_ref) && same(&tangent, &t_ref));
+                assert!(
+                    matches!(status, SolveStatus::Converged { iterations: k, .. } if k == iterations)
+                );
+                assert_eq!(
+                    sys.solve_with(&cond, &mut work).unwrap(),
+                    sys.solve(&cond).unwrap()
+                );
+                newton_solves += 1;
+            }
+        }
+        assert!(
+            newton_solves >= 12,
+            "{newton_solves} stalled states compared"
         );
     }
 }

@@ -94,13 +94,19 @@ pub fn equivalent_surface(surface: &Surface, sections: &[SectionModel]) -> Equiv
     let (mut a0, mut cm, mut slope, mut clmax) = (0.0, 0.0, 0.0, 0.0);
     let mut clmax_min = f64::INFINITY;
     let mut y_prev = 0.0;
-    for i in 0..STRIPS {
-        let s_mid = s_total * (i as f64 + 0.5) / STRIPS as f64;
-        let st = planform::station_at(surface, s_mid);
-        let y_end = planform::station_at(surface, s_total * (i as f64 + 1.0) / STRIPS as f64).y_m;
+    let mids = planform::stations_at(
+        surface,
+        (0..STRIPS).map(|i| s_total * (i as f64 + 0.5) / STRIPS as f64),
+    );
+    let ends = planform::stations_at(
+        surface,
+        (0..STRIPS).map(|i| s_total * (i as f64 + 1.0) / STRIPS as f64),
+    );
+    for (st, end) in mids.iter().zip(&ends) {
+        let y_end = end.y_m;
         let dy = y_end - y_prev;
         y_prev = y_end;
-        let sec = section_at(sections, &st);
+        let sec = section_at(sections, st);
         let c = st.chord_m;
         w_c += c * dy;
         w_c2 += c * c * dy;

@@ -47,9 +47,10 @@
 
 use crate::lifting_line::{
     ElevatorEffect, FlightCondition, LiftingLineError, LiftingLineOptions, LiftingLineResult,
-    MultiSurfaceSystem, Reference, StationResult, SurfaceInput, TrimControl, TrimPoint,
+    MultiSurfaceSystem, NewtonWork, Reference, StationResult, SurfaceInput, TrimControl, TrimPoint,
 };
 use crate::model::{Aircraft, PitchControl, StabiliserRole};
+use crate::numeric::brent;
 use crate::section::flap_correction;
 use crate::section::SectionModel;
 
@@ -427,10 +428,12 @@ type ForwardLimit = (Option<f64>, ForwardLimitCause);
 /// Forward CG limits already found on one system, remembered by what they depend on: the
 /// CG height (the moment reference's z), the control's full-up throw and the fuselage term.
 /// The limit does not depend on the CG's x or on the mass (the trimmed stall is solved in
-/// coefficients), so a study over CG positions and masses finds it once per system.
+/// coefficients), so a study over CG positions and masses finds it once per system. The
+/// system's linear station map (three solves, the same for every CG and mass) is kept too.
 #[derive(Debug, Default)]
 pub struct ForwardLimitMemo {
     found: std::sync::Mutex<Vec<([u64; 3], ForwardLimit)>>,
+    map: std::sync::OnceLock<Result<Option<StationMap>, LiftingLineError>>,
 }
 
 impl ForwardLimitMemo {
@@ -450,6 +453,17 @@ impl ForwardLimitMemo {
             found.push((key, v));
         }
         v
+    }
+
+    /// The station map of the system, made by `make` the first time.
+    fn station_map(
+        &self,
+        make: impl FnOnce() -> Result<Option<StationMap>, LiftingLineError>,
+    ) -> Result<Option<&StationMap>, LiftingLineError> {
+        match self.map.get_or_init(make) {
+            Ok(map) => Ok(map.as_ref()),
+            Err(e) => Err(e.clone()),
+        }
     }
 }
 
@@ -482,10 +496,17 @@ pub fn full_stability_on(
     let trim = trim_at_cg(system, input, &base, eff(input.cg_x_m), static_margin)?;
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
-    let map = StationMap::of(system, &base)?;
+    let own_map;
+    let map = match memo {
+        Some(m) => m.station_map(|| StationMap::of(system, &base))?,
+        None => {
+            own_map = StationMap::of(system, &base)?;
+            own_map.as_ref()
+        }
+    };
     let stall = stall_at(
         system,
-        map.as_ref(),
+        map,
         &base,
         pitch_control.is_some(),
         eff(input.cg_x_m),
@@ -497,7 +518,7 @@ pub fn full_stability_on(
     // works on the surface that must stall first.
     let (elevator_forward_limit_x_m, forward_limit_cause) = forward_limit(
         system,
-        map.as_ref(),
+        map,
         &base,
         input,
         memo,
@@ -531,6 +552,7 @@ pub fn full_stability_on(
     let elevator_schedule = match (pitch_control, stall_speed, stable) {
         (Some(control), Some(vs), true) => elevator_schedule(
             system,
+            map,
             &base,
             input,
             control,
@@ -709,8 +731,10 @@ fn target_speed_solves(
 
 /// The elevator schedule of a stable aircraft from `SCHEDULE_LOW_SPEED_FACTOR` times the stall
 /// speed `stall_speed_m_s` to `top_speed_m_s`, trimmed at the CG (`cg_eff_x_m`).
+#[allow(clippy::too_many_arguments)]
 fn elevator_schedule(
     system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
     base: &FlightCondition,
     input: &TrimInput<'_>,
     control: &PitchControl,
@@ -729,8 +753,8 @@ fn elevator_schedule(
             let cl = cl_at(input.mass_kg, input.density_kg_m3, area, v);
             if let Ok(tp) = system.trim_for_cl(base, TrimControl::Elevator, cl, cg_eff_x_m, z) {
                 let d = real_deflection_rad(control, tp.control_rad);
-                let stalled =
-                    stabiliser_at_cl_min(system, base, &tp, TrimControl::Elevator)?.is_some();
+                let stalled = !map.is_some_and(|m| m.clearly_inside_limits(system, &tp))
+                    && stabiliser_at_cl_min(system, base, &tp, TrimControl::Elevator)?.is_some();
                 elevator_schedule.push(ElevatorPoint {
                     speed_m_s: v,
                     cl,
@@ -757,7 +781,8 @@ struct TrimmedLimit {
 }
 
 /// Step of the scan along the trimmed path, in C_L (0.1: a stall is then bracketed within
-/// 0.1 and bisected; trimmed lift coefficients of models stay below about 2).
+/// 0.1 and found inside by Brent's method; trimmed lift coefficients of models stay below
+/// about 2).
 const TRIM_PATH_CL_STEP: f64 = 0.1;
 /// Highest trimmed C_L scanned.
 const TRIM_PATH_CL_TOP: f64 = 4.0;
@@ -766,6 +791,7 @@ const TRIM_PATH_CL_TOP: f64 = 4.0;
 /// control, `cl_i = c0_i + ca_i alpha + cd_i delta` (exact below the stall limits: the
 /// lifting-line equations are linear there), found from three solves; lets the trimmed path
 /// be searched without a full solve at every step.
+#[derive(Debug)]
 struct StationMap {
     c0: Vec<f64>,
     ca: Vec<f64>,
@@ -813,6 +839,25 @@ impl StationMap {
     }
 }
 
+/// Margin in cl by which every station's cl from the linear map must lie inside its limits
+/// for a trimmed state to be taken as inside them without a full solve: the map gives the
+/// linear solution to round-off (about 1e-14 over the flight range), so with 1e-6 the full
+/// solve would be linear and find no station at a limit (the same answer, without it).
+const MAP_CLEAR_MARGIN: f64 = 1e-6;
+
+impl StationMap {
+    /// True when every station's cl in the elevator-trimmed state `tp` lies inside its cl_min
+    /// and cl_max by [`MAP_CLEAR_MARGIN`] on linear lift curves (no viscous polar).
+    fn clearly_inside_limits(&self, system: &MultiSurfaceSystem, tp: &TrimPoint) -> bool {
+        system.stations().iter().enumerate().all(|(i, st)| {
+            let cl = self.c0[i] + self.ca[i] * tp.alpha_rad + self.cd[i] * tp.control_rad;
+            st.section.polar.is_none()
+                && cl < st.section.cl_max - MAP_CLEAR_MARGIN
+                && cl > st.section.cl_min + MAP_CLEAR_MARGIN
+        })
+    }
+}
+
 /// A station at its limit: its index, and true for a stabiliser station at cl_min.
 type Limit = (usize, bool);
 
@@ -848,11 +893,201 @@ fn limit_in(
         .map(|(_, i)| (i, true))
 }
 
+/// Where the trimmed path meets its first limit, before the full solve there.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct PathLimit {
+    /// The trimmed state there.
+    point: TrimPoint,
+    /// The station at its limit and whether that is a stabiliser station at cl_min.
+    limit: Limit,
+}
+
+/// Root-finder settings of the search along the trimmed path: a limit bracketed by the scan
+/// within one step is found to the width 40 halvings of the step gave (about 1e-13 in C_L).
+/// Brent's method never needs more than about the square of the bisection count (Brent
+/// 1973, ch. 4), so 2000 evaluations are never reached while a sign change is bracketed.
+const TRIM_PATH_ROOT: brent::Settings = brent::Settings {
+    x_tolerance: TRIM_PATH_CL_STEP / (1u64 << 40) as f64,
+    max_iterations: 2000,
+};
+
+/// How far a state with station lift coefficients `cls` lies past its nearest limit: the
+/// largest cl / cl_max less one and, when `count_negative`, the stabiliser's least margin
+/// above its cl_min taken negative, whichever is greater (each shifted by the round-off
+/// allowance [`AT_LIMIT`]). Continuous in the cls, and >= 0 exactly where [`limit_in`] finds
+/// a limit: the residual whose root along the trimmed path is the first limit.
+fn limit_residual(system: &MultiSurfaceSystem, cls: &[f64], count_negative: bool) -> f64 {
+    let stations = system.stations();
+    let ratio = cls
+        .iter()
+        .zip(stations)
+        .map(|(cl, s)| cl / s.section.cl_max)
+        .fold(f64::NEG_INFINITY, f64::max);
+    let positive = ratio - (1.0 - AT_LIMIT);
+    if !count_negative {
+        return positive;
+    }
+    positive.max(AT_LIMIT - stabiliser_least_margin(system, cls))
+}
+
+/// The stabiliser's least margin above cl_min in a state with station lift coefficients `cls`
+/// (infinite without a stabiliser).
+fn stabiliser_least_margin(system: &MultiSurfaceSystem, cls: &[f64]) -> f64 {
+    cls.iter()
+        .zip(system.stations())
+        .filter(|(_, s)| s.surface == 1)
+        .map(|(cl, s)| cl - s.section.cl_min)
+        .fold(f64::INFINITY, f64::min)
+}
+
+/// The trimmed path of one system about one moment reference: the trimmed state at each C_L
+/// with the elevator, and its stations' lift coefficients (from the linear map when there is
+/// one, else from a full solve).
+struct TrimmedPath<'a> {
+    system: &'a MultiSurfaceSystem,
+    map: Option<&'a StationMap>,
+    base: &'a FlightCondition,
+    x_ref: f64,
+    z: f64,
+    count_negative: bool,
+}
+
+/// A search along the trimmed path that met a C_L without a trimmed state inside the bracket
+/// (the residual has no value there), or a solve that failed.
+#[derive(Debug, thiserror::Error)]
+enum PathError {
+    #[error("no trimmed state inside the bracket")]
+    NoTrim,
+    #[error(transparent)]
+    Solve(#[from] LiftingLineError),
+}
+
+impl TrimmedPath<'_> {
+    /// The trimmed state at `cl`, or `None` where the elevator cannot trim there.
+    fn point(&self, cl: f64) -> Result<Option<TrimPoint>, LiftingLineError> {
+        match self
+            .system
+            .trim_for_cl(self.base, TrimControl::Elevator, cl, self.x_ref, self.z)
+        {
+            Ok(tp) => Ok(Some(tp)),
+            Err(LiftingLineError::NoTrim { .. }) => Ok(None),
+            Err(e) => Err(e),
+        }
+    }
+
+    /// The condition of the trimmed state `tp`.
+    fn condition(&self, tp: &TrimPoint) -> FlightCondition {
+        let mut cond = self.base.clone();
+        cond.alpha_rad = tp.alpha_rad;
+        cond.elevator_rad = tp.control_rad;
+        cond
+    }
+
+    /// The stations' lift coefficients in the trimmed state `tp`, written into `cls`.
+    fn station_cls(&self, tp: &TrimPoint, cls: &mut Vec<f64>) -> Result<(), LiftingLineError> {
+        cls.clear();
+        match self.map {
+            Some(m) => cls.extend(
+                (0..m.c0.len())
+                    .map(|i| m.c0[i] + m.ca[i] * tp.alpha_rad + m.cd[i] * tp.control_rad),
+            ),
+            None => cls.extend(
+                self.system
+                    .solve(&self.condition(tp))?
+                    .stations
+                    .iter()
+                    .map(|s| s.cl),
+            ),
+        }
+        Ok(())
+    }
+
+    /// The residual ([`limit_residual`]) of the trimmed state at `cl`.
+    fn residual(&self, cl: f64, cls: &mut Vec<f64>) -> Result<f64, PathError> {
+        let tp = self.point(cl)?.ok_or(PathError::NoTrim)?;
+        self.station_cls(&tp, cls)?;
+        Ok(limit_residual(self.system, cls, self.count_negative))
+    }
+
+    /// The trimmed state at `cl` and the station at its limit there, if any.
+    #[allow(clippy::type_complexity)]
+    fn state(
+        &self,
+        cl: f64,
+        cls: &mut Vec<f64>,
+    ) -> Result<Option<(TrimPoint, Option<Limit>)>, LiftingLineError> {
+        let Some(tp) = self.point(cl)? else {
+            return Ok(None);
+        };
+        self.station_cls(&tp, cls)?;
+        Ok(Some((tp, limit_in(self.system, cls, self.count_negative))))
+    }
+
+    /// The first limit met as the trimmed C_L rises from zero: scanned in steps of
+    /// [`TRIM_PATH_CL_STEP`] up to [`TRIM_PATH_CL_TOP`] (so that the first crossing is the one
+    /// found), then found inside the step by Brent's method on [`limit_residual`]. Where the
+    /// root finder cannot work (a C_L without a trimmed state inside the step), the step is
+    /// bisected 40 times with such states counted as within the limits, as before.
+    fn first_limit(&self, cls: &mut Vec<f64>) -> Result<Option<PathLimit>, LiftingLineError> {
+        let steps = (TRIM_PATH_CL_TOP / TRIM_PATH_CL_STEP).round() as usize;
+        let mut lo: Option<(f64, f64)> = None;
+        for k in 1..=steps {
+            let cl = k as f64 * TRIM_PATH_CL_STEP;
+            let Some(tp) = self.point(cl)? else {
+                continue;
+            };
+            self.station_cls(&tp, cls)?;
+            let r = limit_residual(self.system, cls, self.count_negative);
+            let Some(limit) = limit_in(self.system, cls, self.count_negative) else {
+                lo = Some((cl, r));
+                continue;
+            };
+            let Some(lo) = lo else {
+                // Already at a limit at the lowest lift scanned.
+                return Ok(Some(PathLimit { point: tp, limit }));
+            };
+            let found =
+                brent::find_root(|c| self.residual(c, &mut *cls), lo, (cl, r), TRIM_PATH_ROOT);
+            return match found {
+                Ok(root) => match self.state(root.nonnegative_end(), cls)? {
+                    Some((point, Some(limit))) => Ok(Some(PathLimit { point, limit })),
+                    _ => self.bisect(lo.0, (cl, PathLimit { point: tp, limit }), cls),
+                },
+                Err(brent::RootError::Function(PathError::Solve(e))) => Err(e),
+                Err(_) => self.bisect(lo.0, (cl, PathLimit { point: tp, limit }), cls),
+            };
+        }
+        Ok(None)
+    }
+
+    /// The limit between the C_L `lo` (within the limits) and `hi` (a C_L at a limit, with
+    /// the limit found there) by 40 halvings.
+    fn bisect(
+        &self,
+        mut lo: f64,
+        (mut hi_cl, mut found): (f64, PathLimit),
+        cls: &mut Vec<f64>,
+    ) -> Result<Option<PathLimit>, LiftingLineError> {
+        for _ in 0..40 {
+            let mid = 0.5 * (lo + hi_cl);
+            match self.state(mid, cls)? {
+                Some((point, Some(limit))) => {
+                    hi_cl = mid;
+                    found = PathLimit { point, limit };
+                }
+                _ => lo = mid,
+            }
+        }
+        Ok(Some(found))
+    }
+}
+
 /// The first limit met as the trimmed C_L rises from zero (the aircraft slowing down, trimmed
 /// by the elevator about `x_ref`): a station of any surface at its cl_max, or, when
-/// `count_negative`, a stabiliser station at its cl_min. Only positive trimmed lift is
-/// searched, which is the flight range (a scan over the angle of attack would also meet
-/// limits at negative lift that are never flown).
+/// `count_negative`, a stabiliser station at its cl_min; with the full solution there. Only
+/// positive trimmed lift is searched, which is the flight range (a scan over the angle of
+/// attack would also meet limits at negative lift that are never flown). `work` holds the
+/// full solve's Newton buffers.
 fn first_trimmed_limit(
     system: &MultiSurfaceSystem,
     map: Option<&StationMap>,
@@ -860,72 +1095,27 @@ fn first_trimmed_limit(
     x_ref: f64,
     z: f64,
     count_negative: bool,
+    work: &mut NewtonWork,
 ) -> Result<Option<TrimmedLimit>, LiftingLineError> {
-    let condition = |tp: &TrimPoint| {
-        let mut cond = base.clone();
-        cond.alpha_rad = tp.alpha_rad;
-        cond.elevator_rad = tp.control_rad;
-        cond
+    let path = TrimmedPath {
+        system,
+        map,
+        base,
+        x_ref,
+        z,
+        count_negative,
     };
-    // The trimmed state at `cl` and the station at its limit there, if any.
-    let state = |cl: f64| -> Result<Option<(TrimPoint, Option<Limit>)>, LiftingLineError> {
-        let point = match system.trim_for_cl(base, TrimControl::Elevator, cl, x_ref, z) {
-            Ok(tp) => tp,
-            Err(LiftingLineError::NoTrim { .. }) => return Ok(None),
-            Err(e) => return Err(e),
-        };
-        let cls: Vec<f64> = match map {
-            Some(m) => (0..m.c0.len())
-                .map(|i| m.c0[i] + m.ca[i] * point.alpha_rad + m.cd[i] * point.control_rad)
-                .collect(),
-            None => system
-                .solve(&condition(&point))?
-                .stations
-                .iter()
-                .map(|s| s.cl)
-                .collect(),
-        };
-        Ok(Some((point, limit_in(system, &cls, count_negative))))
+    let Some(found) = path.first_limit(&mut Vec::with_capacity(system.stations().len()))? else {
+        return Ok(None);
     };
-    let finish = |point: TrimPoint, (station, negative): (usize, bool)| {
-        Ok(Some(TrimmedLimit {
-            result: system.solve(&condition(&point))?,
-            point,
-            station,
-            negative,
-        }))
-    };
-    let steps = (TRIM_PATH_CL_TOP / TRIM_PATH_CL_STEP).round() as usize;
-    let mut lo: Option<f64> = None;
-    for k in 1..=steps {
-        let cl = k as f64 * TRIM_PATH_CL_STEP;
-        let Some((point, limit)) = state(cl)? else {
-            continue;
-        };
-        let Some(limit) = limit else {
-            lo = Some(cl);
-            continue;
-        };
-        let Some(mut lo) = lo else {
-            // Already at a limit at the lowest lift scanned.
-            return finish(point, limit);
-        };
-        let (mut hi, mut found) = (cl, (point, limit));
-        for _ in 0..40 {
-            let mid = 0.5 * (lo + hi);
-            match state(mid)? {
-                Some((p, Some(l))) => {
-                    hi = mid;
-                    found = (p, l);
-                }
-                _ => lo = mid,
-            }
-        }
-        return finish(found.0, found.1);
-    }
-    Ok(None)
+    let (station, negative) = found.limit;
+    Ok(Some(TrimmedLimit {
+        result: system.solve_with(&path.condition(&found.point), work)?,
+        point: found.point,
+        station,
+        negative,
+    }))
 }
-
 /// The stall state with the moment reference at `x_ref` (already shifted for the fuselage).
 fn stall_at(
     system: &MultiSurfaceSystem,
@@ -940,11 +1130,13 @@ fn stall_at(
     let control = input.aircraft.pitch_control();
     let real = |model_rad: f64| control.map_or(model_rad, |p| real_deflection_rad(p, model_rad));
     let speed = |cl: f64| speed_at(input.mass_kg, input.density_kg_m3, area, cl);
+    // One set of Newton buffers for every full solve of this stall search.
+    let mut work = NewtonWork::default();
     // Trimmed with the elevator (or elevons) where there is one; where no trimmed stall
     // exists within the flight range (an unstable or badly rigged aircraft), the stall with
     // the elevator neutral is shown instead.
     let trimmed = if trimmed_by_elevator {
-        first_trimmed_limit(system, map, base, x_ref, z, true)?
+        first_trimmed_limit(system, map, base, x_ref, z, true, &mut work)?
     } else {
         None
     };
@@ -952,7 +1144,7 @@ fn stall_at(
         let st = &system.stations()[t.station];
         let limit = if t.negative {
             // The positive stall it pre-empts, for the caution.
-            let otherwise = first_trimmed_limit(system, map, base, x_ref, z, false)?;
+            let otherwise = first_trimmed_limit(system, map, base, x_ref, z, false, &mut work)?;
             let cl = otherwise.map_or(f64::NAN, |o| o.result.cl);
             StallLimit::StabiliserClMin {
                 cl_max_otherwise: cl,
@@ -979,7 +1171,7 @@ fn stall_at(
     };
     let mut cond = base.clone();
     cond.alpha_rad = alpha;
-    let result = system.solve(&cond)?;
+    let result = system.solve_with(&cond, &mut work)?;
     if result.cl <= 0.0 {
         return Ok(None);
     }
@@ -1008,10 +1200,79 @@ fn limit_is_finite(limit: &StallLimit) -> bool {
     }
 }
 
+/// Root-finder settings of the forward-limit search: the width 30 halvings of a MAC gave
+/// (`mac_m / 2^30`, far below a millimetre), with Brent's bound on the evaluations (about the
+/// square of the bisection count, Brent 1973, ch. 4) as the limit.
+fn forward_limit_root(mac_m: f64) -> brent::Settings {
+    brent::Settings {
+        x_tolerance: mac_m / (1u64 << 30) as f64,
+        max_iterations: 1000,
+    }
+}
+
+/// The residual of the forward-limit search where no trimmed stall exists or its search fails
+/// (not held: a weaker control must move the limit aft, never remove it).
+const NOT_HELD: f64 = -1.0;
+
+/// Whether the stall can be held with the CG (effective moment reference less the fuselage
+/// shift) at `x`, as a continuous residual, >= 0 where it is held, and what limits it.
+///
+/// On the trimmed path the first limit is found ([`TrimmedPath::first_limit`]). Where it is
+/// a station at cl_max, the residual is the smaller of the pitch-control margin (the model
+/// deflection there less full up, rad) and the stabiliser's least margin above cl_min there;
+/// where the stabiliser reaches cl_min first, it is the smaller of the control margin and the
+/// wing's largest cl / cl_max less one there (negative, since the wing has not stalled yet).
+/// Both tail terms go to zero where the two limits meet, so the residual is continuous
+/// through the change of cause; its sign is the test the bisection used (held when the first
+/// limit is a stall at cl_max and the deflection there is within full up).
+#[allow(clippy::too_many_arguments)]
+fn hold_residual(
+    system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
+    base: &FlightCondition,
+    full_up_rad: f64,
+    z: f64,
+    fuselage_shift_m: f64,
+    x: f64,
+    cls: &mut Vec<f64>,
+) -> (f64, ForwardLimitCause) {
+    let path = TrimmedPath {
+        system,
+        map,
+        base,
+        x_ref: x + fuselage_shift_m,
+        z,
+        count_negative: true,
+    };
+    let found = path.first_limit(cls).and_then(|f| {
+        f.map(|f| path.station_cls(&f.point, cls).map(|()| f))
+            .transpose()
+    });
+    let Ok(Some(found)) = found else {
+        // No trimmed stall at all (far forward, the deflection needed runs past anything a
+        // flap can give), or a solve that failed: not held (the safe side).
+        return (NOT_HELD, ForwardLimitCause::ControlAuthority);
+    };
+    let control = found.point.control_rad - full_up_rad;
+    let negative = found.limit.1;
+    let tail = if negative {
+        limit_residual(system, cls, false)
+    } else {
+        stabiliser_least_margin(system, cls) - AT_LIMIT
+    };
+    let cause = if negative || (control >= 0.0 && tail < 0.0) {
+        ForwardLimitCause::StabiliserClMin
+    } else {
+        ForwardLimitCause::ControlAuthority
+    };
+    (control.min(tail), cause)
+}
+
 /// The CG (effective moment reference) at which the elevator needed to hold the stall equals
 /// `full_up_rad` (the linear model's deflection), or at which the stabiliser just reaches its
 /// negative limit at the stall, whichever is further aft; searched between one MAC ahead of
-/// the neutral point and the neutral point.
+/// the neutral point and the neutral point, by Brent's method on [`hold_residual`]. The
+/// answer is the held end of the last bracket (on the aft, safe side of the root).
 #[allow(clippy::too_many_arguments)]
 fn elevator_limit(
     system: &MultiSurfaceSystem,
@@ -1023,41 +1284,45 @@ fn elevator_limit(
     z: f64,
     fuselage_shift_m: f64,
 ) -> (Option<f64>, ForwardLimitCause) {
-    // Whether the stall can be held with the CG at x, and if not, why. Where no trimmed stall
-    // exists at all (far forward, the deflection needed runs past anything a flap can give),
-    // the elevator is taken as not enough: a weaker control must move the limit aft, never
-    // remove it. A solve that fails counts as not held (the safe side).
-    let held = |x: f64| -> Result<(), ForwardLimitCause> {
-        match first_trimmed_limit(system, map, base, x + fuselage_shift_m, z, true) {
-            Ok(Some(t)) if t.negative => Err(ForwardLimitCause::StabiliserClMin),
-            Ok(Some(t)) if t.point.control_rad >= full_up_rad => Ok(()),
-            _ => Err(ForwardLimitCause::ControlAuthority),
-        }
+    let mut cls = Vec::with_capacity(system.stations().len());
+    let mut hold = |x: f64| {
+        hold_residual(
+            system,
+            map,
+            base,
+            full_up_rad,
+            z,
+            fuselage_shift_m,
+            x,
+            &mut cls,
+        )
     };
-    let (mut fwd, mut aft) = (neutral_point_x_m - mac_m, neutral_point_x_m - 0.01 * mac_m);
-    if let Err(cause) = held(aft) {
+    let (fwd, aft) = (neutral_point_x_m - mac_m, neutral_point_x_m - 0.01 * mac_m);
+    let (r_aft, cause_aft) = hold(aft);
+    if r_aft < 0.0 {
         // Even near the neutral point the stall cannot be held.
-        return (Some(aft), cause);
+        return (Some(aft), cause_aft);
     }
-    let mut cause = match held(fwd) {
+    let (r_fwd, _) = hold(fwd);
+    if r_fwd >= 0.0 {
         // Pitch control is not the limit anywhere within a MAC of the neutral point.
-        Ok(()) => return (None, ForwardLimitCause::ControlAuthority),
-        Err(c) => c,
-    };
-    // 30 halvings of a MAC: far below a millimetre.
-    for _ in 0..30 {
-        let mid = 0.5 * (fwd + aft);
-        match held(mid) {
-            Ok(()) => aft = mid,
-            Err(c) => {
-                fwd = mid;
-                cause = c;
-            }
-        }
+        return (None, ForwardLimitCause::ControlAuthority);
     }
-    (Some(0.5 * (fwd + aft)), cause)
+    let found = brent::find_root(
+        |x| Ok::<f64, std::convert::Infallible>(hold(x).0),
+        (fwd, r_fwd),
+        (aft, r_aft),
+        forward_limit_root(mac_m),
+    );
+    match found {
+        Ok(root) => {
+            let cause = hold(root.negative_end()).1;
+            (Some(root.nonnegative_end()), cause)
+        }
+        // Not reached with a bracketed sign change; the safe answer is the aft end.
+        Err(_) => (Some(aft), cause_aft),
+    }
 }
-
 /// The moment reference x at which the aircraft trims at `cl` with the controls of `base`
 /// (the CG for a target speed, before the fuselage shift is removed).
 fn cg_for_cl(system: &MultiSurfaceSystem, base: &FlightCondition, cl: f64, z: f64) -> Option<f64> {
@@ -1282,5 +1547,302 @@ mod tests {
             );
             assert!((a.cm - b.cm).abs() < 1e-10 && (a.cl - b.cl).abs() < 1e-10);
         }
+    }
+
+    const EXAMPLES: [(&str, &str); 4] = [
+        (
+            "larkspire-2000",
+            include_str!("../../aircraft/larkspire-2000.toml"),
+        ),
+        (
+            "merrowtail-1700",
+            include_str!("../../aircraft/merrowtail-1700.toml"),
+        ),
+        (
+            "skerrywing-900",
+            include_str!("../../aircraft/skerrywing-900.toml"),
+        ),
+        (
+            "wrenfield-1400",
+            include_str!("../../aircraft/wrenfield-1400.toml"),
+        ),
+    ];
+
+    /// An example aircraft with what the forward-limit search needs: the system, its linear
+    /// map, the full model's figures, the CG height and the fuselage shift.
+    struct Example {
+        aircraft: Aircraft,
+        sections: Vec<SectionModel>,
+        mass_kg: f64,
+        density_kg_m3: f64,
+        options: LiftingLineOptions,
+        system: MultiSurfaceSystem,
+        map: Option<StationMap>,
+        full: FullStability,
+        cg_x_m: f64,
+        z: f64,
+        shift_m: f64,
+    }
+
+    fn example(text: &str) -> Example {
+        let aircraft = crate::input::parse_aircraft(text, "example.toml", None).unwrap();
+        let options = crate::analysis::AnalysisOptions {
+            flight_polar: false,
+            ..crate::analysis::AnalysisOptions::default()
+        };
+        let analysis = crate::analysis::analyse(&aircraft, &options).unwrap();
+        let set = crate::analysis::section_set(&aircraft, &options).unwrap();
+        let ll = crate::analysis::lifting_line_options(&aircraft, &options);
+        let system = build_system(&aircraft, &set.models, ll).unwrap();
+        let map = StationMap::of(&system, &system.condition(0.0)).unwrap();
+        let full = analysis.full.clone().unwrap();
+        let z = analysis.mass.cg_z_m.unwrap_or(aircraft.wing.root_le_z_m);
+        Example {
+            shift_m: full.neutral_point_surfaces_x_m - full.neutral_point_x_m,
+            cg_x_m: analysis.mass.cg_x_m,
+            sections: set.models.clone(),
+            mass_kg: analysis.mass.total_kg,
+            density_kg_m3: analysis.air.density_kg_m3,
+            options: ll,
+            aircraft,
+            system,
+            map,
+            full,
+            z,
+        }
+    }
+
+    // The forward CG limit found by Brent's method on the continuous residual, checked on the
+    // example aircraft against (1) an independent fine scan of the same residual whose one
+    // sign change is refined by bisection, and (2) the bisection of the held / not-held test
+    // that found the limit before (kept here as the reference). No outside source: a law of
+    // the search. The residual's sign must equal the old test at every scanned CG, and both
+    // roots must agree with the limit to the old search's tolerance, MAC / 2^30 (30 halvings
+    // of one MAC), with the same cause.
+    #[test]
+    fn forward_limit_agrees_with_a_fine_scan_and_the_old_bisection() {
+        let mut interior_roots = 0;
+        for (name, text) in EXAMPLES {
+            let ex = example(text);
+            let (system, map, base) = (&ex.system, ex.map.as_ref(), ex.system.condition(0.0));
+            let Some(control) = ex.aircraft.pitch_control() else {
+                continue;
+            };
+            let canard = ex
+                .aircraft
+                .stabiliser
+                .as_ref()
+                .is_some_and(|s| s.role == StabiliserRole::Canard);
+            if canard {
+                continue;
+            }
+            let full_up = model_full_up_rad(control);
+            let mac = system.reference().mac_m;
+            let np = ex.full.neutral_point_x_m;
+            let (found, cause) =
+                elevator_limit(system, map, &base, full_up, np, mac, ex.z, ex.shift_m);
+            // The analysis runs this same search (the shift recovered here from the neutral
+            // points may differ from its own in the last bit).
+            let tolerance = mac / (1u64 << 30) as f64;
+            match (found, ex.full.elevator_forward_limit_x_m) {
+                (Some(a), Some(b)) => assert!((a - b).abs() <= tolerance, "{name}: {a} {b}"),
+                (a, b) => assert_eq!(a.is_some(), b.is_some(), "{name}"),
+            }
+            let old_test = |x: f64| -> Result<(), ForwardLimitCause> {
+                let mut work = NewtonWork::default();
+                match first_trimmed_limit(system, map, &base, x + ex.shift_m, ex.z, true, &mut work)
+                {
+                    Ok(Some(t)) if t.negative => Err(ForwardLimitCause::StabiliserClMin),
+                    Ok(Some(t)) if t.point.control_rad >= full_up => Ok(()),
+                    _ => Err(ForwardLimitCause::ControlAuthority),
+                }
+            };
+            let mut cls = Vec::new();
+            let mut residual = |x: f64| {
+                hold_residual(system, map, &base, full_up, ex.z, ex.shift_m, x, &mut cls).0
+            };
+            let (fwd, aft) = (np - mac, np - 0.01 * mac);
+            let n = 300;
+            let xs: Vec<f64> = (0..=n)
+                .map(|k| fwd + (aft - fwd) * k as f64 / n as f64)
+                .collect();
+            let rs: Vec<f64> = xs.iter().map(|&x| residual(x)).collect();
+            for (x, r) in xs.iter().zip(&rs) {
+                assert_eq!(*r >= 0.0, old_test(*x).is_ok(), "{name}: sign at x = {x}");
+            }
+            let changes: Vec<usize> = (0..n)
+                .filter(|&k| (rs[k] >= 0.0) != (rs[k + 1] >= 0.0))
+                .collect();
+            match found {
+                None => assert!(
+                    rs[0] >= 0.0 && changes.is_empty(),
+                    "{name}: held everywhere"
+                ),
+                Some(x) if rs[n] < 0.0 => {
+                    assert!(
+                        (x - aft).abs() < 1e-15,
+                        "{name}: not held even at the aft end"
+                    );
+                }
+                Some(x) => {
+                    assert_eq!(changes.len(), 1, "{name}: one sign change over the scan");
+                    let k = changes[0];
+                    assert!(
+                        rs[k] < 0.0,
+                        "{name}: held aft of the limit, not ahead of it"
+                    );
+                    let (mut lo, mut hi) = (xs[k], xs[k + 1]);
+                    for _ in 0..40 {
+                        let mid = 0.5 * (lo + hi);
+                        if residual(mid) >= 0.0 {
+                            hi = mid;
+                        } else {
+                            lo = mid;
+                        }
+                    }
+                    assert!(
+                        (x - hi).abs() <= tolerance,
+                        "{name}: {x} against the scan's {hi}"
+                    );
+                    // The old search: 30 halvings of the held / not-held test.
+                    let (mut f, mut a) = (fwd, aft);
+                    let mut old_cause = old_test(fwd).unwrap_err();
+                    for _ in 0..30 {
+                        let mid = 0.5 * (f + a);
+                        match old_test(mid) {
+                            Ok(()) => a = mid,
+                            Err(c) => {
+                                f = mid;
+                                old_cause = c;
+                            }
+                        }
+                    }
+                    let old = 0.5 * (f + a);
+                    assert!(
+                        (x - old).abs() <= tolerance,
+                        "{name}: {x} against the old {old}"
+                    );
+                    assert_eq!(cause, old_cause, "{name}: cause");
+                    interior_roots += 1;
+                }
+            }
+        }
+        assert!(interior_roots >= 2, "the examples must exercise the search");
+    }
+
+    // The first limit on the trimmed path (the stall at the example's CG, and the stall one
+    // tenth of a MAC further forward) by Brent's method against the old 40 halvings of the
+    // scan's step. No outside source: both must give the same limit station and the same
+    // trimmed C_L to the old width, step / 2^40 (about 1e-13), and a state at the limit.
+    #[test]
+    fn trimmed_path_limit_agrees_with_the_old_bisection() {
+        for (name, text) in EXAMPLES {
+            let ex = example(text);
+            let base = ex.system.condition(0.0);
+            let mac = ex.system.reference().mac_m;
+            for dx in [0.0, -0.1 * mac] {
+                for count_negative in [true, false] {
+                    let path = TrimmedPath {
+                        system: &ex.system,
+                        map: ex.map.as_ref(),
+                        base: &base,
+                        x_ref: ex.cg_x_m + dx + ex.shift_m,
+                        z: ex.z,
+                        count_negative,
+                    };
+                    let mut cls = Vec::new();
+                    let Some(new) = path.first_limit(&mut cls).unwrap() else {
+                        continue;
+                    };
+                    // The old search: scan, then 40 halvings of the step.
+                    let mut lo = None;
+                    let mut old = None;
+                    for k in 1..=40 {
+                        let cl = k as f64 * TRIM_PATH_CL_STEP;
+                        match path.state(cl, &mut cls).unwrap() {
+                            Some((_, None)) => lo = Some(cl),
+                            Some((tp, Some(limit))) => {
+                                let hi = (cl, PathLimit { point: tp, limit });
+                                old = Some(match lo {
+                                    Some(lo) => path.bisect(lo, hi, &mut cls).unwrap().unwrap(),
+                                    None => hi.1,
+                                });
+                                break;
+                            }
+                            None => {}
+                        }
+                    }
+                    let old = old.unwrap();
+                    assert_eq!(new.limit, old.limit, "{name}: the limit station");
+                    assert!(
+                        (new.point.cl - old.point.cl).abs() <= TRIM_PATH_ROOT.x_tolerance + 1e-15,
+                        "{name}: C_L {} against the old {}",
+                        new.point.cl,
+                        old.point.cl
+                    );
+                    path.station_cls(&new.point, &mut cls).unwrap();
+                    assert!(limit_residual(&ex.system, &cls, count_negative) >= 0.0);
+                }
+            }
+        }
+    }
+
+    // The station map kept by the memo, and the elevator schedule's shortcut (no full solve
+    // where the map puts every station clearly inside its limits), change no figure: the full
+    // model with a memo (the second call reading it) equals the one without, and the schedule
+    // equals the one from a full solve at every point. No outside source: a law of the
+    // refactoring, checked on the example aircraft at their CG and 0.1 MAC further forward.
+    #[test]
+    fn kept_map_and_schedule_shortcut_change_no_figure() {
+        let mut schedule_points = 0;
+        for (name, text) in EXAMPLES {
+            let ex = example(text);
+            let mac = ex.system.reference().mac_m;
+            let memo = ForwardLimitMemo::default();
+            for dx in [0.0, -0.1 * mac] {
+                let input = TrimInput {
+                    aircraft: &ex.aircraft,
+                    sections: &ex.sections,
+                    mass_kg: ex.mass_kg,
+                    cg_x_m: ex.cg_x_m + dx,
+                    cg_z_m: ex.z,
+                    density_kg_m3: ex.density_kg_m3,
+                    fuselage_cm_alpha_per_rad: ex.shift_m * ex.full.cl_alpha_per_rad / mac,
+                    options: ex.options,
+                    target_speed_m_s: ex.aircraft.targets.trim_speed_m_s,
+                    top_speed_m_s: ex.aircraft.targets.top_speed_m_s,
+                };
+                let plain = full_stability_on(&ex.system, &input, None).unwrap();
+                for _ in 0..2 {
+                    let kept = full_stability_on(&ex.system, &input, Some(&memo)).unwrap();
+                    assert_eq!(kept, plain, "{name}");
+                }
+                let (Some(control), Some(stall)) = (ex.aircraft.pitch_control(), &plain.stall)
+                else {
+                    continue;
+                };
+                let base = ex.system.condition(0.0);
+                let schedule = |map: Option<&StationMap>| {
+                    elevator_schedule(
+                        &ex.system,
+                        map,
+                        &base,
+                        &input,
+                        control,
+                        stall.speed_m_s,
+                        plain.top_speed_m_s,
+                        input.cg_x_m + ex.shift_m,
+                    )
+                    .unwrap()
+                };
+                let (fast, full_solves) = (schedule(ex.map.as_ref()), schedule(None));
+                assert_eq!(fast, full_solves, "{name}");
+                schedule_points += fast.len();
+            }
+        }
+        assert!(
+            schedule_points >= 16,
+            "{schedule_points} schedule points compared"
+        );
     }
 }

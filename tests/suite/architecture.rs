@@ -25,6 +25,7 @@ const CORE: &[&str] = &[
     "section",
     "planform",
     "lifting_line",
+    "numeric",
     "balance",
     "stability",
     "performance",
