@@ -467,6 +467,20 @@ impl ForwardLimitMemo {
     }
 }
 
+/// The tailless check at the design CL: the target speed's, or [`TAILLESS_DESIGN_CL`].
+fn tailless_at_design_cl(
+    system: &MultiSurfaceSystem,
+    input: &TrimInput<'_>,
+    area_m2: f64,
+    cg_eff_x_m: f64,
+) -> Result<TaillessCheck, LiftingLineError> {
+    let design_cl = input
+        .target_speed_m_s
+        .map(|v| cl_at(input.mass_kg, input.density_kg_m3, area_m2, v))
+        .unwrap_or(TAILLESS_DESIGN_CL);
+    tailless_check(input, system, design_cl, cg_eff_x_m, input.cg_z_m)
+}
+
 /// The full-model balance and trim on a system already built and factored for the input's
 /// aircraft (by [`build_system`], or one built once and changed by
 /// `MultiSurfaceSystem::with_angle_change` for other incidences): masses, CG and target
@@ -566,16 +580,11 @@ pub fn full_stability_on(
     let tailless = if input.aircraft.stabiliser.is_some() || !stable {
         None
     } else {
-        let design_cl = input
-            .target_speed_m_s
-            .map(|v| cl_at(input.mass_kg, input.density_kg_m3, area, v))
-            .unwrap_or(TAILLESS_DESIGN_CL);
-        Some(tailless_check(
-            input,
+        Some(tailless_at_design_cl(
             system,
-            design_cl,
+            input,
+            area,
             eff(input.cg_x_m),
-            z,
         )?)
     };
 
@@ -1620,6 +1629,9 @@ mod tests {
     // roots must agree with the limit to the old search's tolerance, MAC / 2^30 (30 halvings
     // of one MAC), with the same cause.
     #[test]
+    // One check end to end (scan, refine, compare with the old search) reads best in one
+    // piece.
+    #[allow(clippy::too_many_lines)]
     fn forward_limit_agrees_with_a_fine_scan_and_the_old_bisection() {
         let mut interior_roots = 0;
         for (name, text) in EXAMPLES {
