@@ -113,9 +113,11 @@ impl UnitSystem {
         match self {
             UnitSystem::Metric => super::mm_aft_or_ahead(dx_m),
             UnitSystem::Imperial => {
+                // Two decimals, as the imperial length columns (one decimal here read 2.5
+                // beside a column's 2.55 for the same 64.77 mm).
                 let v = dx_m / M_PER_IN;
-                let shown = super::tables::num(v.abs(), 1);
-                if v < 0.0 && shown != "0.0" {
+                let shown = super::tables::num(v.abs(), 2);
+                if v < 0.0 && shown != "0.00" {
                     format!("{shown} in ahead of")
                 } else {
                     format!("{shown} in aft of")
@@ -140,6 +142,9 @@ mod tests {
         assert_eq!(u.header("span mm"), "span in");
         assert_eq!(u.header("mass g"), "mass oz");
         assert_eq!(UnitSystem::Metric.header("span mm"), "span mm");
-        assert_eq!(u.aft_or_ahead(-0.0254), "1.0 in ahead of");
+        assert_eq!(u.aft_or_ahead(-0.0254), "1.00 in ahead of");
+        // The same figures as the length column: 64.77 mm is 2.55 in in both.
+        assert_eq!(u.length(0.06477, 1), "2.55");
+        assert_eq!(u.aft_or_ahead(0.06477), "2.55 in aft of");
     }
 }

@@ -17,9 +17,9 @@ pub const MAX_INCIDENCE_RAD: f64 = 15.0 * std::f64::consts::PI / 180.0;
 /// Largest factor on every mass (common practice: ten times the listed mass is far beyond
 /// any model's ballast range; the limit only keeps the numbers sane).
 pub const MAX_MASS_SCALE: f64 = 10.0;
-/// Largest distance of the CG from the datum a study may set, m (the aircraft file accepts
-/// positions within 100 m).
-pub const MAX_CG_DISTANCE_M: f64 = 100.0;
+/// Largest distance of the CG (or an item) from the datum a study may set, m: the aircraft
+/// file's own limit on positions (50,000 mm).
+pub const MAX_CG_DISTANCE_M: f64 = 50.0;
 
 /// One quantity a study can vary.
 #[derive(Debug, Clone, PartialEq)]

@@ -360,7 +360,11 @@ fn bad_axes_are_refused_naming_the_option_and_the_accepted_form() {
             &["ballast:nose=0,100"][..],
             "ballast value 100 g is outside the accepted range 0 to 80 g (the bay's limit)",
         ),
-        (&["cg=0,200000"][..], "cg value 200000 mm is outside"),
+        // The aircraft file's own limit on positions (50,000 mm).
+        (
+            &["cg=-60000"][..],
+            "cg value -60000 mm is outside the accepted range -50000 to 50000 mm",
+        ),
         // Names are quoted in the list, so a comma inside one is not read as a separator.
         (&["mass:anvil=1"][..], "'receiver', 'battery, 4 cells', "),
         (&["mass-scale=0,1"][..], "outside the accepted range"),

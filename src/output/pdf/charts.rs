@@ -280,9 +280,17 @@ fn stall_part(
         .collect()
 }
 
-/// The balance symbol on the curve at the present CG (nearest sweep point that trims).
-fn cg_symbol_on_curve(c: &mut Canvas, axes: &Axes, data: &TrimSweep) {
-    let at_cg = data
+/// The trim speed at which the balance symbol goes on the curve: that of the sweep point
+/// nearest the present CG that trims, only when it lies within one sweep step of the CG (a
+/// CG that does not trim, behind the neutral point, gets no symbol on a curve that is not
+/// its own).
+fn cg_symbol_speed(data: &TrimSweep) -> Option<f64> {
+    let (first, last) = (data.points.first()?, data.points.last()?);
+    if data.points.len() < 2 {
+        return None;
+    }
+    let step = (last.0 - first.0).abs() / (data.points.len() - 1) as f64;
+    let (x, v) = data
         .points
         .iter()
         .filter_map(|&(x, v)| v.map(|v| (x, v)))
@@ -290,8 +298,13 @@ fn cg_symbol_on_curve(c: &mut Canvas, axes: &Axes, data: &TrimSweep) {
             (a.0 - data.cg_mm)
                 .abs()
                 .total_cmp(&(b.0 - data.cg_mm).abs())
-        });
-    if let Some((_, v)) = at_cg {
+        })?;
+    ((x - data.cg_mm).abs() <= step * (1.0 + 1e-9)).then_some(v)
+}
+
+/// The balance symbol on the curve at the present CG ([`cg_symbol_speed`]).
+fn cg_symbol_on_curve(c: &mut Canvas, axes: &Axes, data: &TrimSweep) {
+    if let Some(v) = cg_symbol_speed(data) {
         if axes.contains((data.cg_mm, v)) {
             c.cg_symbol(axes.map((data.cg_mm, v)), 1.3);
         }
@@ -394,4 +407,42 @@ pub fn glide_chart(c: &mut Canvas, area: Frame, data: &GlideChart) {
         Marker::Triangle,
         Pen::solid(0.6),
     );
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn sweep(points: Vec<(f64, Option<f64>)>, cg_mm: f64) -> TrimSweep {
+        TrimSweep {
+            points,
+            band_mm: (50.0, 80.0),
+            cg_mm,
+            stall_speed_m_s: 5.0,
+            method: String::new(),
+        }
+    }
+
+    // The symbol marks the present CG's own trim: next to a point that trims it sits on the
+    // curve; a CG far from every trimming point (it does not trim itself) gets none.
+    #[test]
+    fn the_balance_symbol_only_marks_a_cg_that_trims() {
+        let pts = |last_trim: f64| -> Vec<(f64, Option<f64>)> {
+            (0..=10)
+                .map(|i| {
+                    let x = 50.0 + 4.0 * f64::from(i);
+                    (x, (x <= last_trim).then_some(10.0 - 0.05 * x))
+                })
+                .collect()
+        };
+        assert_eq!(
+            cg_symbol_speed(&sweep(pts(90.0), 61.0)),
+            Some(10.0 - 0.05 * 62.0)
+        );
+        assert_eq!(cg_symbol_speed(&sweep(pts(66.0), 88.0)), None);
+        assert_eq!(
+            cg_symbol_speed(&sweep(pts(86.0), 88.0)),
+            Some(10.0 - 0.05 * 86.0)
+        );
+    }
 }
