@@ -1713,7 +1713,8 @@ fn uncertain_aft_limit_caution(
     let limit = band_aft_x_m;
     let cg_aft_end = cg_x_m + cg_spread_m;
     // Inside the band only: forward or aft of it, other cautions speak.
-    let inside = cg_x_m >= band_forward_x_m - 5e-4 && cg_x_m <= band_aft_x_m;
+    // The same half-millimetre allowance as `cg-aft-of-band`, so that one of the two speaks.
+    let inside = cg_x_m >= band_forward_x_m - 5e-4 && cg_x_m <= band_aft_x_m + 5e-4;
     if cg_aft_end > limit && inside {
         let balance_at = limit - cg_spread_m;
         let advice = if balance_at >= band_forward_x_m {
@@ -1754,10 +1755,15 @@ fn uncertain_aft_limit_caution(
             level,
             "cg-aft-of-uncertain-limit",
             format!(
-                "The CG ({:.1} mm) is inside the recommended band, but with two standard \
-                 deviations of the builder's own mass and position tolerances it may lie as far \
-                 aft as {:.1} mm, {:.1} mm aft of {limit_text}. {advice}",
+                "The CG ({:.1} mm) is {}, but with two standard deviations of the builder's \
+                 own mass and position tolerances it may lie as far aft as {:.1} mm, {:.1} mm \
+                 aft of {limit_text}. {advice}",
                 1000.0 * cg_x_m,
+                if cg_x_m > limit {
+                    "on the aft end of the recommended band"
+                } else {
+                    "inside the recommended band"
+                },
                 1000.0 * cg_aft_end,
                 1000.0 * (cg_aft_end - limit),
             ),

@@ -201,6 +201,13 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
             .iter()
             .any(|c| c.code == "cg-aft-of-uncertain-limit")
     };
+    // A CG a fraction of a millimetre aft of the band's end (inside the half-millimetre
+    // that `cg-aft-of-band` allows) with tolerances still gets this caution: one of the two
+    // must speak.
+    let on_end = one_mass(1000.0 * limit + 0.3, "x_tolerance = 5\n");
+    assert!((on_end.mass.cg_x_m - on_end.band.aft_x_m - 3e-4).abs() < 1e-6);
+    assert!(has(&on_end), "{:?}", on_end.cautions);
+    assert!(!on_end.cautions.iter().any(|c| c.code == "cg-aft-of-band"));
     let without = one_mass(x_mm, "");
     assert!(!has(&without), "{:?}", without.cautions);
     let with = one_mass(x_mm, "x_tolerance = 5\n");
