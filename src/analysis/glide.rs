@@ -404,7 +404,9 @@ fn early_separation_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
             "section-separates-early",
             format!(
                 "At the stall speed the {} flies airfoil '{}' at Reynolds number {} up to cl {:.2}, \
-                 but its viscous polar there separates at cl {:.2}: the stall may come at a \
+                 but its viscous polars there (interpolated between the nearest computed Reynolds \
+                 numbers, on a 1.5 deg grid of angles: `trimline section` at one Reynolds number \
+                 may differ) separate at cl {:.2}: the stall may come at a \
                  higher speed than {:.1} m/s. Give that airfoil a cl_max for this Reynolds number, \
                  and fly the first flights well above the stall speed shown.",
                 if e.surface == 0 { "wing" } else { "stabiliser" },

@@ -569,7 +569,7 @@ fn glide_figures(a: &Analysis) -> Vec<KeyFigure> {
                     fmt(g.min_sink_speed_m_s, 1),
                     at_stall(g.min_sink_at_stall),
                     g.min_sink_slow_limit_m_s
-                        .map_or(String::new(), |v| format!("; fly above {}", fmt(v, 1)))
+                        .map_or(String::new(), |v| format!("; fly above {} m/s", fmt(v, 1)))
                 ),
             ));
         }
