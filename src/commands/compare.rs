@@ -79,6 +79,7 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
             out.push((k?, source.clone()));
         }
     }
+    tell_apart_same_names(&mut out);
     let mut figures: Vec<KeyFigures> = out.iter().map(|c| c.0.clone()).collect();
     if trimline::analysis::to_common_reference(&mut figures) {
         for (c, k) in out.iter_mut().zip(figures) {
@@ -86,6 +87,30 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
         }
     }
     Ok(out)
+}
+
+/// Columns that would carry the same name (two files of the same aircraft, say) get their
+/// file's name after it, or a number when the file is the same too.
+fn tell_apart_same_names(out: &mut [(KeyFigures, String)]) {
+    let names: Vec<String> = out.iter().map(|(k, _)| k.name.clone()).collect();
+    for i in 0..out.len() {
+        let same: Vec<usize> = (0..out.len()).filter(|&j| names[j] == names[i]).collect();
+        if same.len() < 2 {
+            continue;
+        }
+        let file = |j: usize| {
+            std::path::Path::new(&out[j].1)
+                .file_name()
+                .map_or_else(|| out[j].1.clone(), |f| f.to_string_lossy().into_owned())
+        };
+        let files_differ = same.iter().filter(|&&j| file(j) == file(i)).count() == 1;
+        out[i].0.name = if files_differ {
+            format!("{} ({})", names[i], file(i))
+        } else {
+            let n = same.iter().position(|&j| j == i).unwrap_or(0) + 1;
+            format!("{} ({n})", names[i])
+        };
+    }
 }
 
 /// Run `compare`.

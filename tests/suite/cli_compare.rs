@@ -118,6 +118,38 @@ fn compare_two_files_as_table() {
     assert!(text.contains("static margin %"));
 }
 
+// Two files that carry the same aircraft name are told apart by their file names; the same
+// file twice by a number (found by a new-user trial: both columns read alike).
+#[test]
+fn columns_of_the_same_name_are_told_apart() {
+    let dir = crate::common::scratch_in("compare-names", "copies");
+    let copy = dir.join("copy.toml");
+    std::fs::copy(
+        concat!(env!("CARGO_MANIFEST_DIR"), "/aircraft/larkspire-2000.toml"),
+        &copy,
+    )
+    .unwrap();
+    let copy = copy.to_str().unwrap();
+    let out = trimline(&[
+        "compare",
+        "--base-only",
+        "aircraft/larkspire-2000.toml",
+        copy,
+    ]);
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(
+        text.contains("Larkspire 2000 (larkspire-2000.toml)")
+            && text.contains("Larkspire 2000 (copy.toml)"),
+        "{text}"
+    );
+    let out = trimline(&["compare", "--base-only", copy, copy]);
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(
+        text.contains("Larkspire 2000 (1)") && text.contains("Larkspire 2000 (2)"),
+        "{text}"
+    );
+}
+
 #[test]
 fn compare_with_nothing_to_compare_fails_cleanly() {
     let out = trimline(&["compare", "--base-only", "aircraft/wrenfield-1400.toml"]);
