@@ -491,23 +491,7 @@ mod tests {
                 }
                 unreachable_station(surface)
             }
-            SurfaceShape::Elliptic(e) => {
-                let s = s_m.clamp(0.0, e.semispan_m);
-                let eta = s / e.semispan_m;
-                let chord_m = e.root_chord_m * (1.0 - eta * eta).max(0.0).sqrt();
-                SpanStation {
-                    s_m: s,
-                    y_m: s * e.dihedral_rad.cos(),
-                    x_le_m: surface.root_le_x_m + 0.25 * (e.root_chord_m - chord_m),
-                    z_m: surface.root_le_z_m + s * e.dihedral_rad.sin(),
-                    chord_m,
-                    twist_rad: eta * e.tip_twist_rad,
-                    dihedral_rad: e.dihedral_rad,
-                    airfoil_inboard: e.root_airfoil,
-                    airfoil_outboard: e.tip_airfoil,
-                    airfoil_weight: eta,
-                }
-            }
+            SurfaceShape::Elliptic(_) => elliptic_station(surface, s_m),
         }
     }
 

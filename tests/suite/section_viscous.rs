@@ -154,19 +154,24 @@ fn a_converged_point_is_steady_when_the_tolerance_is_tightened() {
     }
 }
 
+/// (cl, cd) of NACA `d` at `re` and `alpha_deg` for each panel count.
+fn by_panels(d: &str, re: f64, alpha_deg: f64, panels: &[usize]) -> Vec<(f64, f64)> {
+    let a = alpha_deg.to_radians();
+    panels
+        .iter()
+        .map(|&n| {
+            let p = section(d, re, n).solve(a).unwrap();
+            (p.cl, p.cd)
+        })
+        .collect()
+}
+
 #[test]
 fn polar_converges_with_panel_count() {
     // Method property (common practice): cl and cd settle as the panels are refined.
     // Where the transition sits near the leading edge (NACA 0012 at Re 2e5 and 8 deg) each
     // step from 120 to 320 panels moves cl by less than 0.5 % and cd by less than 1 %.
-    let a = 8f64.to_radians();
-    let r: Vec<(f64, f64)> = [120, 160, 240, 320]
-        .iter()
-        .map(|&n| {
-            let p = section("0012", 2e5, n).solve(a).unwrap();
-            (p.cl, p.cd)
-        })
-        .collect();
+    let r = by_panels("0012", 2e5, 8.0, &[120, 160, 240, 320]);
     for w in r.windows(2) {
         assert!((w[1].0 / w[0].0 - 1.0).abs() < 0.005, "{r:?}");
         assert!((w[1].1 / w[0].1 - 1.0).abs() < 0.01, "{r:?}");
@@ -175,14 +180,7 @@ fn polar_converges_with_panel_count() {
     // mid-chord (NACA 2412 at Re 1e6 and 4 deg), the direct coupling pulls it forward as the
     // panels are refined, so cd rises by 3-5 % a step from 120 to 240 panels (cl still within
     // 0.5 %). The bound below is that drift, so that a worse one fails.
-    let a = 4f64.to_radians();
-    let r: Vec<(f64, f64)> = [120, 160, 240]
-        .iter()
-        .map(|&n| {
-            let p = section("2412", 1e6, n).solve(a).unwrap();
-            (p.cl, p.cd)
-        })
-        .collect();
+    let r = by_panels("2412", 1e6, 4.0, &[120, 160, 240]);
     for w in r.windows(2) {
         assert!((w[1].0 / w[0].0 - 1.0).abs() < 0.005, "{r:?}");
         assert!((w[1].1 / w[0].1 - 1.0).abs() < 0.06, "{r:?}");
