@@ -166,6 +166,14 @@ pub fn parse_quantity(text: &str, dim: Dimension) -> Result<f64, String> {
     }
     match dim.unit_factor(unit) {
         Some(f) => Ok(value * f),
+        // "95,5": a decimal comma, not a unit.
+        None if unit.starts_with(',') && unit[1..].starts_with(|c: char| c.is_ascii_digit()) => {
+            Err(format!(
+                "`{text}` has a decimal comma: write a decimal point (`{}.{}`)",
+                num.trim(),
+                &unit[1..]
+            ))
+        }
         None => Err(format!("unit `{unit}` is not accepted here")),
     }
 }
@@ -173,6 +181,16 @@ pub fn parse_quantity(text: &str, dim: Dimension) -> Result<f64, String> {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    // A decimal comma (common in much of Europe) is named as such, with the number as it
+    // should be written, instead of being read as a unit ",5".
+    #[test]
+    fn a_decimal_comma_is_named() {
+        let e = parse_quantity("95,5", Dimension::Mass).unwrap_err();
+        assert!(e.contains("decimal comma") && e.contains("`95.5`"), "{e}");
+        let e = parse_quantity("12 furlongs", Dimension::Mass).unwrap_err();
+        assert!(e.contains("unit `furlongs`"), "{e}");
+    }
     use approx::assert_relative_eq;
 
     // Conversion factors are exact by definition (international inch, pound and knot).
