@@ -18,6 +18,7 @@ mod flight_polar;
 mod fuselage;
 mod fuzz_properties;
 mod geometry;
+mod golden_check;
 mod hostile_input;
 mod input_errors;
 mod input_file;
