@@ -1744,7 +1744,8 @@ fn uncertain_aft_limit_caution(
                 "the band's aft end, {:.1} mm, which keeps the smallest margin from the forward \
                  end of the neutral point's uncertainty range ({:.0} mm ahead of the computed \
                  point: two standard deviations from common-practice spreads of tail \
-                 efficiency, downwash, fuselage and section lift slopes)",
+                 efficiency, downwash, fuselage, section lift slopes and the wing's \
+                 aerodynamic centre)",
                 1000.0 * limit,
                 1000.0 * spread_m
             )

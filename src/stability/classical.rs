@@ -73,9 +73,17 @@ pub struct EquivalentSurface {
     /// which is the projected area times the cosine (the V-tail projection of Purser and
     /// Campbell, NACA Report 823, 1945); equal to the area of a flat surface.
     pub pitch_area_m2: f64,
+    /// Aspect ratio of the true (in-plane) span and area (the projected one for a flat
+    /// surface).
+    pub true_aspect_ratio: f64,
+}
+
+impl EquivalentSurface {
     /// Helmbold lift slope on the true (in-plane) aspect ratio, per rad: the slope that goes
     /// with [`EquivalentSurface::pitch_area_m2`].
-    pub pitch_lift_slope_per_rad: f64,
+    pub fn pitch_lift_slope_per_rad(&self) -> f64 {
+        helmbold_lift_slope(self.section_cl_alpha_per_rad, self.true_aspect_ratio)
+    }
 }
 
 /// Helmbold's lift slope for aspect ratio `aspect_ratio` and section slope `a0_per_rad`, per rad.
@@ -139,7 +147,7 @@ pub fn equivalent_surface(surface: &Surface, sections: &[SectionModel]) -> Equiv
         lift_slope_per_rad: helmbold_lift_slope(section_cl_alpha, geometry.aspect_ratio),
         x_ac_m: geometry.mac_quarter_x_m(),
         pitch_area_m2: pitch_area,
-        pitch_lift_slope_per_rad: helmbold_lift_slope(section_cl_alpha, true_aspect_ratio),
+        true_aspect_ratio,
     }
 }
 
@@ -248,7 +256,7 @@ fn linear_model(input: &EstimateInput<'_>, x_ref_m: f64, downwash_gradient: f64)
         stab_cl_a: 0.0,
     };
     if let Some((t, _)) = input.stabiliser {
-        let a_t = t.pitch_lift_slope_per_rad;
+        let a_t = t.pitch_lift_slope_per_rad();
         let ratio = input.stabiliser_dynamic_pressure_ratio * t.pitch_area_m2 / s;
         // Downwash eps = (d eps/d alpha) CL_w / a_w.
         let e0 = downwash_gradient * clw0 / a_w;
@@ -279,7 +287,7 @@ pub fn estimate(input: &EstimateInput<'_>) -> ClassicalEstimate {
         None => w.x_ac_m,
         Some((t, _)) => {
             let k = input.stabiliser_dynamic_pressure_ratio * t.pitch_area_m2 / w.geometry.area_m2
-                * t.pitch_lift_slope_per_rad
+                * t.pitch_lift_slope_per_rad()
                 * (1.0 - downwash_gradient);
             (a_w * w.x_ac_m + k * t.x_ac_m) / (a_w + k)
         }

@@ -12,6 +12,7 @@
 //! | downwash gradient | 15 % | a judgement: the simple far-wake form ignores the tail's height and distance behind the wing |
 //! | fuselage term dCm_f | 30 % | a judgement: Gilruth-White is an empirical fit |
 //! | section lift slopes (wing, tail) | 7 % each | a judgement: panel-method slopes are inviscid and real model sections fall below them |
+//! | wing aerodynamic centre | 1.5 % of the MAC (absolute) | a judgement: measured section aerodynamic centres lie between about 0.24 and 0.27 of the chord (Abbott and von Doenhoff, *Theory of Wing Sections*, app. IV; from memory) and move with laminar separation bubbles at model Reynolds numbers; the spanwise loading of a swept or twisted wing adds model error of about the same size (common practice). It is the main term of a tailless wing, whose neutral point is the wing's own aerodynamic centre |
 //!
 //! The linear estimate is `sigma^2 = sum (d x_n / d p_i sigma_i)^2` with central differences
 //! in each input (the inputs taken independent); the Monte Carlo samples every input from a
@@ -69,6 +70,9 @@ pub fn cg_spread(masses: &[MassItem], tolerances: &Tolerances) -> CgSpread {
     }
 }
 
+/// How many uncertain inputs there are.
+pub const INPUT_COUNT: usize = 6;
+
 /// Spreads (one standard deviation) of the uncertain inputs.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Spreads {
@@ -82,6 +86,8 @@ pub struct Spreads {
     pub wing_section_slope: f64,
     /// Stabiliser section lift slope, relative.
     pub stabiliser_section_slope: f64,
+    /// Position of the wing's aerodynamic centre, absolute, as a fraction of the wing's MAC.
+    pub wing_aerodynamic_centre_mac: f64,
 }
 
 /// The spreads of the table in the module doc (common practice).
@@ -91,15 +97,17 @@ pub const COMMON_SPREADS: Spreads = Spreads {
     fuselage: 0.30,
     wing_section_slope: 0.07,
     stabiliser_section_slope: 0.07,
+    wing_aerodynamic_centre_mac: 0.015,
 };
 
 /// Names of the inputs, in the order of [`NeutralPointSpread::contributions_m`].
-pub const INPUT_NAMES: [&str; 5] = [
+pub const INPUT_NAMES: [&str; INPUT_COUNT] = [
     "tail dynamic-pressure ratio",
     "downwash gradient",
     "fuselage term",
     "wing section lift slope",
     "stabiliser section lift slope",
+    "wing aerodynamic centre",
 ];
 
 /// The neutral point's spread.
@@ -108,12 +116,12 @@ pub struct NeutralPointSpread {
     /// Combined standard deviation, m.
     pub sigma_m: f64,
     /// Each input's share (sensitivity times spread), m, signed, in [`INPUT_NAMES`] order.
-    pub contributions_m: [f64; 5],
+    pub contributions_m: [f64; INPUT_COUNT],
 }
 
-/// Deviations of the five inputs from their nominal values, in units of the inputs
-/// (absolute for eta, relative for the others).
-fn neutral_point_with(input: &EstimateInput<'_>, d: [f64; 5]) -> f64 {
+/// Deviations of the inputs from their nominal values, in units of the inputs (absolute for
+/// eta and for the wing's aerodynamic centre, a fraction of its MAC; relative for the others).
+fn neutral_point_with(input: &EstimateInput<'_>, d: [f64; INPUT_COUNT]) -> f64 {
     let surface = |s: &EquivalentSurface, rel: f64| {
         let a0 = s.section_cl_alpha_per_rad * (1.0 + rel);
         EquivalentSurface {
@@ -122,7 +130,8 @@ fn neutral_point_with(input: &EstimateInput<'_>, d: [f64; 5]) -> f64 {
             ..*s
         }
     };
-    let wing = surface(input.wing, d[3]);
+    let mut wing = surface(input.wing, d[3]);
+    wing.x_ac_m += d[5] * wing.geometry.mac_m;
     let stab = input.stabiliser.map(|(s, place)| (surface(s, d[4]), place));
     estimate(&EstimateInput {
         wing: &wing,
@@ -135,27 +144,28 @@ fn neutral_point_with(input: &EstimateInput<'_>, d: [f64; 5]) -> f64 {
     .neutral_point_x_m
 }
 
-fn sigmas(s: &Spreads) -> [f64; 5] {
+fn sigmas(s: &Spreads) -> [f64; INPUT_COUNT] {
     [
         s.dynamic_pressure_ratio,
         s.downwash_gradient,
         s.fuselage,
         s.wing_section_slope,
         s.stabiliser_section_slope,
+        s.wing_aerodynamic_centre_mac,
     ]
 }
 
 /// The linear (first-order) spread of the closed-form neutral point of `input`.
 pub fn linear_spread(input: &EstimateInput<'_>, spreads: &Spreads) -> NeutralPointSpread {
     let sig = sigmas(spreads);
-    let mut contributions_m = [0.0; 5];
-    for i in 0..5 {
+    let mut contributions_m = [0.0; INPUT_COUNT];
+    for i in 0..INPUT_COUNT {
         if sig[i] == 0.0 {
             continue;
         }
         // Central difference over +-1 % of the spread: the derivative, to second order.
         let h = 0.01 * sig[i];
-        let (mut up, mut down) = ([0.0; 5], [0.0; 5]);
+        let (mut up, mut down) = ([0.0; INPUT_COUNT], [0.0; INPUT_COUNT]);
         up[i] = h;
         down[i] = -h;
         let slope = (neutral_point_with(input, up) - neutral_point_with(input, down)) / (2.0 * h);
@@ -200,8 +210,8 @@ pub fn monte_carlo_sigma_m(
     let mut rng = Xorshift(seed.max(1));
     let (mut sum, mut sum2) = (0.0, 0.0);
     for _ in 0..samples {
-        let mut d = [0.0; 5];
-        for i in 0..5 {
+        let mut d = [0.0; INPUT_COUNT];
+        for i in 0..INPUT_COUNT {
             d[i] = sig[i] * rng.normal();
         }
         let x = neutral_point_with(input, d);

@@ -317,7 +317,7 @@ fn json_carries_the_flight_polar() {
 fn an_unstable_aircraft_gets_no_glide_figures() {
     let text = std::fs::read_to_string("aircraft/larkspire-2000.toml")
         .unwrap()
-        .replace("x = -340", "x = 300");
+        .replace("x = -360", "x = 300");
     let ac = trimline::input::parse_aircraft(&text, "unstable.toml", None).unwrap();
     let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
     assert!(a.headline.static_margin < 0.0);

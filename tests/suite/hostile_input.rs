@@ -384,7 +384,7 @@ fn implausible_geometry_and_masses_are_refused_or_cautioned() {
 fn exit_code_3_on_a_danger_unless_asked_otherwise() {
     let dir = scratch("exit-codes");
     // The battery far aft puts the CG behind the neutral point: danger.
-    let text = demo_with("mass = 60\nx = -340", "mass = 600\nx = 500");
+    let text = demo_with("mass = 60\nx = -360", "mass = 600\nx = 500");
     std::fs::write(dir.join("a.toml"), text).unwrap();
     let out = trimline(&["check", "a.toml"], &dir);
     assert_eq!(out.status.code(), Some(3), "{}", err(&out));

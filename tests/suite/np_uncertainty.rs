@@ -59,6 +59,7 @@ fn zero_spreads_collapse_the_range() {
         fuselage: 0.0,
         wing_section_slope: 0.0,
         stabiliser_section_slope: 0.0,
+        wing_aerodynamic_centre_mac: 0.0,
     };
     with_input(FUSELAGE, |input| {
         let s = linear_spread(input, &zero);
@@ -151,5 +152,118 @@ fn the_range_reaches_json_table_and_report_alike() {
             .contains(&format!("forward end of its range {:.0} mm", 1000.0 * fwd)),
         "{}",
         np_line.value
+    );
+}
+
+// The wing aerodynamic centre's share is the analytic derivative of the lift-weighted neutral
+// point (Etkin & Reid, Dynamics of Flight, sec. 2.4): d x_n / d x_w = a_w / (a_w + k), the
+// fuselage term not depending on x_w; times its spread of 1.5 % of the MAC.
+#[test]
+fn wing_aerodynamic_centre_share_is_the_analytic_derivative() {
+    with_input(FUSELAGE, |input| {
+        let eta = input.stabiliser_dynamic_pressure_ratio;
+        let (w, (t, _)) = (input.wing, input.stabiliser.unwrap());
+        let a_w = w.lift_slope_per_rad;
+        let de = 2.0 * a_w / (std::f64::consts::PI * w.geometry.aspect_ratio);
+        let k =
+            eta * t.pitch_area_m2 / w.geometry.area_m2 * t.pitch_lift_slope_per_rad() * (1.0 - de);
+        let expected =
+            a_w / (a_w + k) * COMMON_SPREADS.wing_aerodynamic_centre_mac * w.geometry.mac_m;
+        let s = linear_spread(input, &COMMON_SPREADS);
+        assert!(
+            (s.contributions_m[5] - expected).abs() < 1e-6 * expected,
+            "{} vs {expected}",
+            s.contributions_m[5]
+        );
+    });
+}
+
+// The stabiliser's section-slope share by the chain rule (Etkin & Reid, sec. 2.4, no
+// fuselage): d x_n / d k = (x_t - x_n) / (a_w + k), k proportional to the tail's finite lift
+// slope a_t, and a_t = Helmbold's slope of the section slope a0 on the true aspect ratio
+// (Helmbold's equation, e.g. McCormick, Aerodynamics, Aeronautics and Flight Mechanics, ch. 3),
+// so dk = k (d a_t / d a0) a0 sigma / a_t for a relative spread sigma of a0. It must not be
+// zero: a tailed aircraft's neutral point moves with its tail's lift slope.
+#[test]
+fn stabiliser_section_slope_share_is_the_chain_rule_derivative() {
+    use trimline::stability::classical::helmbold_lift_slope;
+    with_input("", |input| {
+        let eta = input.stabiliser_dynamic_pressure_ratio;
+        let (w, (t, _)) = (input.wing, input.stabiliser.unwrap());
+        let a_w = w.lift_slope_per_rad;
+        let de = 2.0 * a_w / (std::f64::consts::PI * w.geometry.aspect_ratio);
+        let a0 = t.section_cl_alpha_per_rad;
+        let a_t = helmbold_lift_slope(a0, t.true_aspect_ratio);
+        let k = eta * t.pitch_area_m2 / w.geometry.area_m2 * a_t * (1.0 - de);
+        let x_n = (a_w * w.x_ac_m + k * t.x_ac_m) / (a_w + k);
+        let h = 1e-6 * a0;
+        let dat_da0 = (helmbold_lift_slope(a0 + h, t.true_aspect_ratio)
+            - helmbold_lift_slope(a0 - h, t.true_aspect_ratio))
+            / (2.0 * h);
+        let sigma = COMMON_SPREADS.stabiliser_section_slope;
+        let expected = (t.x_ac_m - x_n) / (a_w + k) * k / a_t * dat_da0 * a0 * sigma;
+        let s = linear_spread(input, &COMMON_SPREADS);
+        assert!(
+            expected.abs() > 1e-4,
+            "the share should be felt: {expected}"
+        );
+        assert!(
+            (s.contributions_m[4] - expected).abs() < 1e-5 * expected.abs(),
+            "{} vs {expected}",
+            s.contributions_m[4]
+        );
+    });
+}
+
+// A tailless wing's neutral point is its own aerodynamic centre (Etkin & Reid, sec. 2.4, with
+// no tail), so without a fuselage its spread is exactly the aerodynamic centre's, 1.5 % of the
+// MAC; and the example flying wing's recommended band then ends the smallest margin ahead of
+// the range's forward end, not of the computed neutral point (the safe side).
+#[test]
+fn a_tailless_wing_has_a_neutral_point_range_and_its_band_allows_for_it() {
+    let text = std::fs::read_to_string("aircraft/skerrywing-900.toml").unwrap();
+    let ac = parse_aircraft(&text, "s.toml", None).unwrap();
+    assert!(ac.stabiliser.is_none(), "the example should be tailless");
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    let input = EstimateInput {
+        wing: &a.wing,
+        stabiliser: None,
+        mass_kg: a.mass.total_kg,
+        cg_x_m: a.mass.cg_x_m,
+        density_kg_m3: a.air.density_kg_m3,
+        fuselage_cm_alpha_per_rad: 0.0,
+        stabiliser_dynamic_pressure_ratio: 1.0,
+        downwash_factor: 1.0,
+    };
+    let mac = a.wing_geometry.mac_m;
+    let s = linear_spread(&input, &COMMON_SPREADS);
+    assert!(
+        (s.sigma_m - 0.015 * mac).abs() < 1e-9 * mac,
+        "{} vs {}",
+        s.sigma_m,
+        0.015 * mac
+    );
+    let mc = monte_carlo_sigma_m(&input, &COMMON_SPREADS, 20_000, 99);
+    assert!(
+        (mc - s.sigma_m).abs() < 0.03 * s.sigma_m,
+        "MC {mc} vs {}",
+        s.sigma_m
+    );
+
+    let sigma = a.neutral_point_spread.sigma_m;
+    assert!(
+        sigma >= 0.015 * mac * 0.999,
+        "{sigma} m against MAC {mac} m"
+    );
+    assert_eq!(
+        a.band.aft_limit,
+        trimline::analysis::AftLimit::NeutralPointRange
+    );
+    let expected_aft =
+        a.headline.neutral_point_x_m - 2.0 * sigma - ac.margin_limits.min_static_margin * mac;
+    assert!(
+        (a.band.aft_x_m - expected_aft).abs() < 1e-6,
+        "{} vs {expected_aft}",
+        a.band.aft_x_m
     );
 }

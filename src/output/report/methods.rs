@@ -20,6 +20,9 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
     if let Some(line) = fin_method(a) {
         out.push(line);
     }
+    if let Some(line) = neutral_point_range_method(a) {
+        out.push(line);
+    }
     if a.cg_spread.sigma_m > 0.0 {
         out.push(
             "CG range: your mass and position tolerances as standard deviations, propagated to first order (ISO Guide to the Expression of Uncertainty in Measurement, sec. 5.1)."
@@ -27,6 +30,35 @@ pub fn methods(aircraft: &Aircraft, a: &Analysis) -> Vec<String> {
         );
     }
     out
+}
+
+/// The methods line of the neutral point's range: the spread of each input that moves it
+/// (those with no share, like a tail's on a tailless wing, are left out).
+fn neutral_point_range_method(a: &Analysis) -> Option<String> {
+    use crate::stability::uncertainty::{COMMON_SPREADS as S, INPUT_NAMES};
+    let spread = a.neutral_point_spread;
+    if !(spread.sigma_m.is_finite() && spread.sigma_m > 0.0) {
+        return None;
+    }
+    let values = [
+        format!("{:.2}", S.dynamic_pressure_ratio),
+        format!("{:.0} %", 100.0 * S.downwash_gradient),
+        format!("{:.0} %", 100.0 * S.fuselage),
+        format!("{:.0} %", 100.0 * S.wing_section_slope),
+        format!("{:.0} %", 100.0 * S.stabiliser_section_slope),
+        format!("{:.1} % of the MAC", 100.0 * S.wing_aerodynamic_centre_mac),
+    ];
+    let items: Vec<String> = INPUT_NAMES
+        .iter()
+        .zip(values)
+        .zip(spread.contributions_m)
+        .filter(|(_, share)| share.abs() > 0.0)
+        .map(|((name, value), _)| format!("{name} {value}"))
+        .collect();
+    Some(format!(
+        "Neutral-point range: 2 standard deviations of assumed spreads (judgements, common practice), to first order (ISO GUM sec. 5.1): {}.",
+        items.join(", ")
+    ))
 }
 
 /// The methods line of the airfoil sections used.
