@@ -571,6 +571,8 @@ pub struct SpeedToFlyJson {
     pub glide_ratio_in_air: f64,
     /// True when it is the top of the range.
     pub at_top_speed: bool,
+    /// True when a section's drag there was extrapolated beyond its polar.
+    pub drag_extrapolated: bool,
 }
 
 /// `/flight_polar/speed_to_fly_between_thermals/N`
@@ -584,6 +586,8 @@ pub struct ThermalSpeedJson {
     pub cross_country_speed_m_s: f64,
     /// True when it is the top of the range.
     pub at_top_speed: bool,
+    /// True when a section's drag there was extrapolated beyond its polar.
+    pub drag_extrapolated: bool,
 }
 
 /// `/flight_polar/profile_drag/N`
@@ -646,6 +650,7 @@ fn flight_polar_json(aircraft: &Aircraft, p: &GlidePolar) -> FlightPolarJson {
                 speed_m_s: r(s.speed_m_s, 3),
                 glide_ratio_in_air: r(s.glide_ratio_in_air, 2),
                 at_top_speed: s.at_top_speed,
+                drag_extrapolated: s.drag_extrapolated,
             })
             .collect(),
         speed_to_fly_between_thermals: p
@@ -656,6 +661,7 @@ fn flight_polar_json(aircraft: &Aircraft, p: &GlidePolar) -> FlightPolarJson {
                 speed_m_s: r(s.speed_m_s, 3),
                 cross_country_speed_m_s: r(s.cross_country_speed_m_s, 3),
                 at_top_speed: s.at_top_speed,
+                drag_extrapolated: s.drag_extrapolated,
             })
             .collect(),
         profile_drag: p

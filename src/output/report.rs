@@ -435,9 +435,14 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
         ));
     }
     out.extend(glide_figures(a));
+    let at = if a.headline.trim.is_some() {
+        "at trim"
+    } else {
+        "at the stall"
+    };
     out.push(kf(
         "Reynolds number (MAC)",
-        crate::caution::reynolds_text(a.reynolds_mac),
+        format!("{} {at}", crate::caution::reynolds_text(a.reynolds_mac)),
     ));
     out
 }

@@ -236,7 +236,7 @@ pub fn render_viscous(reports: &[ViscousReport]) -> String {
             ("Zero-lift angle", opt(r.alpha_zero_lift_deg, 2), "deg"),
             ("Lift slope", opt(r.cl_alpha_per_rad, 3), "per rad"),
             ("Lift slope", opt(r.cl_alpha_per_deg, 4), "per deg"),
-            ("Least cd", opt(r.cd_min, 5), ""),
+            ("Least cd of the angles computed", opt(r.cd_min, 5), ""),
             ("  at cl", opt(r.cl_at_cd_min, 3), ""),
             (peak_name, opt(r.cl_max, 3), ""),
             ("  at alpha", opt(r.stall_alpha_deg, 1), "deg"),

@@ -90,7 +90,7 @@ pub fn check_report(aircraft: &Aircraft, a: &Analysis, source: &str, u: UnitSyst
     out.push_str("\nTrim and stall\n");
     out.push_str(&trim_table(aircraft, a, u).to_string());
     if let Some(t) = spanwise_table(a, u) {
-        out.push_str("\n\nSpanwise loading of the wing (starboard half)\n");
+        out.push_str("\n\nSpanwise loading of the wing (starboard half, at the strip centres)\n");
         out.push_str(&t.to_string());
     }
     if let Some(p) = &a.glide_polar {
@@ -535,8 +535,8 @@ fn best_setting_table(
 }
 
 /// What to say after a speed to fly that lies on an end of the speeds flown.
-fn end_note(s: &crate::performance::flight_polar::SpeedToFly) -> &'static str {
-    if s.at_control_limit && s.on_slow_end {
+fn end_note(s: &crate::performance::flight_polar::SpeedToFly) -> String {
+    let end = if s.at_control_limit && s.on_slow_end {
         " (the slowest the control trims)"
     } else if s.at_control_limit {
         " (the fastest the control trims)"
@@ -544,7 +544,13 @@ fn end_note(s: &crate::performance::flight_polar::SpeedToFly) -> &'static str {
         " (top speed)"
     } else {
         ""
-    }
+    };
+    let drag = if s.drag_extrapolated {
+        " (drag extrapolated)"
+    } else {
+        ""
+    };
+    format!("{end}{drag}")
 }
 
 /// The speed to fly between thermals for a few expected climbs.

@@ -175,6 +175,9 @@ pub struct SpeedToFly {
     pub at_control_limit: bool,
     /// True when the best speed is the slow end of the trimmable speeds.
     pub on_slow_end: bool,
+    /// True when a section's drag at that speed was extrapolated beyond its polar's
+    /// converged points (the speed is then less certain).
+    pub drag_extrapolated: bool,
     /// Mean cross-country speed when each glide is followed by a climb at `climb_m_s`,
     /// `V_h m / (m + w + s)`, m/s (0 when no climb is expected).
     pub cross_country_speed_m_s: f64,
@@ -417,6 +420,7 @@ impl<T: Clone> FlightPolar<T> {
             at_top_speed: o.at_top_speed,
             at_control_limit: o.at_control_limit,
             on_slow_end: o.on_slow_end,
+            drag_extrapolated: p.drag.beyond_polar,
             cross_country_speed_m_s: if climb_m_s > 0.0 {
                 p.horizontal_speed_m_s() * climb_m_s / (climb_m_s + p.sink_m_s + air_sink_m_s)
             } else {
@@ -471,6 +475,54 @@ mod tests {
             assert!((q.glide_ratio - q.cl / cd).abs() < 1e-12);
             assert!((q.horizontal_speed_m_s() / q.sink_m_s - q.cl / cd).abs() < 1e-9);
         }
+    }
+
+    /// The parabolic polar whose section drag counts as extrapolated below `cl_edge` (the
+    /// fast end, where real polars run out of converged low-lift angles).
+    struct EdgedParabolic {
+        inner: Parabolic,
+        cl_edge: f64,
+    }
+
+    impl DragSource for EdgedParabolic {
+        type Trim = f64;
+        fn trim(&self, cl: f64) -> Option<f64> {
+            Some(cl)
+        }
+        fn drag(&self, cl: &f64, speed_m_s: f64) -> Drag {
+            Drag {
+                beyond_polar: *cl < self.cl_edge,
+                ..self.inner.drag(cl, speed_m_s)
+            }
+        }
+        fn flyable(&self, _: &f64) -> bool {
+            true
+        }
+    }
+
+    // A speed to fly that falls where the drag is extrapolated says so; one on the polar's
+    // converged part does not (the flag follows the chosen point's own drag).
+    #[test]
+    fn speed_to_fly_in_the_extrapolated_range_is_marked() {
+        let s = EdgedParabolic {
+            inner: Parabolic { cd0: 0.02, k: 0.04 },
+            cl_edge: 0.3,
+        };
+        let c = PolarConditions {
+            mass_kg: 1.0,
+            density_kg_m3: 1.2,
+            area_m2: 0.4,
+            cl_stall: 1.2,
+            top_speed_m_s: 25.0,
+            points: 40,
+            trim_cl: None,
+        };
+        let p = flight_polar(&s, &c).unwrap();
+        let still = p.speed_to_fly(&s, 0.0, 0.0).unwrap();
+        let fast = p.speed_to_fly(&s, 3.0, 0.0).unwrap();
+        let cl_of = |v: f64| 2.0 * G0 / (1.2 * 0.4 * v * v);
+        assert!(cl_of(still.speed_m_s) > 0.3 && !still.drag_extrapolated);
+        assert!(cl_of(fast.speed_m_s) < 0.3 && fast.drag_extrapolated);
     }
 
     #[test]

@@ -326,6 +326,19 @@ fn an_unstable_aircraft_gets_no_glide_figures() {
     let v = serde_json::to_value(trimline::output::json::check_document(&ac, &a, "u")).unwrap();
     assert_eq!(v["glide"]["source"], "none-unstable");
     assert!(v["glide"]["min_sink_m_s"].is_null());
+    // Without a trim the Reynolds number is taken at the stall speed, and its label says so
+    // (a trial read it as the trim's).
+    assert!(a.headline.trim.is_none());
+    let text = trimline::output::tables::check_report(
+        &ac,
+        &a,
+        "u",
+        trimline::output::units::UnitSystem::Metric,
+    );
+    assert!(
+        text.contains("Reynolds number on MAC at the stall speed (no trim)"),
+        "{text}"
+    );
 }
 
 // A CSV path that names an existing file that is not such a CSV (the aircraft file itself,

@@ -266,3 +266,29 @@ fn elevon_chord_out_of_range_names_the_range() {
     assert!(e.contains("wing.elevons.chord"), "{e}");
     assert!(e.contains("more than 0% to less than 100%"), "{e}");
 }
+
+// The coordinates example that aircraft/README.md prints is a file `section` accepts: a
+// builder who copies it gets a result, not a refusal (a trial found a 5-point example that the
+// 8-point minimum refused).
+#[test]
+fn the_readme_coordinates_example_is_accepted() {
+    let root = std::path::Path::new(env!("CARGO_MANIFEST_DIR"));
+    let doc = std::fs::read_to_string(root.join("aircraft/README.md")).unwrap();
+    let after = doc
+        .split("#### Coordinates files")
+        .nth(1)
+        .expect("the coordinates section");
+    let block = after
+        .split("```")
+        .nth(1)
+        .expect("a code block in the coordinates section");
+    let dir = crate::common::scratch_in("input-file-tests", "readme-coordinates");
+    std::fs::write(dir.join("my.dat"), block.trim_start_matches('\n')).unwrap();
+    let out = crate::common::run_trimline(&["section", "my.dat", "--alpha", "0,4"], &dir);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    assert!(String::from_utf8_lossy(&out.stdout).contains("My section"));
+}

@@ -13,8 +13,14 @@ pub(super) fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Ta
     trim_load_rows(&mut t, aircraft, a, u);
     stall_rows(&mut t, a);
     glide_rows(&mut t, a);
+    // The Reynolds number is taken at the trim speed, or at the stall speed without a trim.
+    let at = if a.headline.trim.is_some() {
+        "at trim"
+    } else {
+        "at the stall speed (no trim)"
+    };
     t.add_row(vec![
-        "Reynolds number on MAC".into(),
+        format!("Reynolds number on MAC {at}"),
         crate::caution::reynolds_text(a.reynolds_mac),
         String::new(),
     ]);
