@@ -10,7 +10,7 @@
 //!
 //! The polar is computed on a grid of lift coefficients (equally spaced in speed from the
 //! stall to the top speed); minimum sink, best glide and the speed to fly are then refined
-//! by golden-section search between the grid neighbours of the best grid point, only over
+//! by Brent's minimisation between the grid neighbours of the best grid point, only over
 //! points that can be trimmed within the control throws. An optimum on the end of the range
 //! is flagged (`at_stall`, `at_top_speed`): it is where the range ends, not an optimum.
 //!
@@ -26,9 +26,10 @@
 //! - P. B. MacCready Jr., "Optimum airspeed selector", *Soaring*, Jan.-Feb. 1958 (the speed
 //!   to fly from the polar shifted by the air's sink and the expected climb; from memory);
 //!   H. Reichmann, *Cross-Country Soaring*, ch. 1 (the tangent construction; from memory).
-//! - Golden-section search: W. H. Press et al., *Numerical Recipes*, 3rd ed., sec. 10.2.
+//! - The optimum's search: Brent's minimisation, see [`crate::numeric::brent_min`].
 
 use crate::atmosphere::G0;
+use crate::numeric::brent_min::{find_minimum, MinSettings};
 
 /// Drag coefficients of one trimmed state, on the reference area.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
@@ -263,39 +264,16 @@ fn grid_cl(cond: &PolarConditions, speed_m_s: f64) -> f64 {
     2.0 * cond.mass_kg * G0 / (cond.density_kg_m3 * cond.area_m2 * speed_m_s * speed_m_s)
 }
 
-/// Golden-section search for the least `f` over `[a, b]`.
-fn golden_min(mut a: f64, mut b: f64, f: &mut dyn FnMut(f64) -> f64) -> f64 {
-    let r = 0.5 * (5f64.sqrt() - 1.0);
-    let mut x1 = b - r * (b - a);
-    let mut x2 = a + r * (b - a);
-    let (mut f1, mut f2) = (f(x1), f(x2));
-    for _ in 0..60 {
-        if (b - a).abs() <= 1e-10 * (a.abs() + b.abs()) {
-            break;
-        }
-        if f1 <= f2 {
-            b = x2;
-            x2 = x1;
-            f2 = f1;
-            x1 = b - r * (b - a);
-            f1 = f(x1);
-        } else {
-            a = x1;
-            x1 = x2;
-            f1 = f2;
-            x2 = a + r * (b - a);
-            f2 = f(x2);
-        }
-    }
-    if f1 <= f2 {
-        x1
-    } else {
-        x2
-    }
-}
+/// How closely an optimum's C_L is searched for: a minimum is defined only to about the
+/// square root of the rounding of the objective (see [`crate::numeric::brent_min`]).
+const OPTIMUM_SEARCH: MinSettings = MinSettings {
+    rel_tolerance: 1e-8,
+    abs_tolerance: 1e-12,
+    max_evaluations: 100,
+};
 
 /// The least of `objective` over the flyable part of `points` (rising speed), refined between
-/// the best grid point's flyable neighbours by golden section in C_L.
+/// the best grid point's flyable neighbours by Brent's method in C_L.
 fn optimum<D: DragSource>(
     source: &D,
     points: &[GlidePoint<D::Trim>],
@@ -325,7 +303,7 @@ fn optimum<D: DragSource>(
                 .map_or(f64::INFINITY, |p| objective(&p)),
             None => f64::INFINITY,
         };
-        let cl = golden_min(cl_a, cl_b, &mut f);
+        let cl = find_minimum(cl_a, cl_b, OPTIMUM_SEARCH, &mut f).x;
         if let Some(t) = source.trim(cl) {
             let p = glide_at(source, t, cl, cond)?;
             if p.flyable && objective(&p) <= objective(&chosen) {
