@@ -18,8 +18,8 @@ pub struct CompareArgs {
     /// Leave out the named setups: compare the files' base configurations only.
     #[arg(long)]
     pub base_only: bool,
-    /// Print JSON instead of a table: the same figures in the same units (mm, g, m/s, deg,
-    /// as each key's name says), described in docs/json.md.
+    /// Print JSON instead of a table: the same figures in the SI units of `check --json`
+    /// (m, kg, m/s, deg, as each key's name says), described in docs/json.md.
     #[arg(long)]
     pub json: bool,
     /// Also write a one-page comparison PDF: to PATH, or to
@@ -36,8 +36,8 @@ pub struct CompareArgs {
     /// Exit with code 0 even when a configuration raises a danger-level caution (otherwise 3).
     #[arg(long)]
     pub exit_zero_on_danger: bool,
-    /// Units of the table: metric (mm, g) or imperial (in, oz); the JSON and the PDF stay
-    /// metric (their keys and labels name their units).
+    /// Units of the table: metric (mm, g) or imperial (in, oz); the JSON stays SI and the
+    /// PDF metric (their keys and labels name their units).
     #[arg(long, value_enum, default_value_t = super::check::UnitChoice::Metric)]
     pub unit_system: super::check::UnitChoice,
 }

@@ -7,13 +7,55 @@ use crate::output::units::UnitSystem;
 use comfy_table::{presets, Cell, CellAlignment, Table};
 use serde::Serialize;
 
-/// How a figure is written in `compare --json`.
+/// How a figure is written in `compare --json`: in SI units like `check --json`, under its
+/// own key.
 #[derive(Clone, Copy)]
 enum JsonNumber {
-    /// Rounded to this many decimals.
-    Decimals(i32),
+    /// The table's value times `to_si`, rounded to `decimals` decimals (one more significant
+    /// decimal than the table shows).
+    Si {
+        key: &'static str,
+        to_si: f64,
+        decimals: i32,
+    },
     /// A count, written as an integer.
-    Count,
+    Count { key: &'static str },
+}
+
+impl JsonNumber {
+    fn key(self) -> &'static str {
+        match self {
+            JsonNumber::Si { key, .. } | JsonNumber::Count { key } => key,
+        }
+    }
+
+    /// The table's value `v` as the JSON writes it (before the integer form of a count).
+    fn rounded(self, v: f64) -> f64 {
+        match self {
+            JsonNumber::Si {
+                to_si, decimals, ..
+            } => round_to(v * to_si, decimals),
+            JsonNumber::Count { .. } => v.round(),
+        }
+    }
+}
+
+/// `JsonNumber::Si` of a value shown in mm, to 0.01 mm.
+const fn metres(key: &'static str) -> JsonNumber {
+    JsonNumber::Si {
+        key,
+        to_si: 1e-3,
+        decimals: 5,
+    }
+}
+
+/// `JsonNumber::Si` of a value already in SI (or in % or deg), to `decimals` decimals.
+const fn same(key: &'static str, decimals: i32) -> JsonNumber {
+    JsonNumber::Si {
+        key,
+        to_si: 1.0,
+        decimals,
+    }
 }
 
 /// One row of the comparison: a label, a unit and how to read a value from the figures.
@@ -24,7 +66,7 @@ struct Row {
     label: &'static str,
     /// Decimals in the table.
     decimals: usize,
-    /// How the JSON writes it: one decimal more than the table, counts as integers.
+    /// How the JSON writes it: its SI key and rounding, or a count.
     json: JsonNumber,
     value: fn(&KeyFigures) -> Option<f64>,
 }
@@ -33,127 +75,139 @@ const ROWS: &[Row] = &[
     Row {
         label: "mass g",
         decimals: 0,
-        json: JsonNumber::Decimals(1),
+        json: JsonNumber::Si {
+            key: "mass_kg",
+            to_si: 1e-3,
+            decimals: 4,
+        },
         value: |k| Some(k.mass_kg * 1000.0),
     },
     Row {
         label: "wing loading g/dm^2",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: JsonNumber::Si {
+            key: "wing_loading_kg_m2",
+            to_si: 0.1,
+            decimals: 3,
+        },
         value: |k| Some(k.wing_loading_kg_m2 * 10.0),
     },
     Row {
         label: "CG mm from datum",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: metres("cg_x_m"),
         value: |k| Some(k.cg_x_m * 1000.0),
     },
     Row {
         label: "CG mm aft of wing root LE",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: metres("cg_aft_of_wing_root_le_m"),
         value: |k| Some(k.cg_from_wing_root_le_m * 1000.0),
     },
     Row {
         label: "CG % MAC",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: same("cg_percent_mac", 2),
         value: |k| Some(k.cg_percent_mac),
     },
     Row {
         label: "neutral point mm from datum",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: metres("neutral_point_x_m"),
         value: |k| Some(k.neutral_point_x_m * 1000.0),
     },
     Row {
         label: "static margin %",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: same("static_margin_percent", 2),
         value: |k| Some(k.static_margin * 100.0),
     },
     Row {
         label: "CG band forward mm",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: metres("cg_band_forward_x_m"),
         value: |k| Some(k.band.forward_x_m * 1000.0),
     },
     Row {
         label: "CG band aft mm",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: metres("cg_band_aft_x_m"),
         value: |k| Some(k.band.aft_x_m * 1000.0),
     },
     Row {
         label: "decalage deg",
         decimals: 2,
-        json: JsonNumber::Decimals(3),
+        json: same("decalage_deg", 3),
         value: |k| k.decalage_rad.map(f64::to_degrees),
     },
     Row {
         label: "elevons to trim deg",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: same("elevons_to_trim_deg", 2),
         value: |k| k.elevon_trim_rad.map(f64::to_degrees),
     },
     Row {
         label: "trim CL",
         decimals: 3,
-        json: JsonNumber::Decimals(4),
+        json: same("trim_cl", 4),
         value: |k| k.trim_cl,
     },
     Row {
         label: "trim speed m/s",
         decimals: 2,
-        json: JsonNumber::Decimals(3),
+        json: same("trim_speed_m_s", 3),
         value: |k| k.trim_speed_m_s,
     },
     Row {
         label: "stall speed m/s",
         decimals: 2,
-        json: JsonNumber::Decimals(3),
+        json: same("stall_speed_m_s", 3),
         value: |k| Some(k.stall_speed_m_s),
     },
     Row {
         label: "minimum sink m/s",
         decimals: 2,
-        json: JsonNumber::Decimals(3),
+        json: same("minimum_sink_m_s", 3),
         value: |k| k.min_sink_m_s.map(|m| m.0),
     },
     Row {
         label: "minimum sink speed m/s",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: same("minimum_sink_speed_m_s", 2),
         value: |k| k.min_sink_m_s.map(|m| m.1),
     },
     Row {
         label: "best glide ratio",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: same("best_glide_ratio", 2),
         value: |k| k.best_glide.map(|m| m.0),
     },
     Row {
         label: "best glide speed m/s",
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: same("best_glide_speed_m_s", 2),
         value: |k| k.best_glide.map(|m| m.1),
     },
     Row {
         label: BALLAST_LABEL,
         decimals: 1,
-        json: JsonNumber::Decimals(2),
+        json: JsonNumber::Si {
+            key: "ballast_for_target_margin_kg",
+            to_si: 1e-3,
+            decimals: 5,
+        },
         value: |k| k.ballast_kg.as_ref().map(|b| b.1 * 1000.0),
     },
     Row {
         label: "warnings",
         decimals: 0,
-        json: JsonNumber::Count,
+        json: JsonNumber::Count { key: "warnings" },
         value: |k| Some(k.warnings as f64),
     },
     Row {
         label: "dangers",
         decimals: 0,
-        json: JsonNumber::Count,
+        json: JsonNumber::Count { key: "dangers" },
         value: |k| Some(k.dangers as f64),
     },
 ];
@@ -294,20 +348,9 @@ pub struct CompareColumnJson {
     pub figures: serde_json::Map<String, serde_json::Value>,
     /// Differences from the first configuration, same keys.
     pub difference_from_first: serde_json::Map<String, serde_json::Value>,
-    /// What the positions (keys ending in `mm` that say "from datum", and the band) are
-    /// measured from: the file's datum, or the wing's MAC leading edge when the files'
+    /// What the positions (the keys ending in `x_m`, and the band) are measured from: the file's datum, or the wing's MAC leading edge when the files'
     /// datums differ.
     pub x_reference: String,
-}
-
-fn json_key(label: &str) -> String {
-    label
-        .replace("% MAC", "percent_mac")
-        .replace('%', "percent")
-        .replace("g/dm^2", "g_dm2")
-        .replace("m/s", "m_s")
-        .replace(' ', "_")
-        .to_lowercase()
 }
 
 /// `v` rounded to `decimals` decimals, never `-0`.
@@ -321,36 +364,45 @@ fn round_to(v: f64, decimals: i32) -> f64 {
     }
 }
 
-/// A figure as JSON: rounded as its row says, a count as an integer.
+/// A rounded figure as JSON, a count as an integer.
 fn json_number(v: f64, how: JsonNumber) -> serde_json::Value {
     match how {
-        JsonNumber::Decimals(d) => serde_json::Value::from(round_to(v, d)),
+        JsonNumber::Si { decimals, .. } => serde_json::Value::from(round_to(v, decimals)),
         // Counts are whole numbers held in an f64; the cast cannot lose anything.
-        JsonNumber::Count => serde_json::Value::from(v.round() as i64),
+        JsonNumber::Count { .. } => serde_json::Value::from(v.round() as i64),
     }
 }
 
-/// The JSON form of a comparison, in the builder's units as in the table (each key names its
-/// unit: mm, g, g/dm^2, percent, deg, m/s). Values are rounded to one decimal more than the
-/// table shows and counts are integers; a difference is that of the rounded values, so it
-/// equals the column's figure minus the first column's figure.
-pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> {
+/// The whole `compare --json` document: the version, the unit convention (the same as
+/// `check --json`) and the configurations.
+#[derive(Debug, Serialize)]
+pub struct CompareJson {
+    /// The tool's version.
+    pub trimline_version: &'static str,
+    /// The unit convention.
+    pub units: &'static str,
+    /// One entry per configuration, in command-line and file order.
+    pub configurations: Vec<CompareColumnJson>,
+}
+
+/// The JSON form of a comparison, in SI units as `check --json` (each key names its unit).
+/// Values are rounded to one significant decimal more than the table shows and counts are
+/// integers; a difference is that of the rounded values, so it equals the configuration's
+/// figure minus the first configuration's.
+pub fn compare_json(columns: &[(KeyFigures, String)]) -> CompareJson {
     let first = columns.first().map(|c| &c.0);
     let rounded = |row: &Row, k: &KeyFigures| -> Option<f64> {
         (row.value)(k)
             .filter(|v| v.is_finite())
-            .map(|v| match row.json {
-                JsonNumber::Decimals(d) => round_to(v, d),
-                JsonNumber::Count => v.round(),
-            })
+            .map(|v| row.json.rounded(v))
     };
-    columns
+    let configurations = columns
         .iter()
         .map(|(k, source)| {
             let mut figures = serde_json::Map::new();
             let mut diff = serde_json::Map::new();
             for row in ROWS {
-                let key = json_key(row.label);
+                let key = row.json.key().to_string();
                 let v = rounded(row, k);
                 let b = first.and_then(|f| rounded(row, f));
                 figures.insert(
@@ -373,7 +425,12 @@ pub fn compare_json(columns: &[(KeyFigures, String)]) -> Vec<CompareColumnJson> 
                 x_reference: k.datum.clone(),
             }
         })
-        .collect()
+        .collect();
+    CompareJson {
+        trimline_version: env!("CARGO_PKG_VERSION"),
+        units: crate::output::json::JSON_UNITS,
+        configurations,
+    }
 }
 
 /// The comparison page's content from analysed configurations `(figures, source file)`.

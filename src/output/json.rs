@@ -12,11 +12,19 @@ use crate::performance::flight_polar::{GlidePoint, Optimum};
 use crate::section::ClMaxSource;
 use serde::Serialize;
 
+/// The unit convention of every JSON document the tool writes (`check`, `compare`, `sweep`),
+/// stated in each document's `units`.
+pub const JSON_UNITS: &str = "SI (lengths m, masses kg, speeds m/s, density kg/m^3) except \
+     angles in degrees and static margins and positions in percent of the MAC where the name \
+     says so; each name ends in its unit; the same in check, compare and sweep";
+
 /// The whole `check --json` document.
 #[derive(Debug, Serialize)]
 pub struct CheckDocument {
     /// Tool and format version.
     pub trimline_version: &'static str,
+    /// The unit convention ([`JSON_UNITS`]).
+    pub units: &'static str,
     /// Aircraft identity.
     pub aircraft: AircraftJson,
     /// The air.
@@ -764,6 +772,7 @@ fn surface_json(s: &crate::stability::classical::EquivalentSurface) -> SurfaceJs
 pub fn check_document(aircraft: &Aircraft, a: &Analysis, source: &str) -> CheckDocument {
     CheckDocument {
         trimline_version: env!("CARGO_PKG_VERSION"),
+        units: JSON_UNITS,
         aircraft: AircraftJson {
             name: aircraft.name.clone(),
             notes: aircraft.notes.clone(),

@@ -10,9 +10,7 @@ use comfy_table::{presets, Cell, CellAlignment, Table};
 use serde::{Deserialize, Serialize};
 
 /// The unit convention of the JSON and CSV, stated in the JSON document.
-pub const UNITS: &str =
-    "as check --json: SI (lengths m, masses kg, speeds m/s) except angles in degrees and the \
-     static margin in percent of the MAC; each name ends in its unit";
+pub const UNITS: &str = crate::output::json::JSON_UNITS;
 
 /// The name of an axis for headings: its key, with the bay's or item's name where it has one
 /// ("set_cg_x_m", "ballast_kg[nose]", "item_mass_kg[battery]").

@@ -176,3 +176,49 @@ fn new_writes_a_starter_file_and_never_overwrites() {
     assert_eq!(again.status.code(), Some(1));
     assert_eq!(std::fs::read_to_string(&path).unwrap(), "my own work");
 }
+
+// The example in docs/json.md has the keys `check --json` writes today, no more and no fewer
+// (its lists are cut; their entries keep the keys of the real ones), so it cannot go stale
+// in shape when a field is added or renamed.
+#[test]
+fn the_json_example_in_the_docs_has_the_shape_of_the_output() {
+    fn shape(v: &serde_json::Value, path: &str, out: &mut std::collections::BTreeSet<String>) {
+        match v {
+            serde_json::Value::Object(m) => {
+                for (k, c) in m {
+                    let p = format!("{path}/{k}");
+                    out.insert(p.clone());
+                    shape(c, &p, out);
+                }
+            }
+            serde_json::Value::Array(items) => {
+                for c in items.iter().take(2) {
+                    shape(c, &format!("{path}/N"), out);
+                }
+            }
+            _ => {}
+        }
+    }
+    let doc = std::fs::read_to_string(
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("docs/json.md"),
+    )
+    .unwrap();
+    let example = doc
+        .split("## Example")
+        .nth(1)
+        .and_then(|s| s.split("```json").nth(1))
+        .and_then(|s| s.split("```").next())
+        .expect("the example block");
+    let documented: serde_json::Value = serde_json::from_str(example).unwrap();
+    let out = trimline(&["check", "--json"]);
+    let real: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let (mut a, mut b) = (Default::default(), Default::default());
+    shape(&documented, "", &mut a);
+    shape(&real, "", &mut b);
+    let only_doc: Vec<_> = a.difference(&b).collect();
+    let only_real: Vec<_> = b.difference(&a).collect();
+    assert!(
+        only_doc.is_empty() && only_real.is_empty(),
+        "only in the example: {only_doc:?}; only in the output: {only_real:?}"
+    );
+}

@@ -81,19 +81,17 @@ fn compare_demo_shows_setups_and_differences() {
         String::from_utf8_lossy(&out.stderr)
     );
     let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
-    let cols = v.as_array().unwrap();
+    let cols = v["configurations"].as_array().unwrap();
     assert!(cols.len() >= 2);
     // The first column's differences from itself are zero.
     assert_eq!(
-        cols[0]["difference_from_first"]["mass_g"].as_f64(),
+        cols[0]["difference_from_first"]["mass_kg"].as_f64(),
         Some(0.0)
     );
     // A difference is the column's value minus the first column's value.
-    let m0 = cols[0]["figures"]["cg_mm_from_datum"].as_f64().unwrap();
-    let m1 = cols[1]["figures"]["cg_mm_from_datum"].as_f64().unwrap();
-    let d1 = cols[1]["difference_from_first"]["cg_mm_from_datum"]
-        .as_f64()
-        .unwrap();
+    let m0 = cols[0]["figures"]["cg_x_m"].as_f64().unwrap();
+    let m1 = cols[1]["figures"]["cg_x_m"].as_f64().unwrap();
+    let d1 = cols[1]["difference_from_first"]["cg_x_m"].as_f64().unwrap();
     assert_relative_eq!(d1, m1 - m0, epsilon = 1e-9);
 }
 
@@ -184,9 +182,9 @@ fn comparison_pdf_is_one_page_with_the_figures() {
     let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
     let (pages, text) = read_back(&pdf);
     assert_eq!(pages, 1);
-    for col in v.as_array().unwrap() {
+    for col in v["configurations"].as_array().unwrap() {
         assert!(text.contains(col["name"].as_str().unwrap()), "{text}");
-        let cg = col["figures"]["cg_mm_from_datum"].as_f64().unwrap();
+        let cg = 1000.0 * col["figures"]["cg_x_m"].as_f64().unwrap();
         assert!(
             text.contains(&format!("{cg:.1}")),
             "CG {cg:.1} missing in {text}"
@@ -278,7 +276,7 @@ fn compare_json_numbers_are_rounded_and_counts_are_integers() {
             .iter()
             .filter(|(p, _)| p.ends_with("/warnings") || p.ends_with("/dangers"))
             .count();
-        let columns = v.as_array().unwrap().len();
+        let columns = v["configurations"].as_array().unwrap().len();
         assert_eq!(counts, 4 * columns, "warnings and dangers in both maps");
     }
 }
@@ -309,4 +307,78 @@ fn compare_names_each_columns_cautions() {
             assert!(line.contains(code), "{code} missing from {line}");
         }
     }
+}
+
+// One unit convention for every JSON document (issue 15): `compare --json` is in the SI
+// units of `check --json`, says so in the same `units` text, and each figure equals the
+// `check --json --setup` figure of that configuration to the stated rounding; every path it
+// writes is documented in docs/json.md.
+#[test]
+fn compare_json_is_in_the_units_of_check_json_and_documented() {
+    let out = trimline(&["compare", "--json", "aircraft/larkspire-2000.toml"]);
+    let cmp: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let check = trimline(&[
+        "check",
+        "--json",
+        "aircraft/larkspire-2000.toml",
+        "--setup",
+        "battery 40 mm aft",
+    ]);
+    let chk: serde_json::Value = serde_json::from_slice(&check.stdout).unwrap();
+    assert_eq!(cmp["units"], chk["units"]);
+    assert!(cmp["units"].as_str().unwrap().starts_with("SI"));
+    let col = cmp["configurations"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|c| c["name"] == "battery 40 mm aft")
+        .expect("the setup's column");
+    let f = &col["figures"];
+    let close = |key: &str, expected: f64, tol: f64| {
+        let got = f[key].as_f64().unwrap();
+        assert!((got - expected).abs() <= tol, "{key}: {got} vs {expected}");
+    };
+    close("cg_x_m", chk["balance"]["cg_x_m"].as_f64().unwrap(), 5e-6);
+    close("mass_kg", chk["mass"]["total_kg"].as_f64().unwrap(), 5e-5);
+    close(
+        "neutral_point_x_m",
+        chk["stability"]["neutral_point_x_m"].as_f64().unwrap(),
+        5e-6,
+    );
+    close(
+        "stall_speed_m_s",
+        chk["stall"]["speed_m_s"].as_f64().unwrap(),
+        5e-4,
+    );
+    let doc = std::fs::read_to_string(
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("docs/json.md"),
+    )
+    .unwrap();
+    let mut missing = Vec::new();
+    let mut walk = vec![(String::new(), &cmp)];
+    while let Some((path, v)) = walk.pop() {
+        match v {
+            serde_json::Value::Object(m) => {
+                if !path.is_empty() && !doc.contains(&format!("`{path}`")) {
+                    missing.push(path.clone());
+                }
+                for (k, c) in m {
+                    walk.push((format!("{path}/{k}"), c));
+                }
+            }
+            serde_json::Value::Array(items) => {
+                for c in items {
+                    walk.push((format!("{path}/N"), c));
+                }
+            }
+            _ => {
+                if !doc.contains(&format!("`{path}`")) && !missing.contains(&path) {
+                    missing.push(path);
+                }
+            }
+        }
+    }
+    // The difference map repeats the figures' keys, documented once under `figures`.
+    missing.retain(|p| !p.contains("/difference_from_first/"));
+    assert!(missing.is_empty(), "undocumented compare JSON: {missing:?}");
 }

@@ -287,7 +287,7 @@ fn csv_and_json_read_back_to_the_same_figures() {
     let json = serde_json::to_string_pretty(&doc).unwrap();
     let back: StudyDocument = serde_json::from_str(&json).unwrap();
     assert_eq!(back, doc);
-    assert!(doc.units.starts_with("as check --json"));
+    assert_eq!(doc.units, trimline::output::json::JSON_UNITS);
 }
 
 #[test]
