@@ -21,6 +21,13 @@ use super::multi_surface::{
     FlightCondition, MultiSurfaceSystem, UnitSums, UNIT_ALPHA, UNIT_ELEVATOR, UNIT_FIRST_INCIDENCE,
 };
 use super::LiftingLineError;
+use crate::numeric::brent::{find_root, RootError, Settings};
+
+/// The trimmed stall's angle is found to 1e-12 rad (about the rounding of the station loads).
+const STALL_ROOT: Settings = Settings {
+    x_tolerance: 1e-12,
+    max_iterations: 200,
+};
 
 /// Which control a trim solve moves together with the angle of attack.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -295,7 +302,8 @@ impl MultiSurfaceSystem {
     /// stations could still gain lift). At each angle of attack `control` is set so that C_m
     /// about (x_ref_m, z_ref_m) is zero; the other controls are taken from `base`. Linear model:
     /// the flat-top sections are exact up to that point. The search scans alpha from -0.2 to
-    /// 0.8 rad in 0.01 rad steps and refines the first crossing by bisection.
+    /// 0.8 rad in 0.01 rad steps and refines the first crossing by Brent's method
+    /// ([`crate::numeric::brent`]).
     pub fn trimmed_stall(
         &self,
         base: &FlightCondition,
@@ -337,30 +345,37 @@ impl MultiSurfaceSystem {
             alpha_low_rad: ALPHA_LOW_RAD,
             alpha_high_rad: ALPHA_HIGH_RAD,
         };
-        let (mut lo, mut hi) = (ALPHA_LOW_RAD, f64::NAN);
-        if state(lo)?.1 >= 0.0 {
+        let (mut lo, mut f_lo) = (ALPHA_LOW_RAD, state(ALPHA_LOW_RAD)?.1);
+        if f_lo >= 0.0 {
             return Err(not_found);
         }
         let steps = ((ALPHA_HIGH_RAD - ALPHA_LOW_RAD) / STEP_RAD).round() as usize;
+        let mut bracket = None;
         for k in 1..=steps {
             let a = ALPHA_LOW_RAD + k as f64 * STEP_RAD;
-            if state(a)?.1 >= 0.0 {
-                hi = a;
+            let f = state(a)?.1;
+            if f >= 0.0 {
+                bracket = Some((a, f));
                 break;
             }
-            lo = a;
+            (lo, f_lo) = (a, f);
         }
-        if !hi.is_finite() {
+        let Some((hi, f_hi)) = bracket else {
             return Err(not_found);
-        }
-        for _ in 0..60 {
-            let mid = 0.5 * (lo + hi);
-            if state(mid)?.1 >= 0.0 {
-                hi = mid;
-            } else {
-                lo = mid;
-            }
-        }
+        };
+        // The largest cl / cl_max is a maximum of functions linear in alpha: continuous, so
+        // Brent's method closes the bracket; its end at or past cl_max is kept.
+        let root = find_root(
+            |a| state(a).map(|s| s.1),
+            (lo, f_lo),
+            (hi, f_hi),
+            STALL_ROOT,
+        )
+        .map_err(|e| match e {
+            RootError::Function(inner) => inner,
+            _ => not_found.clone(),
+        })?;
+        let hi = root.nonnegative_end();
         let (cond, _, station) = state(hi)?;
         let cl = self.linear_coefficients(&cond, x_ref_m, z_ref_m)?.cl;
         Ok(TrimmedStall {
