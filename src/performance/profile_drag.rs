@@ -98,6 +98,8 @@ pub enum SectionDrag {
 pub struct DragCurve {
     /// Chord Reynolds number.
     pub reynolds: f64,
+    /// Its natural logarithm (kept: the lookups interpolate in log Re).
+    pub ln_reynolds: f64,
     /// The points.
     pub points: Vec<(f64, f64, bool)>,
     /// cl of the last attached point when the branch ended at the separation criterion (the
@@ -139,6 +141,7 @@ impl DragCurve {
             .flatten();
         Some(DragCurve {
             reynolds: polar.reynolds,
+            ln_reynolds: polar.reynolds.ln(),
             points,
             separation_cl,
         })
@@ -190,8 +193,8 @@ impl SectionDrag {
                     0 => (0, 0, 0.0, true),
                     i if i > last => (last, last, 0.0, true),
                     i => {
-                        let (ra, rb) = (curves[i - 1].reynolds, curves[i].reynolds);
-                        (i - 1, i, (re / ra).ln() / (rb / ra).ln(), false)
+                        let (la, lb) = (curves[i - 1].ln_reynolds, curves[i].ln_reynolds);
+                        (i - 1, i, (re.ln() - la) / (lb - la), false)
                     }
                 };
                 let (x, y) = (curves[a].cd(cl), curves[b].cd(cl));
