@@ -30,6 +30,7 @@ pub mod lattice;
 pub mod multi_surface;
 pub mod results;
 pub mod superposition;
+mod surface_role;
 pub mod vortex;
 
 pub use classical::{ClassicalSolution, ClassicalStation, ClassicalWing};
@@ -41,3 +42,4 @@ pub use multi_surface::{
 };
 pub use results::{LiftingLineResult, StallStation, StationResult, SurfaceResult};
 pub use superposition::{LinearCoefficients, TrimControl, TrimPoint, TrimmedStall};
+pub use surface_role::SurfaceRole;

@@ -367,8 +367,9 @@ pub struct MultiSurfaceSystem {
 }
 
 impl MultiSurfaceSystem {
-    /// The wing (surface 0) and, if present, the stabiliser (surface 1) of `aircraft`, on the
-    /// wing's reference area, MAC and span. `sections` is indexed by `AirfoilId.0` (parallel to
+    /// The wing (surface 0, [`super::SurfaceRole::Wing`]) and, if present, the stabiliser
+    /// (surface 1, [`super::SurfaceRole::Stabiliser`]) of `aircraft`, on the wing's reference
+    /// area, MAC and span. `sections` is indexed by `AirfoilId.0` (parallel to
     /// `aircraft.airfoils`); `elevator` is the pitch control: it goes on the stabiliser when
     /// there is one, otherwise on the wing (elevons).
     pub fn from_aircraft(

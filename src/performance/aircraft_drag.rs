@@ -21,7 +21,7 @@
 //!   method for profile drag; from memory).
 //! - E. Trefftz (1921): induced drag in the far wake, see [`crate::lifting_line::results`].
 
-use crate::lifting_line::{FlightCondition, MultiSurfaceSystem, TrimControl};
+use crate::lifting_line::{FlightCondition, MultiSurfaceSystem, SurfaceRole, TrimControl};
 use crate::model::{Aircraft, PitchControl};
 use crate::performance::drag::{self, BodyDragInput};
 use crate::performance::flight_polar::{Drag, DragSource};
@@ -100,14 +100,17 @@ pub fn strips_of(aircraft: &Aircraft, system: &MultiSurfaceSystem) -> Vec<StripD
     let vee = system
         .stations()
         .iter()
-        .filter(|st| st.surface == 1)
+        .filter(|st| st.is_on(SurfaceRole::Stabiliser))
         .any(|st| st.normal_z < VEE_TAIL_DIHEDRAL_RAD.cos());
     system
         .stations()
         .iter()
         .map(|st| {
-            let (surface, eta, interference) = match (st.surface, aircraft.stabiliser.as_ref()) {
-                (0, _) | (_, None) => (&aircraft.wing, 1.0, 1.0),
+            let (surface, eta, interference) = match (
+                SurfaceRole::of_index(st.surface),
+                aircraft.stabiliser.as_ref(),
+            ) {
+                (Some(SurfaceRole::Wing), _) | (_, None) => (&aircraft.wing, 1.0, 1.0),
                 (_, Some(s)) => {
                     let q = if vee {
                         VEE_TAIL_INTERFERENCE
@@ -153,7 +156,7 @@ impl<'a> AircraftDrag<'a> {
         // A stabiliser without any control would be re-rigged by its incidence.
         let control = match (pitch_control, aircraft.stabiliser.as_ref()) {
             (Some(_), _) => TrimControl::Elevator,
-            (None, Some(_)) => TrimControl::Incidence(1),
+            (None, Some(_)) => TrimControl::Incidence(SurfaceRole::Stabiliser.index()),
             (None, None) => return None,
         };
         Some(AircraftDrag {
@@ -227,11 +230,11 @@ impl DragSource for AircraftDrag<'_> {
             }
             _ => (tp.control_rad, true),
         };
-        let stabiliser_cl = result.surfaces.get(1).map_or(0.0, |s| {
+        let stabiliser_cl = result.surface(SurfaceRole::Stabiliser).map_or(0.0, |s| {
             let eta = self
                 .strips
                 .iter()
-                .find(|t| t.surface == 1)
+                .find(|t| t.surface == SurfaceRole::Stabiliser.index())
                 .map_or(1.0, |t| t.eta);
             s.cl_own_area / eta
         });

@@ -47,7 +47,8 @@
 
 use crate::lifting_line::{
     ElevatorEffect, FlightCondition, LiftingLineError, LiftingLineOptions, LiftingLineResult,
-    MultiSurfaceSystem, NewtonWork, Reference, StationResult, SurfaceInput, TrimControl, TrimPoint,
+    MultiSurfaceSystem, NewtonWork, Reference, StationResult, SurfaceInput, SurfaceRole,
+    TrimControl, TrimPoint,
 };
 use crate::model::{Aircraft, PitchControl, StabiliserRole};
 use crate::numeric::brent;
@@ -534,14 +535,14 @@ fn trim_at_cg(
             cond.alpha_rad = tp.alpha_rad;
             let result = system.solve(&cond)?;
             let speed = speed_at(input.mass_kg, input.density_kg_m3, area, result.cl);
-            let stab = result.surfaces.get(1);
+            let stab = result.surface(SurfaceRole::Stabiliser);
             let q = 0.5 * input.density_kg_m3 * speed * speed;
             let (downwash_rad, mut downwash_gradient) =
                 stab.map_or((0.0, 0.0), |s| (s.downwash_rad, s.downwash_gradient));
             // Trimmed beyond the stall (flagged elsewhere) the local gradient of the stalled
             // wing is near zero; report the attached-flow gradient the neutral point uses.
             if result.status != crate::lifting_line::SolveStatus::Linear {
-                if let Some(s) = system.solve(base)?.surfaces.get(1) {
+                if let Some(s) = system.solve(base)?.surface(SurfaceRole::Stabiliser) {
                     downwash_gradient = s.downwash_gradient;
                 }
             }
@@ -581,7 +582,13 @@ fn target_speed_solves(
     let mut decalage_for_target = None;
     let cl_t = cl_at(input.mass_kg, input.density_kg_m3, area, v);
     if let Some(stab) = &input.aircraft.stabiliser {
-        if let Ok(tp) = system.trim_for_cl(base, TrimControl::Incidence(1), cl_t, cg_eff_x_m, z) {
+        if let Ok(tp) = system.trim_for_cl(
+            base,
+            TrimControl::Incidence(SurfaceRole::Stabiliser.index()),
+            cl_t,
+            cg_eff_x_m,
+            z,
+        ) {
             let incidence = stab.surface.incidence_rad + tp.control_rad;
             let wing_minus_stab = input.aircraft.wing.incidence_rad - incidence;
             decalage_for_target = Some(DecalageSolve {
@@ -648,7 +655,7 @@ pub fn wing_starboard(result: &LiftingLineResult) -> Vec<&StationResult> {
     let mut out: Vec<&StationResult> = result
         .stations
         .iter()
-        .filter(|s| s.surface == 0 && s.y_m >= 0.0)
+        .filter(|s| s.is_on(SurfaceRole::Wing) && s.y_m >= 0.0)
         .collect();
     out.sort_by(|a, b| a.y_m.total_cmp(&b.y_m));
     out

@@ -14,7 +14,7 @@
 use super::axis::{apply, check_value, Axis, Quantity, StudyError};
 use crate::analysis::{self, Analysis, AnalysisError, AnalysisOptions, SectionSet};
 use crate::caution::Level;
-use crate::lifting_line::{LiftingLineError, MultiSurfaceSystem, TrimControl};
+use crate::lifting_line::{LiftingLineError, MultiSurfaceSystem, SurfaceRole, TrimControl};
 use crate::model::Aircraft;
 use crate::stability::trim::ForwardLimitMemo;
 
@@ -133,7 +133,13 @@ impl<'a> Study<'a> {
                             .as_ref()
                             .map_or(0.0, |s| s.surface.incidence_rad);
                         let d = new_incidence - base_incidence;
-                        system.with_angle_change(|st| if st.surface == 1 { d } else { 0.0 })
+                        system.with_angle_change(|st| {
+                            if st.is_on(SurfaceRole::Stabiliser) {
+                                d
+                            } else {
+                                0.0
+                            }
+                        })
                     })
                     .collect()
             }

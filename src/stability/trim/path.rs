@@ -18,7 +18,7 @@ pub(super) fn stabiliser_negative_margin(
         .iter()
         .zip(system.stations())
         .enumerate()
-        .filter(|(_, (r, _))| r.surface == 1)
+        .filter(|(_, (r, _))| r.is_on(SurfaceRole::Stabiliser))
         .map(|(i, (r, s))| (r.cl - s.section.cl_min, i))
         .min_by(|a, b| a.0.total_cmp(&b.0))
 }
@@ -170,7 +170,7 @@ pub(super) fn limit_in(
     cls.iter()
         .zip(stations)
         .enumerate()
-        .filter(|(_, (_, s))| s.surface == 1)
+        .filter(|(_, (_, s))| s.is_on(SurfaceRole::Stabiliser))
         .map(|(i, (cl, s))| (cl - s.section.cl_min, i))
         .min_by(|a, b| a.0.total_cmp(&b.0))
         .filter(|(m, _)| *m <= AT_LIMIT)
@@ -223,7 +223,7 @@ pub(super) fn limit_residual(
 pub(super) fn stabiliser_least_margin(system: &MultiSurfaceSystem, cls: &[f64]) -> f64 {
     cls.iter()
         .zip(system.stations())
-        .filter(|(_, s)| s.surface == 1)
+        .filter(|(_, s)| s.is_on(SurfaceRole::Stabiliser))
         .map(|(cl, s)| cl - s.section.cl_min)
         .fold(f64::INFINITY, f64::min)
 }

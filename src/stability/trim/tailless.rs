@@ -61,7 +61,7 @@ pub(super) fn tailless_check(
         // `add_linear_washout` would put it in the file), on the factored system.
         let sys = system
             .with_angle_change(|st| {
-                if st.surface == 0 {
+                if st.is_on(SurfaceRole::Wing) {
                     extra_rad * st.s_m.abs() / half_span_m
                 } else {
                     0.0
