@@ -179,7 +179,7 @@ pub struct AnalysisOptions {
 impl Default for AnalysisOptions {
     fn default() -> Self {
         AnalysisOptions {
-            panels: 160,
+            panels: crate::section::DEFAULT_ANALYSIS_PANELS,
             stations_per_half_span: None,
             flight_polar: true,
         }

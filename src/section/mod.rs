@@ -45,6 +45,31 @@ use naca::{NacaError, NacaProfile};
 use panel::{PanelError, PanelSolution};
 use thin_airfoil::{SampledMeanLine, ThinAirfoil, ThinAirfoilError};
 
+/// Panel count of the `section` command when `--panels` is not given
+/// ([`SectionOptions::default`]; also its `--re` viscous polars): 200, where the inviscid panel
+/// method's cl of smooth sections is converged to about 0.1 % (tests/suite/section_panel.rs).
+/// The command looks at one airfoil at a time, so it can afford more panels than an analysis.
+///
+/// It differs from [`DEFAULT_ANALYSIS_PANELS`] on purpose, and neither may change in a pure
+/// refactor: making the two one number would change printed figures (see that constant).
+pub const DEFAULT_SECTION_PANELS: usize = 200;
+
+/// Panel count of every analysis of an aircraft (`analysis::AnalysisOptions::default`, used by
+/// `check`, `report`, `compare` and `sweep`: the panel-method sections and the viscous section
+/// drag of the flight polar) and of [`viscous::ViscousSettings::default`]: 160. The viscous
+/// coupling runs 40-260 passes a point, each with a panels x panels source-influence product,
+/// and an analysis needs about 12 polars, so the count is kept lower than
+/// [`DEFAULT_SECTION_PANELS`]; cd still moves 3-5 % a step between 120 and 240 panels where a
+/// laminar separation ends mid-chord, and the coupling stops converging beyond about 300
+/// (DEVELOPERS.md, known limits). [`viscous::SMOOTHING_REFERENCE_PANELS`] is the count the
+/// source smoothing was tuned at (the same 160, kept as its own constant).
+///
+/// Using 200 here would change every figure of `check` and `report` that rests on section
+/// lift slopes or viscous drag (sink, glide, speeds to fly; the goldens) and the keys of the
+/// polar store, and cost about 1.5 to 2 times the time; using 160 for `section` would change
+/// its printed tables (`tests/data/*.expected`).
+pub const DEFAULT_ANALYSIS_PANELS: usize = 160;
+
 /// Options of the section methods.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct SectionOptions {
@@ -53,9 +78,11 @@ pub struct SectionOptions {
 }
 
 impl Default for SectionOptions {
-    /// 200 panels: cl converged to about 0.1 % on smooth sections (see tests/suite/section_panel.rs).
+    /// [`DEFAULT_SECTION_PANELS`] panels.
     fn default() -> Self {
-        SectionOptions { panels: 200 }
+        SectionOptions {
+            panels: DEFAULT_SECTION_PANELS,
+        }
     }
 }
 

@@ -73,7 +73,9 @@ pub const RELAXATION: f64 = 0.25;
 pub const MIN_RELAXATION: f64 = 0.05;
 /// Passes of 1-2-1 smoothing of the source strengths along each surface.
 pub const SMOOTHING_PASSES: usize = 2;
-/// Panel count at which [`SMOOTHING_PASSES`] apply.
+/// Panel count at which [`SMOOTHING_PASSES`] apply (the count they were tuned at, the same as
+/// [`crate::section::DEFAULT_ANALYSIS_PANELS`]; kept apart so that the smoothing stays put if
+/// that default ever moves).
 pub const SMOOTHING_REFERENCE_PANELS: usize = 160;
 /// Convergence: largest change of the surface speed a full (unrelaxed) pass would make,
 /// fraction of the free-stream speed. At 5e-4 the lift and drag agree with those at a five
@@ -108,12 +110,12 @@ pub struct ViscousSettings {
 }
 
 impl Default for ViscousSettings {
-    /// Re 200,000, N 9 (quiet air), 160 panels.
+    /// Re 200,000, N 9 (quiet air), [`crate::section::DEFAULT_ANALYSIS_PANELS`] (160) panels.
     fn default() -> Self {
         ViscousSettings {
             reynolds: 2e5,
             n_crit: crate::section::boundary_layer::envelope::DEFAULT_N_CRIT,
-            panels: 160,
+            panels: crate::section::DEFAULT_ANALYSIS_PANELS,
         }
     }
 }
