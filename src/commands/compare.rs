@@ -130,74 +130,90 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
         );
     }
     if let Some(pdf) = &args.pdf {
-        let path = if let Some(p) = pdf {
-            p.clone()
-        } else {
-            let stem = args
-                .files
-                .first()
-                .and_then(|f| f.file_stem())
-                .map(|s| s.to_string_lossy().into_owned())
-                .unwrap_or_else(|| "larkspire-2000".to_string());
-            PathBuf::from("reports").join(format!("{stem}-compare.pdf"))
-        };
-        let data = trimline::output::compare::compare_data(&columns, super::report::today_utc());
-        let paper = if args.letter {
-            Paper::Letter
-        } else {
-            Paper::A4
-        };
-        let bytes = trimline::output::pdf::comparison_report(&data, paper);
-        write_file(&path, &bytes, &super::pdf_write_options(args.follow_link))
-            .context("writing the comparison PDF")?;
-        eprintln!(
-            "Wrote the comparison of {} setups to {}",
-            columns.len(),
-            trimline::printable::printable(&path.display().to_string())
-        );
+        write_comparison_pdf(args, pdf.as_ref(), &columns)?;
     }
     if args.json {
         let doc = trimline::output::compare::compare_json(&columns);
         super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
-        let figures: Vec<KeyFigures> = columns.into_iter().map(|c| c.0).collect();
-        let reference = if figures
-            .first()
-            .is_some_and(|k| k.datum == trimline::analysis::COMMON_REFERENCE)
-        {
-            "The files measure x from different datums: every position here is measured from \
-             each aircraft's own wing MAC leading edge instead.\n"
-        } else {
-            ""
-        };
-        super::emit(&format!(
-            "{}\n{reference}Values in brackets are differences from the first column; (=) means no change; \
-             n/a: the figure does not exist there (no stabiliser, no elevons, no trim, or no \
-             ballast bay that reaches the target).\n",
-            trimline::output::compare::compare_table_in(&figures, args.unit_system.into())
-        ))?;
-        // Which warnings and dangers each column raised (`check --setup NAME` prints them).
-        let mut named = String::new();
-        for k in figures.iter().filter(|k| !k.caution_codes.is_empty()) {
-            let codes: Vec<String> = k
-                .caution_codes
-                .iter()
-                .map(|(l, c)| format!("{}:{c}", l.as_str()))
-                .collect();
-            named.push_str(&format!(
-                "  {}: {}\n",
-                trimline::printable::printable(&k.name),
-                codes.join(" ")
-            ));
-        }
-        if !named.is_empty() {
-            super::emit(&format!(
-                "Warnings and dangers raised (read them with `trimline check --setup NAME`):\n{named}"
-            ))?;
-        }
+        print_comparison(args, columns)?;
     }
     Ok(super::Finish::from_dangers(
         dangers,
         args.exit_zero_on_danger,
     ))
+}
+
+/// Write the one-page comparison PDF (to `pdf`, or to reports/STEM-compare.pdf).
+fn write_comparison_pdf(
+    args: &CompareArgs,
+    pdf: Option<&PathBuf>,
+    columns: &[(KeyFigures, String)],
+) -> anyhow::Result<()> {
+    let path = if let Some(p) = pdf {
+        p.clone()
+    } else {
+        let stem = args
+            .files
+            .first()
+            .and_then(|f| f.file_stem())
+            .map(|s| s.to_string_lossy().into_owned())
+            .unwrap_or_else(|| "larkspire-2000".to_string());
+        PathBuf::from("reports").join(format!("{stem}-compare.pdf"))
+    };
+    let data = trimline::output::compare::compare_data(columns, super::report::today_utc());
+    let paper = if args.letter {
+        Paper::Letter
+    } else {
+        Paper::A4
+    };
+    let bytes = trimline::output::pdf::comparison_report(&data, paper);
+    write_file(&path, &bytes, &super::pdf_write_options(args.follow_link))
+        .context("writing the comparison PDF")?;
+    eprintln!(
+        "Wrote the comparison of {} setups to {}",
+        columns.len(),
+        trimline::printable::printable(&path.display().to_string())
+    );
+    Ok(())
+}
+
+/// Print the comparison table, with the datum note and the cautions raised per column.
+fn print_comparison(args: &CompareArgs, columns: Vec<(KeyFigures, String)>) -> anyhow::Result<()> {
+    let figures: Vec<KeyFigures> = columns.into_iter().map(|c| c.0).collect();
+    let reference = if figures
+        .first()
+        .is_some_and(|k| k.datum == trimline::analysis::COMMON_REFERENCE)
+    {
+        "The files measure x from different datums: every position here is measured from \
+         each aircraft's own wing MAC leading edge instead.\n"
+    } else {
+        ""
+    };
+    super::emit(&format!(
+        "{}\n{reference}Values in brackets are differences from the first column; (=) means no change; \
+         n/a: the figure does not exist there (no stabiliser, no elevons, no trim, or no \
+         ballast bay that reaches the target).\n",
+        trimline::output::compare::compare_table_in(&figures, args.unit_system.into())
+    ))?;
+    // Which warnings and dangers each column raised (`check --setup NAME` prints them).
+    let mut named = String::new();
+    for k in figures.iter().filter(|k| !k.caution_codes.is_empty()) {
+        let codes: Vec<String> = k
+            .caution_codes
+            .iter()
+            .map(|(l, c)| format!("{}:{c}", l.as_str()))
+            .collect();
+        named.push_str(&format!(
+            "  {}: {}\n",
+            trimline::printable::printable(&k.name),
+            codes.join(" ")
+        ));
+    }
+    if !named.is_empty() {
+        super::emit(&format!(
+            "Warnings and dangers raised (read them with `trimline check --setup NAME`):\n{named}"
+        ))?;
+    }
+    Ok(())
 }

@@ -234,49 +234,7 @@ fn parse_spec(spec: &str) -> anyhow::Result<(String, AirfoilShape, String)> {
     }
     for (prefix, is_kt) in [("jouk:", false), ("kt:", true)] {
         if let Some(rest) = lower.strip_prefix(prefix) {
-            let values = parse_numbers(rest).with_context(|| {
-                format!(
-                    "reading SPEC '{spec}' (accepted: {})",
-                    if is_kt {
-                        "kt:T/F/A, thickness and camber in % of chord, trailing-edge angle in deg, e.g. kt:12/2/10"
-                    } else {
-                        "jouk:T/F, thickness and camber in % of chord, e.g. jouk:12/2"
-                    }
-                )
-            })?;
-            let want = if is_kt { 3 } else { 2 };
-            if values.len() != want {
-                bail!(
-                    "SPEC '{spec}' has {} values; {} takes {want} separated by '/' (e.g. {})",
-                    values.len(),
-                    prefix.trim_end_matches(':'),
-                    if is_kt { "kt:12/2/10" } else { "jouk:12/2" }
-                );
-            }
-            let (t, f) = (values[0] / 100.0, values[1] / 100.0);
-            return Ok(if is_kt {
-                (
-                    format!("Karman-Trefftz {}/{}/{}", values[0], values[1], values[2]),
-                    AirfoilShape::KarmanTrefftz {
-                        thickness_ratio: t,
-                        camber_ratio: f,
-                        trailing_edge_angle_rad: values[2].to_radians(),
-                    },
-                    format!(
-                        "Karman-Trefftz, t/c {} %, f/c {} %, trailing-edge angle {} deg",
-                        values[0], values[1], values[2]
-                    ),
-                )
-            } else {
-                (
-                    format!("Joukowski {}/{}", values[0], values[1]),
-                    AirfoilShape::Joukowski {
-                        thickness_ratio: t,
-                        camber_ratio: f,
-                    },
-                    format!("Joukowski, t/c {} %, f/c {} %", values[0], values[1]),
-                )
-            });
+            return conformal_spec(spec, prefix, rest, is_kt);
         }
     }
     let path = Path::new(s);
@@ -302,6 +260,59 @@ fn parse_spec(spec: &str) -> anyhow::Result<(String, AirfoilShape, String)> {
         AirfoilShape::Coordinates { title, points },
         text,
     ))
+}
+
+/// A Joukowski (`jouk:T/F`) or Karman-Trefftz (`kt:T/F/A`) SPEC, `rest` being the text after
+/// the prefix: (name, shape, description).
+fn conformal_spec(
+    spec: &str,
+    prefix: &str,
+    rest: &str,
+    is_kt: bool,
+) -> anyhow::Result<(String, AirfoilShape, String)> {
+    let values = parse_numbers(rest).with_context(|| {
+        format!(
+            "reading SPEC '{spec}' (accepted: {})",
+            if is_kt {
+                "kt:T/F/A, thickness and camber in % of chord, trailing-edge angle in deg, e.g. kt:12/2/10"
+            } else {
+                "jouk:T/F, thickness and camber in % of chord, e.g. jouk:12/2"
+            }
+        )
+    })?;
+    let want = if is_kt { 3 } else { 2 };
+    if values.len() != want {
+        bail!(
+            "SPEC '{spec}' has {} values; {} takes {want} separated by '/' (e.g. {})",
+            values.len(),
+            prefix.trim_end_matches(':'),
+            if is_kt { "kt:12/2/10" } else { "jouk:12/2" }
+        );
+    }
+    let (t, f) = (values[0] / 100.0, values[1] / 100.0);
+    Ok(if is_kt {
+        (
+            format!("Karman-Trefftz {}/{}/{}", values[0], values[1], values[2]),
+            AirfoilShape::KarmanTrefftz {
+                thickness_ratio: t,
+                camber_ratio: f,
+                trailing_edge_angle_rad: values[2].to_radians(),
+            },
+            format!(
+                "Karman-Trefftz, t/c {} %, f/c {} %, trailing-edge angle {} deg",
+                values[0], values[1], values[2]
+            ),
+        )
+    } else {
+        (
+            format!("Joukowski {}/{}", values[0], values[1]),
+            AirfoilShape::Joukowski {
+                thickness_ratio: t,
+                camber_ratio: f,
+            },
+            format!("Joukowski, t/c {} %, f/c {} %", values[0], values[1]),
+        )
+    })
 }
 
 fn parse_numbers(text: &str) -> anyhow::Result<Vec<f64>> {

@@ -4,7 +4,7 @@
 
 use super::error::{InputError, Location};
 use super::limits::*;
-use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel};
+use super::raw::{self, Quantity, RawAircraft, RawEllipse, RawPanel, RawSurface};
 use super::units::{parse_quantity, Dimension};
 use crate::model::{
     Air, Aircraft, Airfoil, AirfoilId, AirfoilShape, BallastBay, Change, EllipticShape, Fin,
@@ -98,6 +98,21 @@ pub fn parse_aircraft(
         Err(e) => return Err(with_field_range(ctx.toml_error(&e), text, file, base_dir)),
     };
     ctx.aircraft(raw)
+}
+
+/// The accepted static-margin range, %: negative margins only where the file says a
+/// negative margin is intended (`[limits] negative_margin_intended = true`).
+fn margin_bounds_pct(raw: &RawAircraft) -> bounds::Bounds {
+    let intended = raw
+        .limits
+        .as_ref()
+        .and_then(|l| l.negative_margin_intended.as_ref())
+        .is_some_and(|b| *b.get_ref());
+    if intended {
+        MARGIN_INTENDED_PCT
+    } else {
+        MARGIN_PCT
+    }
 }
 
 /// A number too large for the TOML reader (`1e400`) is refused before any field is looked
@@ -431,32 +446,11 @@ impl Ctx<'_> {
         let name = self.aircraft_name(raw.name.as_ref())?;
         let air = self.air(raw.air.as_ref())?;
         let (airfoils, ids) = self.airfoils(&raw.airfoils)?;
-        let Some(raw_wing) = &raw.wing else {
-            return Err(InputError::new(
-                self.whole_file(),
-                "wing",
-                "missing: there is no [wing] table",
-                Some(
-                    "a [wing] table with root_chord, airfoil and [[wing.panel]] or [wing.ellipse]"
-                        .into(),
-                ),
-            ));
-        };
+        let raw_wing = self.required_wing(&raw)?;
         let wing = self.wing(raw_wing, &ids)?;
         let (stabiliser, elevons) =
             self.stabiliser_and_elevons(raw_wing, raw.stabiliser.as_ref(), &ids)?;
-        if let Some(f) = raw
-            .stabiliser
-            .as_ref()
-            .and_then(|st| st.get_ref().flap.first())
-        {
-            return Err(self.err(
-                &f.span(),
-                "stabiliser.flap",
-                "camber flaps belong to the wing",
-                Some("[[wing.flap]]".into()),
-            ));
-        }
+        self.no_stabiliser_flaps(&raw)?;
         let wing_flaps = self.wing_flaps(&raw_wing.get_ref().flap, elevons.as_ref())?;
         let flap_settings = self.flap_settings(&raw.flap_setting, &wing_flaps)?;
         let fuselage = raw
@@ -468,16 +462,7 @@ impl Ctx<'_> {
         let tolerances = self.tolerances(raw.tolerances.as_ref())?;
         let fin = raw.fin.as_ref().map(|f| self.fin(f, &masses)).transpose()?;
         let ballast_bays = self.ballast_bays(&raw.ballast)?;
-        let intended = raw
-            .limits
-            .as_ref()
-            .and_then(|l| l.negative_margin_intended.as_ref())
-            .is_some_and(|b| *b.get_ref());
-        let margin_bounds = if intended {
-            MARGIN_INTENDED_PCT
-        } else {
-            MARGIN_PCT
-        };
+        let margin_bounds = margin_bounds_pct(&raw);
         let targets = self.targets(raw.targets.as_ref(), margin_bounds)?;
         let margin_limits = self.limits(raw.limits.as_ref(), stabiliser.as_ref(), margin_bounds)?;
         let numerics = self.numerics(raw.numerics.as_ref())?;
@@ -525,6 +510,41 @@ impl Ctx<'_> {
             setups,
             weighing,
         })
+    }
+
+    /// The `[wing]` table, which every aircraft needs.
+    fn required_wing<'r>(
+        &self,
+        raw: &'r RawAircraft,
+    ) -> Result<&'r Spanned<RawSurface>, InputError> {
+        raw.wing.as_ref().ok_or_else(|| {
+            InputError::new(
+                self.whole_file(),
+                "wing",
+                "missing: there is no [wing] table",
+                Some(
+                    "a [wing] table with root_chord, airfoil and [[wing.panel]] or [wing.ellipse]"
+                        .into(),
+                ),
+            )
+        })
+    }
+
+    /// Camber flaps are a wing's: a `[[stabiliser.flap]]` is refused at its place.
+    fn no_stabiliser_flaps(&self, raw: &RawAircraft) -> Result<(), InputError> {
+        match raw
+            .stabiliser
+            .as_ref()
+            .and_then(|st| st.get_ref().flap.first())
+        {
+            Some(f) => Err(self.err(
+                &f.span(),
+                "stabiliser.flap",
+                "camber flaps belong to the wing",
+                Some("[[wing.flap]]".into()),
+            )),
+            None => Ok(()),
+        }
     }
 
     /// The aircraft's `name`: required, trimmed, not empty, within the name length limit,

@@ -278,51 +278,7 @@ impl<'a> Source<'a> {
         }
         // Keys of the line up to the offset, through inline tables.
         let prefix = &self.text[line_start..offset];
-        let mut inline = Vec::new();
-        let mut key: Option<String> = None;
-        let mut value_start: Option<usize> = None;
-        let mut segment = 0;
-        let mut quote: Option<char> = None;
-        let mut escaped = false;
-        for (i, c) in prefix.char_indices() {
-            if let Some(q) = quote {
-                if escaped {
-                    escaped = false;
-                } else if c == '\\' && q == '"' {
-                    escaped = true;
-                } else if c == q {
-                    quote = None;
-                }
-                continue;
-            }
-            match c {
-                '"' | '\'' => quote = Some(c),
-                '=' => {
-                    key = Some(clean_key(&prefix[segment..i]));
-                    value_start = Some(line_start + i + 1);
-                }
-                '{' => {
-                    if let Some(k) = key.take() {
-                        inline.push(k);
-                    }
-                    segment = i + 1;
-                    value_start = None;
-                }
-                ',' => {
-                    key = None;
-                    segment = i + 1;
-                    value_start = None;
-                }
-                '}' => {
-                    inline.pop();
-                    key = None;
-                    segment = i + 1;
-                    value_start = None;
-                }
-                '#' => break,
-                _ => {}
-            }
-        }
+        let (inline, key, value_start) = keys_before(prefix, line_start);
         let value = value_start.map(|s| {
             let rest = &self.text[offset..line_end];
             let end = rest
@@ -340,6 +296,58 @@ impl<'a> Source<'a> {
             value,
         }
     }
+}
+
+/// The inline-table keys open at the end of `prefix` (the start of a line, which begins at
+/// byte `line_start` of the file), the key being given a value there, and the byte where
+/// that value starts; quoted text and comments are skipped.
+fn keys_before(prefix: &str, line_start: usize) -> (Vec<String>, Option<String>, Option<usize>) {
+    let mut inline = Vec::new();
+    let mut key: Option<String> = None;
+    let mut value_start: Option<usize> = None;
+    let mut segment = 0;
+    let mut quote: Option<char> = None;
+    let mut escaped = false;
+    for (i, c) in prefix.char_indices() {
+        if let Some(q) = quote {
+            if escaped {
+                escaped = false;
+            } else if c == '\\' && q == '"' {
+                escaped = true;
+            } else if c == q {
+                quote = None;
+            }
+            continue;
+        }
+        match c {
+            '"' | '\'' => quote = Some(c),
+            '=' => {
+                key = Some(clean_key(&prefix[segment..i]));
+                value_start = Some(line_start + i + 1);
+            }
+            '{' => {
+                if let Some(k) = key.take() {
+                    inline.push(k);
+                }
+                segment = i + 1;
+                value_start = None;
+            }
+            ',' => {
+                key = None;
+                segment = i + 1;
+                value_start = None;
+            }
+            '}' => {
+                inline.pop();
+                key = None;
+                segment = i + 1;
+                value_start = None;
+            }
+            '#' => break,
+            _ => {}
+        }
+    }
+    (inline, key, value_start)
 }
 
 /// `(name, is_array)` of a heading line such as `[wing]`, `[[wing.panel]]  # inner`.

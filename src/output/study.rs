@@ -5,7 +5,7 @@
 
 use crate::caution::Level;
 use crate::model::Aircraft;
-use crate::study::{Axis, ControlOutcome, Point, Quantity, TrimOutcome};
+use crate::study::{Axis, ControlOutcome, Point, PointFigures, Quantity, TrimOutcome};
 use comfy_table::{presets, Cell, CellAlignment, Table};
 use serde::{Deserialize, Serialize};
 
@@ -78,6 +78,46 @@ pub fn caution_field(cautions: &[(Level, &'static str)]) -> String {
 pub fn table(aircraft: &Aircraft, axes: &[Axis], points: &[Point], target_speed: bool) -> String {
     let mut t = Table::new();
     t.load_style(presets::UTF8_FULL_CONDENSED);
+    let glide = points
+        .iter()
+        .any(|p| p.outcome.as_ref().is_ok_and(|f| f.glide.is_some()));
+    let header = table_header(aircraft, axes, target_speed, glide);
+    t.set_header(header.iter().map(Cell::new));
+    for p in points {
+        let mut row: Vec<String> = axes
+            .iter()
+            .zip(&p.values)
+            .map(|(a, &v)| display(&a.quantity, v).0)
+            .collect();
+        match &p.outcome {
+            Ok(f) => {
+                figure_cells(f, target_speed, glide, &mut row);
+                row.push(caution_field(&f.cautions));
+            }
+            Err(e) => {
+                row.push(format!(
+                    "not analysed: {}",
+                    crate::printable::printable(&e.to_string())
+                ));
+            }
+        }
+        t.add_row(row);
+    }
+    for i in 0..t.column_count().saturating_sub(1) {
+        if let Some(c) = t.column_mut(i) {
+            c.set_cell_alignment(CellAlignment::Right);
+        }
+    }
+    format!("{t}\n")
+}
+
+/// The table's column headings: the axes, the figures, the cautions.
+fn table_header(
+    aircraft: &Aircraft,
+    axes: &[Axis],
+    target_speed: bool,
+    glide: bool,
+) -> Vec<String> {
     let mut header: Vec<String> = axes
         .iter()
         .map(|a| table_label(aircraft, &a.quantity))
@@ -96,9 +136,6 @@ pub fn table(aircraft: &Aircraft, axes: &[Axis], points: &[Point], target_speed:
     if target_speed {
         header.push("control at target (deg)".into());
     }
-    let glide = points
-        .iter()
-        .any(|p| p.outcome.as_ref().is_ok_and(|f| f.glide.is_some()));
     header.push("stall (m/s)".into());
     if glide {
         header.extend(
@@ -108,68 +145,47 @@ pub fn table(aircraft: &Aircraft, axes: &[Axis], points: &[Point], target_speed:
         );
     }
     header.push("cautions".into());
-    t.set_header(header.iter().map(Cell::new));
-    for p in points {
-        let mut row: Vec<String> = axes
-            .iter()
-            .zip(&p.values)
-            .map(|(a, &v)| display(&a.quantity, v).0)
-            .collect();
-        match &p.outcome {
-            Ok(f) => {
-                row.push(format!("{:.0}", f.mass_kg * 1000.0));
-                row.push(format!("{:.1}", f.cg_x_m * 1000.0));
-                row.push(format!("{:.1}", 100.0 * f.static_margin));
-                match f.trim {
-                    TrimOutcome::Trimmed { cl, speed_m_s } => {
-                        row.push(format!("{cl:.3}"));
-                        row.push(format!("{speed_m_s:.2}"));
-                    }
-                    TrimOutcome::NoTrim => {
-                        row.push("no trim".into());
-                        row.push("-".into());
-                    }
-                }
-                if target_speed {
-                    row.push(match f.control_at_target {
-                        ControlOutcome::Deflection { rad, within_throws } => format!(
-                            "{:+.2}{}",
-                            rad.to_degrees(),
-                            if within_throws { "" } else { " beyond throws" }
-                        ),
-                        ControlOutcome::NoTrim => "no trim".into(),
-                        ControlOutcome::NotAsked => "-".into(),
-                    });
-                }
-                row.push(format!("{:.2}", f.stall_speed_m_s));
-                if glide {
-                    match &f.glide {
-                        Some(g) => row.extend([
-                            format!("{:.3}", g.min_sink_m_s),
-                            format!("{:.1}", g.min_sink_speed_m_s),
-                            format!("{:.1}", g.best_glide_ratio),
-                            format!("{:.1}", g.best_glide_speed_m_s),
-                        ]),
-                        None => row.extend(["-", "-", "-", "-"].map(String::from)),
-                    }
-                }
-                row.push(caution_field(&f.cautions));
-            }
-            Err(e) => {
-                row.push(format!(
-                    "not analysed: {}",
-                    crate::printable::printable(&e.to_string())
-                ));
-            }
+    header
+}
+
+/// A point's figures, in the order of [`table_header`], after its axis values.
+fn figure_cells(f: &PointFigures, target_speed: bool, glide: bool, row: &mut Vec<String>) {
+    row.push(format!("{:.0}", f.mass_kg * 1000.0));
+    row.push(format!("{:.1}", f.cg_x_m * 1000.0));
+    row.push(format!("{:.1}", 100.0 * f.static_margin));
+    match f.trim {
+        TrimOutcome::Trimmed { cl, speed_m_s } => {
+            row.push(format!("{cl:.3}"));
+            row.push(format!("{speed_m_s:.2}"));
         }
-        t.add_row(row);
-    }
-    for i in 0..t.column_count().saturating_sub(1) {
-        if let Some(c) = t.column_mut(i) {
-            c.set_cell_alignment(CellAlignment::Right);
+        TrimOutcome::NoTrim => {
+            row.push("no trim".into());
+            row.push("-".into());
         }
     }
-    format!("{t}\n")
+    if target_speed {
+        row.push(match f.control_at_target {
+            ControlOutcome::Deflection { rad, within_throws } => format!(
+                "{:+.2}{}",
+                rad.to_degrees(),
+                if within_throws { "" } else { " beyond throws" }
+            ),
+            ControlOutcome::NoTrim => "no trim".into(),
+            ControlOutcome::NotAsked => "-".into(),
+        });
+    }
+    row.push(format!("{:.2}", f.stall_speed_m_s));
+    if glide {
+        match &f.glide {
+            Some(g) => row.extend([
+                format!("{:.3}", g.min_sink_m_s),
+                format!("{:.1}", g.min_sink_speed_m_s),
+                format!("{:.1}", g.best_glide_ratio),
+                format!("{:.1}", g.best_glide_speed_m_s),
+            ]),
+            None => row.extend(["-", "-", "-", "-"].map(String::from)),
+        }
+    }
 }
 
 /// One point in the CSV and JSON (SI units; absent values are empty cells or null, with a

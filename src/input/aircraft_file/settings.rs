@@ -80,37 +80,8 @@ impl Ctx<'_> {
             return Ok(out);
         };
         if let Some(m) = &n.wing_model {
-            out.wing_model = match m.get_ref().trim().to_ascii_lowercase().as_str() {
-                "vortex-lattice" => WingModel::VortexLattice,
-                "lifting-line" => WingModel::LiftingLine,
-                other => {
-                    return Err(self.err(
-                        &m.span(),
-                        "numerics.wing_model",
-                        format!("unknown wing model `{other}`"),
-                        Some("vortex-lattice, lifting-line".into()),
-                    ))
-                }
-            };
+            out.wing_model = self.wing_model(m)?;
         }
-        let count = |q: Option<&Quantity>,
-                     field: &str,
-                     bounds: Bounds|
-         -> Result<Option<usize>, InputError> {
-            let Some(q) = q else { return Ok(None) };
-            let v = self
-                .opt_quantity(Some(q), field, Dimension::Plain, bounds)?
-                .unwrap_or_default();
-            if v.fract() != 0.0 {
-                return Err(self.err(
-                    &q.span(),
-                    field,
-                    format!("{v} is not a whole number"),
-                    Some(accepted_quantity(Dimension::Plain, bounds)),
-                ));
-            }
-            Ok(Some(v as usize))
-        };
         if out.wing_model == WingModel::LiftingLine {
             out.strips_per_half_span = crate::model::DEFAULT_LIFTING_LINE_STATIONS;
             if let Some(q) = &n.chordwise_panels {
@@ -123,20 +94,62 @@ impl Ctx<'_> {
                 ));
             }
         }
-        if let Some(v) = count(
+        if let Some(v) = self.whole_count(
             n.spanwise_strips.as_ref(),
             "numerics.spanwise_strips",
             STRIPS,
         )? {
             out.strips_per_half_span = v;
         }
-        if let Some(v) = count(
+        if let Some(v) = self.whole_count(
             n.chordwise_panels.as_ref(),
             "numerics.chordwise_panels",
             CHORDWISE,
         )? {
             out.chordwise_panels = v;
         }
+        self.lattice_size(n, &out)?;
+        Ok(out)
+    }
+
+    /// `numerics.wing_model`: one of the two wing models, by name.
+    fn wing_model(&self, m: &Spanned<String>) -> Result<WingModel, InputError> {
+        match m.get_ref().trim().to_ascii_lowercase().as_str() {
+            "vortex-lattice" => Ok(WingModel::VortexLattice),
+            "lifting-line" => Ok(WingModel::LiftingLine),
+            other => Err(self.err(
+                &m.span(),
+                "numerics.wing_model",
+                format!("unknown wing model `{other}`"),
+                Some("vortex-lattice, lifting-line".into()),
+            )),
+        }
+    }
+
+    /// An optional whole-number count within `bounds` (strips, panels).
+    fn whole_count(
+        &self,
+        q: Option<&Quantity>,
+        field: &str,
+        bounds: Bounds,
+    ) -> Result<Option<usize>, InputError> {
+        let Some(q) = q else { return Ok(None) };
+        let v = self
+            .opt_quantity(Some(q), field, Dimension::Plain, bounds)?
+            .unwrap_or_default();
+        if v.fract() != 0.0 {
+            return Err(self.err(
+                &q.span(),
+                field,
+                format!("{v} is not a whole number"),
+                Some(accepted_quantity(Dimension::Plain, bounds)),
+            ));
+        }
+        Ok(Some(v as usize))
+    }
+
+    /// The vortex lattice on each half of the wing stays within its panel limit.
+    fn lattice_size(&self, n: &raw::RawNumerics, out: &Numerics) -> Result<(), InputError> {
         let half_panels = out.strips_per_half_span * out.chordwise_panels;
         if out.wing_model == WingModel::VortexLattice && half_panels > MAX_WING_HALF_PANELS {
             let span = n
@@ -156,7 +169,7 @@ impl Ctx<'_> {
                 )),
             ));
         }
-        Ok(out)
+        Ok(())
     }
 
     /// A static margin (limit or target): 0 to 40 %, or down to -20 % when the file says a

@@ -120,31 +120,52 @@ impl Ctx<'_> {
             ids,
             &table_span,
         )?;
-        let shape = match (raw.panel.is_empty(), raw.ellipse.as_ref()) {
-            (false, Some(e)) => {
-                return Err(self.err(
-                    &e.span(),
-                    &format!("{path}.ellipse"),
-                    "a surface is either panels or an ellipse, not both",
-                    Some(format!(
-                        "[[{path}.panel]] tables or one [{path}.ellipse] table"
-                    )),
-                ))
-            }
-            (true, None) => {
-                return Err(self.err(
-                    &table_span,
-                    &format!("{path}.panel"),
-                    "no planform given",
-                    Some(
-                        "one or more [[{path}.panel]] tables, or one [{path}.ellipse] table"
-                            .replace("{path}", path),
-                    ),
-                ))
-            }
-            (true, Some(e)) => {
-                SurfaceShape::Elliptic(self.ellipse(path, e, root_chord, root_airfoil, ids)?)
-            }
+        let shape = self.shape(path, &table_span, raw, root_chord, root_airfoil, ids)?;
+        Ok(Surface {
+            name: path.to_string(),
+            root_le_x_m: x,
+            root_le_z_m: z,
+            incidence_rad: incidence,
+            shape,
+        })
+    }
+
+    /// A surface's planform: its `[[path.panel]]` tables in order from the root (each
+    /// continuing the chord, twist and airfoil of the one before), or one `[path.ellipse]`.
+    fn shape(
+        &self,
+        path: &str,
+        table_span: &Range<usize>,
+        raw: &raw::RawSurface,
+        root_chord: f64,
+        root_airfoil: AirfoilId,
+        ids: &BTreeMap<String, AirfoilId>,
+    ) -> Result<SurfaceShape, InputError> {
+        match (raw.panel.is_empty(), raw.ellipse.as_ref()) {
+            (false, Some(e)) => Err(self.err(
+                &e.span(),
+                &format!("{path}.ellipse"),
+                "a surface is either panels or an ellipse, not both",
+                Some(format!(
+                    "[[{path}.panel]] tables or one [{path}.ellipse] table"
+                )),
+            )),
+            (true, None) => Err(self.err(
+                table_span,
+                &format!("{path}.panel"),
+                "no planform given",
+                Some(
+                    "one or more [[{path}.panel]] tables, or one [{path}.ellipse] table"
+                        .replace("{path}", path),
+                ),
+            )),
+            (true, Some(e)) => Ok(SurfaceShape::Elliptic(self.ellipse(
+                path,
+                e,
+                root_chord,
+                root_airfoil,
+                ids,
+            )?)),
             (false, None) => {
                 let mut panels = Vec::with_capacity(raw.panel.len());
                 let mut chord = root_chord;
@@ -159,16 +180,9 @@ impl Ctx<'_> {
                     panels.push(panel);
                 }
 
-                SurfaceShape::Panels(panels)
+                Ok(SurfaceShape::Panels(panels))
             }
-        };
-        Ok(Surface {
-            name: path.to_string(),
-            root_le_x_m: x,
-            root_le_z_m: z,
-            incidence_rad: incidence,
-            shape,
-        })
+        }
     }
 
     pub(super) fn panel(
