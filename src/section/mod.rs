@@ -32,8 +32,13 @@ pub mod registry;
 pub mod thin_airfoil;
 pub mod viscous;
 
+mod error;
+mod solution;
+
+pub use error::SectionError;
 pub use flap::FlapEffect;
 pub use model::{ClMaxSource, SectionModel, DEFAULT_CL_MAX};
+pub use solution::{ExactSolution, SectionSolution, SurfacePressure};
 
 use crate::caution::{Caution, Level};
 use crate::model::{Airfoil, AirfoilShape, SectionMethod};
@@ -86,114 +91,6 @@ impl Default for SectionOptions {
     }
 }
 
-/// Errors from the section methods, each naming the airfoil.
-#[derive(Debug, Clone, PartialEq, thiserror::Error)]
-pub enum SectionError {
-    /// Bad NACA designation.
-    #[error("airfoil '{airfoil}': {error}")]
-    Naca {
-        /// Airfoil name.
-        airfoil: String,
-        /// Cause.
-        error: NacaError,
-    },
-    /// Joukowski or Karman-Trefftz parameters not accepted.
-    #[error("airfoil '{airfoil}': {error}")]
-    CircleMap {
-        /// Airfoil name.
-        airfoil: String,
-        /// Cause.
-        error: CircleMapError,
-    },
-    /// Bad coordinates.
-    #[error("airfoil '{airfoil}': {error}")]
-    Geometry {
-        /// Airfoil name.
-        airfoil: String,
-        /// Cause.
-        error: GeometryError,
-    },
-    /// Panel solution failed.
-    #[error("airfoil '{airfoil}': {error}")]
-    Panel {
-        /// Airfoil name.
-        airfoil: String,
-        /// Cause.
-        error: PanelError,
-    },
-    /// Mean line not usable.
-    #[error("airfoil '{airfoil}': {error}")]
-    MeanLine {
-        /// Airfoil name.
-        airfoil: String,
-        /// Cause.
-        error: ThinAirfoilError,
-    },
-    /// The method cannot treat this shape.
-    #[error("airfoil '{airfoil}': the {method} method is only available for Joukowski and Karman-Trefftz sections (use panel or thin)")]
-    MethodNotAvailable {
-        /// Airfoil name.
-        airfoil: String,
-        /// Method asked for.
-        method: &'static str,
-    },
-    /// cl_max not a positive finite number.
-    #[error("airfoil '{airfoil}': cl_max {value} is outside the accepted range 0 < cl_max <= 3")]
-    ClMax {
-        /// Airfoil name.
-        airfoil: String,
-        /// Value given.
-        value: f64,
-    },
-    /// The solution produced a non-finite number.
-    #[error("airfoil '{airfoil}': the {method} solution gave a non-finite {what}")]
-    NotFinite {
-        /// Airfoil name.
-        airfoil: String,
-        /// Method.
-        method: &'static str,
-        /// Which quantity.
-        what: &'static str,
-    },
-    /// The solution puts the aerodynamic centre far off the section.
-    #[error("airfoil '{airfoil}': the {method} solution is not credible (aerodynamic centre at x/c = {x_ac_c:.2}); for very thin sections use method thin")]
-    NotCredible {
-        /// Airfoil name.
-        airfoil: String,
-        /// Method.
-        method: &'static str,
-        /// The aerodynamic centre found, fraction of chord.
-        x_ac_c: f64,
-    },
-    /// The viscous method refused the settings or the shape.
-    #[error("airfoil '{airfoil}': {error}")]
-    Viscous {
-        /// Airfoil name.
-        airfoil: String,
-        /// Cause.
-        error: viscous::ViscousError,
-    },
-    /// The viscous method needs a Reynolds number.
-    #[error(
-        "airfoil '{airfoil}': the viscous method needs the chord Reynolds number (1e4 to 1e7)"
-    )]
-    ViscousNeedsReynolds {
-        /// Airfoil name.
-        airfoil: String,
-    },
-    /// Too few converged viscous points for the linear part of the lift curve.
-    #[error("airfoil '{airfoil}': the viscous polar converged at only {points} angles with |cl| <= 0.6; at least 3 are needed for the lift slope")]
-    ViscousTooFewPoints {
-        /// Airfoil name.
-        airfoil: String,
-        /// Converged points found.
-        points: usize,
-    },
-    /// Flap-chord fraction not accepted.
-    #[error(transparent)]
-    Flap(#[from] flap::FlapError),
-}
-
 /// A section model with the cautions found while making it.
 #[derive(Debug, Clone, PartialEq)]
 pub struct SectionOutcome {
@@ -201,126 +98,6 @@ pub struct SectionOutcome {
     pub model: SectionModel,
     /// Cautions (e.g. `cl-max-default`).
     pub cautions: Vec<Caution>,
-}
-
-/// An exact conformal-map solution.
-#[derive(Debug, Clone, PartialEq)]
-pub enum ExactSolution {
-    /// Joukowski section.
-    Joukowski(JoukowskiAirfoil),
-    /// Karman-Trefftz section.
-    KarmanTrefftz(KarmanTrefftzAirfoil),
-}
-
-/// A solved airfoil, able to give cl and cm at any angle of attack (rad, from the chord line).
-#[derive(Debug, Clone, PartialEq)]
-pub enum SectionSolution {
-    /// Exact solution.
-    Exact(ExactSolution),
-    /// Thin-airfoil theory.
-    Thin(ThinAirfoil),
-    /// Vortex panel method.
-    Panel(PanelSolution),
-}
-
-/// One surface point with its pressure coefficient (chord fractions).
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub struct SurfacePressure {
-    /// x/c.
-    pub x_c: f64,
-    /// y/c.
-    pub y_c: f64,
-    /// Pressure coefficient.
-    pub cp: f64,
-}
-
-/// Surface points used for the exact solution's pressure output.
-const EXACT_SURFACE_POINTS: usize = 200;
-
-impl SectionSolution {
-    /// The method.
-    pub fn method(&self) -> SectionMethod {
-        match self {
-            SectionSolution::Exact(_) => SectionMethod::Exact,
-            SectionSolution::Thin(_) => SectionMethod::Thin,
-            SectionSolution::Panel(_) => SectionMethod::Panel,
-        }
-    }
-
-    /// Lift coefficient at `alpha_rad` (no stall).
-    pub fn cl(&self, alpha_rad: f64) -> f64 {
-        match self {
-            SectionSolution::Exact(ExactSolution::Joukowski(j)) => j.cl(alpha_rad),
-            SectionSolution::Exact(ExactSolution::KarmanTrefftz(k)) => k.cl(alpha_rad),
-            SectionSolution::Thin(t) => t.cl(alpha_rad),
-            SectionSolution::Panel(p) => p.cl(alpha_rad),
-        }
-    }
-
-    /// Moment coefficient about the quarter chord at `alpha_rad`, positive nose up.
-    pub fn cm_quarter_chord(&self, alpha_rad: f64) -> f64 {
-        match self {
-            SectionSolution::Exact(ExactSolution::Joukowski(j)) => j.cm_quarter_chord(alpha_rad),
-            SectionSolution::Exact(ExactSolution::KarmanTrefftz(k)) => {
-                k.cm_quarter_chord(alpha_rad)
-            }
-            SectionSolution::Thin(t) => t.cm_quarter_chord(),
-            SectionSolution::Panel(p) => p.cm_quarter_chord(alpha_rad),
-        }
-    }
-
-    /// Zero-lift angle, rad.
-    pub fn alpha_zero_lift_rad(&self) -> f64 {
-        match self {
-            SectionSolution::Exact(ExactSolution::Joukowski(j)) => j.alpha_zero_lift_rad(),
-            SectionSolution::Exact(ExactSolution::KarmanTrefftz(k)) => k.alpha_zero_lift_rad(),
-            SectionSolution::Thin(t) => t.alpha_zero_lift_rad(),
-            SectionSolution::Panel(p) => p.alpha_zero_lift_rad(),
-        }
-    }
-
-    /// Lift slope at zero lift, per rad.
-    pub fn cl_alpha_per_rad(&self) -> f64 {
-        match self {
-            SectionSolution::Exact(ExactSolution::Joukowski(j)) => j.cl_alpha_per_rad(),
-            SectionSolution::Exact(ExactSolution::KarmanTrefftz(k)) => k.cl_alpha_per_rad(),
-            SectionSolution::Thin(t) => t.cl_alpha_per_rad(),
-            SectionSolution::Panel(p) => p.cl_alpha_per_rad(),
-        }
-    }
-
-    /// Surface pressure at `alpha_rad`, from the trailing edge over the upper surface; `None`
-    /// for thin-airfoil theory, which has no surface.
-    pub fn surface(&self, alpha_rad: f64) -> Option<Vec<SurfacePressure>> {
-        let from_circle = |v: Vec<circle_map::SurfacePoint>| {
-            v.into_iter()
-                .map(|p| SurfacePressure {
-                    x_c: p.x_c,
-                    y_c: p.y_c,
-                    cp: p.cp,
-                })
-                .collect()
-        };
-        match self {
-            SectionSolution::Exact(ExactSolution::Joukowski(j)) => {
-                Some(from_circle(j.surface(EXACT_SURFACE_POINTS, alpha_rad)))
-            }
-            SectionSolution::Exact(ExactSolution::KarmanTrefftz(k)) => {
-                Some(from_circle(k.surface(EXACT_SURFACE_POINTS, alpha_rad)))
-            }
-            SectionSolution::Thin(_) => None,
-            SectionSolution::Panel(p) => Some(
-                p.surface(alpha_rad)
-                    .into_iter()
-                    .map(|q| SurfacePressure {
-                        x_c: q.x_c,
-                        y_c: q.y_c,
-                        cp: q.cp,
-                    })
-                    .collect(),
-            ),
-        }
-    }
 }
 
 /// A solved section with the model and cautions made from it.
