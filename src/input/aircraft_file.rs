@@ -348,7 +348,7 @@ impl Ctx<'_> {
                 toml::Value::Integer(_) | toml::Value::Float(_) => {
                     unit_slip_hint(in_default, dim, bounds)
                 }
-                toml::Value::String(text) => missing_unit_hint(text, dim),
+                toml::Value::String(text) => unit_in_text_hint(text, dim, bounds),
                 _ => String::new(),
             };
             return Err(self.err(

@@ -340,6 +340,27 @@ fn implausible_geometry_and_masses_are_refused_or_cautioned() {
     let e = err(&out);
     assert!(e.contains("did you mean 2 m?"), "{e}");
     assert!(e.contains("wing.panel[0].span"), "{e}");
+    // A unit slip inside a quoted length: metres written where millimetres were meant, and
+    // millimetres where metres were meant (the number alone fits the other unit's range).
+    let out = check_text(
+        "slip-m",
+        &demo_with("root_chord = 210", "root_chord = \"210 m\""),
+    );
+    let e = err(&out);
+    assert!(
+        e.contains("wing.root_chord") && e.contains("did you mean \"210 mm\"?"),
+        "{e}"
+    );
+    let out = check_text("slip-mm", &demo_with("span = 550", "span = \"2 mm\""));
+    let e = err(&out);
+    assert!(e.contains("did you mean \"2 m\"?"), "{e}");
+    // A length in range in neither unit gets no guess.
+    let out = check_text("no-guess", &demo_with("span = 550", "span = \"0.001 mm\""));
+    let e = err(&out);
+    assert!(
+        e.contains("wing.panel[0].span") && !e.contains("did you mean"),
+        "{e}"
+    );
     // A one-tonne glider of 2 m span: refused on its wing loading.
     let out = check_text("heavy", &demo_with("mass = 165", "mass = 1000000"));
     let e = err(&out);

@@ -193,6 +193,41 @@ pub(super) fn missing_unit_hint(text: &str, dim: Dimension) -> String {
     )
 }
 
+/// For a length or mass written with a unit that is out of range (`"2000 m"` for a chord,
+/// `"2 mm"` for a span): "; did you mean "2000 mm"?" when the same number would be in range
+/// in the default unit (mm, g) or in the unit a thousand times larger (m, kg). A quoted bare
+/// number gets [`missing_unit_hint`] instead; other text gets nothing.
+pub(super) fn unit_in_text_hint(text: &str, dim: Dimension, bounds: Bounds) -> String {
+    let missing = missing_unit_hint(text, dim);
+    if !missing.is_empty() {
+        return missing;
+    }
+    let bigger = match dim {
+        Dimension::Length => "m",
+        Dimension::Mass => "kg",
+        _ => return String::new(),
+    };
+    let t = text.trim();
+    let number_end = t
+        .find(|c: char| !(c.is_ascii_digit() || matches!(c, '.' | '-' | '+' | 'e' | 'E')))
+        .unwrap_or(t.len());
+    let Ok(n) = t[..number_end].trim().parse::<f64>() else {
+        return String::new();
+    };
+    let written_unit = t[number_end..].trim();
+    let suggest = if bounds.contains(n) && written_unit != dim.default_unit() {
+        Some(dim.default_unit())
+    } else if n > 0.0 && bounds.contains(1000.0 * n) && written_unit != bigger {
+        Some(bigger)
+    } else {
+        None
+    };
+    match suggest {
+        Some(unit) => format!("; did you mean \"{} {unit}\"?", fmt_num_short(n)),
+        None => String::new(),
+    }
+}
+
 /// "one of: a, b, c" for the accepted names of an error message.
 pub(super) fn one_of<S: AsRef<str>>(names: &[S]) -> String {
     format!("one of: {}", crate::printable::name_list(names))
