@@ -103,60 +103,13 @@ impl Contour {
     }
 
     fn build(raw: &[[f64; 2]], le_hint: Option<usize>) -> Result<Contour, GeometryError> {
-        if let Some(i) = raw
-            .iter()
-            .position(|p| !p[0].is_finite() || !p[1].is_finite())
-        {
-            return Err(GeometryError::NotFinite(i));
-        }
-        if raw.len() < MIN_POINTS {
-            return Err(GeometryError::TooFewPoints(raw.len()));
-        }
-        let scale = raw
-            .iter()
-            .flat_map(|p| raw.iter().take(1).map(move |q| dist(*p, *q)))
-            .fold(0.0, f64::max);
-        if scale <= 0.0 {
-            return Err(GeometryError::Degenerate);
-        }
-        let tol = 1e-9 * scale;
-        let mut pts: Vec<[f64; 2]> = raw.to_vec();
-        // A repeated trailing-edge point closes the loop (sharp trailing edge).
-        let closed = dist(pts[0], pts[pts.len() - 1]) <= tol;
-        if closed {
-            let n = pts.len();
-            pts[n - 1] = pts[0];
-        }
-        for i in 0..pts.len() - 1 {
-            if dist(pts[i], pts[i + 1]) <= tol {
-                return Err(GeometryError::Duplicate(i));
-            }
-        }
-        check_self_crossing(&pts, closed, tol)?;
-
-        // Trailing edge: a repeated point, or an end point further aft than the gap is wide
-        // (trailing-edge point given once), or the midpoint of a blunt gap.
-        let first = pts[0];
-        let last = pts[pts.len() - 1];
+        let (mut pts, closed, tol) = checked_points(raw)?;
         // Points put in front of the raw ones (moves the indices of `le_hint`).
-        let mut shift = 0;
-        if !closed {
-            let mid = [0.5 * (first[0] + last[0]), 0.5 * (first[1] + last[1])];
-            let le = farthest_from(&pts, mid);
-            let dir = unit(sub(mid, pts[le]));
-            let gap = sub(last, first);
-            let along = dot(gap, dir);
-            let across = cross(dir, gap);
-            if along.abs() > across.abs() {
-                if along < 0.0 {
-                    // The first point is further aft: the loop closes on it.
-                    pts.push(first);
-                } else {
-                    pts.insert(0, last);
-                    shift = 1;
-                }
-            }
-        }
+        let shift = if closed {
+            0
+        } else {
+            close_at_trailing_edge(&mut pts)
+        };
         let (first, last) = (pts[0], pts[pts.len() - 1]);
         let te = [0.5 * (first[0] + last[0]), 0.5 * (first[1] + last[1])];
         let le = match le_hint {
@@ -391,6 +344,69 @@ pub(crate) fn interp_y(surface: &[[f64; 2]], x: f64) -> f64 {
         p[1] + (q[1] - p[1]) * (x - p[0]) / (q[0] - p[0])
     } else {
         q[1]
+    }
+}
+
+/// The raw points checked (finite, enough of them, not all one point, no repeats, no
+/// self-crossing) with the length tolerance of the check, and whether a repeated first point
+/// closes the loop at a sharp trailing edge (the last point is then made exactly the first).
+fn checked_points(raw: &[[f64; 2]]) -> Result<(Vec<[f64; 2]>, bool, f64), GeometryError> {
+    if let Some(i) = raw
+        .iter()
+        .position(|p| !p[0].is_finite() || !p[1].is_finite())
+    {
+        return Err(GeometryError::NotFinite(i));
+    }
+    if raw.len() < MIN_POINTS {
+        return Err(GeometryError::TooFewPoints(raw.len()));
+    }
+    let scale = raw
+        .iter()
+        .flat_map(|p| raw.iter().take(1).map(move |q| dist(*p, *q)))
+        .fold(0.0, f64::max);
+    if scale <= 0.0 {
+        return Err(GeometryError::Degenerate);
+    }
+    let tol = 1e-9 * scale;
+    let mut pts: Vec<[f64; 2]> = raw.to_vec();
+    // A repeated trailing-edge point closes the loop (sharp trailing edge).
+    let closed = dist(pts[0], pts[pts.len() - 1]) <= tol;
+    if closed {
+        let n = pts.len();
+        pts[n - 1] = pts[0];
+    }
+    for i in 0..pts.len() - 1 {
+        if dist(pts[i], pts[i + 1]) <= tol {
+            return Err(GeometryError::Duplicate(i));
+        }
+    }
+    check_self_crossing(&pts, closed, tol)?;
+    Ok((pts, closed, tol))
+}
+
+/// An open loop's trailing edge: when the gap between the end points runs more along the
+/// chord than across it (a trailing-edge point given once), the loop is closed on the end
+/// further aft by repeating it at the other end; a blunt gap is left open (its midpoint is
+/// the trailing edge). Returns how many points were put in front of the raw ones (0 or 1).
+fn close_at_trailing_edge(pts: &mut Vec<[f64; 2]>) -> usize {
+    let first = pts[0];
+    let last = pts[pts.len() - 1];
+    let mid = [0.5 * (first[0] + last[0]), 0.5 * (first[1] + last[1])];
+    let le = farthest_from(pts, mid);
+    let dir = unit(sub(mid, pts[le]));
+    let gap = sub(last, first);
+    let along = dot(gap, dir);
+    let across = cross(dir, gap);
+    if along.abs() <= across.abs() {
+        return 0;
+    }
+    if along < 0.0 {
+        // The first point is further aft: the loop closes on it.
+        pts.push(first);
+        0
+    } else {
+        pts.insert(0, last);
+        1
     }
 }
 

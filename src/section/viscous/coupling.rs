@@ -132,53 +132,9 @@ impl ViscousSection {
             let ll = march_surface(&lower.stations, &march);
             let w_now = if iteration == 1 { 1.0 } else { w };
             for (side, layer) in [(&upper, &lu), (&lower, &ll)] {
-                for (n, &p) in side.panels.iter().enumerate() {
-                    let m_new = side.stations[n].ue * layer.states[n].delta_star;
-                    mass[p] += w_now * (m_new - mass[p]);
-                }
-                // sigma = d(Ue delta*)/ds along the flow, by differences on the stations (the
-                // stagnation point has zero mass defect).
-                let st = &side.stations;
-                for n in 0..st.len() {
-                    let p = side.panels[n];
-                    let (s0, m0) = if n == 0 {
-                        (0.0, 0.0)
-                    } else {
-                        (st[n - 1].s, mass[side.panels[n - 1]])
-                    };
-                    let (s1, m1) = match st.get(n + 1) {
-                        Some(nx) => (nx.s, mass[side.panels[n + 1]]),
-                        None => (st[n].s, mass[p]),
-                    };
-                    sigma[p] = if s1 > s0 { (m1 - m0) / (s1 - s0) } else { 0.0 };
-                }
-                // Panel-to-panel oscillation of the sources is the direct iteration's unstable
-                // mode: take it out with 1-2-1 smoothing along the surface.
-                for _ in 0..smoothing_passes {
-                    let raw: Vec<f64> = side.panels.iter().map(|&p| sigma[p]).collect();
-                    for n in 1..raw.len().saturating_sub(1) {
-                        sigma[side.panels[n]] = 0.25 * (raw[n - 1] + 2.0 * raw[n] + raw[n + 1]);
-                    }
-                }
+                relax_sources(side, layer, w_now, smoothing_passes, &mut mass, &mut sigma);
             }
-            // Wake: mass defect from the two trailing-edge values down to the far-wake momentum
-            // thickness (Squire-Young), exponentially over WAKE_DECAY_C.
-            let te = |side: &Side, layer: &SurfaceLayer| {
-                let (st, ls) = (side.stations.last(), layer.states.last());
-                match (st, ls) {
-                    (Some(st), Some(ls)) => (
-                        mass[*side.panels.last().unwrap_or(&0)],
-                        squire_young::drag_coefficient(ls.theta, st.ue, ls.h),
-                    ),
-                    _ => (0.0, 0.0),
-                }
-            };
-            let (mu, cdu) = te(&upper, &lu);
-            let (ml, cdl) = te(&lower, &ll);
-            let (m_te, m_far) = (mu + ml, 0.5 * (cdu + cdl));
-            for (sw, &x) in sigma_wake.iter_mut().zip(&self.wake_s) {
-                *sw = -(m_te - m_far) / WAKE_DECAY_C * (-x / WAKE_DECAY_C).exp();
-            }
+            self.wake_sources([(&upper, &lu), (&lower, &ll)], &mass, &mut sigma_wake);
             mat_vec_into(&self.q_sigma, sigma.as_slice(), &mut from_sigma);
             mat_vec_into(&self.q_wake, &sigma_wake, &mut from_wake);
             for i in 0..np {
@@ -213,6 +169,32 @@ impl ViscousSection {
             },
             iterations: MAX_ITERATIONS,
         })
+    }
+
+    /// The wake's sources: its mass defect runs from the two trailing-edge values down to
+    /// the far-wake momentum thickness (Squire-Young), exponentially over `WAKE_DECAY_C`.
+    fn wake_sources(
+        &self,
+        sides: [(&Side, &SurfaceLayer); 2],
+        mass: &DVector<f64>,
+        sigma_wake: &mut [f64],
+    ) {
+        let te = |side: &Side, layer: &SurfaceLayer| {
+            let (st, ls) = (side.stations.last(), layer.states.last());
+            match (st, ls) {
+                (Some(st), Some(ls)) => (
+                    mass[*side.panels.last().unwrap_or(&0)],
+                    squire_young::drag_coefficient(ls.theta, st.ue, ls.h),
+                ),
+                _ => (0.0, 0.0),
+            }
+        };
+        let (mu, cdu) = te(sides[0].0, sides[0].1);
+        let (ml, cdl) = te(sides[1].0, sides[1].1);
+        let (m_te, m_far) = (mu + ml, 0.5 * (cdu + cdl));
+        for (sw, &x) in sigma_wake.iter_mut().zip(&self.wake_s) {
+            *sw = -(m_te - m_far) / WAKE_DECAY_C * (-x / WAKE_DECAY_C).exp();
+        }
     }
 
     /// Coefficients of a converged surface speed.
@@ -280,6 +262,45 @@ impl ViscousSection {
             theta_te,
             h_te,
             cd: squire_young::drag_coefficient(theta_te, ue_te, h_te),
+        }
+    }
+}
+
+/// One side's sources for the next pass: its mass defect `Ue delta*` relaxed by `w` toward
+/// the boundary layer's, then sigma = d(Ue delta*)/ds along the flow by differences on the
+/// stations (the stagnation point has zero mass defect), smoothed `smoothing_passes` times.
+fn relax_sources(
+    side: &Side,
+    layer: &SurfaceLayer,
+    w: f64,
+    smoothing_passes: usize,
+    mass: &mut DVector<f64>,
+    sigma: &mut DVector<f64>,
+) {
+    for (n, &p) in side.panels.iter().enumerate() {
+        let m_new = side.stations[n].ue * layer.states[n].delta_star;
+        mass[p] += w * (m_new - mass[p]);
+    }
+    let st = &side.stations;
+    for n in 0..st.len() {
+        let p = side.panels[n];
+        let (s0, m0) = if n == 0 {
+            (0.0, 0.0)
+        } else {
+            (st[n - 1].s, mass[side.panels[n - 1]])
+        };
+        let (s1, m1) = match st.get(n + 1) {
+            Some(nx) => (nx.s, mass[side.panels[n + 1]]),
+            None => (st[n].s, mass[p]),
+        };
+        sigma[p] = if s1 > s0 { (m1 - m0) / (s1 - s0) } else { 0.0 };
+    }
+    // Panel-to-panel oscillation of the sources is the direct iteration's unstable mode: take
+    // it out with 1-2-1 smoothing along the surface.
+    for _ in 0..smoothing_passes {
+        let raw: Vec<f64> = side.panels.iter().map(|&p| sigma[p]).collect();
+        for n in 1..raw.len().saturating_sub(1) {
+            sigma[side.panels[n]] = 0.25 * (raw[n - 1] + 2.0 * raw[n] + raw[n + 1]);
         }
     }
 }
