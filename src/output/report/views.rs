@@ -48,22 +48,37 @@ pub struct TopView {
     pub fin_x_m: Option<(f64, f64)>,
 }
 
-/// Outline of both halves of `surface` in the top view: leading edge from the port tip to the
-/// starboard tip, trailing edge back.
-pub fn surface_outline(surface: &Surface) -> Outline {
+/// Stations of `surface` from root to tip for drawing: `intervals` equal steps along the
+/// half-span plus every panel join, and, with `both_sides_of_joins`, a point just outboard of
+/// each join too (where the chord or sweep may jump).
+fn stations_along(
+    surface: &Surface,
+    intervals: u32,
+    both_sides_of_joins: bool,
+) -> Vec<planform::SpanStation> {
     let total = planform::half_span_length_m(surface);
-    let mut s_values: Vec<f64> = (0..=64).map(|i| total * f64::from(i) / 64.0).collect();
+    let mut s_values: Vec<f64> = (0..=intervals)
+        .map(|i| total * f64::from(i) / f64::from(intervals))
+        .collect();
     for b in planform::break_points_m(surface) {
-        // Both sides of a join, where the chord may jump.
         s_values.push(b);
-        s_values.push((b + 1e-9 * total.max(1e-3)).min(total));
+        if both_sides_of_joins {
+            s_values.push((b + 1e-9 * total.max(1e-3)).min(total));
+        }
     }
     s_values.sort_by(f64::total_cmp);
     s_values.dedup();
-    let stations: Vec<_> = s_values
+    s_values
         .iter()
         .map(|&s| planform::station_at(surface, s))
-        .collect();
+        .collect()
+}
+
+/// Outline of both halves of `surface` in the top view: leading edge from the port tip to the
+/// starboard tip, trailing edge back.
+pub fn surface_outline(surface: &Surface) -> Outline {
+    // Both sides of a join, where the chord may jump.
+    let stations = stations_along(surface, 64, true);
     let mut le: Vec<(f64, f64)> = stations.iter().map(|st| (st.x_le_m, st.y_m)).collect();
     let mut te: Vec<(f64, f64)> = stations
         .iter()
@@ -193,15 +208,7 @@ pub(super) fn top_view(aircraft: &Aircraft, a: &Analysis, target_x_m: Option<f64
 /// back along the trailing edge. A flat surface is a line; a V-tail or a wing with dihedral
 /// shows its projected height (span along the panel times sin of its dihedral).
 pub fn side_outline(surface: &Surface) -> Outline {
-    let total = planform::half_span_length_m(surface);
-    let mut s_values: Vec<f64> = (0..=16).map(|i| total * f64::from(i) / 16.0).collect();
-    s_values.extend(planform::break_points_m(surface));
-    s_values.sort_by(f64::total_cmp);
-    s_values.dedup();
-    let stations: Vec<_> = s_values
-        .iter()
-        .map(|&s| planform::station_at(surface, s))
-        .collect();
+    let stations = stations_along(surface, 16, false);
     stations
         .iter()
         .map(|st| (st.x_le_m, st.z_m))

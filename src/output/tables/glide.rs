@@ -186,35 +186,45 @@ fn end_note(s: &crate::performance::flight_polar::SpeedToFly) -> String {
 
 /// The speed to fly between thermals for a few expected climbs.
 pub(super) fn thermal_speed_table(p: &crate::analysis::glide::GlidePolar) -> Table {
-    let mut t = table(&[
-        "next climb expected (m/s)",
-        "fly at (m/s)",
-        "mean cross-country speed (km/h)",
-    ]);
-    for s in &p.speed_to_fly_between_thermals {
-        t.add_row(vec![
-            num(s.climb_m_s, 1),
-            format!("{}{}", num(s.speed_m_s, 1), end_note(s)),
-            num(3.6 * s.cross_country_speed_m_s, 1),
-        ]);
-    }
-    right_align(&mut t, 0..3);
-    t
+    three_columns(
+        &[
+            "next climb expected (m/s)",
+            "fly at (m/s)",
+            "mean cross-country speed (km/h)",
+        ],
+        p.speed_to_fly_between_thermals.iter().map(|s| {
+            [
+                num(s.climb_m_s, 1),
+                format!("{}{}", num(s.speed_m_s, 1), end_note(s)),
+                num(3.6 * s.cross_country_speed_m_s, 1),
+            ]
+        }),
+    )
 }
 
 /// The speed to fly in air sinking at a few rates.
 pub(super) fn speed_to_fly_table(p: &crate::analysis::glide::GlidePolar) -> Table {
-    let mut t = table(&[
-        "air sinking at (m/s)",
-        "fly at (m/s)",
-        "glide ratio over the ground",
-    ]);
-    for s in &p.speed_to_fly {
-        t.add_row(vec![
-            num(s.air_sink_m_s, 1),
-            format!("{}{}", num(s.speed_m_s, 1), end_note(s)),
-            num(s.glide_ratio_in_air, 1),
-        ]);
+    three_columns(
+        &[
+            "air sinking at (m/s)",
+            "fly at (m/s)",
+            "glide ratio over the ground",
+        ],
+        p.speed_to_fly.iter().map(|s| {
+            [
+                num(s.air_sink_m_s, 1),
+                format!("{}{}", num(s.speed_m_s, 1), end_note(s)),
+                num(s.glide_ratio_in_air, 1),
+            ]
+        }),
+    )
+}
+
+/// A right-aligned table of three columns.
+fn three_columns(header: &[&str; 3], rows: impl Iterator<Item = [String; 3]>) -> Table {
+    let mut t = table(header);
+    for row in rows {
+        t.add_row(row.to_vec());
     }
     right_align(&mut t, 0..3);
     t
