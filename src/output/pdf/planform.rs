@@ -466,11 +466,19 @@ mod tests {
             .collect()
     }
 
-    // The demo has a fuselage, a wing and a tail: the wing polygon must be exactly the span
-    // at the stated scale wide, and the tail must lie below the wing (nose up).
-    #[test]
-    fn demo_top_view_is_to_scale_and_nose_up() {
-        let text = include_str!("../../../aircraft/larkspire-2000.toml");
+    // An example aircraft analysed and its top view drawn in a 190 x 110 mm frame: the
+    // aircraft, its analysis, its report data, the canvas, the frame and the scale (1 : n).
+    #[allow(clippy::type_complexity)]
+    fn drawn_top_view(
+        text: &str,
+    ) -> (
+        crate::model::Aircraft,
+        crate::analysis::Analysis,
+        report::ReportData,
+        Canvas,
+        Frame,
+        f64,
+    ) {
         let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
         let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
         let d = report::build(
@@ -490,6 +498,15 @@ mod tests {
             h: 110.0,
         };
         let n = top_view(&mut c, area, &d.top_view);
+        (aircraft, a, d, c, area, n)
+    }
+
+    // The demo has a fuselage, a wing and a tail: the wing polygon must be exactly the span
+    // at the stated scale wide, and the tail must lie below the wing (nose up).
+    #[test]
+    fn demo_top_view_is_to_scale_and_nose_up() {
+        let (aircraft, a, _, c, _, n) =
+            drawn_top_view(include_str!("../../../aircraft/larkspire-2000.toml"));
         assert!(n.is_finite() && n >= 1.0);
         let polys = polygons(c);
         // Drawing order: fuselage, wing, tail.
@@ -527,26 +544,8 @@ mod tests {
     // view's centre-line line).
     #[test]
     fn side_view_is_beside_the_top_view_at_its_scale() {
-        let text = include_str!("../../../aircraft/wrenfield-1400.toml");
-        let aircraft = crate::input::parse_aircraft(text, "demo", None).unwrap();
-        let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
-        let d = report::build(
-            &aircraft,
-            &a,
-            ReportSource {
-                file_name: "demo".into(),
-                content_hash: String::new(),
-                date: String::new(),
-            },
-        );
-        let mut c = Canvas::new();
-        let area = Frame {
-            x: 10.0,
-            y: 100.0,
-            w: 190.0,
-            h: 110.0,
-        };
-        let n = top_view(&mut c, area, &d.top_view);
+        let (aircraft, _, d, c, area, n) =
+            drawn_top_view(include_str!("../../../aircraft/wrenfield-1400.toml"));
         let k = 1000.0 / n;
         let polys = polygons(c);
         let xs = |p: &Vec<(f64, f64)>| p.iter().map(|q| q.0).collect::<Vec<_>>();
