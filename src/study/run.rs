@@ -307,10 +307,15 @@ impl<'a> Study<'a> {
             a.mass.cg_x_m + shift_m,
             z,
         ) {
-            Ok(tp) if tp.control_rad.is_finite() => ControlOutcome::Deflection {
-                rad: tp.control_rad,
-                within_throws: control.within_throws(tp.control_rad),
-            },
+            Ok(tp) if tp.control_rad.is_finite() => {
+                // The solve gives the linear model's (lift-equivalent) deflection; the builder
+                // sets the real one, larger by the flap correction (as in `check`).
+                let rad = crate::stability::trim::real_deflection_rad(control, tp.control_rad);
+                ControlOutcome::Deflection {
+                    rad,
+                    within_throws: control.within_throws(rad),
+                }
+            }
             _ => ControlOutcome::NoTrim,
         }
     }

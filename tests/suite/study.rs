@@ -487,6 +487,43 @@ fn the_control_at_the_neutral_trim_speed_is_zero() {
     }
 }
 
+// The control a sweep point reports at the target speed is the real deflection the builder
+// sets, the same as `check`'s elevator schedule at that speed (both undo the hinge-gap flap
+// correction; a sweep once reported the linear model's deflection, 15 % too small). The law:
+// the shortcut changes nothing, so the two agree to round-off.
+#[test]
+fn control_at_target_equals_the_elevator_schedule_of_check() {
+    let mut base = demo();
+    let x0 = analyse(&base, &AnalysisOptions::default()).unwrap();
+    let full = x0.full.as_ref().unwrap();
+    let p = full
+        .elevator_schedule
+        .iter()
+        .find(|p| p.elevator_rad.to_degrees().abs() > 0.3)
+        .expect("the demo's schedule has a point with some elevator");
+    base.targets.trim_speed_m_s = Some(p.speed_m_s);
+    let study = Study::new(
+        &base,
+        vec![Axis {
+            quantity: Quantity::CgX,
+            values: vec![x0.mass.cg_x_m],
+        }],
+        AnalysisOptions::default(),
+    )
+    .unwrap();
+    match study.point(0).outcome.unwrap().control_at_target {
+        trimline::study::ControlOutcome::Deflection { rad, .. } => {
+            assert!(
+                (rad - p.elevator_rad).abs() < 1e-9,
+                "sweep {} deg, check {} deg",
+                rad.to_degrees(),
+                p.elevator_rad.to_degrees()
+            );
+        }
+        other => panic!("expected a deflection, got {other:?}"),
+    }
+}
+
 // `sweep --glide` gives each point the least sink and best glide of its flight polar; at the
 // file's own CG they are `check`'s figures (the same chain on shared sections: the law is
 // that the shortcut changes nothing). Without `--glide` the fields are null.
