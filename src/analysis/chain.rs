@@ -1,12 +1,20 @@
 //! [`analyse_with`] in named steps: the equivalent surfaces and masses, the closed form, the
 //! full model, the figures that follow from the headline, the cautions, the result.
 
+use super::balance_checks::{
+    balance_cautions, cg_band_empty_caution, neutral_point_range_caution,
+    uncertain_aft_limit_caution,
+};
+use super::band::{ballast_advice, cg_band, headline_of, require_finite};
+use super::estimate::{
+    closed_form_input, fuselage_cm_alpha, glide_estimate, numerics_used, trim_input, Glide,
+};
+use super::fin::fin_note;
+use super::input_checks::{tip_reynolds_caution, vertical_cg_partial_caution, weighing_if_any};
+use super::model_checks::full_model_cautions;
 use super::{
-    balance_cautions, ballast_advice, cg_band, cg_band_empty_caution, closed_form_input, fin_note,
-    flight_polar_if_asked, full_model_cautions, full_stability_or_caution, fuselage_cm_alpha,
-    glide_estimate, headline_of, numerics_used, require_finite, tip_reynolds_caution, trim_input,
-    uncertain_aft_limit_caution, vertical_cg_partial_caution, weighing_if_any, Analysis,
-    AnalysisError, AnalysisOptions, BallastAdvice, CgBand, Glide, Headline, SectionSet,
+    flight_polar_if_asked, full_stability_or_caution, Analysis, AnalysisError, AnalysisOptions,
+    BallastAdvice, CgBand, Headline, Method, SectionSet,
 };
 use crate::atmosphere::{self, AirState};
 use crate::balance::{self, MassSummary};
@@ -79,6 +87,7 @@ pub fn analyse_with(
     spread_cautions(
         &basis,
         &headline,
+        &estimate,
         &neutral_point_spread,
         &cg_spread,
         &derived.band,
@@ -193,7 +202,7 @@ fn derived_figures(
     let mac = b.wing.geometry.mac_m;
     let np = headline.neutral_point_x_m;
     let (band, band_empty) = cg_band(aircraft, full, np, np_spread_m, mac);
-    let ballast = ballast_advice(aircraft, &b.mass, np, mac);
+    let ballast = ballast_advice(aircraft, &b.mass, np, mac, &band);
     let speed_m_s = headline
         .trim
         .map(|t| t.speed_m_s)
@@ -288,12 +297,26 @@ fn balance_and_model_cautions(
 fn spread_cautions(
     b: &Basis,
     headline: &Headline,
+    estimate: &ClassicalEstimate,
     neutral_point_spread: &NeutralPointSpread,
     cg_spread: &CgSpread,
     band: &CgBand,
     cautions: &mut Vec<Caution>,
 ) {
     let mac = b.wing.geometry.mac_m;
+    // The closed form is a second opinion only when the full model gave the headline.
+    let closed_form_np_x_m = match headline.method {
+        Method::Numerical(_) => Some(estimate.neutral_point_x_m),
+        Method::Classical => None,
+    };
+    neutral_point_range_caution(
+        b.mass.cg_x_m,
+        headline,
+        2.0 * neutral_point_spread.sigma_m,
+        closed_form_np_x_m,
+        band.aft_x_m,
+        cautions,
+    );
     uncertain_aft_limit_caution(
         headline.neutral_point_x_m,
         2.0 * neutral_point_spread.sigma_m,

@@ -1,7 +1,7 @@
 //! JSON output of `check`: one object, SI units, x aft of the file's datum, percent of MAC
 //! aft of the MAC leading edge. Every field is documented in `docs/json.md`.
 
-use crate::analysis::{AftLimit, Analysis, ForwardLimit};
+use crate::analysis::{AftLimit, Analysis, BandPosition, ForwardLimit};
 use crate::balance::BallastOutcome;
 use crate::caution::Caution;
 use crate::model::Aircraft;
@@ -209,6 +209,8 @@ pub struct BallastJson {
     pub bay: String,
     /// m
     pub target_cg_x_m: f64,
+    /// True when the target margin lies aft of the band and the advice aims at its aft end.
+    pub held_at_band_aft_end: bool,
     /// `not-needed`, `reachable`, `exceeds-bay`, `wrong-side`.
     pub status: &'static str,
     /// kg to add, or null.
@@ -313,12 +315,10 @@ fn mass_json(aircraft: &Aircraft, a: &Analysis) -> MassJson {
 /// `/balance`
 fn balance_json(aircraft: &Aircraft, a: &Analysis) -> BalanceJson {
     let g = &a.wing_geometry;
-    let band_pos = if a.mass.cg_x_m < a.band.forward_x_m - 5e-4 {
-        "forward"
-    } else if a.mass.cg_x_m > a.band.aft_x_m + 5e-4 {
-        "aft"
-    } else {
-        "inside"
+    let band_pos = match a.band.position(a.mass.cg_x_m) {
+        BandPosition::Forward => "forward",
+        BandPosition::Aft => "aft",
+        BandPosition::Inside => "inside",
     };
     BalanceJson {
         cg_x_m: r(a.mass.cg_x_m, 5),
@@ -368,6 +368,7 @@ fn balance_json(aircraft: &Aircraft, a: &Analysis) -> BalanceJson {
                 BallastJson {
                     bay: b.bay.clone(),
                     target_cg_x_m: r(b.target_x_m, 5),
+                    held_at_band_aft_end: b.held_at_band_aft_end,
                     status,
                     mass_kg,
                     needed_kg,

@@ -6,7 +6,7 @@
 //! geometry ([`planform::station_at`]) or from re-running the library's closed-form estimate
 //! ([`classical::estimate`]) at other CG positions.
 
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, BandPosition};
 use crate::balance::BallastOutcome;
 use crate::caution::{Caution, Level, SAFETY_MESSAGE};
 use crate::model::{Aircraft, StabiliserRole, Surface};
@@ -428,11 +428,25 @@ fn ballast_text(aircraft: &Aircraft, a: &Analysis) -> String {
             BallastOutcome::WrongSide => format!("{}: cannot help", b.bay),
         })
         .collect();
-    format!(
-        "{} for a {} % static margin",
-        parts.join("; "),
-        fmt(100.0 * sm, 0)
-    )
+    let aim = if a.ballast.iter().any(|b| b.held_at_band_aft_end) {
+        format!(
+            "to the recommended band's aft end ({} mm): a {} % static margin would lie aft of it",
+            fmt(a.band.aft_x_m * 1000.0, 0),
+            fmt(100.0 * sm, 0)
+        )
+    } else if a
+        .ballast
+        .first()
+        .is_some_and(|b| a.band.position(b.target_x_m) != BandPosition::Inside)
+    {
+        format!(
+            "for a {} % static margin, outside the recommended band",
+            fmt(100.0 * sm, 0)
+        )
+    } else {
+        format!("for a {} % static margin", fmt(100.0 * sm, 0))
+    };
+    format!("{} {aim}", parts.join("; "))
 }
 
 /// `text` with its first letter in upper case.

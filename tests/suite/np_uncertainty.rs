@@ -267,3 +267,62 @@ fn a_tailless_wing_has_a_neutral_point_range_and_its_band_allows_for_it() {
         a.band.aft_x_m
     );
 }
+
+/// `GLIDER` with its one mass at `x_mm` and `extra` appended, analysed.
+fn glider_with_cg_at(x_mm: f64, extra: &str) -> trimline::analysis::Analysis {
+    let text = GLIDER.replace("x = 60\n", &format!("x = {x_mm:.2}\n"));
+    let ac = parse_aircraft(&format!("{text}{extra}"), "t.toml", None).unwrap();
+    analyse(&ac, &AnalysisOptions::default()).unwrap()
+}
+
+fn has_code(a: &trimline::analysis::Analysis, code: &str) -> Option<trimline::caution::Level> {
+    a.cautions.iter().find(|c| c.code == code).map(|c| c.level)
+}
+
+// The unsafe side of an uncertain neutral point decides (common practice: a CG that may lie
+// behind the neutral point is not flown). A CG with a positive computed margin but behind the
+// forward end of the neutral point's two-sigma range is a danger; the band's aft end is not.
+#[test]
+fn a_cg_behind_the_forward_end_of_the_neutral_point_range_is_a_danger() {
+    let base = glider_with_cg_at(60.0, "");
+    let np_mm = 1000.0 * base.headline.neutral_point_x_m;
+    let spread_mm = 1000.0 * 2.0 * base.neutral_point_spread.sigma_m;
+    assert!(
+        spread_mm > 2.0,
+        "the glider should have a range: {spread_mm} mm"
+    );
+
+    let inside_range = glider_with_cg_at(np_mm - 0.5 * spread_mm, "");
+    assert!(inside_range.headline.static_margin > 0.0);
+    assert_eq!(
+        has_code(&inside_range, "cg-behind-neutral-point-range"),
+        Some(trimline::caution::Level::Danger)
+    );
+
+    let at_band_end = glider_with_cg_at(1000.0 * base.band.aft_x_m - 0.2, "");
+    assert_eq!(
+        has_code(&at_band_end, "cg-behind-neutral-point-range"),
+        None
+    );
+    // Behind the neutral point itself the negative margin speaks instead.
+    let behind = glider_with_cg_at(np_mm + 5.0, "");
+    assert_eq!(has_code(&behind, "cg-behind-neutral-point-range"), None);
+    assert!(has_code(&behind, "static-margin-negative").is_some());
+}
+
+// Ballast advice never leads behind the recommended band: a target margin that would put the
+// CG aft of the band (here 2 % against a band whose aft end keeps 5 % from the forward end of
+// the neutral point's range) is held at the band's aft end, and the advice says so.
+#[test]
+fn ballast_advice_for_a_small_target_margin_stops_at_the_band() {
+    let bay = "[[ballast]]\nname = \"nose\"\nx = -300\nmax = 500\n";
+    let small = glider_with_cg_at(20.0, &format!("{bay}[targets]\nstatic_margin = 2\n"));
+    let b = &small.ballast[0];
+    assert!(b.held_at_band_aft_end);
+    assert!((b.target_x_m - small.band.aft_x_m).abs() < 1e-12);
+    let normal = glider_with_cg_at(20.0, &format!("{bay}[targets]\nstatic_margin = 15\n"));
+    let b = &normal.ballast[0];
+    assert!(!b.held_at_band_aft_end);
+    let mac = normal.wing_geometry.mac_m;
+    assert!((b.target_x_m - (normal.headline.neutral_point_x_m - 0.15 * mac)).abs() < 1e-9);
+}

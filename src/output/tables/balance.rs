@@ -2,7 +2,7 @@
 //! the CG for the target speed.
 
 use super::{num, right_align, table_in};
-use crate::analysis::{AftLimit, Analysis, ForwardLimit, Method};
+use crate::analysis::{AftLimit, Analysis, BandPosition, ForwardLimit, Method};
 use crate::balance::BallastOutcome;
 use crate::model::Aircraft;
 use crate::output::units::UnitSystem;
@@ -223,9 +223,12 @@ fn ballast_rows(t: &mut Table, a: &Analysis, u: UnitSystem) {
                 )
             }
         };
-        let outside =
-            b.target_x_m < a.band.forward_x_m - 5e-4 || b.target_x_m > a.band.aft_x_m + 5e-4;
-        let text = if outside {
+        let text = if b.held_at_band_aft_end {
+            format!(
+                "{text}; the target margin lies aft of the recommended band, so this aims at \
+                 the band's aft end"
+            )
+        } else if a.band.position(b.target_x_m) != BandPosition::Inside {
             format!("{text}; outside the recommended band")
         } else {
             text
@@ -249,7 +252,7 @@ fn target_cg_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitSyste
                 "CG for the target trim speed".to_string(),
                 u.length(x, 1),
                 pct(x),
-                if x < a.band.forward_x_m - 5e-4 || x > a.band.aft_x_m + 5e-4 {
+                if a.band.position(x) != BandPosition::Inside {
                     "with the present incidences; outside the recommended band: change the \
                      incidences instead"
                         .to_string()
