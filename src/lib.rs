@@ -14,6 +14,7 @@ pub mod analysis;
 pub mod atmosphere;
 pub mod balance;
 pub mod caution;
+pub mod finding;
 pub mod input;
 pub mod lifting_line;
 pub mod model;

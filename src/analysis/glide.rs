@@ -411,7 +411,7 @@ fn early_separation_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
                  and fly the first flights well above the stall speed shown.",
                 if e.surface == 0 { "wing" } else { "stabiliser" },
                 e.airfoil,
-                crate::caution::reynolds_text(e.reynolds),
+                crate::output::cautions::reynolds_text(e.reynolds),
                 e.cl_at_stall,
                 e.separation_cl,
                 vs

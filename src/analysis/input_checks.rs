@@ -88,7 +88,7 @@ pub(super) fn reynolds_caution(
     stall_speed: f64,
     cautions: &mut Vec<Caution>,
 ) {
-    use crate::caution::reynolds_text;
+    use crate::output::cautions::reynolds_text;
     let worst = reynolds_mac.min(reynolds_tip_at_stall);
     let level = if worst < LOW_REYNOLDS_WARNING {
         Level::Warning

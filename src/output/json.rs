@@ -237,7 +237,7 @@ impl From<&Caution> for CautionJson {
         CautionJson {
             level: c.level.as_str(),
             code: c.code,
-            message: c.message.clone(),
+            message: crate::output::cautions::message(c),
         }
     }
 }

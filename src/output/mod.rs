@@ -3,6 +3,7 @@
 //! only module that knows printpdf). The core types carry no serde; this module copies them
 //! into output shapes with units in every field name.
 
+pub mod cautions;
 pub mod compare;
 pub mod fs;
 pub mod json;

@@ -8,8 +8,9 @@
 
 use crate::analysis::{Analysis, BandPosition};
 use crate::balance::BallastOutcome;
-use crate::caution::{Caution, Level, SAFETY_MESSAGE};
+use crate::caution::{Caution, Level};
 use crate::model::{Aircraft, StabiliserRole, Surface};
+use crate::output::cautions::SAFETY_MESSAGE;
 use crate::planform;
 use crate::stability::classical::{self, EstimateInput, StabiliserPlace};
 
@@ -141,7 +142,7 @@ pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportD
     let mut cautions: Vec<Caution> = a
         .cautions
         .iter()
-        .filter(|c| c.message != SAFETY_MESSAGE)
+        .filter(|c| c.finding != crate::finding::Finding::SafetyEstimateOnly)
         .cloned()
         .collect();
     cautions.sort_by_key(|c| std::cmp::Reverse(c.level));
@@ -261,7 +262,10 @@ fn key_figures(aircraft: &Aircraft, a: &Analysis) -> Vec<KeyFigure> {
     };
     out.push(kf(
         "Reynolds number (MAC)",
-        format!("{} {at}", crate::caution::reynolds_text(a.reynolds_mac)),
+        format!(
+            "{} {at}",
+            crate::output::cautions::reynolds_text(a.reynolds_mac)
+        ),
     ));
     out
 }

@@ -344,7 +344,7 @@ impl From<&Caution> for CautionReport {
         CautionReport {
             level: c.level.as_str().to_string(),
             code: c.code.to_string(),
-            message: c.message.clone(),
+            message: crate::output::cautions::message(c),
         }
     }
 }

@@ -323,7 +323,7 @@ fn cautions_table(a: &Analysis) -> Table {
         t.add_row(vec![
             level.to_string(),
             c.code.to_string(),
-            wrap(&c.message, 72),
+            wrap(&crate::output::cautions::message(c), 72),
         ]);
     }
     t

@@ -600,7 +600,7 @@ mod tests {
         let out = section_model(&j, &SectionOptions::default()).unwrap();
         assert_eq!(out.model.method, SectionMethod::Exact);
         assert_eq!(out.cautions[0].code, "cl-max-default");
-        assert!(out.cautions[0].message.contains("'test'"));
+        assert!(crate::output::cautions::message(&out.cautions[0]).contains("'test'"));
         let n = airfoil(AirfoilShape::Naca("2412".into()), None);
         let out = section_model(&n, &SectionOptions { panels: 80 }).unwrap();
         assert_eq!(out.model.method, SectionMethod::Panel);

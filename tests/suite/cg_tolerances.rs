@@ -213,12 +213,12 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
     let with = one_mass(x_mm, "x_tolerance = 3\n");
     assert_relative_eq!(with.cg_spread.sigma_m, 0.003, max_relative = 1e-9);
     assert!(has(&with), "{:?}", with.cautions);
-    let msg = &with
-        .cautions
-        .iter()
-        .find(|c| c.code == "cg-aft-of-uncertain-limit")
-        .unwrap()
-        .message;
+    let msg = &trimline::output::cautions::message(
+        with.cautions
+            .iter()
+            .find(|c| c.code == "cg-aft-of-uncertain-limit")
+            .unwrap(),
+    );
     assert!(msg.contains("tolerances"), "{msg}");
     assert!(msg.contains("or further forward"), "{msg}");
     // The CG is inside the band and only its tolerance range reaches past the aft end: the
@@ -248,7 +248,7 @@ fn the_cgs_aft_end_is_checked_against_the_uncertain_aft_limit() {
         .unwrap()
         .level;
     assert_eq!(level_with, trimline::caution::Level::Warning);
-    let msg = &caution.message;
+    let msg = &trimline::output::cautions::message(caution);
     let fwd = format!("{:.1} mm", 1000.0 * wild.band.forward_x_m);
     assert!(
         msg.contains("No CG in the recommended band") && msg.contains(&fwd),

@@ -190,7 +190,7 @@ fn comparison_pdf_is_one_page_with_the_figures() {
             "CG {cg:.1} missing in {text}"
         );
     }
-    let safety: String = trimline::caution::SAFETY_MESSAGE
+    let safety: String = trimline::output::cautions::SAFETY_MESSAGE
         .split_whitespace()
         .collect::<Vec<_>>()
         .join(" ");

@@ -108,8 +108,16 @@ fn a_fin_outside_the_published_range_gets_a_note() {
         .iter()
         .find(|c| c.code == "fin-volume-outside-range")
         .expect("note raised");
-    assert!(c.message.contains("below"), "{}", c.message);
-    assert!(c.message.contains("does not enter the"), "{}", c.message);
+    assert!(
+        trimline::output::cautions::message(c).contains("below"),
+        "{}",
+        trimline::output::cautions::message(c)
+    );
+    assert!(
+        trimline::output::cautions::message(c).contains("does not enter the"),
+        "{}",
+        trimline::output::cautions::message(c)
+    );
 
     let big = FIN.replace("height = 200", "height = 800");
     let a = analysis(&format!("{BASE}{big}"));
@@ -129,7 +137,11 @@ fn a_fin_ahead_of_the_wing_is_a_warning() {
         .find(|c| c.code == "fin-ahead-of-wing")
         .expect("warning raised");
     assert_eq!(c.level, trimline::caution::Level::Warning);
-    assert!(c.message.contains("fin.x"), "{}", c.message);
+    assert!(
+        trimline::output::cautions::message(c).contains("fin.x"),
+        "{}",
+        trimline::output::cautions::message(c)
+    );
     assert!(!has(&a, "fin-volume-outside-range"));
     assert!(!has(
         &analysis(&format!("{BASE}{FIN}")),

@@ -8,9 +8,9 @@
 use std::path::{Path, PathBuf};
 use std::process::Command;
 use trimline::analysis::{analyse, AnalysisOptions};
-use trimline::caution::SAFETY_MESSAGE;
 use trimline::input::parse_aircraft;
 use trimline::model::Aircraft;
+use trimline::output::cautions::SAFETY_MESSAGE;
 use trimline::output::pdf::Paper;
 use trimline::output::report::ReportSource;
 use trimline::output::report_file::{report_pdf, write_report, ReportError};
@@ -99,7 +99,7 @@ fn demo_report_is_one_page_with_the_analysis_figures() {
     );
     for c in &a.cautions {
         assert!(
-            text.contains(&squash(&c.message)),
+            text.contains(&squash(&trimline::output::cautions::message(c))),
             "caution {} missing",
             c.code
         );

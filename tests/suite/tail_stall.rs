@@ -94,11 +94,11 @@ fn download_stall_of_the_tail_is_found_at_the_hand_calculated_speed() {
         .find(|c| c.code == "tail-stalls-first")
         .expect("a caution names the surface that stalls first");
     assert!(
-        c.message.contains("tailplane stalls first, downwards"),
+        trimline::output::cautions::message(c).contains("tailplane stalls first, downwards"),
         "{}",
-        c.message
+        trimline::output::cautions::message(c)
     );
-    assert!(c.message.contains(&format!("{:.1} m/s", stall.speed_m_s)));
+    assert!(trimline::output::cautions::message(c).contains(&format!("{:.1} m/s", stall.speed_m_s)));
 }
 
 // Law of the forward CG limit: with the CG at the limit the tool reports (set by the tail's

@@ -48,8 +48,7 @@ fn reynolds_caution_looks_at_the_tip_at_the_stall_speed() {
     // Chord at 95 % of the 600 mm semispan of a straight taper 180 -> 80 mm: 85 mm.
     let chord = 0.180 - 0.95 * (0.180 - 0.080);
     let expected = 68_459.0 * a.headline.stall_speed_m_s * chord;
-    let tip = c
-        .message
+    let tip = trimline::output::cautions::message(c)
         .split("it is ")
         .nth(1)
         .and_then(|s| s.split(':').next())
@@ -59,9 +58,13 @@ fn reynolds_caution_looks_at_the_tip_at_the_stall_speed() {
     assert!(
         (tip - expected).abs() < 0.005 * expected,
         "{tip} vs {expected}: {}",
-        c.message
+        trimline::output::cautions::message(c)
     );
-    assert!(c.message.contains("(85 mm chord"), "{}", c.message);
+    assert!(
+        trimline::output::cautions::message(c).contains("(85 mm chord"),
+        "{}",
+        trimline::output::cautions::message(c)
+    );
 }
 
 fn trimline(args: &[&str]) -> String {

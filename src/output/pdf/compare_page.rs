@@ -6,7 +6,8 @@ use super::canvas::{Align, Canvas, Font, Marker, Pen};
 use super::chart::Axis;
 use super::metrics::{self, Face};
 use super::Paper;
-use crate::caution::{Level, SAFETY_MESSAGE};
+use crate::caution::Level;
+use crate::output::cautions::SAFETY_MESSAGE;
 
 const MARGIN: f64 = 10.0;
 const GAP: f64 = 5.0;

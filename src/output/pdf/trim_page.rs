@@ -406,7 +406,12 @@ fn cautions_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64
         let tag = format!("{}:", level_name(cau.level));
         let tag_w = bold.width_mm(&tag) + 1.2;
         c.text(x + pad, y, &tag, bold, Align::Left);
-        for l in metrics::wrap(&cau.message, Face::Regular, font.size_pt, inner - tag_w) {
+        for l in metrics::wrap(
+            &crate::output::cautions::message(cau),
+            Face::Regular,
+            font.size_pt,
+            inner - tag_w,
+        ) {
             c.text(x + pad + tag_w, y, &l, font, Align::Left);
             y -= font.line_height_mm();
         }

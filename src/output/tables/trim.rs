@@ -21,7 +21,7 @@ pub(super) fn trim_table(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> Ta
     };
     t.add_row(vec![
         format!("Reynolds number on MAC {at}"),
-        crate::caution::reynolds_text(a.reynolds_mac),
+        crate::output::cautions::reynolds_text(a.reynolds_mac),
         String::new(),
     ]);
     right_align(&mut t, 1..2);
