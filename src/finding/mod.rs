@@ -4,12 +4,44 @@
 //! `docs/cautions.md`.
 
 use crate::caution::Level;
+use crate::model::{Aircraft, StabiliserRole};
+
+mod balance;
+
+pub use balance::{BalanceFinding, FasterTrim};
+
+/// The aircraft's pitch control, as the cautions name it.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Control {
+    /// A tailplane's elevator.
+    Elevator,
+    /// A canard's elevator.
+    CanardElevator,
+    /// A tailless wing's elevons.
+    Elevons,
+    /// A tailless wing without elevons: only the airfoils' reflex.
+    Reflex,
+}
+
+impl Control {
+    /// The pitch control of `aircraft`.
+    pub fn of(aircraft: &Aircraft) -> Control {
+        match (&aircraft.stabiliser, &aircraft.elevons) {
+            (Some(s), _) if s.role == StabiliserRole::Canard => Control::CanardElevator,
+            (Some(_), _) => Control::Elevator,
+            (None, Some(_)) => Control::Elevons,
+            (None, None) => Control::Reflex,
+        }
+    }
+}
 
 /// One finding.
 #[derive(Debug, Clone, PartialEq)]
 pub enum Finding {
     /// The standing caution of every result: the figures are estimates.
     SafetyEstimateOnly,
+    /// Balance and trim.
+    Balance(BalanceFinding),
     /// A finding whose sentence was written where it was found (not yet typed); its level and
     /// code travel in the [`crate::caution::Caution`] that holds it.
     Worded(String),
@@ -20,6 +52,7 @@ impl Finding {
     pub fn level(&self) -> Level {
         match self {
             Finding::SafetyEstimateOnly | Finding::Worded(_) => Level::Note,
+            Finding::Balance(f) => f.level(),
         }
     }
 
@@ -28,7 +61,14 @@ impl Finding {
     pub fn code(&self) -> &'static str {
         match self {
             Finding::SafetyEstimateOnly => "safety-estimate-only",
+            Finding::Balance(f) => f.code(),
             Finding::Worded(_) => "",
         }
+    }
+}
+
+impl From<BalanceFinding> for Finding {
+    fn from(f: BalanceFinding) -> Self {
+        Finding::Balance(f)
     }
 }

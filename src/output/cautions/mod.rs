@@ -2,7 +2,9 @@
 //! analysis finds, this module says.
 
 use crate::caution::Caution;
-use crate::finding::Finding;
+use crate::finding::{Control, Finding};
+
+mod balance;
 
 /// The standing safety caution carried by every analysis and report.
 pub const SAFETY_MESSAGE: &str = "These figures are estimates from a simplified aerodynamic model. \
@@ -14,7 +16,26 @@ the weighing report and licensed airworthiness practice always take precedence."
 pub fn message(c: &Caution) -> String {
     match &c.finding {
         Finding::SafetyEstimateOnly => SAFETY_MESSAGE.to_string(),
+        Finding::Balance(f) => balance::message(f),
         Finding::Worded(text) => text.clone(),
+    }
+}
+
+/// The pitch control's name ("full up elevator").
+fn control_name(c: Control) -> &'static str {
+    match c {
+        Control::Elevons => "elevons",
+        Control::Elevator | Control::CanardElevator | Control::Reflex => "elevator",
+    }
+}
+
+/// What gives nose-up pitch, in the builder's words.
+pub fn nose_up_control(c: Control) -> &'static str {
+    match c {
+        Control::CanardElevator => "nose-up canard elevator (trailing edge down)",
+        Control::Elevator => "up elevator",
+        Control::Elevons => "up elevon",
+        Control::Reflex => "nose-up trim (reflex)",
     }
 }
 
