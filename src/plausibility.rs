@@ -5,10 +5,11 @@
 //! published table): wing loadings from about 0.1 kg/m^2 (indoor models) through 2 to
 //! 15 kg/m^2 (outdoor models, jets at the top) to about 150 kg/m^2 (light aircraft); a
 //! fuselage up to about 1.5 times the wing span (sailplanes are far shorter, some jets and
-//! canards reach 1.5); a stabiliser within about 1.5 spans of the wing. Impossible values are refused earlier,
+//! canards reach 1.5); a stabiliser within about 1.5 spans of the wing; a wing aspect ratio of about 1.5 to 55. Impossible values are refused earlier,
 //! by the reader, with an error.
 
-use crate::caution::{Caution, Level};
+use crate::caution::Caution;
+use crate::finding::{InputFinding, MarginSetting};
 use crate::model::Aircraft;
 use crate::planform::PlanformGeometry;
 
@@ -18,6 +19,11 @@ pub const USUAL_WING_LOADING_KG_M2: (f64, f64) = (0.1, 160.0);
 pub const MAX_USUAL_FUSELAGE_PER_SPAN: f64 = 1.5;
 /// A stabiliser farther than this many wing spans from the wing gets `proportions-unusual`.
 pub const MAX_USUAL_TAIL_ARM_PER_SPAN: f64 = 1.5;
+
+/// Wing aspect ratios outside this range get `proportions-unusual` (common practice, from
+/// memory: about 2 for the stubbiest flying wings and discs, about 50 for the most slender
+/// open-class sailplanes).
+pub const USUAL_ASPECT_RATIO: (f64, f64) = (1.5, 55.0);
 
 /// A positive static margin below this (1 % of MAC) is most likely a fraction typed for a
 /// percentage.
@@ -39,49 +45,40 @@ pub fn cautions(aircraft: &Aircraft, wing: &PlanformGeometry, mass_kg: f64) -> V
 /// A negative static margin asked for, and a margin that looks typed as a fraction.
 fn margin_cautions(aircraft: &Aircraft, out: &mut Vec<Caution>) {
     let limits = &aircraft.margin_limits;
-    let negative_target = aircraft.targets.static_margin.is_some_and(|m| m < 0.0);
-    if limits.min_static_margin < 0.0 || negative_target {
-        out.push(Caution::new(
-            Level::Danger,
-            "static-margin-limit-negative",
-            format!(
-                "The file asks for a negative static margin ({} {:.1} % of MAC): the CG is \
-                 then behind the neutral point and the aircraft is unstable in pitch. Only \
-                 for a design flown with a stabilising system; the recommended range and \
-                 ballast advice follow the file, not common practice.",
-                if negative_target {
-                    "target"
-                } else {
-                    "smallest limit"
-                },
-                100.0
-                    * if negative_target {
-                        aircraft.targets.static_margin.unwrap_or(0.0)
-                    } else {
-                        limits.min_static_margin
-                    }
-            ),
+    let target = aircraft.targets.static_margin;
+    if let Some(m) = target.filter(|m| *m < 0.0) {
+        out.push(Caution::of(
+            InputFinding::StaticMarginLimitNegative {
+                setting: MarginSetting::Target,
+                static_margin: m,
+            }
+            .into(),
+        ));
+    } else if limits.min_static_margin < 0.0 {
+        out.push(Caution::of(
+            InputFinding::StaticMarginLimitNegative {
+                setting: MarginSetting::LeastLimit,
+                static_margin: limits.min_static_margin,
+            }
+            .into(),
         ));
     }
     // A margin typed as a fraction (0.10 for 10 %) reads as 0.1 % of MAC: a CG on the
     // neutral point. Margins of model aircraft start at about 3 % (common practice).
-    for (what, value) in [
-        ("target static margin", aircraft.targets.static_margin),
+    for (setting, value) in [
+        (MarginSetting::Target, target),
         (
-            "smallest static margin of [limits]",
+            MarginSetting::LeastLimit,
             (!limits.from_defaults).then_some(limits.min_static_margin),
         ),
     ] {
         if let Some(m) = value.filter(|m| *m > 0.0 && *m < MARGIN_FRACTION_SLIP) {
-            out.push(Caution::new(
-                Level::Warning,
-                "margin-looks-like-a-fraction",
-                format!(
-                    "The {what} is {:.2} % of MAC, which puts the CG practically on the \
-                     neutral point. Margins are in percent of MAC: did you mean {:.0} %?",
-                    100.0 * m,
-                    10_000.0 * m
-                ),
+            out.push(Caution::of(
+                InputFinding::MarginLooksLikeAFraction {
+                    setting,
+                    static_margin: m,
+                }
+                .into(),
             ));
         }
     }
@@ -91,20 +88,13 @@ fn margin_cautions(aircraft: &Aircraft, out: &mut Vec<Caution>) {
 fn overlap_caution(aircraft: &Aircraft, out: &mut Vec<Caution>) {
     if let Some(stab) = &aircraft.stabiliser {
         if let Some(o) = crate::planform::plan_overlap(&aircraft.wing, &stab.surface) {
-            out.push(Caution::new(
-                Level::Warning,
-                "surfaces-overlap",
-                format!(
-                    "The {} overlaps the wing in the top view ({:.0} mm from the centre line, \
-                     {:.0} mm above or below it): the two are modelled as a biplane, each in the \
-                     other's field. If that is not the layout, check stabiliser.x and z.",
-                    match stab.role {
-                        crate::model::StabiliserRole::Tail => "tail",
-                        crate::model::StabiliserRole::Canard => "canard",
-                    },
-                    1000.0 * o.y_m,
-                    1000.0 * o.gap_m
-                ),
+            out.push(Caution::of(
+                InputFinding::SurfacesOverlap {
+                    role: stab.role,
+                    y_m: o.y_m,
+                    gap_m: o.gap_m,
+                }
+                .into(),
             ));
         }
     }
@@ -115,52 +105,55 @@ fn wing_loading_caution(wing: &PlanformGeometry, mass_kg: f64, out: &mut Vec<Cau
     let loading = mass_kg / wing.area_m2;
     let (lo, hi) = USUAL_WING_LOADING_KG_M2;
     if loading < lo || loading > hi {
-        out.push(Caution::new(
-            Level::Warning,
-            "wing-loading-unusual",
-            format!(
-                "The wing loading is {:.2} kg/m^2 ({:.1} g/dm^2), outside the usual {lo} to \
-                 {hi} kg/m^2 of models and light aircraft: check the masses and the \
-                 planform (bare masses are grams, bare lengths millimetres).",
-                loading,
-                10.0 * loading
-            ),
+        out.push(Caution::of(
+            InputFinding::WingLoadingUnusual {
+                loading_kg_m2: loading,
+                usual_kg_m2: USUAL_WING_LOADING_KG_M2,
+            }
+            .into(),
         ));
     }
 }
 
-/// A fuselage or tail arm long for the span (`wing` with a positive span).
+/// A fuselage or tail arm long for the span, or a wing of unusual aspect ratio (`wing` with a
+/// positive span and area).
 fn proportion_cautions(aircraft: &Aircraft, wing: &PlanformGeometry, out: &mut Vec<Caution>) {
+    let span_m = wing.span_m;
     if let Some(f) = &aircraft.fuselage {
-        if f.length_m > MAX_USUAL_FUSELAGE_PER_SPAN * wing.span_m {
-            out.push(Caution::new(
-                Level::Warning,
-                "proportions-unusual",
-                format!(
-                    "The fuselage ({:.0} mm) is {:.1} times the wing span ({:.0} mm); \
-                     usual is at most {MAX_USUAL_FUSELAGE_PER_SPAN}: check fuselage.length.",
-                    1000.0 * f.length_m,
-                    f.length_m / wing.span_m,
-                    1000.0 * wing.span_m
-                ),
+        if f.length_m > MAX_USUAL_FUSELAGE_PER_SPAN * span_m {
+            out.push(Caution::of(
+                InputFinding::FuselageLong {
+                    length_m: f.length_m,
+                    span_m,
+                    usual_max: MAX_USUAL_FUSELAGE_PER_SPAN,
+                }
+                .into(),
             ));
         }
     }
     if let Some(s) = &aircraft.stabiliser {
-        let arm = (s.surface.root_le_x_m - aircraft.wing.root_le_x_m).abs();
-        if arm > MAX_USUAL_TAIL_ARM_PER_SPAN * wing.span_m {
-            out.push(Caution::new(
-                Level::Warning,
-                "proportions-unusual",
-                format!(
-                    "The stabiliser is {:.0} mm from the wing, {:.1} times the wing span \
-                     ({:.0} mm); usual is at most {MAX_USUAL_TAIL_ARM_PER_SPAN}: check \
-                     stabiliser.x.",
-                    1000.0 * arm,
-                    arm / wing.span_m,
-                    1000.0 * wing.span_m
-                ),
+        let arm_m = (s.surface.root_le_x_m - aircraft.wing.root_le_x_m).abs();
+        if arm_m > MAX_USUAL_TAIL_ARM_PER_SPAN * span_m {
+            out.push(Caution::of(
+                InputFinding::TailArmLong {
+                    arm_m,
+                    span_m,
+                    usual_max: MAX_USUAL_TAIL_ARM_PER_SPAN,
+                }
+                .into(),
             ));
         }
+    }
+    let aspect_ratio = span_m * span_m / wing.area_m2;
+    let (lo, hi) = USUAL_ASPECT_RATIO;
+    if aspect_ratio.is_finite() && !(lo..=hi).contains(&aspect_ratio) {
+        out.push(Caution::of(
+            InputFinding::AspectRatioUnusual {
+                aspect_ratio,
+                span_m,
+                usual: USUAL_ASPECT_RATIO,
+            }
+            .into(),
+        ));
     }
 }

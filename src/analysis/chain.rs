@@ -18,7 +18,8 @@ use super::{
 };
 use crate::atmosphere::{self, AirState};
 use crate::balance::{self, MassSummary};
-use crate::caution::{safety_caution, Caution, Level};
+use crate::caution::{safety_caution, Caution};
+use crate::finding::InputFinding;
 use crate::lifting_line::{LiftingLineError, MultiSurfaceSystem};
 use crate::model::Aircraft;
 use crate::planform;
@@ -327,16 +328,12 @@ fn spread_cautions(
     // Tolerances that spread the CG over more than the mean chord are almost certainly typed
     // wrong (a kilogram for a gram, a tolerance on the wrong item).
     if (4.0 * cg_spread.sigma_m).is_finite() && 4.0 * cg_spread.sigma_m > mac {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "tolerances-too-large",
-            format!(
-                "The mass and position tolerances spread the CG over {:.0} mm (two standard \
-                 deviations each way), more than the {:.0} mm mean chord: check the [tolerances] \
-                 and the items' own tolerances (g and mm).",
-                1000.0 * 4.0 * cg_spread.sigma_m,
-                1000.0 * mac
-            ),
+        cautions.push(Caution::of(
+            InputFinding::TolerancesTooLarge {
+                cg_range_m: 4.0 * cg_spread.sigma_m,
+                mac_m: mac,
+            }
+            .into(),
         ));
     }
 }

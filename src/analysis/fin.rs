@@ -1,7 +1,8 @@
 //! The lateral note of a fin or V-tail: side area, arm and vertical tail volume coefficient
 //! (Raymer, *Aircraft Design: A Conceptual Approach*, sec. 6.4); no pitch figure reads it.
 
-use crate::caution::{Caution, Level};
+use crate::caution::Caution;
+use crate::finding::InputFinding;
 use crate::model::Aircraft;
 use crate::planform;
 use crate::planform::PlanformGeometry;
@@ -69,33 +70,16 @@ pub(super) fn fin_note(
         if f.arm_m.is_finite() && f.arm_m <= 0.0 {
             // A fin at or ahead of the wing destabilises in yaw: most likely a position typed
             // from another datum or in another unit.
-            cautions.push(Caution::new(
-                Level::Warning,
-                "fin-ahead-of-wing",
-                format!(
-                    "The fin's quarter chord lies {:.0} mm ahead of the wing's: a fin there \
-                     makes the aircraft unstable in yaw. Check fin.x (measured from the datum, \
-                     in mm unless a unit is written).",
-                    -1000.0 * f.arm_m
-                ),
+            cautions.push(Caution::of(
+                InputFinding::FinAheadOfWing { ahead_m: -f.arm_m }.into(),
             ));
         } else if v.is_finite() && !(lo..=hi).contains(&v) {
-            cautions.push(Caution::new(
-                Level::Note,
-                "fin-volume-outside-range",
-                format!(
-                    "The fin's volume coefficient S_v l_v / (S b) is {v:.3}, {} the typical values \
-                     of {lo:.2} (sailplanes) to {hi:.2} (Raymer, Aircraft Design, table of tail volume \
-                     coefficients): {}. This is a lateral note only; the fin does not enter the \
-                     pitch figures.",
-                    if v < lo { "below" } else { "above" },
-                    if v < lo {
-                        "weak directional stability is possible; compare with similar aircraft \
-                         that fly well"
-                    } else {
-                        "a large fin; check that it is what you meant"
-                    }
-                ),
+            cautions.push(Caution::of(
+                InputFinding::FinVolumeOutsideRange {
+                    volume_coefficient: v,
+                    range: (lo, hi),
+                }
+                .into(),
             ));
         }
     }
@@ -110,17 +94,13 @@ pub(super) fn fin_note(
             (f.root_le_x_m + f.root_chord_m).max(tip_le + f.tip_chord_m),
         );
         if item.x_m < x0 || item.x_m > x1 {
-            cautions.push(Caution::new(
-                Level::Note,
-                "fin-mass-away-from-fin",
-                format!(
-                    "The mass item `{}`, named as the fin's mass, is at {:.0} mm, outside the fin \
-                     ({:.0} to {:.0} mm from the datum); check its x.",
-                    item.name,
-                    1000.0 * item.x_m,
-                    1000.0 * x0,
-                    1000.0 * x1
-                ),
+            cautions.push(Caution::of(
+                InputFinding::FinMassAwayFromFin {
+                    item: item.name.clone(),
+                    item_x_m: item.x_m,
+                    fin_x_m: (x0, x1),
+                }
+                .into(),
             ));
         }
     }

@@ -1,13 +1,11 @@
 //! The cautions on the inputs and the air: weighing against the mass list, vertical CG
 //! partly given, low Reynolds numbers.
 
-use super::{
-    AnalysisError, LOW_REYNOLDS_NOTE, LOW_REYNOLDS_WARNING, WEIGHING_CG_TOLERANCE_M,
-    WEIGHING_MASS_TOLERANCE,
-};
+use super::{AnalysisError, LOW_REYNOLDS_NOTE, WEIGHING_CG_TOLERANCE_M, WEIGHING_MASS_TOLERANCE};
 use crate::atmosphere::AirState;
 use crate::balance::MassSummary;
-use crate::caution::{Caution, Level};
+use crate::caution::Caution;
+use crate::finding::InputFinding;
 use crate::model::Aircraft;
 use crate::{balance, planform};
 
@@ -15,14 +13,12 @@ use crate::{balance, planform};
 pub(super) fn vertical_cg_partial_caution(aircraft: &Aircraft, cautions: &mut Vec<Caution>) {
     let with_z = aircraft.masses.iter().filter(|m| m.z_m.is_some()).count();
     if with_z > 0 && with_z < aircraft.masses.len() {
-        cautions.push(Caution::new(
-            Level::Note,
-            "vertical-cg-partial",
-            format!(
-                "{with_z} of the {} masses have a height (z); the vertical CG needs all of them, so it is \
-                 not used and moments are taken at the wing root's height. Give every mass a z to use it.",
-                aircraft.masses.len()
-            ),
+        cautions.push(Caution::of(
+            InputFinding::VerticalCgPartial {
+                with_height: with_z,
+                masses: aircraft.masses.len(),
+            }
+            .into(),
         ));
     }
 }
@@ -53,23 +49,17 @@ pub(super) fn tip_reynolds_caution(
 }
 
 pub(super) fn weighing_caution(w: &MassSummary, mass: &MassSummary, cautions: &mut Vec<Caution>) {
-    let dx_mm = (w.cg_x_m - mass.cg_x_m) * 1000.0;
-    let dm_pct = 100.0 * (w.total_kg - mass.total_kg) / mass.total_kg;
-    if dx_mm.abs() > WEIGHING_CG_TOLERANCE_M * 1000.0
-        || dm_pct.abs() > 100.0 * WEIGHING_MASS_TOLERANCE
-    {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "weighing-differs",
-            format!(
-                "The weighing puts the CG at {:.0} mm and the mass at {:.0} g; the mass list gives {:.0} mm \
-                 and {:.0} g ({dx_mm:+.0} mm, {dm_pct:+.1} %). Trust the scales: correct the mass list \
-                 (a forgotten item, a wrong position) before relying on the figures here.",
-                w.cg_x_m * 1000.0,
-                w.total_kg * 1000.0,
-                mass.cg_x_m * 1000.0,
-                mass.total_kg * 1000.0
-            ),
+    let dx_m = w.cg_x_m - mass.cg_x_m;
+    let dm = (w.total_kg - mass.total_kg) / mass.total_kg;
+    if dx_m.abs() > WEIGHING_CG_TOLERANCE_M || dm.abs() > WEIGHING_MASS_TOLERANCE {
+        cautions.push(Caution::of(
+            InputFinding::WeighingDiffers {
+                weighed_cg_x_m: w.cg_x_m,
+                weighed_kg: w.total_kg,
+                listed_cg_x_m: mass.cg_x_m,
+                listed_kg: mass.total_kg,
+            }
+            .into(),
         ));
     }
 }
@@ -88,33 +78,19 @@ pub(super) fn reynolds_caution(
     stall_speed: f64,
     cautions: &mut Vec<Caution>,
 ) {
-    use crate::output::cautions::reynolds_text;
-    let worst = reynolds_mac.min(reynolds_tip_at_stall);
-    let level = if worst < LOW_REYNOLDS_WARNING {
-        Level::Warning
-    } else if worst < LOW_REYNOLDS_NOTE {
-        Level::Note
-    } else {
+    if reynolds_mac.min(reynolds_tip_at_stall) >= LOW_REYNOLDS_NOTE {
         return;
-    };
-    let effect = if worst < LOW_REYNOLDS_WARNING {
-        "airfoils lose lift and gain drag sharply below about 50,000, so expect a higher stall \
-         speed, an earlier tip stall and a poorer glide than estimated"
-    } else {
-        "below about 100,000 section data and cl_max are uncertain; choose airfoils made for low \
-         Reynolds numbers"
-    };
-    cautions.push(Caution::new(
-        level,
-        "reynolds-low",
-        format!(
-            "Reynolds number on the wing's mean chord at {speed:.1} m/s is {}; at the tip ({:.0} mm \
-             chord, {:.0} % of the semispan) at the stall speed {stall_speed:.1} m/s it is {}: {effect}.",
-            reynolds_text(reynolds_mac),
-            tip_chord_m * 1000.0,
-            100.0 * TIP_REYNOLDS_STATION,
-            reynolds_text(reynolds_tip_at_stall),
-        ),
+    }
+    cautions.push(Caution::of(
+        InputFinding::ReynoldsLow {
+            reynolds_mac,
+            speed_m_s: speed,
+            reynolds_tip_at_stall,
+            tip_chord_m,
+            tip_station: TIP_REYNOLDS_STATION,
+            stall_speed_m_s: stall_speed,
+        }
+        .into(),
     ));
 }
 

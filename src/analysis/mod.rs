@@ -7,7 +7,8 @@
 
 use crate::atmosphere::AirState;
 use crate::balance::{self, BallastOutcome, MassSummary};
-use crate::caution::{Caution, Level};
+use crate::caution::Caution;
+use crate::finding::InputFinding;
 use crate::model::Aircraft;
 
 use crate::lifting_line::{LiftingLineError, LiftingLineOptions, MultiSurfaceSystem};
@@ -424,13 +425,8 @@ fn full_stability_or_caution(
     {
         Ok(f) => Some(f),
         Err(e) => {
-            cautions.push(Caution::new(
-                Level::Warning,
-                "lifting-line-failed",
-                format!(
-                    "The lifting-line model could not be solved ({e}); the figures come from the \
-                     closed-form estimate only, which ignores sweep, tail height and the spanwise loading."
-                ),
+            cautions.push(Caution::of(
+                InputFinding::LiftingLineFailed { error: e }.into(),
             ));
             None
         }
@@ -449,12 +445,7 @@ fn flight_polar_if_asked(
 ) -> Result<(Option<glide::GlidePolar>, Vec<glide::SettingPolar>), AnalysisError> {
     let unstable = full.is_some_and(|f| f.static_margin <= 0.0);
     if options.flight_polar && unstable {
-        cautions.push(Caution::new(
-            Level::Note,
-            "no-flight-polar",
-            "At this CG the aircraft is unstable in pitch (negative static margin): it cannot \
-             hold a trimmed glide, so no glide figures are given.",
-        ));
+        cautions.push(Caution::of(InputFinding::NoFlightPolar.into()));
     }
     let (glide_polar, flap_polars) = match (options.flight_polar, system, full) {
         (true, Ok(system), Some(f)) if !unstable => {

@@ -40,7 +40,8 @@ pub use flap::FlapEffect;
 pub use model::{ClMaxSource, SectionModel, DEFAULT_CL_MAX};
 pub use solution::{ExactSolution, SectionSolution, SurfacePressure};
 
-use crate::caution::{Caution, Level};
+use crate::caution::Caution;
+use crate::finding::InputFinding;
 use crate::model::{Airfoil, AirfoilShape, SectionMethod};
 use circle_map::CircleMapError;
 use geometry::{Contour, GeometryError};
@@ -148,17 +149,13 @@ pub fn analyse_section(
     let mut outcome = model_from_solution(airfoil, &solution)?;
     if method == SectionMethod::Panel {
         if let Some(t) = shape_thickness(airfoil).filter(|&t| t < THIN_SECTION_FOR_PANELS) {
-            outcome.cautions.push(Caution::new(
-                Level::Warning,
-                "section-too-thin-for-panels",
-                format!(
-                    "Airfoil '{}' is only {:.1} % thick; the panel method loses accuracy on \
-                     sections thinner than {:.0} % of chord. Thin-airfoil theory (method thin) \
-                     suits such sections better.",
-                    airfoil.name,
-                    100.0 * t,
-                    100.0 * THIN_SECTION_FOR_PANELS
-                ),
+            outcome.cautions.push(Caution::of(
+                InputFinding::SectionTooThinForPanels {
+                    airfoil: airfoil.name.clone(),
+                    thickness: t,
+                    limit: THIN_SECTION_FOR_PANELS,
+                }
+                .into(),
             ));
         }
     }
@@ -458,15 +455,12 @@ fn resolve_cl_max(airfoil: &Airfoil) -> Result<(f64, ClMaxSource, Vec<Caution>),
             })
         }
         None => {
-            cautions.push(Caution::new(
-                Level::Warning,
-                "cl-max-default",
-                format!(
-                    "Airfoil '{}' has no cl_max; the conservative default {DEFAULT_CL_MAX:.1} is \
-                     assumed. Give the section's cl_max at your Reynolds number for a better \
-                     stall estimate.",
-                    airfoil.name
-                ),
+            cautions.push(Caution::of(
+                InputFinding::ClMaxDefault {
+                    airfoil: airfoil.name.clone(),
+                    default: DEFAULT_CL_MAX,
+                }
+                .into(),
             ));
             (DEFAULT_CL_MAX, ClMaxSource::Default)
         }
