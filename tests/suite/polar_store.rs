@@ -3,7 +3,7 @@
 //! store file is ignored. The law checked is identity (a store is only a shortcut), so the
 //! expected values are the tool's own first results.
 
-use trimline::section::cache::PolarCache;
+use trimline::section::cache::{FigureCache, PolarCache};
 
 fn airfoil(naca: &str) -> trimline::model::Airfoil {
     trimline::model::Airfoil {
@@ -38,9 +38,18 @@ fn polars_read_back_exactly() {
     }
     let dir = crate::common::scratch_in("polar-store", "round-trip");
     let path = dir.join("store.txt");
-    trimline::polar_store::save(&path, &cache).unwrap();
+    let none = FigureCache::default();
+    let kept = trimline::polar_store::Caches {
+        polars: &cache,
+        figures: &none,
+    };
+    trimline::polar_store::save(&path, &kept).unwrap();
     let back = PolarCache::new();
-    assert_eq!(trimline::polar_store::load(&path, &back), 2);
+    let read = trimline::polar_store::Caches {
+        polars: &back,
+        figures: &none,
+    };
+    assert_eq!(trimline::polar_store::load(&path, &read), 2);
     let mut a = cache.snapshot();
     let mut b = back.snapshot();
     a.sort_by_key(|e| e.0.reynolds);
@@ -77,7 +86,7 @@ fn a_second_run_reads_the_store_and_prints_the_same() {
     // A damaged store is ignored, and the output is still the same.
     std::fs::write(
         files[0].path(),
-        "trimline viscous polars 1\n0 1 2 zz\nnonsense",
+        "trimline stored results 2\np 0 1 2 zz\nf 3 0\nnonsense",
     )
     .unwrap();
     let third = check_with_store(&dir);
@@ -98,4 +107,52 @@ fn off_keeps_nothing() {
         .unwrap();
     assert!(out.status.success() || out.status.code() == Some(3));
     assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 0);
+}
+
+#[test]
+fn section_figures_read_back_exactly_and_make_the_same_model() {
+    let options = trimline::section::SectionOptions { panels: 120 };
+    let figures = FigureCache::default();
+    for naca in ["2410", "0009"] {
+        let a = airfoil(naca);
+        figures
+            .panel_figures(&a, options.panels, || {
+                trimline::section::solve_section(
+                    &a,
+                    trimline::model::SectionMethod::Panel,
+                    &options,
+                )
+            })
+            .unwrap();
+    }
+    assert_eq!(figures.computed(), 2);
+    let dir = crate::common::scratch_in("polar-store", "figures");
+    let path = dir.join("store.txt");
+    let polars = PolarCache::new();
+    let kept = trimline::polar_store::Caches {
+        polars: &polars,
+        figures: &figures,
+    };
+    trimline::polar_store::save(&path, &kept).unwrap();
+    let back = FigureCache::default();
+    let read = trimline::polar_store::Caches {
+        polars: &polars,
+        figures: &back,
+    };
+    assert_eq!(trimline::polar_store::load(&path, &read), 2);
+    for naca in ["2410", "0009"] {
+        let a = airfoil(naca);
+        // Served from what was read: the solver given here is never called.
+        let stored = back
+            .panel_figures(&a, options.panels, || panic!("solved again"))
+            .unwrap();
+        let solution =
+            trimline::section::solve_section(&a, trimline::model::SectionMethod::Panel, &options)
+                .unwrap();
+        assert_eq!(
+            trimline::section::model_from_figures(&a, &stored).unwrap(),
+            trimline::section::model_from_solution(&a, &solution).unwrap()
+        );
+    }
+    assert_eq!(back.computed(), 0);
 }
