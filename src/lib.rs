@@ -15,6 +15,7 @@ pub mod atmosphere;
 pub mod balance;
 pub mod caution;
 pub mod input;
+pub mod lattice_store;
 pub mod lifting_line;
 pub mod model;
 pub mod numeric;

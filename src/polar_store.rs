@@ -73,8 +73,9 @@ pub fn folder() -> Option<PathBuf> {
         .map(|h| PathBuf::from(h).join(".cache").join("trimline"))
 }
 
-/// The store file of this build in `dir`.
-pub fn file_in(dir: &Path) -> Option<PathBuf> {
+/// The fingerprint of the running program in store file names: its version, size and
+/// modification time.
+pub fn build_stamp() -> Option<String> {
     let exe = std::env::current_exe().ok()?;
     let meta = std::fs::metadata(exe).ok()?;
     let stamp = meta
@@ -83,12 +84,17 @@ pub fn file_in(dir: &Path) -> Option<PathBuf> {
         .duration_since(std::time::UNIX_EPOCH)
         .ok()?
         .as_nanos();
-    Some(dir.join(format!(
-        "polars-{}-{:x}-{:x}.txt",
+    Some(format!(
+        "{}-{:x}-{:x}",
         env!("CARGO_PKG_VERSION"),
         meta.len(),
         stamp
-    )))
+    ))
+}
+
+/// The store file of this build in `dir`.
+pub fn file_in(dir: &Path) -> Option<PathBuf> {
+    Some(dir.join(format!("polars-{}.txt", build_stamp()?)))
 }
 
 /// Load the polars and figures of `path` into `caches`; returns how many entries were read.

@@ -1,4 +1,5 @@
-//! Polars kept between runs (`trimline::polar_store`): a polar reads back exactly as it was
+//! Polars, section figures and lattices kept between runs (`trimline::polar_store`,
+//! `trimline::lattice_store`): a polar reads back exactly as it was
 //! computed, a second run gives the same output as the first, and a damaged or foreign
 //! store file is ignored. The law checked is identity (a store is only a shortcut), so the
 //! expected values are the tool's own first results.
@@ -79,8 +80,20 @@ fn check_with_store(dir: &std::path::Path) -> std::process::Output {
 fn a_second_run_reads_the_store_and_prints_the_same() {
     let dir = crate::common::scratch_in("polar-store", "cli");
     let first = check_with_store(&dir);
-    let files: Vec<_> = std::fs::read_dir(&dir).unwrap().flatten().collect();
+    let files: Vec<_> = std::fs::read_dir(&dir)
+        .unwrap()
+        .flatten()
+        .filter(|e| e.file_name().to_string_lossy().starts_with("polars-"))
+        .collect();
     assert_eq!(files.len(), 1, "one store file");
+    // The demo's condensed vortex lattice is kept too (see `trimline::lattice_store`); the
+    // second run reads it instead of building it.
+    let lattices = std::fs::read_dir(&dir)
+        .unwrap()
+        .flatten()
+        .filter(|e| e.file_name().to_string_lossy().starts_with("lattice-"))
+        .count();
+    assert_eq!(lattices, 1, "one lattice file");
     let second = check_with_store(&dir);
     assert_eq!(first.stdout, second.stdout);
     // A damaged store is ignored, and the output is still the same.
@@ -92,6 +105,14 @@ fn a_second_run_reads_the_store_and_prints_the_same() {
     let third = check_with_store(&dir);
     assert_eq!(first.stdout, third.stdout);
     assert!(third.status.success() || third.status.code() == Some(3));
+    // So is a damaged lattice file.
+    for e in std::fs::read_dir(&dir).unwrap().flatten() {
+        if e.file_name().to_string_lossy().starts_with("lattice-") {
+            std::fs::write(e.path(), b"trimline lattice 1\n\x01\x02").unwrap();
+        }
+    }
+    let fourth = check_with_store(&dir);
+    assert_eq!(first.stdout, fourth.stdout);
 }
 
 #[test]
