@@ -82,7 +82,7 @@ fn prune(dir: &Path, own: &str) {
             let _ = std::fs::remove_file(e.path());
         }
     }
-    mine.sort_by(|a, b| b.0.cmp(&a.0));
+    mine.sort_by_key(|e| std::cmp::Reverse(e.0));
     for (_, p) in mine.into_iter().skip(MAX_LATTICES) {
         let _ = std::fs::remove_file(p);
     }
