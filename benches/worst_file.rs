@@ -1,6 +1,8 @@
 //! The largest aircraft file the reader accepts, read and analysed as `trimline check` does:
 //! every list at its count limit (src/input/limits.rs), all but one airfoil from a coordinates
-//! file of the largest point count. Target: well inside 2 s (README.md, "Limits").
+//! file of the largest point count. Target: well inside 2 s (README.md, "Limits"). The shared
+//! caches (section figures, lattices, polars) live through the iterations, so after the first
+//! one this measures a warm analysis; the first, cold one is the `check` of a new file.
 
 use std::hint::black_box;
 use std::path::Path;

@@ -16,6 +16,7 @@ pub mod balance;
 pub mod caution;
 pub mod finding;
 pub mod input;
+pub mod lattice_store;
 pub mod lifting_line;
 pub mod model;
 pub mod numeric;

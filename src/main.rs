@@ -37,11 +37,18 @@ const EXIT_DANGER: u8 = 3;
 
 fn main() -> ExitCode {
     let cli = Cli::parse();
-    // Viscous polars of earlier runs of this same build (see `trimline::polar_store`).
-    let store = trimline::polar_store::folder().and_then(|d| trimline::polar_store::file_in(&d));
-    let cache = trimline::section::cache::PolarCache::shared();
+    // Viscous polars and section figures of earlier runs of this same build (see
+    // `trimline::polar_store`).
+    let folder = trimline::polar_store::folder();
+    let store = folder.as_deref().and_then(trimline::polar_store::file_in);
+    let caches = trimline::polar_store::Caches::shared();
     if let Some(path) = &store {
-        trimline::polar_store::load(path, cache);
+        trimline::polar_store::load(path, &caches);
+    }
+    // And the condensed vortex lattices (`trimline::lattice_store`), read when asked for.
+    let lattices = trimline::lifting_line::lattice_cache::LatticeCache::shared();
+    if let Some(dir) = &folder {
+        trimline::lattice_store::install(dir, lattices);
     }
     let clean = |r: anyhow::Result<()>| r.map(|()| commands::Finish::Clean);
     let result = match cli.command {
@@ -53,8 +60,11 @@ fn main() -> ExitCode {
         Command::Sweep(args) => commands::sweep::run(&args),
     };
     // Keep what this run computed; a store that cannot be written only costs time next run.
-    if let (Some(path), true) = (&store, cache.computed() > 0) {
-        let _ = trimline::polar_store::save(path, cache);
+    if let (Some(path), true) = (&store, caches.computed_any()) {
+        let _ = trimline::polar_store::save(path, &caches);
+    }
+    if let Some(dir) = &folder {
+        let _ = trimline::lattice_store::save_computed(dir, lattices);
     }
     // Exit codes (README.md, "Exit codes"): 0 done, 1 an input, file or analysis error,
     // 2 a command-line usage error (clap), 3 done but a danger-level caution was raised.

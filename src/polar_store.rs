@@ -1,9 +1,11 @@
-//! Viscous polars kept between runs: a text file in the user's cache folder, so that a second
-//! `check` of the same aircraft does not recompute its section polars (the flight polar needs
-//! about a dozen of them).
+//! Viscous polars and panel-method section figures kept between runs: a text file in the
+//! user's cache folder, so that a second `check` of the same aircraft does not recompute its
+//! section polars (the flight polar needs about a dozen of them) nor solve its sections by the
+//! panel method again.
 //!
-//! The file holds one polar per line with every number as the hexadecimal bits of its f64,
-//! so a polar reads back exactly as it was computed. The file's name carries a fingerprint of
+//! The file holds one polar (a line starting `p`) or one section's figures (`f`) per line with
+//! every number as the hexadecimal bits of its f64, so everything reads back exactly as it was
+//! computed. The file's name carries a fingerprint of
 //! the running program (its size and modification time): another build, which might compute
 //! other numbers, never reads this build's polars. Any file that cannot be read, or any line
 //! that does not decode, is ignored (the polars are then computed again); writing goes
@@ -15,15 +17,45 @@
 
 use std::path::{Path, PathBuf};
 
+use crate::model::SectionMethod;
 use crate::section::boundary_layer::TransitionCause;
-use crate::section::cache::{PolarCache, PolarKey};
+use crate::section::cache::{FigureCache, FigureKey, PolarCache, PolarKey};
 use crate::section::polar::{Polar, PolarEntry, PolarStatus, StallCause};
 use crate::section::viscous::{SurfaceSummary, ViscousError, ViscousPoint};
+use crate::section::SolutionFigures;
 
 /// First line of a store file.
-const HEADER: &str = "trimline viscous polars 1";
+const HEADER: &str = "trimline stored results 2";
 /// Most polars kept in a store file (the most recently written first).
 pub const MAX_POLARS: usize = 2000;
+/// Most section figures kept in a store file.
+pub const MAX_FIGURES: usize = 2000;
+
+/// The caches a store fills and keeps.
+#[derive(Debug, Clone, Copy)]
+pub struct Caches<'a> {
+    /// Viscous polars.
+    pub polars: &'a PolarCache,
+    /// Panel-method section figures.
+    pub figures: &'a FigureCache,
+}
+
+impl Caches<'static> {
+    /// The caches shared by every caller in this process.
+    pub fn shared() -> Caches<'static> {
+        Caches {
+            polars: PolarCache::shared(),
+            figures: FigureCache::shared(),
+        }
+    }
+}
+
+impl Caches<'_> {
+    /// True when this run computed something the store does not hold yet.
+    pub fn computed_any(&self) -> bool {
+        self.polars.computed() > 0 || self.figures.computed() > 0
+    }
+}
 
 /// The store folder, or `None` when keeping polars is switched off or no folder is known.
 pub fn folder() -> Option<PathBuf> {
@@ -41,8 +73,9 @@ pub fn folder() -> Option<PathBuf> {
         .map(|h| PathBuf::from(h).join(".cache").join("trimline"))
 }
 
-/// The store file of this build in `dir`.
-pub fn file_in(dir: &Path) -> Option<PathBuf> {
+/// The fingerprint of the running program in store file names: its version, size and
+/// modification time.
+pub fn build_stamp() -> Option<String> {
     let exe = std::env::current_exe().ok()?;
     let meta = std::fs::metadata(exe).ok()?;
     let stamp = meta
@@ -51,16 +84,21 @@ pub fn file_in(dir: &Path) -> Option<PathBuf> {
         .duration_since(std::time::UNIX_EPOCH)
         .ok()?
         .as_nanos();
-    Some(dir.join(format!(
-        "polars-{}-{:x}-{:x}.txt",
+    Some(format!(
+        "{}-{:x}-{:x}",
         env!("CARGO_PKG_VERSION"),
         meta.len(),
         stamp
-    )))
+    ))
 }
 
-/// Load the polars of `path` into `cache`; returns how many were read.
-pub fn load(path: &Path, cache: &PolarCache) -> usize {
+/// The store file of this build in `dir`.
+pub fn file_in(dir: &Path) -> Option<PathBuf> {
+    Some(dir.join(format!("polars-{}.txt", build_stamp()?)))
+}
+
+/// Load the polars and figures of `path` into `caches`; returns how many entries were read.
+pub fn load(path: &Path, caches: &Caches<'_>) -> usize {
     let Ok(text) = std::fs::read_to_string(path) else {
         return 0;
     };
@@ -68,21 +106,36 @@ pub fn load(path: &Path, cache: &PolarCache) -> usize {
     if lines.next() != Some(HEADER) {
         return 0;
     }
-    let entries: Vec<(PolarKey, Polar)> = lines.filter_map(decode).collect();
-    let n = entries.len();
-    cache.preload(entries);
+    let (mut polars, mut figures) = (Vec::new(), Vec::new());
+    for line in lines {
+        match line.split_once(' ') {
+            Some(("p", rest)) => polars.extend(decode(rest)),
+            Some(("f", rest)) => figures.extend(decode_figures(rest)),
+            _ => {}
+        }
+    }
+    let n = polars.len() + figures.len();
+    caches.polars.preload(polars);
+    caches.figures.preload(figures);
     n
 }
 
-/// Write every polar of `cache` to `path` (at most [`MAX_POLARS`]).
-pub fn save(path: &Path, cache: &PolarCache) -> Result<(), crate::output::fs::WriteError> {
+/// Write every polar and figure of `caches` to `path` (at most [`MAX_POLARS`] and
+/// [`MAX_FIGURES`]).
+pub fn save(path: &Path, caches: &Caches<'_>) -> Result<(), crate::output::fs::WriteError> {
     let mut text = String::from(HEADER);
     text.push('\n');
-    for (k, p) in cache.snapshot().into_iter().take(MAX_POLARS) {
+    for (k, p) in caches.polars.snapshot().into_iter().take(MAX_POLARS) {
         if let Some(line) = encode(&k, &p) {
+            text.push_str("p ");
             text.push_str(&line);
             text.push('\n');
         }
+    }
+    for (k, f) in caches.figures.snapshot().into_iter().take(MAX_FIGURES) {
+        text.push_str("f ");
+        text.push_str(&encode_figures(&k, &f));
+        text.push('\n');
     }
     if let Some(dir) = path.parent() {
         let _ = std::fs::create_dir_all(dir);
@@ -328,6 +381,55 @@ fn decode(line: &str) -> Option<(PolarKey, Polar)> {
             stall_cause,
         },
     ))
+}
+
+const METHODS: [SectionMethod; 4] = [
+    SectionMethod::Exact,
+    SectionMethod::Thin,
+    SectionMethod::Panel,
+    SectionMethod::Viscous,
+];
+
+/// One line (after its tag) for a section's figures.
+fn encode_figures(k: &FigureKey, f: &SolutionFigures) -> String {
+    let mut o = Out(Vec::new());
+    o.list(&k.shape);
+    o.u(k.panels as u64);
+    o.u(METHODS.iter().position(|m| *m == f.method).unwrap_or(0) as u64);
+    for v in [
+        f.alpha_zero_lift_rad,
+        f.cl_alpha_per_rad,
+        f.cl_either_side.0,
+        f.cl_either_side.1,
+        f.cm_either_side.0,
+        f.cm_either_side.1,
+        f.cm_zero_lift,
+    ] {
+        o.f(v);
+    }
+    o.0.join(" ")
+}
+
+/// The figures of one line (after its tag); `None` when it does not decode completely.
+fn decode_figures(line: &str) -> Option<(FigureKey, SolutionFigures)> {
+    let mut i = In(line.split_whitespace());
+    let key = FigureKey {
+        shape: i.list()?,
+        panels: i.n()?,
+    };
+    let method = *METHODS.get(i.n()?)?;
+    let figures = SolutionFigures {
+        method,
+        alpha_zero_lift_rad: i.f()?,
+        cl_alpha_per_rad: i.f()?,
+        cl_either_side: (i.f()?, i.f()?),
+        cm_either_side: (i.f()?, i.f()?),
+        cm_zero_lift: i.f()?,
+    };
+    if i.0.next().is_some() {
+        return None;
+    }
+    Some((key, figures))
 }
 
 #[cfg(test)]

@@ -459,9 +459,12 @@ fn flight_polar_if_asked(
                 air,
                 panels: options.panels,
             };
-            let polar = glide::glide_polar(&glide_input);
+            // Independent: the flap settings' polars are made alongside the plain one.
+            let (polar, settings) = rayon::join(
+                || glide::glide_polar(&glide_input),
+                || glide::setting_polars(&glide_input),
+            );
             glide::glide_cautions(input.aircraft, &polar, cautions);
-            let settings = glide::setting_polars(&glide_input);
             glide::setting_cautions(input.aircraft, &settings, cautions);
             (polar.ok(), settings)
         }

@@ -27,6 +27,7 @@
 pub mod classical;
 mod error;
 pub mod lattice;
+pub mod lattice_cache;
 pub mod multi_surface;
 pub mod results;
 pub mod superposition;

@@ -430,8 +430,13 @@ impl MultiSurfaceSystem {
                     self_fraction: options.self_core_fraction,
                     wake_fraction: options.wake_core_fraction,
                 };
-                let c =
-                    lattice::condense(&stations, &mirror, options.chordwise_panels, &wake, cores)?;
+                let c = super::lattice_cache::LatticeCache::shared().condense(
+                    &stations,
+                    &mirror,
+                    options.chordwise_panels,
+                    &wake,
+                    cores,
+                )?;
                 induced = c.induced;
                 Some(c.lift_x_offset)
             }

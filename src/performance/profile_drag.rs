@@ -105,6 +105,9 @@ pub struct DragCurve {
     /// cl of the last attached point when the branch ended at the separation criterion (the
     /// section's stall at this Reynolds number by the viscous method).
     pub separation_cl: Option<f64>,
+    /// The points' cl alone, in the same (strictly rising) order: the lookups count the ones
+    /// below a cl in one pass the compiler can vectorise, which is the binary search's answer.
+    cls: Vec<f64>,
 }
 
 impl DragCurve {
@@ -142,6 +145,7 @@ impl DragCurve {
         Some(DragCurve {
             reynolds: polar.reynolds,
             ln_reynolds: polar.reynolds.ln(),
+            cls: points.iter().map(|p| p.0).collect(),
             points,
             separation_cl,
         })
@@ -166,7 +170,9 @@ impl DragCurve {
                 beyond_polar: true,
             };
         }
-        let k = pts.partition_point(|p| p.0 < cl).clamp(1, n - 1);
+        // The points rise strictly in cl: the count below `cl` is where it would go.
+        let below: usize = self.cls.iter().map(|&c| usize::from(c < cl)).sum();
+        let k = below.clamp(1, n - 1);
         DragLookup {
             cd: lerp(pts[k - 1], pts[k]),
             beyond_polar: pts[k].2 || pts[k - 1].2,
@@ -197,7 +203,9 @@ impl SectionDrag {
                         (i - 1, i, (re.ln() - la) / (lb - la), false)
                     }
                 };
-                let (x, y) = (curves[a].cd(cl), curves[b].cd(cl));
+                let x = curves[a].cd(cl);
+                // Outside the ladder both ends are one rung: the same lookup.
+                let y = if b == a { x } else { curves[b].cd(cl) };
                 DragLookup {
                     cd: (1.0 - f) * x.cd + f * y.cd,
                     beyond_polar: x.beyond_polar || y.beyond_polar || outside,
@@ -340,6 +348,39 @@ mod tests {
         let deg: Vec<f64> = a.iter().map(|x| x.to_degrees()).collect();
         assert!((deg[0] + 4.5).abs() < 1e-9, "{deg:?}");
         assert!((deg[deg.len() - 1] - 10.5).abs() < 1e-9, "{deg:?}");
+    }
+
+    #[test]
+    fn lookup_finds_the_same_segment_as_a_binary_search() {
+        let points = vec![
+            (-0.3, 0.02, false),
+            (0.1, 0.011, false),
+            (0.4, 0.012, false),
+            (0.9, 0.018, false),
+            (1.1, 0.03, true),
+        ];
+        let curve = DragCurve {
+            reynolds: 1e5,
+            ln_reynolds: 1e5f64.ln(),
+            cls: points.iter().map(|p| p.0).collect(),
+            points: points.clone(),
+            separation_cl: None,
+        };
+        for i in 0..=60 {
+            let cl = -0.5 + 0.03 * f64::from(i);
+            let k = points
+                .partition_point(|p| p.0 < cl)
+                .clamp(1, points.len() - 1);
+            let (a, b) = (points[k - 1], points[k]);
+            let got = curve.cd(cl);
+            if (points[0].0..=points[4].0).contains(&cl) {
+                let want = a.1 + (cl - a.0) * (b.1 - a.1) / (b.0 - a.0);
+                assert_eq!(got.cd.to_bits(), want.to_bits(), "cl {cl}");
+                assert_eq!(got.beyond_polar, a.2 || b.2, "cl {cl}");
+            } else {
+                assert!(got.beyond_polar);
+            }
+        }
     }
 
     #[test]

@@ -9,7 +9,7 @@
 use crate::model::{Airfoil, AirfoilShape};
 use crate::section::polar::Polar;
 use crate::section::viscous::ViscousSettings;
-use crate::section::{viscous_polar, SectionError};
+use crate::section::{viscous_polar, SectionError, SectionSolution, SolutionFigures};
 use std::collections::HashMap;
 use std::sync::{Arc, Mutex};
 
@@ -126,6 +126,79 @@ impl PolarCache {
         // A poisoned lock only means another thread panicked while inserting; the map is
         // still consistent (insertions are single calls).
         self.polars.lock().unwrap_or_else(|e| e.into_inner())
+    }
+}
+
+/// What the figures of a panel solution depend on, as exact bits: the section's shape (as in
+/// [`PolarKey::shape`]) and the number of panels.
+#[derive(Debug, Clone, PartialEq, Eq, Hash)]
+pub struct FigureKey {
+    /// The section's shape.
+    pub shape: Vec<u64>,
+    /// Panels.
+    pub panels: usize,
+}
+
+/// A cache of the panel method's [`SolutionFigures`] (thread-safe, shared by reference like
+/// [`PolarCache`]): a section model made again from them is the same model, so the section
+/// need not be solved again.
+#[derive(Debug, Default)]
+pub struct FigureCache {
+    figures: Mutex<HashMap<FigureKey, SolutionFigures>>,
+    computed: Mutex<usize>,
+}
+
+impl FigureCache {
+    /// The figures of the panel solution of `airfoil` at `panels`: from the cache, or from
+    /// `solve` (which must solve that section by the panel method) on the first request.
+    /// Errors are not cached.
+    pub fn panel_figures(
+        &self,
+        airfoil: &Airfoil,
+        panels: usize,
+        solve: impl FnOnce() -> Result<SectionSolution, SectionError>,
+    ) -> Result<SolutionFigures, SectionError> {
+        let key = FigureKey {
+            shape: shape_bits(&airfoil.shape),
+            panels,
+        };
+        if let Some(f) = self.lock().get(&key) {
+            return Ok(*f);
+        }
+        let figures = SolutionFigures::of(&solve()?);
+        if let Ok(mut n) = self.computed.lock() {
+            *n += 1;
+        }
+        Ok(*self.lock().entry(key).or_insert(figures))
+    }
+
+    /// The cache shared by every caller in this process (see [`PolarCache::shared`]).
+    pub fn shared() -> &'static FigureCache {
+        static SHARED: std::sync::OnceLock<FigureCache> = std::sync::OnceLock::new();
+        SHARED.get_or_init(FigureCache::default)
+    }
+
+    /// Every entry held (for a store that keeps them between runs).
+    pub fn snapshot(&self) -> Vec<(FigureKey, SolutionFigures)> {
+        self.lock().iter().map(|(k, f)| (k.clone(), *f)).collect()
+    }
+
+    /// Put figures computed earlier by this same build into the cache; entries already held
+    /// are kept.
+    pub fn preload(&self, entries: Vec<(FigureKey, SolutionFigures)>) {
+        let mut map = self.lock();
+        for (k, f) in entries {
+            map.entry(k).or_insert(f);
+        }
+    }
+
+    /// How many figures were computed (not taken from the cache) so far.
+    pub fn computed(&self) -> usize {
+        self.computed.lock().map_or(0, |n| *n)
+    }
+
+    fn lock(&self) -> std::sync::MutexGuard<'_, HashMap<FigureKey, SolutionFigures>> {
+        self.figures.lock().unwrap_or_else(|e| e.into_inner())
     }
 }
 

@@ -38,7 +38,7 @@ mod solution;
 pub use error::SectionError;
 pub use flap::FlapEffect;
 pub use model::{ClMaxSource, SectionModel, DEFAULT_CL_MAX};
-pub use solution::{ExactSolution, SectionSolution, SurfacePressure};
+pub use solution::{ExactSolution, SectionSolution, SolutionFigures, SurfacePressure};
 
 use crate::caution::Caution;
 use crate::finding::InputFinding;
@@ -119,12 +119,34 @@ pub fn default_method(shape: &AirfoilShape) -> SectionMethod {
     }
 }
 
-/// The section model of `airfoil` by its method (or the default for its shape).
+/// The section model of `airfoil` by its method (or the default for its shape). The panel
+/// method's figures are taken from [`cache::FigureCache::shared`] when it holds them (the
+/// same numbers: they are kept exactly as computed), so that the section is not solved again.
 pub fn section_model(
     airfoil: &Airfoil,
     options: &SectionOptions,
 ) -> Result<SectionOutcome, SectionError> {
-    Ok(analyse_section(airfoil, options)?.outcome)
+    let method = method_of(airfoil);
+    if !matches!(method, SectionMethod::Panel | SectionMethod::Viscous) {
+        return Ok(analyse_section(airfoil, options)?.outcome);
+    }
+    // A viscous section is solved by the panel method first (its errors come first).
+    let figures = cache::FigureCache::shared().panel_figures(airfoil, options.panels, || {
+        solve_section(airfoil, SectionMethod::Panel, options)
+    })?;
+    if method == SectionMethod::Viscous {
+        return viscous_outcome(airfoil, options);
+    }
+    let mut outcome = model_from_figures(airfoil, &figures)?;
+    thin_for_panels_caution(airfoil, &mut outcome);
+    Ok(outcome)
+}
+
+/// The method `airfoil` asks for, or the default for its shape.
+fn method_of(airfoil: &Airfoil) -> SectionMethod {
+    airfoil
+        .method
+        .unwrap_or_else(|| default_method(&airfoil.shape))
 }
 
 /// Solves `airfoil` by its method (or the default for its shape) and makes its model.
@@ -132,34 +154,46 @@ pub fn analyse_section(
     airfoil: &Airfoil,
     options: &SectionOptions,
 ) -> Result<SectionAnalysis, SectionError> {
-    let method = airfoil
-        .method
-        .unwrap_or_else(|| default_method(&airfoil.shape));
+    let method = method_of(airfoil);
     if method == SectionMethod::Viscous {
         let solution = solve_section(airfoil, SectionMethod::Panel, options)?;
-        let settings = viscous_settings(airfoil, options)?;
-        let alphas: Vec<f64> = (MODEL_SWEEP_DEG.0..=MODEL_SWEEP_DEG.1)
-            .map(|d| (d as f64).to_radians())
-            .collect();
-        let polar = cache::PolarCache::shared().polar(airfoil, settings, &alphas)?;
-        let outcome = model_from_polar(airfoil, polar)?;
+        let outcome = viscous_outcome(airfoil, options)?;
         return Ok(SectionAnalysis { solution, outcome });
     }
     let solution = solve_section(airfoil, method, options)?;
     let mut outcome = model_from_solution(airfoil, &solution)?;
     if method == SectionMethod::Panel {
-        if let Some(t) = shape_thickness(airfoil).filter(|&t| t < THIN_SECTION_FOR_PANELS) {
-            outcome.cautions.push(Caution::of(
-                InputFinding::SectionTooThinForPanels {
-                    airfoil: airfoil.name.clone(),
-                    thickness: t,
-                    limit: THIN_SECTION_FOR_PANELS,
-                }
-                .into(),
-            ));
-        }
+        thin_for_panels_caution(airfoil, &mut outcome);
     }
     Ok(SectionAnalysis { solution, outcome })
+}
+
+/// The section model of `airfoil` from its viscous polar over [`MODEL_SWEEP_DEG`] (from the
+/// shared polar cache).
+fn viscous_outcome(
+    airfoil: &Airfoil,
+    options: &SectionOptions,
+) -> Result<SectionOutcome, SectionError> {
+    let settings = viscous_settings(airfoil, options)?;
+    let alphas: Vec<f64> = (MODEL_SWEEP_DEG.0..=MODEL_SWEEP_DEG.1)
+        .map(|d| (d as f64).to_radians())
+        .collect();
+    let polar = cache::PolarCache::shared().polar(airfoil, settings, &alphas)?;
+    model_from_polar(airfoil, polar)
+}
+
+/// The caution for a section too thin for the panel method, added to `outcome`.
+fn thin_for_panels_caution(airfoil: &Airfoil, outcome: &mut SectionOutcome) {
+    if let Some(t) = shape_thickness(airfoil).filter(|&t| t < THIN_SECTION_FOR_PANELS) {
+        outcome.cautions.push(Caution::of(
+            InputFinding::SectionTooThinForPanels {
+                airfoil: airfoil.name.clone(),
+                thickness: t,
+                limit: THIN_SECTION_FOR_PANELS,
+            }
+            .into(),
+        ));
+    }
 }
 
 /// Angles of the polar behind a viscous section model, whole degrees from the chord line
@@ -473,25 +507,32 @@ pub fn model_from_solution(
     airfoil: &Airfoil,
     solution: &SectionSolution,
 ) -> Result<SectionOutcome, SectionError> {
-    let method = solution.method();
+    model_from_figures(airfoil, &SolutionFigures::of(solution))
+}
+
+/// The section model of `airfoil` from the figures of its solution (what
+/// [`model_from_solution`] makes of the solution itself).
+pub fn model_from_figures(
+    airfoil: &Airfoil,
+    figures: &SolutionFigures,
+) -> Result<SectionOutcome, SectionError> {
+    let method = figures.method;
     let not_finite = |what| SectionError::NotFinite {
         airfoil: airfoil.name.clone(),
         method: method.as_str(),
         what,
     };
-    let alpha0 = solution.alpha_zero_lift_rad();
-    let slope = solution.cl_alpha_per_rad();
+    let alpha0 = figures.alpha_zero_lift_rad;
+    let slope = figures.cl_alpha_per_rad;
     if !alpha0.is_finite() {
         return Err(not_finite("zero-lift angle"));
     }
     if !(slope.is_finite() && slope > 0.0) {
         return Err(not_finite("lift slope"));
     }
-    let (a1, a2) = (alpha0 - AC_STEP_RAD, alpha0 + AC_STEP_RAD);
-    let (cl1, cl2) = (solution.cl(a1), solution.cl(a2));
-    let (cm1, cm2) = (solution.cm_quarter_chord(a1), solution.cm_quarter_chord(a2));
+    let ((cl1, cl2), (cm1, cm2)) = (figures.cl_either_side, figures.cm_either_side);
     let x_ac_c = 0.25 - (cm2 - cm1) / (cl2 - cl1);
-    let cm_ac = solution.cm_quarter_chord(alpha0);
+    let cm_ac = figures.cm_zero_lift;
     if !x_ac_c.is_finite() {
         return Err(not_finite("aerodynamic centre"));
     }

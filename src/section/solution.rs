@@ -122,3 +122,38 @@ impl SectionSolution {
         }
     }
 }
+
+/// The few numbers of a solution that its section model is made from (see
+/// [`model_from_figures`]): kept so that a section model can be made again without solving
+/// the section again.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SolutionFigures {
+    /// Method of the solution.
+    pub method: SectionMethod,
+    /// Zero-lift angle, rad.
+    pub alpha_zero_lift_rad: f64,
+    /// Lift slope at zero lift, per rad.
+    pub cl_alpha_per_rad: f64,
+    /// cl at the zero-lift angle less and plus [`AC_STEP_RAD`].
+    pub cl_either_side: (f64, f64),
+    /// Moment about the quarter chord at the same two angles.
+    pub cm_either_side: (f64, f64),
+    /// Moment about the quarter chord at the zero-lift angle.
+    pub cm_zero_lift: f64,
+}
+
+impl SolutionFigures {
+    /// The figures of `solution`.
+    pub fn of(solution: &SectionSolution) -> SolutionFigures {
+        let alpha0 = solution.alpha_zero_lift_rad();
+        let (a1, a2) = (alpha0 - AC_STEP_RAD, alpha0 + AC_STEP_RAD);
+        SolutionFigures {
+            method: solution.method(),
+            alpha_zero_lift_rad: alpha0,
+            cl_alpha_per_rad: solution.cl_alpha_per_rad(),
+            cl_either_side: (solution.cl(a1), solution.cl(a2)),
+            cm_either_side: (solution.cm_quarter_chord(a1), solution.cm_quarter_chord(a2)),
+            cm_zero_lift: solution.cm_quarter_chord(alpha0),
+        }
+    }
+}
