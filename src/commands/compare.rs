@@ -43,11 +43,12 @@ pub struct CompareArgs {
     pub unit_system: super::check::UnitChoice,
 }
 
+/// The configurations to compare with their source names, and their cautions in the same order.
+pub type Configurations = (Vec<(KeyFigures, String)>, Vec<CautionCodes>);
+
 /// Every configuration to compare, analysed: key figures and source name, and beside them (same
 /// order) the level and code of every caution each configuration raised.
-pub fn configurations(
-    args: &CompareArgs,
-) -> anyhow::Result<(Vec<(KeyFigures, String)>, Vec<CautionCodes>)> {
+pub fn configurations(args: &CompareArgs) -> anyhow::Result<Configurations> {
     let mut loaded = Vec::new();
     if args.files.is_empty() {
         loaded.push(super::check::load(None)?);
