@@ -216,7 +216,7 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
     let values: Vec<f64> = parse_values(values)
         .with_context(|| format!("--vary {shown}"))?
         .into_iter()
-        .map(|(v, decimals)| in_si(v, decimals, to_si))
+        .map(|(v, decimals)| in_si(&quantity, v, decimals, to_si))
         .collect();
     for &v in &values {
         trimline::study::check_value(aircraft, &quantity, v)
@@ -228,8 +228,8 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
 /// A value in the builder's unit, `decimals` decimals as written, in SI: mm and g are divided
 /// by 1000 and rounded to 3 more decimals, so 574 mm is 0.574 m exactly as printed (not
 /// 0.5740000000000001); degrees go to radians (the output turns them back without noise).
-fn in_si(value: f64, decimals: Option<u32>, to_si: f64) -> f64 {
-    if to_si == 1e-3 {
+fn in_si(quantity: &Quantity, value: f64, decimals: Option<u32>, to_si: f64) -> f64 {
+    if matches!(quantity.builder_unit().0, "mm" | "g") {
         match decimals {
             Some(d) => trimline::study::round_to_decimals(value / 1000.0, d + 3),
             None => value / 1000.0,
