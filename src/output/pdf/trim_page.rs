@@ -66,16 +66,18 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     // down to a legible minimum, so that the view keeps room for its labels.
     let min_view = planform::min_height(&data.top_view);
     let shortfall = (min_view - view_h).max(0.0);
-    if data.glide.is_some() && chart_h - shortfall < MIN_CHART_H + extra {
-        return draw(&without_sink_chart(data), paper);
-    }
+    // A crowded page first lets the notes give way (they are background, and `check` prints
+    // them); only when that is not enough does the sink chart, with a line saying why.
     let notes = data
         .cautions
         .iter()
-        .filter(|c| c.level == crate::caution::Level::Note)
+        .filter(|c| c.level == crate::caution::Level::Note && !is_page_note(c.code))
         .count();
-    if data.glide.is_none() && chart_h - shortfall < MIN_CHART_H && notes > 1 {
+    if chart_h - shortfall < MIN_CHART_H + extra && notes > 1 {
         return draw(&without_notes(data, notes), paper);
+    }
+    if data.glide.is_some() && chart_h - shortfall < MIN_CHART_H + extra {
+        return draw(&without_sink_chart(data), paper);
     }
     chart_h = (chart_h - shortfall).max(MIN_CHART_H + extra);
     chart_h += spare.clamp(0.0, MAX_CHART_GROWTH);
@@ -122,22 +124,33 @@ fn without_sink_chart(data: &ReportData) -> ReportData {
     };
     two.cautions.push(crate::caution::Caution::new(
         crate::caution::Level::Note,
-        "sink-chart-left-out",
-        "The sink chart is left out of this page for room; `trimline check` prints the \
-         glide table.",
+        SINK_CHART_LEFT_OUT,
+        "The sink chart (sink rate against airspeed) is not drawn: with this many cautions and \
+         mass items the page has no room for a third chart. The least sink and best glide are \
+         in the key figures; `trimline check` prints the whole glide table.",
     ));
     two
 }
 
-/// Still too crowded: the `notes` notes give way (warnings and dangers always stay), with one
-/// line saying where to read them.
+/// Code of the line that says the sink chart is not drawn.
+const SINK_CHART_LEFT_OUT: &str = "sink-chart-left-out";
+/// Code of the line that says notes are left out.
+const NOTES_LEFT_OUT: &str = "notes-left-out";
+
+/// True for the lines about the page itself, which stay when notes give way.
+fn is_page_note(code: &str) -> bool {
+    code == SINK_CHART_LEFT_OUT || code == NOTES_LEFT_OUT
+}
+
+/// Too crowded: the `notes` notes give way (warnings, dangers and the lines about the page
+/// always stay), with one line saying where to read them.
 fn without_notes(data: &ReportData, notes: usize) -> ReportData {
     let mut lean = data.clone();
     lean.cautions
-        .retain(|c| c.level != crate::caution::Level::Note);
+        .retain(|c| c.level != crate::caution::Level::Note || is_page_note(c.code));
     lean.cautions.push(crate::caution::Caution::new(
         crate::caution::Level::Note,
-        "notes-left-out",
+        NOTES_LEFT_OUT,
         format!("{notes} notes are left out of this page for room; `trimline check` prints them."),
     ));
     lean
