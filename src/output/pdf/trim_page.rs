@@ -66,18 +66,8 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     // down to a legible minimum, so that the view keeps room for its labels.
     let min_view = planform::min_height(&data.top_view);
     let shortfall = (min_view - view_h).max(0.0);
-    // A crowded page first lets the notes give way (they are background, and `check` prints
-    // them); only when that is not enough does the sink chart, with a line saying why.
-    let notes = data
-        .cautions
-        .iter()
-        .filter(|c| c.level == crate::caution::Level::Note && !is_page_note(c.code))
-        .count();
-    if chart_h - shortfall < MIN_CHART_H + extra && notes > 1 {
-        return draw(&without_notes(data, notes), paper);
-    }
-    if data.glide.is_some() && chart_h - shortfall < MIN_CHART_H + extra {
-        return draw(&without_sink_chart(data), paper);
+    if let Some(lighter) = make_room(data, chart_h - shortfall < MIN_CHART_H + extra) {
+        return draw(&lighter, paper);
     }
     chart_h = (chart_h - shortfall).max(MIN_CHART_H + extra);
     chart_h += spare.clamp(0.0, MAX_CHART_GROWTH);
@@ -113,6 +103,24 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     cautions_box(&mut c, data, x0, caution_top, w);
     footer(&mut c, data, x0, MARGIN + footer_h, w, true);
     c
+}
+
+/// On a crowded page (`crowded`: the charts would be shorter than legible) what gives way:
+/// the notes first (background, and `check` prints them), then the sink chart, with a line
+/// saying why; `None` when nothing (more) can.
+fn make_room(data: &ReportData, crowded: bool) -> Option<ReportData> {
+    if !crowded {
+        return None;
+    }
+    let notes = data
+        .cautions
+        .iter()
+        .filter(|c| c.level == crate::caution::Level::Note && !is_page_note(c.code))
+        .count();
+    if notes > 1 {
+        return Some(without_notes(data, notes));
+    }
+    data.glide.is_some().then(|| without_sink_chart(data))
 }
 
 /// The page too crowded for a third chart: the two balance charts stay (the glide figures
