@@ -9,6 +9,9 @@ use super::chart::Frame;
 use super::metrics::{self, Face};
 use super::{charts, planform, Paper};
 use crate::output::report::{fmt, level_name, ReportData};
+use room::make_room;
+
+mod room;
 
 const MARGIN: f64 = 10.0;
 const GAP: f64 = 4.0;
@@ -103,65 +106,6 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     cautions_box(&mut c, data, x0, caution_top, w);
     footer(&mut c, data, x0, MARGIN + footer_h, w, true);
     c
-}
-
-/// On a crowded page (`crowded`: the charts would be shorter than legible) what gives way:
-/// the notes first (background, and `check` prints them), then the sink chart, with a line
-/// saying why; `None` when nothing (more) can.
-fn make_room(data: &ReportData, crowded: bool) -> Option<ReportData> {
-    if !crowded {
-        return None;
-    }
-    let notes = data
-        .cautions
-        .iter()
-        .filter(|c| c.level == crate::caution::Level::Note && !is_page_note(c.code))
-        .count();
-    if notes > 1 {
-        return Some(without_notes(data, notes));
-    }
-    data.glide.is_some().then(|| without_sink_chart(data))
-}
-
-/// The page too crowded for a third chart: the two balance charts stay (the glide figures
-/// stay in the key figures and in `check`), with a note saying so.
-fn without_sink_chart(data: &ReportData) -> ReportData {
-    let mut two = ReportData {
-        glide: None,
-        ..data.clone()
-    };
-    two.cautions.push(crate::caution::Caution::new(
-        crate::caution::Level::Note,
-        SINK_CHART_LEFT_OUT,
-        "The sink chart (sink rate against airspeed) is not drawn: with this many cautions and \
-         mass items the page has no room for a third chart. The least sink and best glide are \
-         in the key figures; `trimline check` prints the whole glide table.",
-    ));
-    two
-}
-
-/// Code of the line that says the sink chart is not drawn.
-const SINK_CHART_LEFT_OUT: &str = "sink-chart-left-out";
-/// Code of the line that says notes are left out.
-const NOTES_LEFT_OUT: &str = "notes-left-out";
-
-/// True for the lines about the page itself, which stay when notes give way.
-fn is_page_note(code: &str) -> bool {
-    code == SINK_CHART_LEFT_OUT || code == NOTES_LEFT_OUT
-}
-
-/// Too crowded: the `notes` notes give way (warnings, dangers and the lines about the page
-/// always stay), with one line saying where to read them.
-fn without_notes(data: &ReportData, notes: usize) -> ReportData {
-    let mut lean = data.clone();
-    lean.cautions
-        .retain(|c| c.level != crate::caution::Level::Note || is_page_note(c.code));
-    lean.cautions.push(crate::caution::Caution::new(
-        crate::caution::Level::Note,
-        NOTES_LEFT_OUT,
-        format!("{notes} notes are left out of this page for room; `trimline check` prints them."),
-    ));
-    lean
 }
 
 /// The charts side by side in `row`: spanwise lift, trim speed and, when there is a glide
@@ -483,8 +427,13 @@ mod tests {
     use crate::output::report::{self, ReportSource};
 
     fn data(path: &str) -> ReportData {
+        data_with(path, "")
+    }
+
+    /// The report data of example `path` with `more` appended to its file.
+    fn data_with(path: &str, more: &str) -> ReportData {
         let file = format!("{}/aircraft/{path}", env!("CARGO_MANIFEST_DIR"));
-        let text = std::fs::read_to_string(&file).unwrap();
+        let text = std::fs::read_to_string(&file).unwrap() + more;
         let aircraft = crate::input::parse_aircraft(&text, &file, None).unwrap();
         let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
         report::build(
@@ -525,11 +474,24 @@ mod tests {
             "larkspire-2000.toml",
             "wrenfield-1400.toml",
             "skerrywing-900.toml",
+            "merrowtail-1700.toml",
         ] {
             let d = data(f);
             assert_clean_layout(&d, Paper::A4);
             assert_clean_layout(&d, Paper::Letter);
         }
+    }
+
+    // A V-tail page with flaps and a long mass list loses its notes and then its sink chart;
+    // the line saying so fits without overlapping anything.
+    #[test]
+    fn a_crowded_v_tail_page_still_has_no_overlapping_text() {
+        let more: String = (0..12)
+            .map(|k| format!("\n[[mass]]\nname = \"extra {k}\"\nmass = 1\nx = 60\n"))
+            .collect();
+        let d = data_with("merrowtail-1700.toml", &more);
+        assert_clean_layout(&d, Paper::A4);
+        assert_clean_layout(&d, Paper::Letter);
     }
 
     // A crowded page: long names, many mass items and cautions, a long datum.
