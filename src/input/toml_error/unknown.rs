@@ -1,6 +1,7 @@
 //! An unknown key or table name: where it hangs in the file (a misspelt table heading such as
 //! `[[stabilser.panel]]` is an unknown key of its parent, not of the table above it), the
-//! heading as written, and the accepted name closest to it.
+//! heading's name as written (without brackets, so a foreign file's line is never quoted
+//! whole), and the accepted name closest to it.
 
 use super::*;
 
@@ -73,14 +74,17 @@ impl Source<'_> {
             .filter(|h| ctx.on_header && h.start == ctx.line_start);
         match header {
             Some(h) => {
-                let written = if h.is_array {
-                    format!("[[{}]]", token(&h.name))
-                } else {
-                    format!("[{}]", token(&h.name))
+                // The heading's name as written, without its brackets (a whole line of a
+                // foreign file is never quoted); a one-part heading is the key itself.
+                let name = token(&h.name);
+                let place = match (h.name.contains('.'), h.is_array) {
+                    (false, _) => String::new(),
+                    (true, true) => format!(" in the heading of the list `{name}`"),
+                    (true, false) => format!(" in the heading `{name}`"),
                 };
                 Issue {
                     field: self.heading_path(h, key),
-                    problem: format!("unknown table name `{key}` in the heading `{written}`{hint}"),
+                    problem: format!("unknown table `{key}`{place}{hint}"),
                     accepted,
                 }
             }
