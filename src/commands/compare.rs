@@ -5,6 +5,7 @@ use anyhow::Context;
 use clap::Args;
 use std::path::PathBuf;
 use trimline::analysis::{analyse, AnalysisOptions, KeyFigures};
+use trimline::output::compare::CautionCodes;
 use trimline::output::fs::write_file;
 use trimline::output::pdf::compare_page::MAX_COLUMNS;
 use trimline::output::pdf::Paper;
@@ -42,8 +43,12 @@ pub struct CompareArgs {
     pub unit_system: super::check::UnitChoice,
 }
 
-/// Every configuration to compare, analysed: key figures and source name.
-pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, String)>> {
+/// The configurations to compare with their source names, and their cautions in the same order.
+pub type Configurations = (Vec<(KeyFigures, String)>, Vec<CautionCodes>);
+
+/// Every configuration to compare, analysed: key figures and source name, and beside them (same
+/// order) the level and code of every caution each configuration raised.
+pub fn configurations(args: &CompareArgs) -> anyhow::Result<Configurations> {
     let mut loaded = Vec::new();
     if args.files.is_empty() {
         loaded.push(super::check::load(None)?);
@@ -52,6 +57,7 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
         loaded.push(super::check::load(Some(f))?);
     }
     let mut out = Vec::new();
+    let mut cautions = Vec::new();
     for (aircraft, source) in loaded {
         let mut variants = vec![(aircraft.clone(), aircraft.name.clone())];
         if !args.base_only {
@@ -65,18 +71,21 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
         // The configurations are independent: analysed in parallel over the cores, kept in
         // their order (the polar cache is shared, so a polar is computed once).
         use rayon::prelude::*;
-        let figures: Vec<anyhow::Result<KeyFigures>> = variants
+        let figures: Vec<anyhow::Result<(KeyFigures, CautionCodes)>> = variants
             .par_iter()
             .map(|(v, column)| {
                 let a = analyse(v, &AnalysisOptions::default())
                     .with_context(|| format!("analysing {} ({source})", v.name))?;
                 let mut k = KeyFigures::of(v, &a);
                 k.name = column.clone();
-                Ok(k)
+                let codes = a.cautions.iter().map(|c| (c.level, c.code)).collect();
+                Ok((k, codes))
             })
             .collect();
         for k in figures {
-            out.push((k?, source.clone()));
+            let (k, codes) = k?;
+            out.push((k, source.clone()));
+            cautions.push(codes);
         }
     }
     tell_apart_same_names(&mut out);
@@ -86,7 +95,7 @@ pub fn configurations(args: &CompareArgs) -> anyhow::Result<Vec<(KeyFigures, Str
             c.0 = k;
         }
     }
-    Ok(out)
+    Ok((out, cautions))
 }
 
 /// Columns that would carry the same name (two files of the same aircraft, say) get their
@@ -115,7 +124,7 @@ fn tell_apart_same_names(out: &mut [(KeyFigures, String)]) {
 
 /// Run `compare`.
 pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
-    let columns = configurations(args)?;
+    let (columns, cautions) = configurations(args)?;
     let dangers: usize = columns.iter().map(|c| c.0.dangers).sum();
     if columns.len() < 2 {
         anyhow::bail!(
@@ -133,7 +142,7 @@ pub fn run(args: &CompareArgs) -> anyhow::Result<super::Finish> {
         write_comparison_pdf(args, pdf.as_ref(), &columns)?;
     }
     if args.json {
-        let doc = trimline::output::compare::compare_json(&columns);
+        let doc = trimline::output::compare::compare_json(&columns, &cautions);
         super::emit(&format!("{}\n", serde_json::to_string_pretty(&doc)?))?;
     } else {
         print_comparison(args, columns)?;

@@ -15,6 +15,8 @@ pub enum Kind {
     Trainer,
     /// A 900 mm swept flying wing.
     Wing,
+    /// A 1.7 m thermal sailplane with a V-tail (ruddervators) and camber flaps.
+    VTail,
 }
 
 /// Arguments of `new`.
@@ -40,6 +42,7 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
         Kind::Sailplane => super::check::DEMO_TEXT,
         Kind::Trainer => include_str!("../../aircraft/wrenfield-1400.toml"),
         Kind::Wing => include_str!("../../aircraft/skerrywing-900.toml"),
+        Kind::VTail => include_str!("../../aircraft/merrowtail-1700.toml"),
     };
     let options = WriteOptions {
         follow_link: false,
@@ -51,6 +54,7 @@ pub fn run(args: &NewArgs) -> anyhow::Result<()> {
     let parts = match args.from {
         Kind::Wing => "wing, elevons",
         Kind::Sailplane | Kind::Trainer => "wing, stabiliser",
+        Kind::VTail => "wing, flaps, V-tail stabiliser",
     };
     super::emit(&format!(
         "Wrote {}: edit the name, {parts}, airfoils and [[mass]] items (every key is \

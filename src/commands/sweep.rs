@@ -216,7 +216,7 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
     let values: Vec<f64> = parse_values(values)
         .with_context(|| format!("--vary {shown}"))?
         .into_iter()
-        .map(|v| v * to_si)
+        .map(|(v, decimals)| in_si(&quantity, v, decimals, to_si))
         .collect();
     for &v in &values {
         trimline::study::check_value(aircraft, &quantity, v)
@@ -225,21 +225,38 @@ pub fn parse_axis(aircraft: &Aircraft, spec: &str) -> anyhow::Result<Axis> {
     Ok(Axis { quantity, values })
 }
 
-/// Parse `start:stop:step` or `a,b,c` (the builder's units).
-fn parse_values(text: &str) -> anyhow::Result<Vec<f64>> {
-    let num = |t: &str| -> anyhow::Result<f64> {
+/// A value in the builder's unit, `decimals` decimals as written, in SI: mm and g are divided
+/// by 1000 and rounded to 3 more decimals, so 574 mm is 0.574 m exactly as printed (not
+/// 0.5740000000000001); degrees go to radians (the output turns them back without noise).
+fn in_si(quantity: &Quantity, value: f64, decimals: Option<u32>, to_si: f64) -> f64 {
+    if matches!(quantity.builder_unit().0, "mm" | "g") {
+        match decimals {
+            Some(d) => trimline::study::round_to_decimals(value / 1000.0, d + 3),
+            None => value / 1000.0,
+        }
+    } else {
+        value * to_si
+    }
+}
+
+/// Parse `start:stop:step` or `a,b,c` (the builder's units): each value with the decimals it
+/// is written to. A range's values are `start + i * step` rounded to the most decimals of its
+/// start, stop and step as written, so `0:0.3:0.1` gives 0.3, not 0.30000000000000004.
+fn parse_values(text: &str) -> anyhow::Result<Vec<(f64, Option<u32>)>> {
+    let num = |t: &str| -> anyhow::Result<(f64, Option<u32>)> {
         t.trim()
             .parse::<f64>()
             .ok()
             .filter(|v| v.is_finite())
+            .map(|v| (v, trimline::study::decimals_written(t)))
             .with_context(|| format!("'{}' is not a number (accepted: {ACCEPTED})", printable(t)))
     };
     if text.contains(':') {
         let parts = text
             .split(':')
             .map(num)
-            .collect::<anyhow::Result<Vec<f64>>>()?;
-        let [start, stop, step] = parts[..] else {
+            .collect::<anyhow::Result<Vec<(f64, Option<u32>)>>>()?;
+        let [(start, d0), (stop, d1), (step, d2)] = parts[..] else {
             bail!(
                 "'{}' is not start:stop:step (accepted: {ACCEPTED})",
                 printable(text)
@@ -259,14 +276,21 @@ fn parse_values(text: &str) -> anyhow::Result<Vec<f64>> {
                 steps + 1.0
             );
         }
+        let decimals = d0.zip(d1).zip(d2).map(|((a, b), c)| a.max(b).max(c));
         Ok((0..=steps as usize)
-            .map(|i| start + step * i as f64)
+            .map(|i| {
+                let v = start + step * i as f64;
+                match decimals {
+                    Some(d) => (trimline::study::round_to_decimals(v, d), Some(d)),
+                    None => (v, None),
+                }
+            })
             .collect())
     } else {
         let values = text
             .split(',')
             .map(num)
-            .collect::<anyhow::Result<Vec<f64>>>()?;
+            .collect::<anyhow::Result<Vec<(f64, Option<u32>)>>>()?;
         if values.len() > MAX_POINTS {
             bail!(
                 "{} values; a study runs at most {MAX_POINTS} points",

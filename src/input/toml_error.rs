@@ -12,6 +12,7 @@ use crate::printable::{first_word, token};
 use std::collections::BTreeMap;
 
 mod issues;
+mod unknown;
 
 use issues::{is_number_error, plain_expected, plain_problem};
 
@@ -81,16 +82,7 @@ pub(super) fn translate(text: &str, file: &str, e: &toml::de::Error) -> InputErr
     let issue = if head == "duplicate key" {
         src.duplicate_key(&ctx, span.unwrap_or(at..at))
     } else if let Some(key) = head.strip_prefix("unknown field ") {
-        let key = &token(key.trim_matches('`'));
-        Issue {
-            field: ctx.path_with(key),
-            problem: format!("unknown key `{key}`"),
-            accepted: expected.map(|x| {
-                x.strip_prefix("one of ")
-                    .map(|keys| format!("one of {keys}"))
-                    .unwrap_or_else(|| plain_expected(x).unwrap_or_default())
-            }),
-        }
+        src.unknown_key(&ctx, &token(key.trim_matches('`')), at, expected)
     } else if let Some(key) = head.strip_prefix("missing field ") {
         // Required keys are checked after reading (see raw.rs); this is a fallback.
         let key = &token(key.trim_matches('`'));

@@ -348,9 +348,24 @@ pub struct CompareColumnJson {
     pub figures: serde_json::Map<String, serde_json::Value>,
     /// Differences from the first configuration, same keys.
     pub difference_from_first: serde_json::Map<String, serde_json::Value>,
+    /// Every caution the configuration raised, in the order the checks ran (as in
+    /// `check --json`): level and code.
+    pub cautions: Vec<CautionCodeJson>,
     /// What the positions (the keys ending in `x_m`, and the band) are measured from: the file's datum, or the wing's MAC leading edge when the files'
     /// datums differ.
     pub x_reference: String,
+}
+
+/// The level and code of every caution of one configuration, in the order the checks ran.
+pub type CautionCodes = Vec<(crate::caution::Level, &'static str)>;
+
+/// One caution in `compare --json`: its level and stable code (the message is `check`'s).
+#[derive(Debug, Serialize)]
+pub struct CautionCodeJson {
+    /// `note`, `warning` or `danger`.
+    pub level: &'static str,
+    /// Stable code, as in docs/cautions.md.
+    pub code: &'static str,
 }
 
 /// `v` rounded to `decimals` decimals, never `-0`.
@@ -388,8 +403,9 @@ pub struct CompareJson {
 /// The JSON form of a comparison, in SI units as `check --json` (each key names its unit).
 /// Values are rounded to one significant decimal more than the table shows and counts are
 /// integers; a difference is that of the rounded values, so it equals the configuration's
-/// figure minus the first configuration's.
-pub fn compare_json(columns: &[(KeyFigures, String)]) -> CompareJson {
+/// figure minus the first configuration's. `cautions` holds, in the same order as `columns`,
+/// every caution of each configuration (an entry missing gives an empty list).
+pub fn compare_json(columns: &[(KeyFigures, String)], cautions: &[CautionCodes]) -> CompareJson {
     let first = columns.first().map(|c| &c.0);
     let rounded = |row: &Row, k: &KeyFigures| -> Option<f64> {
         (row.value)(k)
@@ -398,7 +414,8 @@ pub fn compare_json(columns: &[(KeyFigures, String)]) -> CompareJson {
     };
     let configurations = columns
         .iter()
-        .map(|(k, source)| {
+        .enumerate()
+        .map(|(i, (k, source))| {
             let mut figures = serde_json::Map::new();
             let mut diff = serde_json::Map::new();
             for row in ROWS {
@@ -422,6 +439,15 @@ pub fn compare_json(columns: &[(KeyFigures, String)]) -> CompareJson {
                 source: source.clone(),
                 figures,
                 difference_from_first: diff,
+                cautions: cautions
+                    .get(i)
+                    .into_iter()
+                    .flatten()
+                    .map(|(level, code)| CautionCodeJson {
+                        level: level.as_str(),
+                        code,
+                    })
+                    .collect(),
                 x_reference: k.datum.clone(),
             }
         })

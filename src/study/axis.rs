@@ -57,9 +57,11 @@ impl Quantity {
     }
 
     /// A value (SI) in the unit the key ends in (degrees for angles, else unchanged).
+    /// Degrees come back from radians without the conversion's round-off (0.3, not
+    /// 0.30000000000000004).
     pub fn in_key_unit(&self, value_si: f64) -> f64 {
         if self.is_incidence() {
-            value_si.to_degrees()
+            super::without_noise(value_si.to_degrees())
         } else {
             value_si
         }

@@ -6,12 +6,14 @@
 //! leave as plain figures for `output/` to render.
 
 mod axis;
+mod decimal;
 mod run;
 
 pub use axis::{
     apply, check_value, Axis, Quantity, StudyError, MAX_CG_DISTANCE_M, MAX_INCIDENCE_RAD,
     MAX_MASS_SCALE,
 };
+pub use decimal::{decimals_written, round_to_decimals, without_noise, MAX_DECIMALS};
 pub use run::{
     ControlOutcome, Point, PointFigures, Study, StudyPrepareError, TrimOutcome, MAX_POINTS,
 };

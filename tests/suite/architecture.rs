@@ -87,40 +87,69 @@ fn every_source_file_says_what_it_is_for() {
     }
 }
 
-// docs/cautions.md explains every caution code the library can raise: each string that follows
-// a `Level::...,` in a `Caution::new(` call must appear there in backticks.
-#[test]
-fn every_caution_code_is_documented() {
-    let doc =
-        std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("docs/cautions.md"))
-            .unwrap();
+/// Every caution code the library can raise: each string that follows a `Level::...,` (or
+/// `crate::caution::Level::...,`) in a
+/// `Caution::new(` call, outside the unit tests.
+fn caution_codes() -> Vec<String> {
     let mut files = Vec::new();
     rust_files(&src(), &mut files);
-    let mut missing = Vec::new();
-    let mut found = 0;
+    let mut codes = Vec::new();
     for f in files {
         let text = std::fs::read_to_string(&f).unwrap();
         // Code outside the unit tests only.
         let body = text.split("#[cfg(test)]").next().unwrap_or("");
         let tokens: Vec<&str> = body.split_whitespace().collect();
         for w in tokens.windows(2) {
-            if w[0].starts_with("Level::") && w[0].ends_with(',') && w[1].starts_with('"') {
+            if w[0].contains("Level::") && w[0].ends_with(',') && w[1].starts_with('"') {
                 let code = w[1].trim_matches(|c| c == '"' || c == ',');
                 if code.chars().all(|c| c.is_ascii_lowercase() || c == '-') && !code.is_empty() {
-                    found += 1;
-                    if !doc.contains(&format!("`{code}`")) {
-                        missing.push(code.to_string());
-                    }
+                    codes.push(code.to_string());
                 }
             }
         }
     }
     assert!(
-        found > 15,
-        "caution codes not found in the source ({found})"
+        codes.len() > 15,
+        "caution codes not found in the source ({})",
+        codes.len()
     );
+    codes
+}
+
+fn cautions_doc() -> String {
+    std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("docs/cautions.md")).unwrap()
+}
+
+// docs/cautions.md explains every caution code the library can raise: each must appear there
+// in backticks.
+#[test]
+fn every_caution_code_is_documented() {
+    let doc = cautions_doc();
+    let missing: Vec<String> = caution_codes()
+        .into_iter()
+        .filter(|code| !doc.contains(&format!("`{code}`")))
+        .collect();
     assert!(
         missing.is_empty(),
         "caution codes missing from docs/cautions.md: {missing:?}"
+    );
+}
+
+// The summary table of docs/cautions.md has a row for every code, not only the sections
+// further down.
+#[test]
+fn every_caution_code_has_a_summary_row() {
+    let doc = cautions_doc();
+    let start = doc.find("## Summary").expect("a summary");
+    let len = doc[start + 1..].find("\n## ").expect("a section after it");
+    let summary = &doc[start..start + 1 + len];
+    let mut missing: Vec<String> = caution_codes()
+        .into_iter()
+        .filter(|code| !summary.contains(&format!("\n| `{code}` |")))
+        .collect();
+    missing.dedup();
+    assert!(
+        missing.is_empty(),
+        "caution codes missing from the summary of docs/cautions.md: {missing:?}"
     );
 }

@@ -177,6 +177,33 @@ fn new_writes_a_starter_file_and_never_overwrites() {
     assert_eq!(std::fs::read_to_string(&path).unwrap(), "my own work");
 }
 
+// `new --from v-tail` starts from the V-tail example: the file it writes reads back, its
+// stabiliser is a V-tail in the sense of the planform code (projected area below 0.985 of
+// the true area, src/planform/tail.rs), and it carries flaps and flap settings to edit.
+#[test]
+fn new_from_v_tail_writes_a_v_tail_starter() {
+    let dir = tempfile::tempdir().unwrap();
+    let path = dir.path().join("vee.toml");
+    let out = trimline(&["new", path.to_str().unwrap(), "--from", "v-tail"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    assert!(String::from_utf8_lossy(&out.stdout).contains("V-tail"));
+    let text = std::fs::read_to_string(&path).unwrap();
+    let aircraft = trimline::input::parse_aircraft(&text, "vee.toml", None).unwrap();
+    let stab = aircraft.stabiliser.as_ref().expect("a stabiliser");
+    assert!(trimline::planform::is_vee_tail(&stab.surface));
+    assert!(text.contains("[[wing.flap]]") && text.contains("[[flap_setting]]"));
+    let check = trimline(&["check", path.to_str().unwrap()]);
+    assert!(
+        check.status.code() == Some(0) || check.status.code() == Some(3),
+        "{}",
+        String::from_utf8_lossy(&check.stderr)
+    );
+}
+
 // The example in docs/json.md has the keys `check --json` writes today, no more and no fewer
 // (its lists are cut; their entries keep the keys of the real ones), so it cannot go stale
 // in shape when a field is added or renamed.

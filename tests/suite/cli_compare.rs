@@ -382,3 +382,44 @@ fn compare_json_is_in_the_units_of_check_json_and_documented() {
     missing.retain(|p| !p.contains("/difference_from_first/"));
     assert!(missing.is_empty(), "undocumented compare JSON: {missing:?}");
 }
+
+// Each configuration of `compare --json` carries the level and code of every caution it raised
+// (docs/json.md, `/configurations/N/cautions`): the same list, in the same order, as
+// `check --json` for that configuration, and its warning and danger counts agree with it.
+#[test]
+fn compare_json_lists_each_configurations_cautions_as_check_does() {
+    let out = trimline(&["compare", "--json"]);
+    let cmp: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let configurations = cmp["configurations"].as_array().unwrap();
+    assert!(configurations.len() >= 2);
+    let pairs = |v: &serde_json::Value| -> Vec<(String, String)> {
+        v.as_array()
+            .unwrap()
+            .iter()
+            .map(|c| {
+                (
+                    c["level"].as_str().unwrap().to_string(),
+                    c["code"].as_str().unwrap().to_string(),
+                )
+            })
+            .collect()
+    };
+    let mut differ = false;
+    for (i, col) in configurations.iter().enumerate() {
+        let name = col["name"].as_str().unwrap();
+        let mut args = vec!["check", "--json"];
+        if i > 0 {
+            args.extend(["--setup", name]);
+        }
+        let check = trimline(&args);
+        let chk: serde_json::Value = serde_json::from_slice(&check.stdout).unwrap();
+        let listed = pairs(&col["cautions"]);
+        assert_eq!(listed, pairs(&chk["cautions"]), "cautions of {name}");
+        let count = |level: &str| listed.iter().filter(|(l, _)| l == level).count() as u64;
+        assert_eq!(col["figures"]["warnings"].as_u64(), Some(count("warning")));
+        assert_eq!(col["figures"]["dangers"].as_u64(), Some(count("danger")));
+        differ |= listed != pairs(&configurations[0]["cautions"]);
+    }
+    // The demo's setups do not all raise the same cautions (one moves the CG aft of the band).
+    assert!(differ, "every configuration has the same cautions");
+}

@@ -196,6 +196,80 @@ fn every_file_key_is_documented() {
     );
 }
 
+// The key reference of aircraft/README.md ("Reference: every key") has a row for each key of
+// the camber flaps and their settings, as `wing.flap[].KEY` and `flap_setting[].KEY`, the
+// keys read from the raw mirror of the file (src/input/raw.rs).
+#[test]
+fn flap_keys_are_in_the_key_reference() {
+    let root = std::path::Path::new(env!("CARGO_MANIFEST_DIR"));
+    let raw = std::fs::read_to_string(root.join("src/input/raw.rs")).unwrap();
+    let doc = std::fs::read_to_string(root.join("aircraft/README.md")).unwrap();
+    let reference = &doc[doc.find("## Reference: every key").expect("the reference")..];
+    let fields = |name: &str| -> Vec<String> {
+        let start = raw.find(&format!("pub struct {name} {{")).expect(name);
+        let body = &raw[start..start + raw[start..].find('}').unwrap()];
+        body.lines()
+            .skip(1)
+            .filter_map(|l| l.trim().strip_prefix("pub "))
+            .filter_map(|l| l.split_once(':').map(|(k, _)| k.to_string()))
+            .collect()
+    };
+    let mut missing = Vec::new();
+    for (name, path) in [
+        ("RawFlap", "wing.flap[]"),
+        ("RawFlapSetting", "flap_setting[]"),
+    ] {
+        let keys = fields(name);
+        assert!(keys.len() >= 2, "{name}: {keys:?}");
+        for key in keys {
+            let row = format!("| `{path}.{key}");
+            if !reference.contains(&row) {
+                missing.push(row);
+            }
+        }
+    }
+    assert!(missing.is_empty(), "missing rows: {missing:?}");
+}
+
+// README.md's limits table says what the reader does: 100 characters in an aircraft's (or
+// mass item's...) name, 40 in a flap's or flap setting's; one more is refused.
+#[test]
+fn name_limits_in_the_readme_are_the_readers() {
+    let root = std::path::Path::new(env!("CARGO_MANIFEST_DIR"));
+    let readme = std::fs::read_to_string(root.join("README.md")).unwrap();
+    let limit = |row_start: &str| -> usize {
+        let line = readme
+            .lines()
+            .find(|l| l.starts_with(row_start))
+            .unwrap_or_else(|| panic!("no row `{row_start}`"));
+        line.trim_end_matches('|')
+            .rsplit('|')
+            .next()
+            .unwrap()
+            .trim()
+            .parse()
+            .unwrap()
+    };
+    let name = limit("| characters in a name");
+    let flap = limit("| characters in the name of a `[[wing.flap]]`");
+    let with_name = |n: usize| GOOD.replace("Test glider", &"n".repeat(n));
+    parse_aircraft(&with_name(name), "ok.toml", None).unwrap();
+    assert!(error_of(&with_name(name + 1)).contains(&format!("at most {name}")));
+    let flapped = |n: usize| {
+        let f = "f".repeat(n);
+        format!(
+            "{GOOD}[[wing.flap]]\nname = \"{f}\"\nchord = 25\ninboard = 5\noutboard = 50\n\
+             [[flap_setting]]\nname = \"{f}\"\ndeflect = {{ {f} = 5 }}\n"
+        )
+    };
+    parse_aircraft(&flapped(flap), "ok.toml", None).unwrap();
+    let e = error_of(&flapped(flap + 1));
+    assert!(
+        e.contains("wing.flap.name") && e.contains(&format!("1 to {flap}")),
+        "{e}"
+    );
+}
+
 // Stabiliser-only keys on the wing are refused with their position, not ignored.
 #[test]
 fn elevator_keys_on_the_wing_are_refused() {

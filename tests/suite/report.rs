@@ -374,3 +374,38 @@ fn mac_label_lies_outside_the_planform() {
         }
     }
 }
+
+// A V-tail sailplane with flaps has a glide polar, so its page has a sink chart (docs/report.md,
+// item 7). On a crowded page the notes give way before the chart; when the chart must go
+// too, the page says in words that it is not drawn and why, instead of only counting notes.
+#[test]
+fn v_tail_report_draws_the_sink_chart_or_says_why() {
+    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("aircraft/merrowtail-1700.toml");
+    let base = std::fs::read_to_string(&path).unwrap();
+    let chart = "Sink rate against airspeed";
+    let why = "notes are left out: the page has no room for them.";
+    let page = |text: &str, paper: Paper| {
+        let aircraft = parse_aircraft(text, "vee.toml", None).unwrap();
+        assert!(aircraft.flap_settings.len() >= 2);
+        read_back(&report_pdf(&aircraft, source(), paper).unwrap()).1
+    };
+    for paper in [Paper::A4, Paper::Letter] {
+        let t = page(&base, paper);
+        assert!(t.contains(chart), "{paper:?}: no sink chart in:\n{t}");
+        assert!(!t.contains("The sink chart"), "{paper:?}");
+    }
+    // Twelve more mass items crowd the Letter page past what the notes free.
+    let mut crowded = base.clone();
+    for k in 0..12 {
+        crowded.push_str(&format!(
+            "\n[[mass]]\nname = \"extra {k}\"\nmass = 1\nx = 60\n"
+        ));
+    }
+    let t = page(&crowded, Paper::Letter);
+    assert!(!t.contains(chart), "expected a crowded page:\n{t}");
+    assert!(
+        t.contains("The sink chart and "),
+        "no reason given in:\n{t}"
+    );
+    assert!(t.contains(why), "no reason given in:\n{t}");
+}

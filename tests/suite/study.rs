@@ -328,6 +328,63 @@ fn the_command_writes_csv_and_json_in_the_same_order() {
     }
 }
 
+// Axis values built as start + i * step, or converted from mm to m, carry binary round-off
+// (0.1 has no exact IEEE 754 double, so 0.1 + 0.2 is 0.30000000000000004: common practice).
+// The CSV and JSON print each axis value as the decimal the range denotes (docs/sweep.md): as
+// written to the step's decimals, in the key's unit, and the two read back to the same number.
+#[test]
+fn axis_values_are_printed_to_the_decimals_written() {
+    let dir = tempfile::tempdir().unwrap();
+    let path = dir.path().join("study.csv");
+    let p = path.to_str().unwrap();
+    let out = trimline(&[
+        "sweep",
+        "--vary",
+        "cg=60:62:0.2",
+        "--vary",
+        "decalage=0:0.3:0.1",
+        "--csv",
+        p,
+        "--json",
+    ]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let rows = parse_csv(&std::fs::read_to_string(&path).unwrap());
+    let points = v["points"].as_array().unwrap();
+    assert_eq!(points.len(), 11 * 4);
+    assert_eq!(rows.len(), 1 + points.len());
+    // The decimal each value denotes, as text: the CG in m (60.2 mm is 602 / 10000 m, one
+    // correctly rounded division, printed shortest: 0.0602), the decalage in degrees.
+    let decalage = |j: usize| ["0", "0.1", "0.2", "0.3"][j].to_string();
+    for (k, (row, point)) in rows[1..].iter().zip(points).enumerate() {
+        let (i, j) = (k / 4, k % 4);
+        let want_cg = format!("{}", (600 + 2 * i) as f64 / 10000.0);
+        assert!(want_cg.len() <= 6, "{want_cg}");
+        assert_eq!(row[1], want_cg, "CSV cg of point {k}");
+        assert_eq!(row[2], decalage(j), "CSV decalage of point {k}");
+        let values = point["values"].as_array().unwrap();
+        assert_eq!(values[0].to_string(), want_cg, "JSON cg of point {k}");
+        assert_eq!(
+            values[1].as_f64().unwrap().to_string(),
+            decalage(j),
+            "JSON decalage of point {k}"
+        );
+        assert_eq!(row[1].parse::<f64>().ok(), values[0].as_f64());
+    }
+    let axes = v["axes"].as_array().unwrap();
+    let shown: Vec<String> = axes[1]["values"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|x| x.as_f64().unwrap().to_string())
+        .collect();
+    assert_eq!(shown, ["0", "0.1", "0.2", "0.3"]);
+}
+
 /// Runs `sweep` with `vary` options and returns (exit code, stderr).
 fn refused(vary: &[&str]) -> (Option<i32>, String) {
     let mut args = vec!["sweep"];

@@ -9,6 +9,9 @@ use super::chart::Frame;
 use super::metrics::{self, Face};
 use super::{charts, planform, Paper};
 use crate::output::report::{fmt, level_name, ReportData};
+use room::make_room;
+
+mod room;
 
 const MARGIN: f64 = 10.0;
 const GAP: f64 = 4.0;
@@ -66,16 +69,8 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     // down to a legible minimum, so that the view keeps room for its labels.
     let min_view = planform::min_height(&data.top_view);
     let shortfall = (min_view - view_h).max(0.0);
-    if data.glide.is_some() && chart_h - shortfall < MIN_CHART_H + extra {
-        return draw(&without_sink_chart(data), paper);
-    }
-    let notes = data
-        .cautions
-        .iter()
-        .filter(|c| c.level == crate::caution::Level::Note)
-        .count();
-    if data.glide.is_none() && chart_h - shortfall < MIN_CHART_H && notes > 1 {
-        return draw(&without_notes(data, notes), paper);
+    if let Some(lighter) = make_room(data, chart_h - shortfall < MIN_CHART_H + extra) {
+        return draw(&lighter, paper);
     }
     chart_h = (chart_h - shortfall).max(MIN_CHART_H + extra);
     chart_h += spare.clamp(0.0, MAX_CHART_GROWTH);
@@ -111,36 +106,6 @@ pub fn draw(data: &ReportData, paper: Paper) -> Canvas {
     cautions_box(&mut c, data, x0, caution_top, w);
     footer(&mut c, data, x0, MARGIN + footer_h, w, true);
     c
-}
-
-/// The page too crowded for a third chart: the two balance charts stay (the glide figures
-/// stay in the key figures and in `check`), with a note saying so.
-fn without_sink_chart(data: &ReportData) -> ReportData {
-    let mut two = ReportData {
-        glide: None,
-        ..data.clone()
-    };
-    two.cautions.push(crate::caution::Caution::new(
-        crate::caution::Level::Note,
-        "sink-chart-left-out",
-        "The sink chart is left out of this page for room; `trimline check` prints the \
-         glide table.",
-    ));
-    two
-}
-
-/// Still too crowded: the `notes` notes give way (warnings and dangers always stay), with one
-/// line saying where to read them.
-fn without_notes(data: &ReportData, notes: usize) -> ReportData {
-    let mut lean = data.clone();
-    lean.cautions
-        .retain(|c| c.level != crate::caution::Level::Note);
-    lean.cautions.push(crate::caution::Caution::new(
-        crate::caution::Level::Note,
-        "notes-left-out",
-        format!("{notes} notes are left out of this page for room; `trimline check` prints them."),
-    ));
-    lean
 }
 
 /// The charts side by side in `row`: spanwise lift, trim speed and, when there is a glide
@@ -467,8 +432,13 @@ mod tests {
     use crate::output::report::{self, ReportSource};
 
     fn data(path: &str) -> ReportData {
+        data_with(path, "")
+    }
+
+    /// The report data of example `path` with `more` appended to its file.
+    fn data_with(path: &str, more: &str) -> ReportData {
         let file = format!("{}/aircraft/{path}", env!("CARGO_MANIFEST_DIR"));
-        let text = std::fs::read_to_string(&file).unwrap();
+        let text = std::fs::read_to_string(&file).unwrap() + more;
         let aircraft = crate::input::parse_aircraft(&text, &file, None).unwrap();
         let a = analyse(&aircraft, &AnalysisOptions::default()).unwrap();
         report::build(
@@ -509,11 +479,24 @@ mod tests {
             "larkspire-2000.toml",
             "wrenfield-1400.toml",
             "skerrywing-900.toml",
+            "merrowtail-1700.toml",
         ] {
             let d = data(f);
             assert_clean_layout(&d, Paper::A4);
             assert_clean_layout(&d, Paper::Letter);
         }
+    }
+
+    // A V-tail page with flaps and a long mass list loses its notes and then its sink chart;
+    // the line saying so fits without overlapping anything.
+    #[test]
+    fn a_crowded_v_tail_page_still_has_no_overlapping_text() {
+        let more: String = (0..12)
+            .map(|k| format!("\n[[mass]]\nname = \"extra {k}\"\nmass = 1\nx = 60\n"))
+            .collect();
+        let d = data_with("merrowtail-1700.toml", &more);
+        assert_clean_layout(&d, Paper::A4);
+        assert_clean_layout(&d, Paper::Letter);
     }
 
     // A crowded page: long names, many mass items and cautions, a long datum.
