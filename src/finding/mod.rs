@@ -37,6 +37,21 @@ impl Control {
     }
 }
 
+/// What the one-page report had to leave out for room (notes).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum PageFinding {
+    /// `notes-left-out`: this many notes gave way.
+    NotesLeftOut {
+        /// How many.
+        notes: usize,
+    },
+    /// `sink-chart-left-out`: the sink chart gave way, and perhaps notes too.
+    SinkChartLeftOut {
+        /// How many notes gave way with it.
+        notes: Option<usize>,
+    },
+}
+
 /// One finding.
 #[derive(Debug, Clone, PartialEq)]
 pub enum Finding {
@@ -46,6 +61,8 @@ pub enum Finding {
     Balance(BalanceFinding),
     /// The inputs, and how the analysis ran.
     Input(InputFinding),
+    /// A line about the report page itself.
+    Page(PageFinding),
     /// A finding whose sentence was written where it was found (not yet typed); its level and
     /// code travel in the [`crate::caution::Caution`] that holds it.
     Worded(String),
@@ -55,7 +72,7 @@ impl Finding {
     /// The level of a typed finding (`Note` for a worded one: its caution holds the level).
     pub fn level(&self) -> Level {
         match self {
-            Finding::SafetyEstimateOnly | Finding::Worded(_) => Level::Note,
+            Finding::SafetyEstimateOnly | Finding::Page(_) | Finding::Worded(_) => Level::Note,
             Finding::Balance(f) => f.level(),
             Finding::Input(f) => f.level(),
         }
@@ -68,6 +85,8 @@ impl Finding {
             Finding::SafetyEstimateOnly => "safety-estimate-only",
             Finding::Balance(f) => f.code(),
             Finding::Input(f) => f.code(),
+            Finding::Page(PageFinding::NotesLeftOut { .. }) => "notes-left-out",
+            Finding::Page(PageFinding::SinkChartLeftOut { .. }) => "sink-chart-left-out",
             Finding::Worded(_) => "",
         }
     }

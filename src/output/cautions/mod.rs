@@ -2,7 +2,7 @@
 //! analysis finds, this module says.
 
 use crate::caution::Caution;
-use crate::finding::{Control, Finding};
+use crate::finding::{Control, Finding, PageFinding};
 
 mod balance;
 mod inputs;
@@ -19,6 +19,20 @@ pub fn message(c: &Caution) -> String {
         Finding::SafetyEstimateOnly => SAFETY_MESSAGE.to_string(),
         Finding::Balance(f) => balance::message(f),
         Finding::Input(f) => inputs::message(f),
+        Finding::Page(PageFinding::NotesLeftOut { notes }) => {
+            format!(
+                "{notes} notes are left out of this page for room; `trimline check` prints them."
+            )
+        }
+        Finding::Page(PageFinding::SinkChartLeftOut { notes: Some(n) }) => format!(
+            "The sink chart and {n} notes are left out: the page has no room for them. \
+             `trimline check` prints the glide table and every note."
+        ),
+        Finding::Page(PageFinding::SinkChartLeftOut { notes: None }) => {
+            "The sink chart is left out: the page has no room for a third chart. \
+             `trimline check` prints the glide table."
+                .to_string()
+        }
         Finding::Worded(text) => text.clone(),
     }
 }

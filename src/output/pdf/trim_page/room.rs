@@ -2,6 +2,7 @@
 //! line in the cautions box saying so in words.
 
 use crate::caution::{Caution, Level};
+use crate::finding::{Finding, PageFinding};
 use crate::output::report::ReportData;
 
 /// On a crowded page (`crowded`: the charts would be shorter than legible) what gives way:
@@ -30,23 +31,15 @@ fn without_sink_chart(data: &ReportData) -> ReportData {
         glide: None,
         ..data.clone()
     };
-    let notes = two
-        .cautions
-        .iter()
-        .find(|c| c.code == "notes-left-out")
-        .and_then(|c| c.message.split(' ').next()?.parse::<usize>().ok());
+    let notes = two.cautions.iter().find_map(|c| match c.finding {
+        Finding::Page(PageFinding::NotesLeftOut { notes }) => Some(notes),
+        _ => None,
+    });
     two.cautions.retain(|c| c.code != "notes-left-out");
-    let message = match notes {
-        Some(n) => format!(
-            "The sink chart and {n} notes are left out: the page has no room for them. \
-             `trimline check` prints the glide table and every note."
-        ),
-        None => "The sink chart is left out: the page has no room for a third chart. \
-                 `trimline check` prints the glide table."
-            .to_string(),
-    };
     two.cautions
-        .push(Caution::new(Level::Note, "sink-chart-left-out", message));
+        .push(Caution::of(Finding::Page(PageFinding::SinkChartLeftOut {
+            notes,
+        })));
     two
 }
 
@@ -62,10 +55,9 @@ fn without_notes(data: &ReportData, notes: usize) -> ReportData {
     let mut lean = data.clone();
     lean.cautions
         .retain(|c| c.level != Level::Note || is_page_note(c.code));
-    lean.cautions.push(Caution::new(
-        Level::Note,
-        "notes-left-out",
-        format!("{notes} notes are left out of this page for room; `trimline check` prints them."),
-    ));
+    lean.cautions
+        .push(Caution::of(Finding::Page(PageFinding::NotesLeftOut {
+            notes,
+        })));
     lean
 }
