@@ -7,8 +7,10 @@ use crate::caution::Level;
 use crate::model::{Aircraft, StabiliserRole};
 
 mod balance;
+mod model;
 
 pub use balance::{BalanceFinding, FasterTrim};
+pub use model::{ElevonTrim, ModelFinding, TailStall};
 
 /// The aircraft's pitch control, as the cautions name it.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -42,6 +44,8 @@ pub enum Finding {
     SafetyEstimateOnly,
     /// Balance and trim.
     Balance(BalanceFinding),
+    /// What only the full model finds.
+    Model(ModelFinding),
     /// A finding whose sentence was written where it was found (not yet typed); its level and
     /// code travel in the [`crate::caution::Caution`] that holds it.
     Worded(String),
@@ -53,6 +57,7 @@ impl Finding {
         match self {
             Finding::SafetyEstimateOnly | Finding::Worded(_) => Level::Note,
             Finding::Balance(f) => f.level(),
+            Finding::Model(f) => f.level(),
         }
     }
 
@@ -62,6 +67,7 @@ impl Finding {
         match self {
             Finding::SafetyEstimateOnly => "safety-estimate-only",
             Finding::Balance(f) => f.code(),
+            Finding::Model(f) => f.code(),
             Finding::Worded(_) => "",
         }
     }
@@ -70,5 +76,11 @@ impl Finding {
 impl From<BalanceFinding> for Finding {
     fn from(f: BalanceFinding) -> Self {
         Finding::Balance(f)
+    }
+}
+
+impl From<ModelFinding> for Finding {
+    fn from(f: ModelFinding) -> Self {
+        Finding::Model(f)
     }
 }

@@ -5,6 +5,7 @@ use crate::caution::Caution;
 use crate::finding::{Control, Finding};
 
 mod balance;
+mod model;
 
 /// The standing safety caution carried by every analysis and report.
 pub const SAFETY_MESSAGE: &str = "These figures are estimates from a simplified aerodynamic model. \
@@ -17,6 +18,7 @@ pub fn message(c: &Caution) -> String {
     match &c.finding {
         Finding::SafetyEstimateOnly => SAFETY_MESSAGE.to_string(),
         Finding::Balance(f) => balance::message(f),
+        Finding::Model(f) => model::message(f),
         Finding::Worded(text) => text.clone(),
     }
 }
