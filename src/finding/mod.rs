@@ -7,9 +7,11 @@ use crate::caution::Level;
 use crate::model::{Aircraft, StabiliserRole};
 
 mod balance;
+mod glide;
 mod model;
 
 pub use balance::{BalanceFinding, FasterTrim};
+pub use glide::{GlideFinding, PolarMissing};
 pub use model::{ElevonTrim, ModelFinding, TailStall};
 
 /// The aircraft's pitch control, as the cautions name it.
@@ -46,6 +48,8 @@ pub enum Finding {
     Balance(BalanceFinding),
     /// What only the full model finds.
     Model(ModelFinding),
+    /// The glide polars.
+    Glide(GlideFinding),
     /// A finding whose sentence was written where it was found (not yet typed); its level and
     /// code travel in the [`crate::caution::Caution`] that holds it.
     Worded(String),
@@ -58,6 +62,7 @@ impl Finding {
             Finding::SafetyEstimateOnly | Finding::Worded(_) => Level::Note,
             Finding::Balance(f) => f.level(),
             Finding::Model(f) => f.level(),
+            Finding::Glide(f) => f.level(),
         }
     }
 
@@ -68,6 +73,7 @@ impl Finding {
             Finding::SafetyEstimateOnly => "safety-estimate-only",
             Finding::Balance(f) => f.code(),
             Finding::Model(f) => f.code(),
+            Finding::Glide(f) => f.code(),
             Finding::Worded(_) => "",
         }
     }
@@ -82,5 +88,11 @@ impl From<BalanceFinding> for Finding {
 impl From<ModelFinding> for Finding {
     fn from(f: ModelFinding) -> Self {
         Finding::Model(f)
+    }
+}
+
+impl From<GlideFinding> for Finding {
+    fn from(f: GlideFinding) -> Self {
+        Finding::Glide(f)
     }
 }

@@ -5,6 +5,7 @@ use crate::caution::Caution;
 use crate::finding::{Control, Finding};
 
 mod balance;
+mod glide;
 mod model;
 
 /// The standing safety caution carried by every analysis and report.
@@ -19,6 +20,7 @@ pub fn message(c: &Caution) -> String {
         Finding::SafetyEstimateOnly => SAFETY_MESSAGE.to_string(),
         Finding::Balance(f) => balance::message(f),
         Finding::Model(f) => model::message(f),
+        Finding::Glide(f) => glide::message(f),
         Finding::Worded(text) => text.clone(),
     }
 }
