@@ -290,27 +290,7 @@ fn polar_on(
         .iter()
         .filter_map(|m| polar.speed_to_fly(&source, 0.0, *m).ok())
         .collect();
-    let profile_sources = input
-        .aircraft
-        .airfoils
-        .iter()
-        .zip(&drags)
-        .filter(|(_, d)| {
-            !matches!(d, SectionDrag::FlatPlate { reason, .. } if reason == "not used by any strip")
-        })
-        .map(|(a, d)| match d {
-            SectionDrag::Viscous { polars, .. } => ProfileSource {
-                airfoil: a.name.clone(),
-                reynolds: polars.iter().map(|p| p.reynolds).collect(),
-                flat_plate_reason: None,
-            },
-            SectionDrag::FlatPlate { reason, .. } => ProfileSource {
-                airfoil: a.name.clone(),
-                reynolds: Vec::new(),
-                flat_plate_reason: Some(reason.clone()),
-            },
-        })
-        .collect();
+    let profile_sources = profile_sources(input.aircraft, &drags);
     let early_separation = polar
         .points
         .first()
@@ -327,6 +307,31 @@ fn polar_on(
         top_speed_m_s: top,
         profile_sources,
     })
+}
+
+/// Where the profile drag of every airfoil used by a strip came from, with `drags` parallel
+/// to the airfoils of `aircraft`.
+fn profile_sources(aircraft: &Aircraft, drags: &[SectionDrag]) -> Vec<ProfileSource> {
+    aircraft
+        .airfoils
+        .iter()
+        .zip(drags)
+        .filter(|(_, d)| {
+            !matches!(d, SectionDrag::FlatPlate { reason, .. } if reason == "not used by any strip")
+        })
+        .map(|(a, d)| match d {
+            SectionDrag::Viscous { polars, .. } => ProfileSource {
+                airfoil: a.name.clone(),
+                reynolds: polars.iter().map(|p| p.reynolds).collect(),
+                flat_plate_reason: None,
+            },
+            SectionDrag::FlatPlate { reason, .. } => ProfileSource {
+                airfoil: a.name.clone(),
+                reynolds: Vec::new(),
+                flat_plate_reason: Some(reason.clone()),
+            },
+        })
+        .collect()
 }
 
 /// The cautions of a flight polar (or of its absence).
