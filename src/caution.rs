@@ -56,15 +56,6 @@ impl Caution {
             finding,
         }
     }
-
-    /// A caution whose sentence was written where it was found (the findings not yet typed).
-    pub fn new(level: Level, code: &'static str, message: impl Into<String>) -> Self {
-        Caution {
-            level,
-            code,
-            finding: Finding::Worded(message.into()),
-        }
-    }
 }
 
 /// The standing safety caution (code `safety-estimate-only`).

@@ -22,6 +22,25 @@ pub(super) fn balance_cautions(
     cg_outside_band_caution(aircraft, mass, band, cautions);
     trim_cautions(aircraft, mass, h, band, elevons_trim_it, cautions);
     band_defaults_note(aircraft, mac_m, cautions);
+    target_speed_caution(aircraft, h, cautions);
+}
+
+/// `target-speed-near-stall`: the file's target trim speed below the near-stall factor times
+/// the stall speed (the decalage and CG solved for it would trim at or near the stall).
+pub(super) fn target_speed_caution(aircraft: &Aircraft, h: &Headline, cautions: &mut Vec<Caution>) {
+    let Some(target_speed_m_s) = aircraft.targets.trim_speed_m_s else {
+        return;
+    };
+    if target_speed_m_s < NEAR_STALL_FACTOR * h.stall_speed_m_s {
+        cautions.push(Caution::of(
+            BalanceFinding::TargetSpeedNearStall {
+                target_speed_m_s,
+                stall_speed_m_s: h.stall_speed_m_s,
+                factor: NEAR_STALL_FACTOR,
+            }
+            .into(),
+        ));
+    }
 }
 
 /// The danger `static-margin-negative` or the warning `static-margin-low`.

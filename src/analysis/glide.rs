@@ -3,7 +3,8 @@
 //! polars ([`crate::performance::profile_drag`]), and the cautions it raises.
 
 use crate::atmosphere::AirState;
-use crate::caution::{Caution, Level};
+use crate::caution::Caution;
+use crate::finding::{Control, GlideFinding, PolarMissing};
 use crate::lifting_line::{MultiSurfaceSystem, TrimControl};
 use crate::model::Aircraft;
 use crate::performance::aircraft_drag::{AircraftDrag, AircraftTrim};
@@ -289,27 +290,7 @@ fn polar_on(
         .iter()
         .filter_map(|m| polar.speed_to_fly(&source, 0.0, *m).ok())
         .collect();
-    let profile_sources = input
-        .aircraft
-        .airfoils
-        .iter()
-        .zip(&drags)
-        .filter(|(_, d)| {
-            !matches!(d, SectionDrag::FlatPlate { reason, .. } if reason == "not used by any strip")
-        })
-        .map(|(a, d)| match d {
-            SectionDrag::Viscous { polars, .. } => ProfileSource {
-                airfoil: a.name.clone(),
-                reynolds: polars.iter().map(|p| p.reynolds).collect(),
-                flat_plate_reason: None,
-            },
-            SectionDrag::FlatPlate { reason, .. } => ProfileSource {
-                airfoil: a.name.clone(),
-                reynolds: Vec::new(),
-                flat_plate_reason: Some(reason.clone()),
-            },
-        })
-        .collect();
+    let profile_sources = profile_sources(input.aircraft, &drags);
     let early_separation = polar
         .points
         .first()
@@ -326,6 +307,31 @@ fn polar_on(
         top_speed_m_s: top,
         profile_sources,
     })
+}
+
+/// Where the profile drag of every airfoil used by a strip came from, with `drags` parallel
+/// to the airfoils of `aircraft`.
+fn profile_sources(aircraft: &Aircraft, drags: &[SectionDrag]) -> Vec<ProfileSource> {
+    aircraft
+        .airfoils
+        .iter()
+        .zip(drags)
+        .filter(|(_, d)| {
+            !matches!(d, SectionDrag::FlatPlate { reason, .. } if reason == "not used by any strip")
+        })
+        .map(|(a, d)| match d {
+            SectionDrag::Viscous { polars, .. } => ProfileSource {
+                airfoil: a.name.clone(),
+                reynolds: polars.iter().map(|p| p.reynolds).collect(),
+                flat_plate_reason: None,
+            },
+            SectionDrag::FlatPlate { reason, .. } => ProfileSource {
+                airfoil: a.name.clone(),
+                reynolds: Vec::new(),
+                flat_plate_reason: Some(reason.clone()),
+            },
+        })
+        .collect()
 }
 
 /// The cautions of a flight polar (or of its absence).
@@ -351,24 +357,12 @@ pub fn glide_cautions(
 /// The caution `no-flight-polar` saying why there is no flight polar (none when no stall was
 /// found).
 fn no_polar_caution(why: &NoPolar, cautions: &mut Vec<Caution>) {
-    match why {
-        NoPolar::NoTrimControl => {
-            cautions.push(Caution::new(
-                Level::Note,
-                "no-flight-polar",
-                "Without a pitch control or a tailplane the aircraft flies at one trimmed speed \
-             only, so no glide polar over speed is computed.",
-            ));
-        }
-        NoPolar::NoStall => {}
-        NoPolar::Failed(e) => {
-            cautions.push(Caution::new(
-            Level::Warning,
-            "no-flight-polar",
-            format!("The glide polar could not be computed ({e}); no sink or glide figures are given."),
-        ));
-        }
-    }
+    let why = match why {
+        NoPolar::NoTrimControl => PolarMissing::NoTrimControl,
+        NoPolar::NoStall => return,
+        NoPolar::Failed(e) => PolarMissing::Failed(*e),
+    };
+    cautions.push(Caution::of(GlideFinding::NoFlightPolar { why }.into()));
 }
 
 /// The warning `min-sink-near-stall` when the least sink lies at the stall or within
@@ -377,19 +371,14 @@ fn min_sink_near_stall_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
     let vs = p.stall_speed_m_s;
     let ms = &p.min_sink;
     if ms.at_stall || ms.point.speed_m_s < MIN_SINK_STALL_MARGIN * vs {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "min-sink-near-stall",
-            format!(
-                "The least sink comes out at {:.1} m/s, {} the stall speed {:.1} m/s. Do not fly \
-                 that slowly: near the stall the drag rise and a wing drop are not in this model. \
-                 Keep above {:.1} m/s ({:.1} times the stall speed).",
-                ms.point.speed_m_s,
-                if ms.at_stall { "at" } else { "close to" },
-                vs,
-                MIN_SINK_STALL_MARGIN * vs,
-                MIN_SINK_STALL_MARGIN
-            ),
+        cautions.push(Caution::of(
+            GlideFinding::MinSinkNearStall {
+                speed_m_s: ms.point.speed_m_s,
+                at_stall: ms.at_stall,
+                stall_speed_m_s: vs,
+                margin_factor: MIN_SINK_STALL_MARGIN,
+            }
+            .into(),
         ));
     }
 }
@@ -397,25 +386,13 @@ fn min_sink_near_stall_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
 /// The warning `section-separates-early` when an airfoil's viscous polar separates below the
 /// cl it flies at the stall speed.
 fn early_separation_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
-    let vs = p.stall_speed_m_s;
     if let Some(e) = &p.early_separation {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "section-separates-early",
-            format!(
-                "At the stall speed the {} flies airfoil '{}' at Reynolds number {} up to cl {:.2}, \
-                 but its viscous polars there (interpolated between the nearest computed Reynolds \
-                 numbers, on a 1.5 deg grid of angles: `trimline section` at one Reynolds number \
-                 may differ) separate at cl {:.2}: the stall may come at a \
-                 higher speed than {:.1} m/s. Give that airfoil a cl_max for this Reynolds number, \
-                 and fly the first flights well above the stall speed shown.",
-                if e.surface == 0 { "wing" } else { "stabiliser" },
-                e.airfoil,
-                crate::output::cautions::reynolds_text(e.reynolds),
-                e.cl_at_stall,
-                e.separation_cl,
-                vs
-            ),
+        cautions.push(Caution::of(
+            GlideFinding::SectionSeparatesEarly {
+                separation: e.clone(),
+                stall_speed_m_s: p.stall_speed_m_s,
+            }
+            .into(),
         ));
     }
 }
@@ -425,15 +402,12 @@ fn early_separation_caution(p: &GlidePolar, cautions: &mut Vec<Caution>) {
 fn profile_drag_estimated_cautions(p: &GlidePolar, cautions: &mut Vec<Caution>) {
     for s in &p.profile_sources {
         if let Some(reason) = &s.flat_plate_reason {
-            cautions.push(Caution::new(
-                Level::Warning,
-                "profile-drag-estimated",
-                format!(
-                    "Airfoil '{}': its section drag comes from a flat-plate estimate ({reason}), \
-                     which has no rise of drag with lift; sink and glide are optimistic at slow \
-                     speed.",
-                    s.airfoil
-                ),
+            cautions.push(Caution::of(
+                GlideFinding::ProfileDragEstimated {
+                    airfoil: s.airfoil.clone(),
+                    reason: reason.clone(),
+                }
+                .into(),
             ));
         }
     }
@@ -448,18 +422,12 @@ fn polar_drag_extrapolated_note(p: &GlidePolar, cautions: &mut Vec<Caution>) {
         .filter(|q| q.flyable && q.drag.beyond_polar)
         .map(|q| q.speed_m_s)
         .collect();
-    if let (Some(lo), Some(hi)) = (
+    if let (Some(low_m_s), Some(high_m_s)) = (
         extrapolated.iter().copied().reduce(f64::min),
         extrapolated.iter().copied().reduce(f64::max),
     ) {
-        cautions.push(Caution::new(
-            Level::Note,
-            "polar-drag-extrapolated",
-            format!(
-                "Between {lo:.1} and {hi:.1} m/s some strips fly at a lift coefficient or \
-                 Reynolds number beyond their section polar's converged points; their drag is \
-                 continued from the polar's last points there."
-            ),
+        cautions.push(Caution::of(
+            GlideFinding::PolarDragExtrapolated { low_m_s, high_m_s }.into(),
         ));
     }
 }
@@ -471,16 +439,14 @@ fn polar_control_runs_out_caution(
     p: &GlidePolar,
     cautions: &mut Vec<Caution>,
 ) {
-    if let Some((lo, hi)) = unflyable_range(p) {
-        cautions.push(Caution::new(
-            Level::Warning,
-            "polar-control-runs-out",
-            format!(
-                "Between {lo:.1} and {hi:.1} m/s of the glide range the {} cannot trim within its \
-                 throws. Those speeds are marked in the glide table; least sink, best glide and \
-                 the speeds to fly use only the speeds it trims.",
-                aircraft.pitch_control_name()
-            ),
+    if let Some((low_m_s, high_m_s)) = unflyable_range(p) {
+        cautions.push(Caution::of(
+            GlideFinding::PolarControlRunsOut {
+                low_m_s,
+                high_m_s,
+                control: Control::of(aircraft),
+            }
+            .into(),
         ));
     }
 }
@@ -582,46 +548,29 @@ pub fn setting_cautions(
     if settings.is_empty() {
         return;
     }
-    cautions.push(Caution::new(
-        Level::Note,
-        "flap-settings-estimated",
-        "Flap settings: each deflection shifts the flapped strips' zero-lift angle and moment by \
-         Glauert's plain-flap theory with the hinge-gap loss; their section drag is the plain \
-         section's at the lift it would have without the flap, without the hinge's own drag; \
-         section cl_max stays as without the flap (a higher stall speed than the flap really \
-         gives: the safe side). Compare the settings with each other rather than trusting the \
-         absolute sink.",
-    ));
+    cautions.push(Caution::of(GlideFinding::FlapSettingsEstimated.into()));
     for s in settings {
-        match &s.polar {
-            Err(NoPolar::Failed(e)) => cautions.push(Caution::new(
-                Level::Warning,
-                "flap-setting-no-polar",
-                format!("Flap setting '{}': no glide polar ({e}).", s.name),
-            )),
-            Err(_) => cautions.push(Caution::new(
-                Level::Warning,
-                "flap-setting-no-polar",
-                format!(
-                    "Flap setting '{}': no trimmed stall or trim was found, so no glide polar.",
-                    s.name
-                ),
-            )),
-            Ok(p) => {
-                if let Some((lo, hi)) = unflyable_range(p) {
-                    cautions.push(Caution::new(
-                        Level::Warning,
-                        "flap-setting-control-runs-out",
-                        format!(
-                            "Flap setting '{}': between {lo:.1} and {hi:.1} m/s the {} needs more \
-                             than its throws to trim; the setting is not usable there.",
-                            s.name,
-                            aircraft.pitch_control_name()
-                        ),
-                    ));
-                }
-            }
-        }
+        let setting = s.name.clone();
+        let finding = match &s.polar {
+            Err(NoPolar::Failed(e)) => GlideFinding::FlapSettingNoPolar {
+                setting,
+                error: Some(*e),
+            },
+            Err(_) => GlideFinding::FlapSettingNoPolar {
+                setting,
+                error: None,
+            },
+            Ok(p) => match unflyable_range(p) {
+                Some((low_m_s, high_m_s)) => GlideFinding::FlapSettingControlRunsOut {
+                    setting,
+                    low_m_s,
+                    high_m_s,
+                    control: Control::of(aircraft),
+                },
+                None => continue,
+            },
+        };
+        cautions.push(Caution::of(finding.into()));
     }
 }
 

@@ -8,7 +8,7 @@
 use crate::atmosphere::AirState;
 use crate::balance::{self, BallastOutcome, MassSummary};
 use crate::caution::Caution;
-use crate::finding::InputFinding;
+use crate::finding::{GlideFinding, InputFinding, PolarMissing};
 use crate::model::Aircraft;
 
 use crate::lifting_line::{LiftingLineError, LiftingLineOptions, MultiSurfaceSystem};
@@ -445,7 +445,12 @@ fn flight_polar_if_asked(
 ) -> Result<(Option<glide::GlidePolar>, Vec<glide::SettingPolar>), AnalysisError> {
     let unstable = full.is_some_and(|f| f.static_margin <= 0.0);
     if options.flight_polar && unstable {
-        cautions.push(Caution::of(InputFinding::NoFlightPolar.into()));
+        cautions.push(Caution::of(
+            GlideFinding::NoFlightPolar {
+                why: PolarMissing::Unstable,
+            }
+            .into(),
+        ));
     }
     let (glide_polar, flap_polars) = match (options.flight_polar, system, full) {
         (true, Ok(system), Some(f)) if !unstable => {

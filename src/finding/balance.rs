@@ -105,6 +105,17 @@ pub enum BalanceFinding {
         /// What would trim it faster.
         faster: FasterTrim,
     },
+    /// `target-speed-near-stall`: the file's target trim speed lies below the stall speed (a
+    /// danger: the decalage solved for it would trim the aircraft stalled) or within the
+    /// near-stall factor of it (a warning).
+    TargetSpeedNearStall {
+        /// The target trim speed, m/s.
+        target_speed_m_s: f64,
+        /// Stall speed, m/s.
+        stall_speed_m_s: f64,
+        /// The near-stall factor (1.2).
+        factor: f64,
+    },
     /// `no-trim`: a stable aircraft finds no trim at positive lift.
     NoTrim {
         /// The aircraft has a stabiliser.
@@ -135,10 +146,23 @@ impl BalanceFinding {
                 cg_x_m,
                 cg_spread_m,
                 neutral_point_x_m,
+                neutral_point_spread_m,
                 ..
             } => {
-                // A CG range that reaches behind the neutral point itself may be unstable.
-                if cg_x_m + cg_spread_m >= *neutral_point_x_m {
+                // A CG range that reaches behind the forward end of the neutral point's range
+                // may be unstable (the bar of `cg-behind-neutral-point-range` for the CG).
+                if cg_x_m + cg_spread_m >= neutral_point_x_m - neutral_point_spread_m {
+                    Level::Danger
+                } else {
+                    Level::Warning
+                }
+            }
+            TargetSpeedNearStall {
+                target_speed_m_s,
+                stall_speed_m_s,
+                ..
+            } => {
+                if target_speed_m_s < stall_speed_m_s {
                     Level::Danger
                 } else {
                     Level::Warning
@@ -165,6 +189,7 @@ impl BalanceFinding {
             CgBandEmpty { .. } => "cg-band-empty",
             TrimBeyondStall { .. } => "trim-beyond-stall",
             TrimNearStall { .. } => "trim-near-stall",
+            TargetSpeedNearStall { .. } => "target-speed-near-stall",
             NoTrim { .. } => "no-trim",
             BandDefaults { .. } => "band-defaults",
         }

@@ -143,8 +143,6 @@ pub enum InputFinding {
         /// Why.
         error: LiftingLineError,
     },
-    /// `no-flight-polar`: an unstable aircraft gets no glide figures.
-    NoFlightPolar,
     /// `section-too-thin-for-panels`.
     SectionTooThinForPanels {
         /// The airfoil's name.
@@ -193,10 +191,9 @@ impl InputFinding {
             | LiftingLineFailed { .. }
             | SectionTooThinForPanels { .. }
             | ClMaxDefault { .. } => Level::Warning,
-            VerticalCgPartial { .. }
-            | FinVolumeOutsideRange { .. }
-            | FinMassAwayFromFin { .. }
-            | NoFlightPolar => Level::Note,
+            VerticalCgPartial { .. } | FinVolumeOutsideRange { .. } | FinMassAwayFromFin { .. } => {
+                Level::Note
+            }
         }
     }
 
@@ -219,7 +216,6 @@ impl InputFinding {
                 "proportions-unusual"
             }
             LiftingLineFailed { .. } => "lifting-line-failed",
-            NoFlightPolar => "no-flight-polar",
             SectionTooThinForPanels { .. } => "section-too-thin-for-panels",
             ClMaxDefault { .. } => "cl-max-default",
         }

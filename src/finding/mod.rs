@@ -7,10 +7,14 @@ use crate::caution::Level;
 use crate::model::{Aircraft, StabiliserRole};
 
 mod balance;
+mod glide;
 mod inputs;
+mod model;
 
 pub use balance::{BalanceFinding, FasterTrim};
+pub use glide::{GlideFinding, PolarMissing};
 pub use inputs::{InputFinding, MarginSetting};
+pub use model::{ElevonTrim, ModelFinding, TailStall};
 
 /// The aircraft's pitch control, as the cautions name it.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -63,23 +67,25 @@ pub enum Finding {
     Input(InputFinding),
     /// A line about the report page itself.
     Page(PageFinding),
-    /// A finding whose sentence was written where it was found (not yet typed); its level and
-    /// code travel in the [`crate::caution::Caution`] that holds it.
-    Worded(String),
+    /// What only the full model finds.
+    Model(ModelFinding),
+    /// The glide polars.
+    Glide(GlideFinding),
 }
 
 impl Finding {
-    /// The level of a typed finding (`Note` for a worded one: its caution holds the level).
+    /// Its level.
     pub fn level(&self) -> Level {
         match self {
-            Finding::SafetyEstimateOnly | Finding::Page(_) | Finding::Worded(_) => Level::Note,
+            Finding::SafetyEstimateOnly | Finding::Page(_) => Level::Note,
             Finding::Balance(f) => f.level(),
             Finding::Input(f) => f.level(),
+            Finding::Model(f) => f.level(),
+            Finding::Glide(f) => f.level(),
         }
     }
 
-    /// The stable code of a typed finding (empty for a worded one: its caution holds the
-    /// code).
+    /// Its stable code.
     pub fn code(&self) -> &'static str {
         match self {
             Finding::SafetyEstimateOnly => "safety-estimate-only",
@@ -87,7 +93,8 @@ impl Finding {
             Finding::Input(f) => f.code(),
             Finding::Page(PageFinding::NotesLeftOut { .. }) => "notes-left-out",
             Finding::Page(PageFinding::SinkChartLeftOut { .. }) => "sink-chart-left-out",
-            Finding::Worded(_) => "",
+            Finding::Model(f) => f.code(),
+            Finding::Glide(f) => f.code(),
         }
     }
 }
@@ -101,5 +108,17 @@ impl From<BalanceFinding> for Finding {
 impl From<InputFinding> for Finding {
     fn from(f: InputFinding) -> Self {
         Finding::Input(f)
+    }
+}
+
+impl From<ModelFinding> for Finding {
+    fn from(f: ModelFinding) -> Self {
+        Finding::Model(f)
+    }
+}
+
+impl From<GlideFinding> for Finding {
+    fn from(f: GlideFinding) -> Self {
+        Finding::Glide(f)
     }
 }

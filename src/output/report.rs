@@ -109,8 +109,9 @@ pub struct ReportData {
     /// Recommended band, mm aft of the wing root leading edge.
     pub band_from_root_le_mm: (f64, f64),
     /// CG for the target static margin, mm aft of the wing root leading edge, with the margin
-    /// in percent.
-    pub target_from_root_le_mm: Option<(f64, f64)>,
+    /// in percent, and true when it is held at the band's aft end (the margin would lie aft
+    /// of the band).
+    pub target_from_root_le_mm: Option<(f64, f64, bool)>,
     /// A short alarm for the balance box when the CG is unsafe or outside the band
     /// (from the cautions `static-margin-negative`, `cg-aft-of-band`, `cg-forward-of-band`).
     pub balance_alert: Option<String>,
@@ -154,7 +155,7 @@ pub fn build(aircraft: &Aircraft, a: &Analysis, source: ReportSource) -> ReportD
         tool_version: env!("CARGO_PKG_VERSION").to_string(),
         cg_from_root_le_mm: to_root_mm(a.mass.cg_x_m),
         band_from_root_le_mm: (to_root_mm(a.band.forward_x_m), to_root_mm(a.band.aft_x_m)),
-        target_from_root_le_mm: target.map(|(x, sm)| (to_root_mm(x), 100.0 * sm)),
+        target_from_root_le_mm: target.map(|(x, sm, held)| (to_root_mm(x), 100.0 * sm, held)),
         balance_alert: balance_alert(&a.cautions),
         key_figures: key_figures(aircraft, a),
         top_view: top_view(aircraft, a, target.map(|t| t.0)),
@@ -181,13 +182,17 @@ fn balance_alert(cautions: &[Caution]) -> Option<String> {
     }
 }
 
-/// CG for the file's target static margin (m aft of the datum) and that margin (fraction).
-fn target_static_margin_x(aircraft: &Aircraft, a: &Analysis) -> Option<(f64, f64)> {
+/// CG for the file's target static margin (m aft of the datum), that margin (fraction), and
+/// whether the target is held at the band's aft end because the margin would lie aft of it
+/// (as the ballast advice is).
+fn target_static_margin_x(aircraft: &Aircraft, a: &Analysis) -> Option<(f64, f64, bool)> {
     aircraft.targets.static_margin.map(|sm| {
-        (
-            a.headline.neutral_point_x_m - sm * a.wing_geometry.mac_m,
-            sm,
-        )
+        let x = a.headline.neutral_point_x_m - sm * a.wing_geometry.mac_m;
+        if a.band.position(x) == BandPosition::Aft {
+            (a.band.aft_x_m, sm, true)
+        } else {
+            (x, sm, false)
+        }
     })
 }
 

@@ -270,9 +270,18 @@ fn a_tailless_wing_has_a_neutral_point_range_and_its_band_allows_for_it() {
 
 /// `GLIDER` with its one mass at `x_mm` and `extra` appended, analysed.
 fn glider_with_cg_at(x_mm: f64, extra: &str) -> trimline::analysis::Analysis {
+    glider_and_analysis(x_mm, extra).1
+}
+
+/// `GLIDER` with its one mass at `x_mm` and `extra` appended: the aircraft and its analysis.
+fn glider_and_analysis(
+    x_mm: f64,
+    extra: &str,
+) -> (trimline::model::Aircraft, trimline::analysis::Analysis) {
     let text = GLIDER.replace("x = 60\n", &format!("x = {x_mm:.2}\n"));
     let ac = parse_aircraft(&format!("{text}{extra}"), "t.toml", None).unwrap();
-    analyse(&ac, &AnalysisOptions::default()).unwrap()
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    (ac, a)
 }
 
 fn has_code(a: &trimline::analysis::Analysis, code: &str) -> Option<trimline::caution::Level> {
@@ -325,4 +334,71 @@ fn ballast_advice_for_a_small_target_margin_stops_at_the_band() {
     assert!(!b.held_at_band_aft_end);
     let mac = normal.wing_geometry.mac_m;
     assert!((b.target_x_m - (normal.headline.neutral_point_x_m - 0.15 * mac)).abs() < 1e-9);
+}
+
+// The PDF's target marker follows the ballast advice: held at the band's aft end when the
+// target margin would lie aft of it, and saying so.
+#[test]
+fn the_report_target_is_held_at_the_band_like_the_ballast_advice() {
+    let bay = "[[ballast]]\nname = \"nose\"\nx = -300\nmax = 500\n";
+    let (ac, a) = glider_and_analysis(20.0, &format!("{bay}[targets]\nstatic_margin = 2\n"));
+    let d = trimline::output::report::build(
+        &ac,
+        &a,
+        trimline::output::report::ReportSource {
+            file_name: "t.toml".into(),
+            content_hash: String::new(),
+            date: String::new(),
+        },
+    );
+    let (t_mm, sm, held) = d.target_from_root_le_mm.expect("a target");
+    assert!(held);
+    assert!((sm - 2.0).abs() < 1e-9);
+    let aft_mm = 1000.0 * (a.band.aft_x_m - ac.wing.root_le_x_m);
+    assert!((t_mm - aft_mm).abs() < 1e-6, "{t_mm} vs {aft_mm}");
+}
+
+// A CG whose tolerance range (two standard deviations; GUM sec. 5.1.2 for one item: the
+// position tolerance itself) reaches behind the forward end of the neutral point's range is a
+// danger, the same bar as for the CG itself.
+#[test]
+fn a_cg_range_behind_the_forward_end_of_the_neutral_point_range_is_a_danger() {
+    let base = glider_with_cg_at(60.0, "");
+    let np_mm = 1000.0 * base.headline.neutral_point_x_m;
+    let spread_mm = 1000.0 * 2.0 * base.neutral_point_spread.sigma_m;
+    let cg_mm = 1000.0 * base.band.aft_x_m - 1.0;
+    // Two sigma of the CG reach half-way into the neutral point's range.
+    let sigma_mm = (np_mm - 0.5 * spread_mm - cg_mm) / 2.0;
+    let a = glider_with_cg_at(cg_mm, &format!("[tolerances]\nposition = {sigma_mm:.3}\n"));
+    assert!(a.mass.cg_x_m + 2.0 * a.cg_spread.sigma_m < a.headline.neutral_point_x_m);
+    assert_eq!(
+        has_code(&a, "cg-aft-of-uncertain-limit"),
+        Some(trimline::caution::Level::Danger)
+    );
+    // A range that stays ahead of that end is a warning.
+    let small = (np_mm - 1.5 * spread_mm - cg_mm).max(0.2) / 2.0;
+    let b = glider_with_cg_at(cg_mm, &format!("[tolerances]\nposition = {small:.3}\n"));
+    assert_eq!(
+        has_code(&b, "cg-aft-of-uncertain-limit"),
+        Some(trimline::caution::Level::Warning)
+    );
+}
+
+// A target trim speed below the stall is a danger (the decalage solved for it trims the
+// aircraft stalled), one below 1.2 times the stall a warning (common practice: the margin a
+// pilot keeps in turbulence), a comfortable one nothing.
+#[test]
+fn a_target_speed_at_or_near_the_stall_is_cautioned() {
+    let base = glider_with_cg_at(40.0, "");
+    let vs = base.headline.stall_speed_m_s;
+    let at = |v: f64| glider_with_cg_at(40.0, &format!("[targets]\ntrim_speed = {v:.3}\n"));
+    assert_eq!(
+        has_code(&at(0.9 * vs), "target-speed-near-stall"),
+        Some(trimline::caution::Level::Danger)
+    );
+    assert_eq!(
+        has_code(&at(1.1 * vs), "target-speed-near-stall"),
+        Some(trimline::caution::Level::Warning)
+    );
+    assert_eq!(has_code(&at(1.5 * vs), "target-speed-near-stall"), None);
 }

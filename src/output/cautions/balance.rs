@@ -76,7 +76,11 @@ pub(super) fn message(f: &BalanceFinding) -> String {
                 100.0 * min_static_margin
             )
         }
-        TrimBeyondStall { .. } | TrimNearStall { .. } | NoTrim { .. } | BandDefaults { .. } => {
+        TrimBeyondStall { .. }
+        | TrimNearStall { .. }
+        | TargetSpeedNearStall { .. }
+        | NoTrim { .. }
+        | BandDefaults { .. } => {
             trim_message(f)
         }
     }
@@ -230,6 +234,28 @@ fn trim_message(f: &BalanceFinding) -> String {
              little margin against a stall in gusts or turns. {}",
             faster_text(faster)
         ),
+        TargetSpeedNearStall {
+            target_speed_m_s,
+            stall_speed_m_s,
+            factor,
+        } => {
+            let what = if target_speed_m_s < stall_speed_m_s {
+                "below the stall speed"
+            } else {
+                "too close to the stall speed"
+            };
+            format!(
+                "The target trim speed {target_speed_m_s:.1} m/s is {what} {stall_speed_m_s:.1} \
+                 m/s: the decalage and CG solved for it would trim the aircraft {}. Choose a \
+                 target of at least {:.1} m/s ({factor} times the stall speed).",
+                if target_speed_m_s < stall_speed_m_s {
+                    "stalled"
+                } else {
+                    "with little margin against a stall in gusts or turns"
+                },
+                factor * stall_speed_m_s
+            )
+        }
         NoTrim { has_stabiliser } => if has_stabiliser {
             "No trimmed flight at positive lift was found with this CG and these incidences: \
              check the decalage (stabiliser incidence) and the CG."

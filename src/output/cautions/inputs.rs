@@ -54,7 +54,6 @@ pub(super) fn message(f: &InputFinding) -> String {
         | TailArmLong { .. }
         | AspectRatioUnusual { .. } => plausibility_message(f),
         LiftingLineFailed { .. }
-        | NoFlightPolar
         | SectionTooThinForPanels { .. }
         | ClMaxDefault { .. } => run_message(f),
     }
@@ -233,11 +232,6 @@ fn run_message(f: &InputFinding) -> String {
             "The lifting-line model could not be solved ({error}); the figures come from the \
              closed-form estimate only, which ignores sweep, tail height and the spanwise loading."
         ),
-        NoFlightPolar => {
-            "At this CG the aircraft is unstable in pitch (negative static margin): it cannot \
-             hold a trimmed glide, so no glide figures are given."
-                .to_string()
-        }
         SectionTooThinForPanels {
             airfoil,
             thickness,

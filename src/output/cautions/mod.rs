@@ -5,7 +5,9 @@ use crate::caution::Caution;
 use crate::finding::{Control, Finding, PageFinding};
 
 mod balance;
+mod glide;
 mod inputs;
+mod model;
 
 /// The standing safety caution carried by every analysis and report.
 pub const SAFETY_MESSAGE: &str = "These figures are estimates from a simplified aerodynamic model. \
@@ -33,7 +35,8 @@ pub fn message(c: &Caution) -> String {
              `trimline check` prints the glide table."
                 .to_string()
         }
-        Finding::Worded(text) => text.clone(),
+        Finding::Model(f) => model::message(f),
+        Finding::Glide(f) => glide::message(f),
     }
 }
 

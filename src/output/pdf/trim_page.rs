@@ -207,9 +207,17 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
             Font::bold(8.0),
         ),
     ];
-    if let Some((t, sm)) = d.target_from_root_le_mm {
+    if let Some((t, sm, held)) = d.target_from_root_le_mm {
         lines.push((
-            format!("Target ({} % static margin): {} mm", fmt(sm, 0), fmt(t, 0)),
+            if held {
+                format!(
+                    "Target: {} mm, the band's aft end ({} % margin lies aft)",
+                    fmt(t, 0),
+                    fmt(sm, 0)
+                )
+            } else {
+                format!("Target ({} % static margin): {} mm", fmt(sm, 0), fmt(t, 0))
+            },
             BODY,
         ));
     }
@@ -428,7 +436,7 @@ fn footer(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64, paint: bool)
 mod tests {
     use super::*;
     use crate::analysis::{analyse, AnalysisOptions};
-    use crate::caution::{Caution, Level};
+    use crate::caution::Caution;
     use crate::output::report::{self, ReportSource};
 
     fn data(path: &str) -> ReportData {
@@ -525,11 +533,13 @@ mod tests {
             if i >= 5 {
                 continue;
             }
-            d.cautions.push(Caution::new(
-                Level::Warning,
-                "test",
-                "A long caution that needs several lines of the box to print in full, so the \
-                 layout must make room for it without running into the charts above.",
+            // A warning that needs more than one line of the box to print in full, so the
+            // layout must make room for it without running into the charts above.
+            d.cautions.push(Caution::of(
+                crate::finding::BalanceFinding::StaticMarginLow {
+                    static_margin: 0.03,
+                }
+                .into(),
             ));
         }
         assert_clean_layout(&d, Paper::A4);
