@@ -36,15 +36,28 @@ pub(super) fn glide_polar_table(
             .into_iter()
             .map(|q| (q, ""))
             .collect();
-    rows.push((&p.min_sink.point, "least sink"));
-    rows.push((&p.best_glide.point, "best glide"));
+    let marked = [
+        (&p.min_sink.point, "least sink"),
+        (&p.best_glide.point, "best glide"),
+    ];
+    // A sampled row that prints as a marked one (least sink at the stall, say) gives way.
+    rows.retain(|(q, _)| {
+        marked
+            .iter()
+            .all(|(m, _)| (m.speed_m_s - q.speed_m_s).abs() >= 0.05)
+    });
+    rows.extend(marked);
     rows.sort_by(|x, y| x.0.speed_m_s.total_cmp(&y.0.speed_m_s));
     for (q, mark) in rows {
         let mut note = mark.to_string();
         if !q.flyable {
             note = "beyond the throws".into();
-        } else if q.drag.beyond_polar && note.is_empty() {
-            note = "drag extrapolated".into();
+        } else if q.drag.beyond_polar {
+            note = if note.is_empty() {
+                "drag extrapolated".into()
+            } else {
+                format!("{note} (drag extrapolated)")
+            };
         }
         let mut row = vec![
             num(q.speed_m_s, 1),
