@@ -660,3 +660,16 @@ fn number_too_large_to_read_names_the_fields_range() {
         &["too large", "accepted: 0 g to"],
     );
 }
+
+// A mass typed in kilograms without a unit reads as grams: 190 000 g on a 600 mm semispan
+// wing is far above any aircraft (the file format's limit of 400 kg/m^2). The error points at
+// the heaviest item's mass, the likely slip.
+#[test]
+fn an_impossible_wing_loading_points_at_the_heaviest_mass() {
+    let e = error_of(&edit("mass = 200\n", "mass = 190000\n"));
+    check(
+        &e,
+        "bad.toml:21:8: mass[2].mass:",
+        &["the heaviest item, 'wing', is 190000 g", "up to 400 kg/m^2"],
+    );
+}

@@ -290,7 +290,15 @@ impl Ctx<'_> {
                 self.err(
                     &span,
                     field,
-                    format!("cannot use the coordinates file: {e}"),
+                    // The file reader's own accepted range speaks of standard input, which an
+                    // aircraft file cannot name: this error gives its own.
+                    format!(
+                        "cannot use the coordinates file: {}",
+                        e.to_string()
+                            .split(" (accepted:")
+                            .next()
+                            .unwrap_or_default()
+                    ),
                     Some(
                         "a path relative to the aircraft file, naming a regular file of at most 1 MB"
                             .into(),

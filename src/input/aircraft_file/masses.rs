@@ -40,15 +40,27 @@ impl Ctx<'_> {
         }
         let area_m2 = crate::planform::geometry(wing).area_m2;
         if area_m2 > 0.0 && total / area_m2 > MAX_WING_LOADING_KG_M2 {
+            // The heaviest item is the likely slip (a mass in kg written bare, read as g).
+            let k = (0..masses.len())
+                .max_by(|&a, &b| masses[a].mass_kg.total_cmp(&masses[b].mass_kg))
+                .unwrap_or(0);
+            let span = raw_masses[k]
+                .get_ref()
+                .mass
+                .as_ref()
+                .map_or_else(|| raw_masses[k].span(), |m| m.span());
             return Err(self.err(
-                &raw_masses[0].span(),
-                "mass",
+                &span,
+                &format!("mass[{k}].mass"),
                 format!(
-                    "the masses add up to {} g on a wing of {} dm^2: a wing loading of {} \
-                     kg/m^2, more than any aircraft this tool is for",
+                    "the masses add up to {} g on a wing of {} dm^2: a wing loading of {:.0} \
+                     kg/m^2, more than any aircraft this tool is for; the heaviest item, '{}', \
+                     is {} g",
                     fmt_num_short(1000.0 * total),
                     fmt_num_short(100.0 * area_m2),
-                    fmt_num_short(total / area_m2)
+                    total / area_m2,
+                    crate::printable::printable(&masses[k].name),
+                    fmt_num_short(1000.0 * masses[k].mass_kg)
                 ),
                 Some(format!(
                     "a wing loading up to {} kg/m^2 (light aircraft reach about 150); bare \

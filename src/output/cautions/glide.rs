@@ -1,6 +1,6 @@
 //! The words of the glide-polar findings.
 
-use crate::finding::{GlideFinding, PolarMissing};
+use crate::finding::{Control, GlideFinding, PolarMissing};
 
 use super::{control_name, reynolds_text};
 
@@ -57,19 +57,31 @@ pub(super) fn message(f: &GlideFinding) -> String {
              which has no rise of drag with lift; sink and glide are optimistic at slow speed."
         ),
         PolarDragExtrapolated { low_m_s, high_m_s } => format!(
-            "Between {low_m_s:.1} and {high_m_s:.1} m/s some strips fly at a lift coefficient or \
+            "{} some strips fly at a lift coefficient or \
              Reynolds number beyond their section polar's converged points; their drag is \
-             continued from the polar's last points there."
+             continued from the polar's last points there.",
+            speed_range(*low_m_s, *high_m_s)
         ),
         PolarControlRunsOut {
             low_m_s,
             high_m_s,
             control,
         } => format!(
-            "Between {low_m_s:.1} and {high_m_s:.1} m/s of the glide range the {} cannot trim \
-             within its throws. Those speeds are marked in the glide table; least sink, best \
-             glide and the speeds to fly use only the speeds it trims.",
-            control_name(*control)
+            "{} of the glide range the {} cannot trim \
+             within {} throws. Those speeds are marked in the glide table; least sink, best \
+             glide and the speeds to fly use only the speeds {} trims.",
+            speed_range(*low_m_s, *high_m_s),
+            control_name(*control),
+            if *control == Control::Elevons {
+                "their"
+            } else {
+                "its"
+            },
+            if *control == Control::Elevons {
+                "they"
+            } else {
+                "it"
+            }
         ),
         FlapSettingsEstimated | FlapSettingNoPolar { .. } | FlapSettingControlRunsOut { .. } => {
             flap_message(f)
@@ -110,5 +122,15 @@ fn flap_message(f: &GlideFinding) -> String {
         ),
         // The others are worded by `message`.
         _ => message(f),
+    }
+}
+
+/// "Between 7.2 and 9.0 m/s", or "At 7.2 m/s" when the two print alike.
+fn speed_range(low_m_s: f64, high_m_s: f64) -> String {
+    let (low, high) = (format!("{low_m_s:.1}"), format!("{high_m_s:.1}"));
+    if low == high {
+        format!("At {low} m/s")
+    } else {
+        format!("Between {low} and {high} m/s")
     }
 }
