@@ -242,8 +242,8 @@ impl From<&Caution> for CautionJson {
     }
 }
 
-/// Round to `digits` significant decimals for stable, readable output.
-fn r(v: f64, decimals: i32) -> f64 {
+/// `v` rounded to `decimals` decimals for stable, readable output (no -0).
+pub(crate) fn r(v: f64, decimals: i32) -> f64 {
     let f = 10f64.powi(decimals);
     let out = (v * f).round() / f;
     if out == 0.0 {

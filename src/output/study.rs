@@ -5,6 +5,7 @@
 
 use crate::caution::Level;
 use crate::model::Aircraft;
+use crate::output::json::r as round;
 use crate::study::{Axis, ControlOutcome, Point, PointFigures, Quantity, TrimOutcome};
 use comfy_table::{presets, Cell, CellAlignment, Table};
 use serde::{Deserialize, Serialize};
@@ -188,7 +189,8 @@ fn figure_cells(f: &PointFigures, target_speed: bool, glide: bool, row: &mut Vec
     }
 }
 
-/// One point in the CSV and JSON (SI units; absent values are empty cells or null, with a
+/// One point in the CSV and JSON (SI units, rounded to the decimals of `check --json`; absent
+/// values are empty cells or null, with a
 /// status saying why).
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct PointRecord {
@@ -268,15 +270,15 @@ pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
             };
             match &p.outcome {
                 Ok(f) => {
-                    r.mass_kg = Some(f.mass_kg);
-                    r.cg_x_m = Some(f.cg_x_m);
-                    r.neutral_point_x_m = Some(f.neutral_point_x_m);
-                    r.static_margin_percent = Some(100.0 * f.static_margin);
+                    r.mass_kg = Some(round(f.mass_kg, 5));
+                    r.cg_x_m = Some(round(f.cg_x_m, 5));
+                    r.neutral_point_x_m = Some(round(f.neutral_point_x_m, 5));
+                    r.static_margin_percent = Some(round(100.0 * f.static_margin, 2));
                     match f.trim {
                         TrimOutcome::Trimmed { cl, speed_m_s } => {
                             r.trim_status = "trimmed".into();
-                            r.trim_cl = Some(cl);
-                            r.trim_speed_m_s = Some(speed_m_s);
+                            r.trim_cl = Some(round(cl, 4));
+                            r.trim_speed_m_s = Some(round(speed_m_s, 3));
                         }
                         TrimOutcome::NoTrim => r.trim_status = "no-trim".into(),
                     }
@@ -284,7 +286,7 @@ pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
                         ControlOutcome::NotAsked => "not-asked",
                         ControlOutcome::NoTrim => "no-trim",
                         ControlOutcome::Deflection { rad, within_throws } => {
-                            r.control_at_target_deg = Some(rad.to_degrees());
+                            r.control_at_target_deg = Some(round(rad.to_degrees(), 2));
                             if within_throws {
                                 "within-throws"
                             } else {
@@ -293,12 +295,12 @@ pub fn records(axes: &[Axis], points: &[Point]) -> Vec<PointRecord> {
                         }
                     }
                     .into();
-                    r.stall_speed_m_s = Some(f.stall_speed_m_s);
+                    r.stall_speed_m_s = Some(round(f.stall_speed_m_s, 3));
                     if let Some(g) = &f.glide {
-                        r.min_sink_m_s = Some(g.min_sink_m_s);
-                        r.min_sink_speed_m_s = Some(g.min_sink_speed_m_s);
-                        r.best_glide_ratio = Some(g.best_glide_ratio);
-                        r.best_glide_speed_m_s = Some(g.best_glide_speed_m_s);
+                        r.min_sink_m_s = Some(round(g.min_sink_m_s, 3));
+                        r.min_sink_speed_m_s = Some(round(g.min_sink_speed_m_s, 3));
+                        r.best_glide_ratio = Some(round(g.best_glide_ratio, 2));
+                        r.best_glide_speed_m_s = Some(round(g.best_glide_speed_m_s, 3));
                     }
                     r.method = f.method.into();
                     r.cautions = caution_field(&f.cautions);
@@ -403,7 +405,7 @@ fn number(v: Option<f64>) -> String {
 }
 
 /// The CSV text: a header ("index", the axis labels, then [`CSV_COLUMNS`]) and one row per
-/// point; numbers are written in full (they read back to the same value).
+/// point; numbers read back to the same value.
 pub fn csv(aircraft: &Aircraft, axes: &[Axis], points: &[Point]) -> String {
     let mut out = String::new();
     let mut header = vec!["index".to_string()];

@@ -599,12 +599,15 @@ fn glide_columns_equal_check_at_the_same_point() {
     );
     let doc: StudyDocument = serde_json::from_slice(&out.stdout).unwrap();
     let p = &doc.points[0];
-    assert!((p.min_sink_m_s.unwrap() - g.min_sink_m_s).abs() < 1e-9);
-    assert!((p.best_glide_ratio.unwrap() - g.best_glide_ratio).abs() < 1e-9);
+    // The sweep writes its figures to the decimals of `check --json`.
+    let r = |v: f64, d: i32| (v * 10f64.powi(d)).round() / 10f64.powi(d);
+    assert!((p.min_sink_m_s.unwrap() - r(g.min_sink_m_s, 3)).abs() < 1e-9);
+    assert!((p.best_glide_ratio.unwrap() - r(g.best_glide_ratio, 2)).abs() < 1e-9);
     // The CG is passed rounded to 1e-6 mm; at the flat top of the glide-ratio curve the
-    // speed of the optimum moves with the square root of such a change: 1 mm/s.
-    assert!((p.best_glide_speed_m_s.unwrap() - g.best_glide_speed_m_s).abs() < 1e-3);
-    assert!((p.min_sink_speed_m_s.unwrap() - g.min_sink_speed_m_s).abs() < 1e-3);
+    // speed of the optimum moves with the square root of such a change: 1 mm/s, plus the
+    // half millimetre a second of the rounding.
+    assert!((p.best_glide_speed_m_s.unwrap() - g.best_glide_speed_m_s).abs() < 1.5e-3);
+    assert!((p.min_sink_speed_m_s.unwrap() - g.min_sink_speed_m_s).abs() < 1.5e-3);
     let out = trimline(&["sweep", "--vary", &cg_mm, "--json"]);
     let doc: StudyDocument = serde_json::from_slice(&out.stdout).unwrap();
     assert!(doc.points[0].min_sink_m_s.is_none());
