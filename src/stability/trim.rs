@@ -291,23 +291,21 @@ pub fn full_stability_on(
     input: &TrimInput<'_>,
     memo: Option<&ForwardLimitMemo>,
 ) -> Result<FullStability, LiftingLineError> {
-    let reference = system.reference();
-    let c = reference.mac_m;
-    let area = reference.area_m2;
+    let area = system.reference().area_m2;
     let z = input.cg_z_m;
     let base = system.condition(0.0);
-    let pitch_control = input.aircraft.pitch_control();
-    let coeffs = system.linear_coefficients(&base, input.cg_x_m, z)?;
-    let cl_alpha = coeffs.cl_alpha_per_rad;
-    let np_surfaces = system.neutral_point_x_m(&base, z)?;
-    // The fuselage moves the neutral point forward and the effective moment reference aft.
-    let fuselage_shift_m = c * input.fuselage_cm_alpha_per_rad / cl_alpha;
-    let neutral_point_x_m = np_surfaces - fuselage_shift_m;
-    let eff = |x_cg: f64| x_cg + fuselage_shift_m;
-    let static_margin = (neutral_point_x_m - input.cg_x_m) / c;
+    let Balance {
+        cl_alpha,
+        np_surfaces,
+        fuselage_shift_m,
+        neutral_point_x_m,
+        static_margin,
+    } = balance(system, input, &base)?;
+    // Every moment is about the effective reference, shifted aft for the fuselage.
+    let cg_eff_x_m = input.cg_x_m + fuselage_shift_m;
 
     // Trim at the CG with neutral elevator.
-    let trim = trim_at_cg(system, input, &base, eff(input.cg_x_m), static_margin)?;
+    let trim = trim_at_cg(system, input, &base, cg_eff_x_m, static_margin)?;
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
     let own_map;
@@ -322,8 +320,8 @@ pub fn full_stability_on(
         system,
         map,
         &base,
-        pitch_control.is_some(),
-        eff(input.cg_x_m),
+        input.aircraft.pitch_control().is_some(),
+        cg_eff_x_m,
         z,
         input,
     )?;
@@ -350,7 +348,7 @@ pub fn full_stability_on(
             &base,
             input,
             v,
-            eff(input.cg_x_m),
+            cg_eff_x_m,
             fuselage_shift_m,
             neutral_point_x_m,
         ),
@@ -359,33 +357,13 @@ pub fn full_stability_on(
 
     // Elevator schedule from 1.2 Vs to the top speed.
     let stall_speed = stall.as_ref().map(|s| s.speed_m_s);
-    let top_speed_m_s = input
-        .top_speed_m_s
-        .or(stall_speed.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
-        .unwrap_or(0.0);
-    let elevator_schedule = match (pitch_control, stall_speed, stable) {
-        (Some(control), Some(vs), true) => elevator_schedule(
-            system,
-            map,
-            &base,
-            input,
-            control,
-            vs,
-            top_speed_m_s,
-            eff(input.cg_x_m),
-        )?,
-        _ => Vec::new(),
-    };
+    let (elevator_schedule, top_speed_m_s) =
+        schedule_to_top_speed(system, map, &base, input, stall_speed, stable, cg_eff_x_m)?;
 
     let tailless = if input.aircraft.stabiliser.is_some() || !stable {
         None
     } else {
-        Some(tailless_at_design_cl(
-            system,
-            input,
-            area,
-            eff(input.cg_x_m),
-        )?)
+        Some(tailless_at_design_cl(system, input, area, cg_eff_x_m)?)
     };
 
     Ok(FullStability {
@@ -403,6 +381,75 @@ pub fn full_stability_on(
         top_speed_m_s,
         tailless,
     })
+}
+
+/// The aircraft's lift slope and balance about its neutral point.
+struct Balance {
+    /// Lift-curve slope of the whole aircraft, per rad.
+    cl_alpha: f64,
+    /// Neutral point of the lifting surfaces alone, m aft of the datum.
+    np_surfaces: f64,
+    /// How far aft the fuselage moves the effective moment reference, m.
+    fuselage_shift_m: f64,
+    /// Neutral point with the fuselage, m aft of the datum.
+    neutral_point_x_m: f64,
+    /// Static margin at the input's CG, fraction of the MAC.
+    static_margin: f64,
+}
+
+/// Lift slope, neutral point and static margin at the input's CG; the fuselage moves the
+/// neutral point forward and the effective moment reference aft.
+fn balance(
+    system: &MultiSurfaceSystem,
+    input: &TrimInput<'_>,
+    base: &FlightCondition,
+) -> Result<Balance, LiftingLineError> {
+    let c = system.reference().mac_m;
+    let z = input.cg_z_m;
+    let coeffs = system.linear_coefficients(base, input.cg_x_m, z)?;
+    let cl_alpha = coeffs.cl_alpha_per_rad;
+    let np_surfaces = system.neutral_point_x_m(base, z)?;
+    let fuselage_shift_m = c * input.fuselage_cm_alpha_per_rad / cl_alpha;
+    let neutral_point_x_m = np_surfaces - fuselage_shift_m;
+    Ok(Balance {
+        cl_alpha,
+        np_surfaces,
+        fuselage_shift_m,
+        neutral_point_x_m,
+        static_margin: (neutral_point_x_m - input.cg_x_m) / c,
+    })
+}
+
+/// The top speed of the schedule (the input's, or [`DEFAULT_TOP_SPEED_FACTOR`] times the stall
+/// speed `stall_speed_m_s`) and the elevator schedule up to it; the schedule is empty without
+/// a pitch control, a stall speed or static stability (`stable`).
+fn schedule_to_top_speed(
+    system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
+    base: &FlightCondition,
+    input: &TrimInput<'_>,
+    stall_speed_m_s: Option<f64>,
+    stable: bool,
+    cg_eff_x_m: f64,
+) -> Result<(Vec<ElevatorPoint>, f64), LiftingLineError> {
+    let top_speed_m_s = input
+        .top_speed_m_s
+        .or(stall_speed_m_s.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
+        .unwrap_or(0.0);
+    let schedule = match (input.aircraft.pitch_control(), stall_speed_m_s, stable) {
+        (Some(control), Some(vs), true) => elevator_schedule(
+            system,
+            map,
+            base,
+            input,
+            control,
+            vs,
+            top_speed_m_s,
+            cg_eff_x_m,
+        )?,
+        _ => Vec::new(),
+    };
+    Ok((schedule, top_speed_m_s))
 }
 
 /// The trimmed state with neutral pitch control at the CG (`cg_eff_x_m`, shifted for the
