@@ -9,7 +9,7 @@ use super::band::{ballast_advice, cg_band, headline_of, require_finite};
 use super::estimate::{
     closed_form_input, fuselage_cm_alpha, glide_estimate, numerics_used, trim_input, Glide,
 };
-use super::fin::fin_note;
+use super::fin::{fin_note, FinNote};
 use super::input_checks::{tip_reynolds_caution, vertical_cg_partial_caution, weighing_if_any};
 use super::model_checks::full_model_cautions;
 use super::{
@@ -69,32 +69,19 @@ pub fn analyse_with(
         &mut cautions,
     )?;
     let weighed = weighing_if_any(aircraft, &basis.mass, &mut cautions)?;
-    vertical_cg_partial_caution(aircraft, &mut cautions);
     let tail_volume = basis
         .stabiliser
         .as_ref()
         .map(|s| planform::tail_volume(&basis.wing.geometry, &s.geometry));
-    balance_and_model_cautions(
-        aircraft,
-        &basis,
-        full.as_ref(),
-        &headline,
-        &estimate,
-        &derived,
-        &mut cautions,
-    );
-    let cg_spread = uncertainty::cg_spread(&aircraft.masses, &aircraft.tolerances);
-    let fin = fin_note(aircraft, &basis.wing.geometry, &mut cautions);
-    spread_cautions(
-        &basis,
-        &headline,
-        &estimate,
-        &neutral_point_spread,
-        &cg_spread,
-        &derived.band,
-        &mut cautions,
-    );
-    cautions.push(safety_caution());
+    let figures = Figures {
+        estimate,
+        neutral_point_spread,
+        full,
+        headline,
+        derived,
+    };
+    let (cg_spread, fin) = closing_cautions(aircraft, &basis, &figures, &mut cautions);
+    let derived = figures.derived;
     let Basis {
         air,
         wing,
@@ -113,12 +100,12 @@ pub fn analyse_with(
         wing_loading_kg_m2: derived.wing_loading_kg_m2,
         wing,
         stabiliser,
-        classical: estimate,
-        full,
-        neutral_point_spread,
+        classical: figures.estimate,
+        full: figures.full,
+        neutral_point_spread: figures.neutral_point_spread,
         cg_spread,
         fin,
-        headline,
+        headline: figures.headline,
         band: derived.band,
         ballast: derived.ballast,
         reynolds_mac: derived.reynolds_mac,
@@ -128,6 +115,48 @@ pub fn analyse_with(
         flap_polars,
         cautions,
     })
+}
+
+/// The analysis's figures that the closing cautions look at.
+struct Figures {
+    estimate: ClassicalEstimate,
+    neutral_point_spread: NeutralPointSpread,
+    full: Option<trim::FullStability>,
+    headline: Headline,
+    derived: Derived,
+}
+
+/// The cautions after the figures, in the order they are printed: the vertical CG, balance
+/// and model, fin, spreads and the closing safety note; gives the CG spread and the fin note.
+fn closing_cautions(
+    aircraft: &Aircraft,
+    basis: &Basis,
+    f: &Figures,
+    cautions: &mut Vec<Caution>,
+) -> (CgSpread, Option<FinNote>) {
+    vertical_cg_partial_caution(aircraft, cautions);
+    balance_and_model_cautions(
+        aircraft,
+        basis,
+        f.full.as_ref(),
+        &f.headline,
+        &f.estimate,
+        &f.derived,
+        cautions,
+    );
+    let cg_spread = uncertainty::cg_spread(&aircraft.masses, &aircraft.tolerances);
+    let fin = fin_note(aircraft, &basis.wing.geometry, cautions);
+    spread_cautions(
+        basis,
+        &f.headline,
+        &f.estimate,
+        &f.neutral_point_spread,
+        &cg_spread,
+        &f.derived.band,
+        cautions,
+    );
+    cautions.push(safety_caution());
+    (cg_spread, fin)
 }
 
 /// What every later step reads: the air at the file's altitude, the wing and stabiliser as

@@ -57,11 +57,19 @@ use crate::section::SectionModel;
 
 mod forward_limit;
 mod path;
+mod solves;
+mod system;
 mod tailless;
 
 pub use forward_limit::ForwardLimitMemo;
 use forward_limit::{cg_for_cl, forward_limit};
 use path::{stabiliser_at_cl_min, stall_at, StationMap};
+pub use solves::TrimSweeper;
+use solves::{elevator_schedule, target_speed_solves};
+use system::model_full_up_rad;
+pub use system::{
+    build_system, model_deflection_rad, real_deflection_rad, referred_to_free_stream,
+};
 use tailless::tailless_at_design_cl;
 
 /// Standard gravity, m/s^2.
@@ -257,121 +265,6 @@ pub struct FullStability {
     pub tailless: Option<TaillessCheck>,
 }
 
-/// A section's data referred to the free stream's dynamic pressure for a surface working at
-/// `eta` times it, on a surface of aspect ratio `aspect_ratio` (see the module doc): cl limits
-/// and cm_ac times eta, the lift slope lowered so that the surface's finite-span slope is eta
-/// times its own. eta = 1 returns the section unchanged.
-pub fn referred_to_free_stream(
-    section: &SectionModel,
-    eta: f64,
-    aspect_ratio: f64,
-) -> SectionModel {
-    let a0 = section.cl_alpha_per_rad;
-    let a = if aspect_ratio > 0.0 && a0 > 0.0 && eta > 0.0 {
-        1.0 / (1.0 / (eta * a0) + (1.0 / eta - 1.0) / (std::f64::consts::PI * aspect_ratio))
-    } else {
-        eta * a0
-    };
-    SectionModel {
-        cl_alpha_per_rad: a,
-        cm_ac: eta * section.cm_ac,
-        cl_max: eta * section.cl_max,
-        cl_min: eta * section.cl_min,
-        ..section.clone()
-    }
-}
-
-/// The deflection the linear model uses for a real pitch-control deflection (the correction
-/// applied); an all-moving surface is not corrected.
-pub fn model_deflection_rad(control: &PitchControl, real_rad: f64) -> f64 {
-    if control.chord_fraction > 0.0 {
-        flap_correction::effective_deflection_rad(control.chord_fraction, real_rad)
-    } else {
-        real_rad
-    }
-}
-
-/// The real deflection that gives the linear model's deflection `model_rad` (the smallest
-/// one); beyond the chart's 60 deg its last factor is held.
-pub fn real_deflection_rad(control: &PitchControl, model_rad: f64) -> f64 {
-    if control.chord_fraction > 0.0 {
-        flap_correction::deflection_for_effective_rad(control.chord_fraction, model_rad)
-            .unwrap_or_else(|| {
-                let top = flap_correction::CHART_MAX_DEFLECTION_DEG.to_radians();
-                model_rad / flap_correction::lift_effectiveness_factor(control.chord_fraction, top)
-            })
-    } else {
-        model_rad
-    }
-}
-
-/// The largest trailing-edge-up deflection of the linear model that full up throw gives, rad
-/// (a negative number).
-fn model_full_up_rad(control: &PitchControl) -> f64 {
-    if control.chord_fraction > 0.0 {
-        -flap_correction::max_effective_deflection_rad(control.chord_fraction, control.max_up_rad)
-    } else {
-        -control.max_up_rad
-    }
-}
-
-/// Build the lifting-line system of an aircraft with its pitch control, the stabiliser's
-/// elevator or a tailless wing's elevons (Glauert plain flap per radian of lift-equivalent
-/// deflection; the flap theory moment is about the quarter chord, which is where the section
-/// models carry it), and the stabiliser referred to the free stream by its dynamic-pressure
-/// ratio.
-pub fn build_system(
-    aircraft: &Aircraft,
-    sections: &[SectionModel],
-    options: LiftingLineOptions,
-) -> Result<MultiSurfaceSystem, LiftingLineError> {
-    let elevator = aircraft.pitch_control().and_then(|p| {
-        let effect = if p.chord_fraction > 0.0 {
-            let f = crate::section::flap_effectiveness(p.chord_fraction).ok()?;
-            ElevatorEffect::full_span(-f.tau, f.dcm_quarter_chord_ddelta_per_rad)
-        } else {
-            // An all-moving surface: the control turns the whole section.
-            ElevatorEffect::full_span(-1.0, 0.0)
-        };
-        Some(ElevatorEffect {
-            inboard_fraction: p.inboard_fraction,
-            outboard_fraction: p.outboard_fraction,
-            ..effect
-        })
-    });
-    let stabiliser_sections: Vec<SectionModel> = match &aircraft.stabiliser {
-        Some(stab) => {
-            let aspect_ratio = crate::planform::geometry(&stab.surface).aspect_ratio;
-            sections
-                .iter()
-                .map(|s| referred_to_free_stream(s, stab.dynamic_pressure_ratio, aspect_ratio))
-                .collect()
-        }
-        None => Vec::new(),
-    };
-    let mut inputs = vec![SurfaceInput {
-        surface: &aircraft.wing,
-        sections,
-        elevator: if aircraft.stabiliser.is_none() {
-            elevator
-        } else {
-            None
-        },
-    }];
-    if let Some(stab) = &aircraft.stabiliser {
-        let eta = stab.dynamic_pressure_ratio;
-        inputs.push(SurfaceInput {
-            surface: &stab.surface,
-            sections: &stabiliser_sections,
-            elevator: elevator.map(|e| ElevatorEffect {
-                dcm_ac_per_rad_deflection: eta * e.dcm_ac_per_rad_deflection,
-                ..e
-            }),
-        });
-    }
-    MultiSurfaceSystem::new(&inputs, Reference::of_surface(&aircraft.wing), options)
-}
-
 /// CL at speed `v` for weight `m g` on area `s`.
 fn cl_at(mass_kg: f64, density: f64, area_m2: f64, v: f64) -> f64 {
     2.0 * mass_kg * G0 / (density * area_m2 * v * v)
@@ -398,23 +291,21 @@ pub fn full_stability_on(
     input: &TrimInput<'_>,
     memo: Option<&ForwardLimitMemo>,
 ) -> Result<FullStability, LiftingLineError> {
-    let reference = system.reference();
-    let c = reference.mac_m;
-    let area = reference.area_m2;
+    let area = system.reference().area_m2;
     let z = input.cg_z_m;
     let base = system.condition(0.0);
-    let pitch_control = input.aircraft.pitch_control();
-    let coeffs = system.linear_coefficients(&base, input.cg_x_m, z)?;
-    let cl_alpha = coeffs.cl_alpha_per_rad;
-    let np_surfaces = system.neutral_point_x_m(&base, z)?;
-    // The fuselage moves the neutral point forward and the effective moment reference aft.
-    let fuselage_shift_m = c * input.fuselage_cm_alpha_per_rad / cl_alpha;
-    let neutral_point_x_m = np_surfaces - fuselage_shift_m;
-    let eff = |x_cg: f64| x_cg + fuselage_shift_m;
-    let static_margin = (neutral_point_x_m - input.cg_x_m) / c;
+    let Balance {
+        cl_alpha,
+        np_surfaces,
+        fuselage_shift_m,
+        neutral_point_x_m,
+        static_margin,
+    } = balance(system, input, &base)?;
+    // Every moment is about the effective reference, shifted aft for the fuselage.
+    let cg_eff_x_m = input.cg_x_m + fuselage_shift_m;
 
     // Trim at the CG with neutral elevator.
-    let trim = trim_at_cg(system, input, &base, eff(input.cg_x_m), static_margin)?;
+    let trim = trim_at_cg(system, input, &base, cg_eff_x_m, static_margin)?;
 
     // Critical-section stall, trimmed with the elevator (or elevons) where there is one.
     let own_map;
@@ -429,8 +320,8 @@ pub fn full_stability_on(
         system,
         map,
         &base,
-        pitch_control.is_some(),
-        eff(input.cg_x_m),
+        input.aircraft.pitch_control().is_some(),
+        cg_eff_x_m,
         z,
         input,
     )?;
@@ -457,7 +348,7 @@ pub fn full_stability_on(
             &base,
             input,
             v,
-            eff(input.cg_x_m),
+            cg_eff_x_m,
             fuselage_shift_m,
             neutral_point_x_m,
         ),
@@ -466,33 +357,13 @@ pub fn full_stability_on(
 
     // Elevator schedule from 1.2 Vs to the top speed.
     let stall_speed = stall.as_ref().map(|s| s.speed_m_s);
-    let top_speed_m_s = input
-        .top_speed_m_s
-        .or(stall_speed.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
-        .unwrap_or(0.0);
-    let elevator_schedule = match (pitch_control, stall_speed, stable) {
-        (Some(control), Some(vs), true) => elevator_schedule(
-            system,
-            map,
-            &base,
-            input,
-            control,
-            vs,
-            top_speed_m_s,
-            eff(input.cg_x_m),
-        )?,
-        _ => Vec::new(),
-    };
+    let (elevator_schedule, top_speed_m_s) =
+        schedule_to_top_speed(system, map, &base, input, stall_speed, stable, cg_eff_x_m)?;
 
     let tailless = if input.aircraft.stabiliser.is_some() || !stable {
         None
     } else {
-        Some(tailless_at_design_cl(
-            system,
-            input,
-            area,
-            eff(input.cg_x_m),
-        )?)
+        Some(tailless_at_design_cl(system, input, area, cg_eff_x_m)?)
     };
 
     Ok(FullStability {
@@ -510,6 +381,75 @@ pub fn full_stability_on(
         top_speed_m_s,
         tailless,
     })
+}
+
+/// The aircraft's lift slope and balance about its neutral point.
+struct Balance {
+    /// Lift-curve slope of the whole aircraft, per rad.
+    cl_alpha: f64,
+    /// Neutral point of the lifting surfaces alone, m aft of the datum.
+    np_surfaces: f64,
+    /// How far aft the fuselage moves the effective moment reference, m.
+    fuselage_shift_m: f64,
+    /// Neutral point with the fuselage, m aft of the datum.
+    neutral_point_x_m: f64,
+    /// Static margin at the input's CG, fraction of the MAC.
+    static_margin: f64,
+}
+
+/// Lift slope, neutral point and static margin at the input's CG; the fuselage moves the
+/// neutral point forward and the effective moment reference aft.
+fn balance(
+    system: &MultiSurfaceSystem,
+    input: &TrimInput<'_>,
+    base: &FlightCondition,
+) -> Result<Balance, LiftingLineError> {
+    let c = system.reference().mac_m;
+    let z = input.cg_z_m;
+    let coeffs = system.linear_coefficients(base, input.cg_x_m, z)?;
+    let cl_alpha = coeffs.cl_alpha_per_rad;
+    let np_surfaces = system.neutral_point_x_m(base, z)?;
+    let fuselage_shift_m = c * input.fuselage_cm_alpha_per_rad / cl_alpha;
+    let neutral_point_x_m = np_surfaces - fuselage_shift_m;
+    Ok(Balance {
+        cl_alpha,
+        np_surfaces,
+        fuselage_shift_m,
+        neutral_point_x_m,
+        static_margin: (neutral_point_x_m - input.cg_x_m) / c,
+    })
+}
+
+/// The top speed of the schedule (the input's, or [`DEFAULT_TOP_SPEED_FACTOR`] times the stall
+/// speed `stall_speed_m_s`) and the elevator schedule up to it; the schedule is empty without
+/// a pitch control, a stall speed or static stability (`stable`).
+fn schedule_to_top_speed(
+    system: &MultiSurfaceSystem,
+    map: Option<&StationMap>,
+    base: &FlightCondition,
+    input: &TrimInput<'_>,
+    stall_speed_m_s: Option<f64>,
+    stable: bool,
+    cg_eff_x_m: f64,
+) -> Result<(Vec<ElevatorPoint>, f64), LiftingLineError> {
+    let top_speed_m_s = input
+        .top_speed_m_s
+        .or(stall_speed_m_s.map(|v| DEFAULT_TOP_SPEED_FACTOR * v))
+        .unwrap_or(0.0);
+    let schedule = match (input.aircraft.pitch_control(), stall_speed_m_s, stable) {
+        (Some(control), Some(vs), true) => elevator_schedule(
+            system,
+            map,
+            base,
+            input,
+            control,
+            vs,
+            top_speed_m_s,
+            cg_eff_x_m,
+        )?,
+        _ => Vec::new(),
+    };
+    Ok((schedule, top_speed_m_s))
 }
 
 /// The trimmed state with neutral pitch control at the CG (`cg_eff_x_m`, shifted for the
@@ -565,88 +505,6 @@ fn trim_at_cg(
     })
 }
 
-/// For a target speed `speed_m_s`: the stabiliser incidence and decalage that trim there, and
-/// the CG that trims there (only where it lies ahead of the neutral point), m.
-fn target_speed_solves(
-    system: &MultiSurfaceSystem,
-    base: &FlightCondition,
-    input: &TrimInput<'_>,
-    speed_m_s: f64,
-    cg_eff_x_m: f64,
-    fuselage_shift_m: f64,
-    neutral_point_x_m: f64,
-) -> (Option<DecalageSolve>, Option<f64>) {
-    let area = system.reference().area_m2;
-    let z = input.cg_z_m;
-    let v = speed_m_s;
-    let mut decalage_for_target = None;
-    let cl_t = cl_at(input.mass_kg, input.density_kg_m3, area, v);
-    if let Some(stab) = &input.aircraft.stabiliser {
-        if let Ok(tp) = system.trim_for_cl(
-            base,
-            TrimControl::Incidence(SurfaceRole::Stabiliser.index()),
-            cl_t,
-            cg_eff_x_m,
-            z,
-        ) {
-            let incidence = stab.surface.incidence_rad + tp.control_rad;
-            let wing_minus_stab = input.aircraft.wing.incidence_rad - incidence;
-            decalage_for_target = Some(DecalageSolve {
-                speed_m_s: v,
-                cl: cl_t,
-                stabiliser_incidence_rad: incidence,
-                decalage_rad: match stab.role {
-                    StabiliserRole::Tail => wing_minus_stab,
-                    StabiliserRole::Canard => -wing_minus_stab,
-                },
-            });
-        }
-    }
-    let cg_for_target_x_m = cg_for_cl(system, base, cl_t, z)
-        .map(|x| x - fuselage_shift_m)
-        .filter(|x| *x < neutral_point_x_m);
-    (decalage_for_target, cg_for_target_x_m)
-}
-
-/// The elevator schedule of a stable aircraft from `SCHEDULE_LOW_SPEED_FACTOR` times the stall
-/// speed `stall_speed_m_s` to `top_speed_m_s`, trimmed at the CG (`cg_eff_x_m`).
-#[allow(clippy::too_many_arguments)]
-fn elevator_schedule(
-    system: &MultiSurfaceSystem,
-    map: Option<&StationMap>,
-    base: &FlightCondition,
-    input: &TrimInput<'_>,
-    control: &PitchControl,
-    stall_speed_m_s: f64,
-    top_speed_m_s: f64,
-    cg_eff_x_m: f64,
-) -> Result<Vec<ElevatorPoint>, LiftingLineError> {
-    let area = system.reference().area_m2;
-    let z = input.cg_z_m;
-    let vs = stall_speed_m_s;
-    let mut elevator_schedule = Vec::new();
-    let lo = SCHEDULE_LOW_SPEED_FACTOR * vs;
-    if top_speed_m_s > lo {
-        for k in 0..SCHEDULE_POINTS {
-            let v = lo + (top_speed_m_s - lo) * k as f64 / (SCHEDULE_POINTS - 1) as f64;
-            let cl = cl_at(input.mass_kg, input.density_kg_m3, area, v);
-            if let Ok(tp) = system.trim_for_cl(base, TrimControl::Elevator, cl, cg_eff_x_m, z) {
-                let d = real_deflection_rad(control, tp.control_rad);
-                let stalled = !map.is_some_and(|m| m.clearly_inside_limits(system, &tp))
-                    && stabiliser_at_cl_min(system, base, &tp, TrimControl::Elevator)?.is_some();
-                elevator_schedule.push(ElevatorPoint {
-                    speed_m_s: v,
-                    cl,
-                    elevator_rad: d,
-                    within_limits: control.within_throws(d),
-                    stabiliser_at_cl_min: stalled,
-                });
-            }
-        }
-    }
-    Ok(elevator_schedule)
-}
-
 /// A station at its limit: its index, and true for a stabiliser station at cl_min.
 type Limit = (usize, bool);
 
@@ -659,58 +517,6 @@ pub fn wing_starboard(result: &LiftingLineResult) -> Vec<&StationResult> {
         .collect();
     out.sort_by(|a, b| a.y_m.total_cmp(&b.y_m));
     out
-}
-
-/// Trim speed at any CG position with the incidences held, from one factored system (for
-/// charts of trim speed against CG).
-pub struct TrimSweeper<'a> {
-    input: TrimInput<'a>,
-    system: MultiSurfaceSystem,
-    fuselage_shift_m: f64,
-}
-
-impl<'a> TrimSweeper<'a> {
-    /// Build the system once for `input` (its CG is ignored).
-    pub fn new(input: TrimInput<'a>) -> Result<Self, LiftingLineError> {
-        let system = build_system(input.aircraft, input.sections, input.options)?;
-        let base = system.condition(0.0);
-        let cl_alpha = system
-            .linear_coefficients(&base, input.cg_x_m, input.cg_z_m)?
-            .cl_alpha_per_rad;
-        let fuselage_shift_m =
-            system.reference().mac_m * input.fuselage_cm_alpha_per_rad / cl_alpha;
-        Ok(TrimSweeper {
-            input,
-            system,
-            fuselage_shift_m,
-        })
-    }
-
-    /// Trim speed (m/s) with the CG at `cg_x_m` and neutral elevator, or `None` where there is
-    /// no stable trim at positive lift.
-    pub fn trim_speed_m_s(&self, cg_x_m: f64) -> Option<f64> {
-        let base = self.system.condition(0.0);
-        let x = cg_x_m + self.fuselage_shift_m;
-        let np = self
-            .system
-            .neutral_point_x_m(&base, self.input.cg_z_m)
-            .ok()?;
-        if x >= np {
-            return None;
-        }
-        let tp = self
-            .system
-            .alpha_for_zero_moment(&base, x, self.input.cg_z_m)
-            .ok()?;
-        (tp.cl > crate::stability::classical::MIN_TRIM_CL).then(|| {
-            speed_at(
-                self.input.mass_kg,
-                self.input.density_kg_m3,
-                self.system.reference().area_m2,
-                tp.cl,
-            )
-        })
-    }
 }
 
 #[cfg(test)]

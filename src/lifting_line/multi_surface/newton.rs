@@ -93,10 +93,7 @@ impl MultiSurfaceSystem {
             }
             iterations += 1;
             system_matrix_into(&self.induced, &now.d, &now.active, jacobian);
-            lu.factor(jacobian);
-            pivots.clear();
-            pivots.extend(lu.pivots());
-            check_pivots(pivots)?;
+            factor_checked(lu, jacobian, pivots)?;
             rhs.zip_apply(&now.r, |b, r| *b = -r);
             step.copy_from(rhs);
             if !lu.solve_in_place(step) {
@@ -132,10 +129,7 @@ impl MultiSurfaceSystem {
                 0.0
             };
         }
-        lu.factor(jacobian);
-        pivots.clear();
-        pivots.extend(lu.pivots());
-        check_pivots(pivots)?;
+        factor_checked(lu, jacobian, pivots)?;
         let mut tangent = rhs.clone();
         if !lu.solve_in_place(&mut tangent) {
             return Err(LiftingLineError::SingularSystem { pivot_ratio: 0.0 });
@@ -183,6 +177,18 @@ pub(super) struct NewtonRows {
     active: Vec<bool>,
     /// (c/2) dcl/dalpha, m per rad.
     d: DVector<f64>,
+}
+
+/// Factor `jacobian` into `lu` and check its pivots (gathered in the buffer `pivots`).
+fn factor_checked(
+    lu: &mut LuWork,
+    jacobian: &DMatrix<f64>,
+    pivots: &mut Vec<f64>,
+) -> Result<(), LiftingLineError> {
+    lu.factor(jacobian);
+    pivots.clear();
+    pivots.extend(lu.pivots());
+    check_pivots(pivots)
 }
 
 /// Work buffers of Newton's method on the stalled system (see [`MultiSurfaceSystem::solve_with`]):

@@ -178,10 +178,9 @@ fn title_block(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
     bottom
 }
 
-/// The balance point in large type, with the band and target. Returns its bottom y.
-fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 {
-    let big = Font::bold(30.0);
-    let pad = 2.5;
+/// The balance box's lines under the large figure: which side of the wing root leading edge,
+/// the recommended band and the target, each with its font.
+fn balance_lines(d: &ReportData) -> Vec<(String, Font)> {
     let ahead = d.cg_from_root_le_mm < -0.5;
     // Both ends ahead of the wing's leading edge (a canard): give them as distances ahead.
     let band_ahead = d.band_from_root_le_mm.1 < -0.5;
@@ -221,6 +220,14 @@ fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 
             BODY,
         ));
     }
+    lines
+}
+
+/// The balance point in large type, with the band and target. Returns its bottom y.
+fn balance_box(c: &mut Canvas, d: &ReportData, x: f64, top: f64, w: f64) -> f64 {
+    let big = Font::bold(30.0);
+    let pad = 2.5;
+    let lines = balance_lines(d);
     let alert_font = Font::bold(8.0);
     let alert_h = if d.balance_alert.is_some() {
         alert_font.line_height_mm() + 2.8

@@ -131,9 +131,131 @@ fn record(t: head::TurbulentState, ue: f64, nu: f64) -> LayerState {
     }
 }
 
+/// Edge-velocity gradient due/ds at station `st`: a central difference on the uneven stations
+/// with the previous point (`s_prev`, `ue_prev`) and `next`, or the backward difference over
+/// `ds` at the last station.
+fn edge_gradient(st: &Station, next: Option<&Station>, s_prev: f64, ue_prev: f64, ds: f64) -> f64 {
+    match next {
+        Some(nx) => {
+            let (h1, h2) = (st.s - s_prev, nx.s - st.s);
+            ((nx.ue - st.ue) * h1 * h1 + (st.ue - ue_prev) * h2 * h2) / (h1 * h2 * (h1 + h2))
+        }
+        None => (st.ue - ue_prev) / ds,
+    }
+}
+
+/// Where the laminar flow ends in the interval from the previous station, if it does: the
+/// fraction of the interval and the cause. `(lambda, lambda_prev)` is Thwaites' parameter here
+/// and at the previous laminar station, `(n, n_prev)` the amplification factor here and there,
+/// `trip_fraction` the trip's place in the interval when it lies in or before it. Of causes
+/// at the same place, the trip outranks amplification, which outranks laminar separation.
+fn laminar_end(
+    (lambda, lambda_prev): (f64, Option<f64>),
+    (n, n_prev): (f64, f64),
+    n_crit: f64,
+    trip_fraction: Option<f64>,
+) -> Option<(f64, TransitionCause)> {
+    let mut end: Option<(f64, TransitionCause)> = None;
+    if lambda < thwaites::LAMBDA_SEPARATION {
+        let f = match lambda_prev {
+            Some(l0) if l0 > thwaites::LAMBDA_SEPARATION => {
+                (l0 - thwaites::LAMBDA_SEPARATION) / (l0 - lambda)
+            }
+            _ => 1.0,
+        };
+        end = Some((f, TransitionCause::LaminarSeparation));
+    }
+    if n >= n_crit {
+        let f = if n > n_prev {
+            ((n_crit - n_prev) / (n - n_prev)).clamp(0.0, 1.0)
+        } else {
+            1.0
+        };
+        if end.is_none_or(|(fs, _)| f <= fs) {
+            end = Some((f, TransitionCause::Amplification));
+        }
+    }
+    if let Some(f) = trip_fraction {
+        if end.is_none_or(|(fe, _)| f <= fe) {
+            end = Some((f, TransitionCause::Trip));
+        }
+    }
+    end
+}
+
+/// The turbulent layer at the end of the interval in which the laminar flow ended for `cause`:
+/// started at the transition point (momentum thickness `theta_tr`, edge velocity `ue_tr` of
+/// `(ue_tr, ue)`) with the start shape factor of its cause, and marched over the `rest` of the
+/// interval to the station's edge velocity `ue`.
+fn turbulent_from_transition(
+    cause: TransitionCause,
+    theta_tr: f64,
+    (ue_tr, ue): (f64, f64),
+    rest: f64,
+    nu: f64,
+) -> head::TurbulentState {
+    let h0 = if cause == TransitionCause::LaminarSeparation {
+        BUBBLE_START_H
+    } else {
+        TRANSITION_START_H
+    };
+    let start = head::TurbulentState {
+        theta: theta_tr.max(1e-9),
+        h: h0,
+    };
+    if ue_tr > 0.0 {
+        head::step(start, ue_tr, ue, rest, nu, turbulent_steps(rest, theta_tr))
+    } else {
+        start
+    }
+}
+
+/// Records the turbulent (or separated) state `t` at station `st`, and the separation point
+/// if it is the first separated one.
+fn push_turbulent(
+    states: &mut Vec<LayerState>,
+    separation_s: &mut Option<f64>,
+    t: head::TurbulentState,
+    st: &Station,
+    settings: &MarchSettings,
+) {
+    if separation_s.is_none() && t.h >= head::H_SEPARATION {
+        *separation_s = Some(st.s);
+    }
+    states.push(LayerState {
+        n: settings.n_crit,
+        ..record(t, st.ue, settings.nu)
+    });
+}
+
+/// Michel's margin (re_theta less its transition value) at the laminar station `st`, and
+/// Michel's point `michel_s` once the margin reaches zero, interpolated in the interval
+/// (`s_prev`, `ds`) on the margin at the previous laminar station of `lam_prev` (theta,
+/// lambda, margin). The margin is needed only until the point is found (a `powf` a station):
+/// zero after.
+fn michel_step(
+    michel_s: &mut Option<f64>,
+    re_theta: f64,
+    st: &Station,
+    (s_prev, ds): (f64, f64),
+    lam_prev: Option<(f64, f64, f64)>,
+    nu: f64,
+) -> f64 {
+    let michel_margin = if michel_s.is_none() {
+        re_theta - michel::re_theta_transition(st.ue * st.s / nu)
+    } else {
+        0.0
+    };
+    if michel_s.is_none() && michel_margin >= 0.0 {
+        *michel_s = Some(match lam_prev {
+            Some((_, _, m0)) if m0 < 0.0 => s_prev + ds * (-m0 / (michel_margin - m0)),
+            _ => st.s,
+        });
+    }
+    michel_margin
+}
+
 /// Marches the layer over `stations` (see the module documentation).
-// split pending
-#[allow(clippy::too_many_lines)]
 pub fn march_surface(stations: &[Station], settings: &MarchSettings) -> SurfaceLayer {
     let nu = settings.nu;
     let mut states = Vec::with_capacity(stations.len());
@@ -150,13 +272,7 @@ pub fn march_surface(stations: &[Station], settings: &MarchSettings) -> SurfaceL
         let ds = (st.s - s_prev).max(1e-12);
         if let Some(t) = turb {
             let t = head::step(t, ue_prev, st.ue, ds, nu, turbulent_steps(ds, t.theta));
-            if separation_s.is_none() && t.h >= head::H_SEPARATION {
-                separation_s = Some(st.s);
-            }
-            states.push(LayerState {
-                n: settings.n_crit,
-                ..record(t, st.ue, nu)
-            });
+            push_turbulent(&mut states, &mut separation_s, t, st, settings);
             turb = Some(t);
             s_prev = st.s;
             ue_prev = st.ue;
@@ -165,63 +281,23 @@ pub fn march_surface(stations: &[Station], settings: &MarchSettings) -> SurfaceL
         // Laminar: Thwaites.
         int_ue5 += thwaites::ue5_integral(ue_prev, st.ue, ds);
         let theta = thwaites::momentum_thickness(int_ue5, st.ue, nu);
-        let due = {
-            let (sa, ua) = (s_prev, ue_prev);
-            match stations.get(i + 1) {
-                Some(nx) => {
-                    // Central difference on the uneven stations.
-                    let (h1, h2) = (st.s - sa, nx.s - st.s);
-                    ((nx.ue - st.ue) * h1 * h1 + (st.ue - ua) * h2 * h2) / (h1 * h2 * (h1 + h2))
-                }
-                None => (st.ue - ua) / ds,
-            }
-        };
+        let due = edge_gradient(st, stations.get(i + 1), s_prev, ue_prev, ds);
         let lambda = theta * theta * due / nu;
         let h = thwaites::shape_factor(lambda);
         let re_theta = st.ue * theta / nu;
         let dn = envelope::dn_ds(h, theta, re_theta);
         let n = n_prev + 0.5 * (dn + dn_prev) * ds;
-        // Michel's margin is needed only until its point is found (a `powf` a station).
-        let michel_margin = if michel_s.is_none() {
-            re_theta - michel::re_theta_transition(st.ue * st.s / nu)
-        } else {
-            0.0
-        };
-        if michel_s.is_none() && michel_margin >= 0.0 {
-            michel_s = Some(match lam_prev {
-                Some((_, _, m0)) if m0 < 0.0 => s_prev + ds * (-m0 / (michel_margin - m0)),
-                _ => st.s,
-            });
-        }
-        // Where does the laminar flow end in this interval, if it does?
-        let mut end: Option<(f64, TransitionCause)> = None;
-        if lambda < thwaites::LAMBDA_SEPARATION {
-            let f = match lam_prev {
-                Some((_, l0, _)) if l0 > thwaites::LAMBDA_SEPARATION => {
-                    (l0 - thwaites::LAMBDA_SEPARATION) / (l0 - lambda)
-                }
-                _ => 1.0,
-            };
-            end = Some((f, TransitionCause::LaminarSeparation));
-        }
-        if n >= settings.n_crit {
-            let f = if n > n_prev {
-                ((settings.n_crit - n_prev) / (n - n_prev)).clamp(0.0, 1.0)
-            } else {
-                1.0
-            };
-            if end.is_none_or(|(fs, _)| f <= fs) {
-                end = Some((f, TransitionCause::Amplification));
-            }
-        }
-        if let Some(trip) = settings.trip_s {
-            if trip <= st.s {
-                let f = ((trip - s_prev) / ds).clamp(0.0, 1.0);
-                if end.is_none_or(|(fe, _)| f <= fe) {
-                    end = Some((f, TransitionCause::Trip));
-                }
-            }
-        }
+        let michel_margin = michel_step(&mut michel_s, re_theta, st, (s_prev, ds), lam_prev, nu);
+        let trip_fraction = settings
+            .trip_s
+            .filter(|trip| *trip <= st.s)
+            .map(|trip| ((trip - s_prev) / ds).clamp(0.0, 1.0));
+        let end = laminar_end(
+            (lambda, lam_prev.map(|p| p.1)),
+            (n, n_prev),
+            settings.n_crit,
+            trip_fraction,
+        );
         if let Some((f, cause)) = end {
             let s_tr = s_prev + f * ds;
             let theta0 = lam_prev.map_or(theta, |p| p.0);
@@ -231,36 +307,10 @@ pub fn march_surface(stations: &[Station], settings: &MarchSettings) -> SurfaceL
                 theta0 + f * (theta - theta0)
             };
             let ue_tr = ue_prev + f * (st.ue - ue_prev);
-            let h0 = if cause == TransitionCause::LaminarSeparation {
-                BUBBLE_START_H
-            } else {
-                TRANSITION_START_H
-            };
-            let start = head::TurbulentState {
-                theta: theta_tr.max(1e-9),
-                h: h0,
-            };
             let rest = (st.s - s_tr).max(1e-12);
-            let t = if ue_tr > 0.0 {
-                head::step(
-                    start,
-                    ue_tr,
-                    st.ue,
-                    rest,
-                    nu,
-                    turbulent_steps(rest, theta_tr),
-                )
-            } else {
-                start
-            };
+            let t = turbulent_from_transition(cause, theta_tr, (ue_tr, st.ue), rest, nu);
             transition = Some((s_tr, cause));
-            if separation_s.is_none() && t.h >= head::H_SEPARATION {
-                separation_s = Some(st.s);
-            }
-            states.push(LayerState {
-                n: settings.n_crit,
-                ..record(t, st.ue, nu)
-            });
+            push_turbulent(&mut states, &mut separation_s, t, st, settings);
             turb = Some(t);
         } else {
             states.push(LayerState {
