@@ -66,23 +66,7 @@ pub(super) fn message(f: &GlideFinding) -> String {
             low_m_s,
             high_m_s,
             control,
-        } => format!(
-            "{} of the glide range the {} cannot trim \
-             within {} throws. Those speeds are marked in the glide table; least sink, best \
-             glide and the speeds to fly use only the speeds {} trims.",
-            speed_range(*low_m_s, *high_m_s),
-            control_name(*control),
-            if *control == Control::Elevons {
-                "their"
-            } else {
-                "its"
-            },
-            if *control == Control::Elevons {
-                "they"
-            } else {
-                "it"
-            }
-        ),
+        } => control_runs_out(*low_m_s, *high_m_s, *control),
         FlapSettingsEstimated | FlapSettingNoPolar { .. } | FlapSettingControlRunsOut { .. } => {
             flap_message(f)
         }
@@ -133,4 +117,25 @@ fn speed_range(low_m_s: f64, high_m_s: f64) -> String {
     } else {
         format!("Between {low} and {high} m/s")
     }
+}
+
+/// The sentence of `polar-control-runs-out`.
+fn control_runs_out(low_m_s: f64, high_m_s: f64, control: Control) -> String {
+    format!(
+        "{} of the glide range the {} cannot trim \
+             within {} throws. Those speeds are marked in the glide table; least sink, best \
+             glide and the speeds to fly use only the speeds {} trims.",
+        speed_range(low_m_s, high_m_s),
+        control_name(control),
+        if control == Control::Elevons {
+            "their"
+        } else {
+            "its"
+        },
+        if control == Control::Elevons {
+            "they"
+        } else {
+            "it"
+        }
+    )
 }
