@@ -34,6 +34,10 @@ pub mod viscous;
 
 mod error;
 mod solution;
+mod viscous_model;
+
+use viscous_model::viscous_outcome;
+pub use viscous_model::{model_from_polar, viscous_polar};
 
 pub use error::SectionError;
 pub use flap::FlapEffect;
@@ -168,20 +172,6 @@ pub fn analyse_section(
     Ok(SectionAnalysis { solution, outcome })
 }
 
-/// The section model of `airfoil` from its viscous polar over [`MODEL_SWEEP_DEG`] (from the
-/// shared polar cache).
-fn viscous_outcome(
-    airfoil: &Airfoil,
-    options: &SectionOptions,
-) -> Result<SectionOutcome, SectionError> {
-    let settings = viscous_settings(airfoil, options)?;
-    let alphas: Vec<f64> = (MODEL_SWEEP_DEG.0..=MODEL_SWEEP_DEG.1)
-        .map(|d| (d as f64).to_radians())
-        .collect();
-    let polar = cache::PolarCache::shared().polar(airfoil, settings, &alphas)?;
-    model_from_polar(airfoil, polar)
-}
-
 /// The caution for a section too thin for the panel method, added to `outcome`.
 fn thin_for_panels_caution(airfoil: &Airfoil, outcome: &mut SectionOutcome) {
     if let Some(t) = shape_thickness(airfoil).filter(|&t| t < THIN_SECTION_FOR_PANELS) {
@@ -194,98 +184,6 @@ fn thin_for_panels_caution(airfoil: &Airfoil, outcome: &mut SectionOutcome) {
             .into(),
         ));
     }
-}
-
-/// Angles of the polar behind a viscous section model, whole degrees from the chord line
-/// (1 deg steps; the sweep stops at the first stalled or failed angle).
-const MODEL_SWEEP_DEG: (i32, i32) = (-8, 20);
-
-/// Fewest converged points near zero lift for a viscous section model.
-const MIN_LINEAR_POINTS: usize = 3;
-
-/// |cl| up to which the viscous polar is taken as the linear part of the lift curve (a
-/// judgement: below the stall of any section the method treats).
-const LINEAR_CL_LIMIT: f64 = 0.6;
-
-/// The viscous settings of `airfoil`: its Reynolds number (required), its transition setting
-/// or N 9, and the panels of `options` (raised to the viscous minimum).
-fn viscous_settings(
-    airfoil: &Airfoil,
-    options: &SectionOptions,
-) -> Result<viscous::ViscousSettings, SectionError> {
-    let Some(reynolds) = airfoil.reynolds else {
-        return Err(SectionError::ViscousNeedsReynolds {
-            airfoil: airfoil.name.clone(),
-        });
-    };
-    Ok(viscous::ViscousSettings {
-        reynolds,
-        n_crit: airfoil
-            .transition_n
-            .unwrap_or(boundary_layer::envelope::DEFAULT_N_CRIT),
-        panels: options.panels.max(viscous::MIN_VISCOUS_PANELS),
-    })
-}
-
-/// The section model of `airfoil` from its viscous polar: zero-lift angle and lift slope from a
-/// straight line through the converged points with |cl| <= 0.6, the aerodynamic centre and
-/// cm_ac from a straight line of cm against cl over the same points, cl_max as given or the
-/// default (the polar's own cl_max is carried in the polar but not used: it runs high, see
-/// [`polar`]), the Reynolds number and the polar itself.
-pub fn model_from_polar(
-    airfoil: &Airfoil,
-    polar: std::sync::Arc<polar::Polar>,
-) -> Result<SectionOutcome, SectionError> {
-    let pts: Vec<(f64, f64)> = polar
-        .points()
-        .filter(|p| p.cl.abs() <= LINEAR_CL_LIMIT)
-        .map(|p| (p.cl, p.cm_quarter_chord))
-        .collect();
-    let fit = polar.linear_fit(LINEAR_CL_LIMIT);
-    let Some((slope, alpha0)) = fit.filter(|_| pts.len() >= MIN_LINEAR_POINTS) else {
-        return Err(SectionError::ViscousTooFewPoints {
-            airfoil: airfoil.name.clone(),
-            points: pts.len(),
-        });
-    };
-    let n = pts.len() as f64;
-    let (mcl, mcm) = pts
-        .iter()
-        .fold((0.0, 0.0), |a, p| (a.0 + p.0 / n, a.1 + p.1 / n));
-    let sxx: f64 = pts.iter().map(|p| (p.0 - mcl).powi(2)).sum();
-    let sxy: f64 = pts.iter().map(|p| (p.0 - mcl) * (p.1 - mcm)).sum();
-    let dcm_dcl = if sxx > 0.0 { sxy / sxx } else { 0.0 };
-    let cm_ac = mcm - dcm_dcl * mcl;
-    let x_ac_c = 0.25 - dcm_dcl;
-    let not_finite = |what| SectionError::NotFinite {
-        airfoil: airfoil.name.clone(),
-        method: "viscous",
-        what,
-    };
-    if !(slope.is_finite() && slope > 0.0) {
-        return Err(not_finite("lift slope"));
-    }
-    if !(alpha0.is_finite() && cm_ac.is_finite() && x_ac_c.is_finite()) {
-        return Err(not_finite("zero-lift angle or moment"));
-    }
-    let (cl_max, cl_max_source, cautions) = resolve_cl_max(airfoil)?;
-    let cl_at_zero_alpha = -slope * alpha0;
-    let cl_min = (-cl_max + 2.0 * cl_at_zero_alpha).min(-0.25 * cl_max);
-    Ok(SectionOutcome {
-        model: SectionModel {
-            method: SectionMethod::Viscous,
-            alpha_zero_lift_rad: alpha0,
-            cl_alpha_per_rad: slope,
-            cm_ac,
-            x_ac_c,
-            cl_max,
-            cl_min,
-            cl_max_source,
-            reynolds_number: Some(polar.reynolds),
-            polar: Some(polar),
-        },
-        cautions,
-    })
 }
 
 /// Thickness below which the panel method gets a caution (judgement: on thinner sections the
@@ -443,34 +341,6 @@ fn build_contour(
     .map_err(geometry_err)
 }
 
-/// The viscous polar of `airfoil` at `settings` (Reynolds number, N, panels) over
-/// `alphas_rad`: the boundary layer on the panel method ([`viscous`], [`polar`]).
-pub fn viscous_polar(
-    airfoil: &Airfoil,
-    settings: viscous::ViscousSettings,
-    alphas_rad: &[f64],
-) -> Result<polar::Polar, SectionError> {
-    let name = || airfoil.name.clone();
-    let (exact, naca) = shape_solutions(airfoil)?;
-    let contour = build_contour(
-        airfoil,
-        &exact,
-        &naca,
-        &SectionOptions {
-            panels: settings
-                .panels
-                .clamp(geometry::MIN_PANELS, geometry::MAX_PANELS),
-        },
-    )?;
-    let section = viscous::ViscousSection::new(&contour, settings).map_err(|error| {
-        SectionError::Viscous {
-            airfoil: name(),
-            error,
-        }
-    })?;
-    Ok(polar::Polar::sweep(&section, alphas_rad))
-}
-
 /// Half-width of the angle step either side of zero lift used for the aerodynamic centre, rad.
 const AC_STEP_RAD: f64 = 0.02;
 
@@ -608,105 +478,4 @@ pub fn thickness_ratio(airfoil: &Airfoil) -> f64 {
 }
 
 #[cfg(test)]
-mod tests {
-    use super::*;
-    use approx::assert_relative_eq;
-
-    fn airfoil(shape: AirfoilShape, method: Option<SectionMethod>) -> Airfoil {
-        Airfoil {
-            name: "test".into(),
-            shape,
-            cl_max: None,
-            method,
-            reynolds: None,
-            transition_n: None,
-        }
-    }
-
-    #[test]
-    fn default_methods_by_shape() {
-        let j = airfoil(
-            AirfoilShape::Joukowski {
-                thickness_ratio: 0.1,
-                camber_ratio: 0.02,
-            },
-            None,
-        );
-        let out = section_model(&j, &SectionOptions::default()).unwrap();
-        assert_eq!(out.model.method, SectionMethod::Exact);
-        assert_eq!(out.cautions[0].code, "cl-max-default");
-        assert!(crate::output::cautions::message(&out.cautions[0]).contains("'test'"));
-        let n = airfoil(AirfoilShape::Naca("2412".into()), None);
-        let out = section_model(&n, &SectionOptions { panels: 80 }).unwrap();
-        assert_eq!(out.model.method, SectionMethod::Panel);
-    }
-
-    #[test]
-    fn exact_is_refused_for_naca_sections() {
-        let n = airfoil(
-            AirfoilShape::Naca("2412".into()),
-            Some(SectionMethod::Exact),
-        );
-        assert!(matches!(
-            section_model(&n, &SectionOptions::default()),
-            Err(SectionError::MethodNotAvailable { .. })
-        ));
-    }
-
-    #[test]
-    fn thin_model_of_a_naca_section_has_ac_at_quarter_chord() {
-        // Thin-airfoil theory: cm about c/4 does not change with lift, so x_ac = 0.25 exactly
-        // (Anderson, Fundamentals of Aerodynamics, ch. 4); 1e-12 for rounding.
-        let n = airfoil(AirfoilShape::Naca("4412".into()), Some(SectionMethod::Thin));
-        let m = section_model(&n, &SectionOptions::default()).unwrap().model;
-        assert_relative_eq!(m.x_ac_c, 0.25, epsilon = 1e-12);
-        assert!(m.cl_min < 0.0 && m.cl_min > -m.cl_max);
-    }
-
-    #[test]
-    fn symmetric_section_has_symmetric_stall_limits() {
-        let mut n = airfoil(AirfoilShape::Naca("0012".into()), Some(SectionMethod::Thin));
-        n.cl_max = Some(1.2);
-        let out = section_model(&n, &SectionOptions::default()).unwrap();
-        assert!(out.cautions.is_empty());
-        assert_relative_eq!(out.model.cl_min, -1.2, epsilon = 1e-12);
-        n.cl_max = Some(f64::NAN);
-        assert!(section_model(&n, &SectionOptions::default()).is_err());
-    }
-
-    #[test]
-    fn very_thin_sections_are_flagged_for_the_panel_method() {
-        let n = airfoil(
-            AirfoilShape::Naca("0002".into()),
-            Some(SectionMethod::Panel),
-        );
-        let out = section_model(&n, &SectionOptions { panels: 80 }).unwrap();
-        assert!(out
-            .cautions
-            .iter()
-            .any(|c| c.code == "section-too-thin-for-panels"));
-        let j = airfoil(
-            AirfoilShape::Joukowski {
-                thickness_ratio: 0.01,
-                camber_ratio: 0.14,
-            },
-            Some(SectionMethod::Panel),
-        );
-        // Either refused as not credible or flagged: never a silent answer.
-        match section_model(&j, &SectionOptions::default()) {
-            Err(SectionError::NotCredible { .. }) => {}
-            Ok(out) => assert!(out
-                .cautions
-                .iter()
-                .any(|c| c.code == "section-too-thin-for-panels")),
-            Err(e) => panic!("unexpected error {e}"),
-        }
-    }
-
-    #[test]
-    fn flap_effectiveness_passes_glauert_through() {
-        let f = flap_effectiveness(0.3).unwrap();
-        assert!(f.tau > 0.0 && f.tau < 1.0);
-        assert!(flap_effectiveness(0.0).is_err());
-    }
-}
+mod tests;
