@@ -347,6 +347,14 @@ const AC_STEP_RAD: f64 = 0.02;
 /// Largest cl_max accepted.
 const CL_MAX_LIMIT: f64 = 3.0;
 
+/// The negative stall of a linear lift curve of slope `slope` (per rad) through the zero-lift
+/// angle `alpha0` (rad) with stall at `cl_max`: as far below the cl at zero incidence as
+/// cl_max lies above it, and at least a quarter of cl_max below zero.
+fn cl_min_of(cl_max: f64, slope: f64, alpha0: f64) -> f64 {
+    let cl_at_zero_alpha = -slope * alpha0;
+    (-cl_max + 2.0 * cl_at_zero_alpha).min(-0.25 * cl_max)
+}
+
 /// cl_max of `airfoil`: as given (checked), or the conservative default with its caution.
 fn resolve_cl_max(airfoil: &Airfoil) -> Result<(f64, ClMaxSource, Vec<Caution>), SectionError> {
     let mut cautions = Vec::new();
@@ -417,8 +425,7 @@ pub fn model_from_figures(
         return Err(not_finite("moment coefficient"));
     }
     let (cl_max, cl_max_source, cautions) = resolve_cl_max(airfoil)?;
-    let cl_at_zero_alpha = -slope * alpha0;
-    let cl_min = (-cl_max + 2.0 * cl_at_zero_alpha).min(-0.25 * cl_max);
+    let cl_min = cl_min_of(cl_max, slope, alpha0);
     Ok(SectionOutcome {
         model: SectionModel {
             method,

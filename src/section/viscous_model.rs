@@ -2,8 +2,8 @@
 //! reduced to a lift curve (its linear part, the lift peak as cl_max) and the polar kept.
 
 use super::{
-    boundary_layer, build_contour, cache, geometry, polar, resolve_cl_max, shape_solutions,
-    viscous, SectionError, SectionModel, SectionOptions, SectionOutcome,
+    boundary_layer, build_contour, cache, cl_min_of, geometry, polar, resolve_cl_max,
+    shape_solutions, viscous, SectionError, SectionModel, SectionOptions, SectionOutcome,
 };
 use crate::model::{Airfoil, SectionMethod};
 
@@ -94,8 +94,7 @@ pub fn model_from_polar(
         return Err(not_finite("zero-lift angle or moment"));
     }
     let (cl_max, cl_max_source, cautions) = resolve_cl_max(airfoil)?;
-    let cl_at_zero_alpha = -slope * alpha0;
-    let cl_min = (-cl_max + 2.0 * cl_at_zero_alpha).min(-0.25 * cl_max);
+    let cl_min = cl_min_of(cl_max, slope, alpha0);
     Ok(SectionOutcome {
         model: SectionModel {
             method: SectionMethod::Viscous,

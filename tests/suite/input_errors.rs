@@ -673,3 +673,24 @@ fn an_impossible_wing_loading_points_at_the_heaviest_mass() {
         &["the heaviest item, 'wing', is 190000 g", "up to 400 kg/m^2"],
     );
 }
+
+// The wing and the stabiliser share one table type in the reader; a misspelt key lists only
+// what that surface accepts (aircraft/README.md: `elevons` and `[[wing.flap]]` belong to the
+// wing, `role` and the `elevator_*` keys to the stabiliser).
+#[test]
+fn an_unknown_surface_key_lists_only_that_surfaces_keys() {
+    let e = error_of(&edit("root_chord = 200\n", "root_chrd = 200\n"));
+    check(
+        &e,
+        "bad.toml:5:1: wing.root_chrd:",
+        &["did you mean `root_chord`?", "`flap`"],
+    );
+    assert!(!e.contains("`elevator_up`") && !e.contains("`role`"), "{e}");
+    let stab = format!(
+        "{BASE}[stabiliser]\nx = 700\nroot_chord = 100\nairfoil = \"a\"\nrol = \"tail\"\n[[stabiliser.panel]]\nspan = 200\ntip_chord = 80\n"
+    );
+    let e = error_of(&stab);
+    assert!(e.contains("did you mean `role`?"), "{e}");
+    assert!(!e.contains("`elevons`") && !e.contains("`flap`"), "{e}");
+    assert!(e.contains("`elevator_up`"), "{e}");
+}

@@ -60,14 +60,35 @@ impl Source<'_> {
         at: usize,
         expected: Option<&str>,
     ) -> Issue {
-        let names = expected.map(names_in).unwrap_or_default();
+        // The reader shares one table type for the wing and the stabiliser; what only the
+        // other one may have is not offered.
+        let refused: &[&str] = match (ctx.table.as_str(), ctx.inline.is_empty()) {
+            ("stabiliser", true) => &["elevons", "flap"],
+            ("wing", true) => &[
+                "role",
+                "elevator_chord",
+                "elevator_up",
+                "elevator_down",
+                "dynamic_pressure_ratio",
+            ],
+            _ => &[],
+        };
+        let names: Vec<&str> = expected
+            .map(names_in)
+            .unwrap_or_default()
+            .into_iter()
+            .filter(|n| !refused.contains(n))
+            .collect();
         let hint = closest(key, &names)
             .map(|n| format!("; did you mean `{n}`?"))
             .unwrap_or_default();
         let accepted = expected.map(|x| {
-            x.strip_prefix("one of ")
-                .map(|keys| format!("one of {keys}"))
-                .unwrap_or_else(|| plain_expected(x).unwrap_or_default())
+            if x.starts_with("one of ") {
+                let keys: Vec<String> = names.iter().map(|n| format!("`{n}`")).collect();
+                format!("one of {}", keys.join(", "))
+            } else {
+                plain_expected(x).unwrap_or_default()
+            }
         });
         let header = self
             .header_at(at)
