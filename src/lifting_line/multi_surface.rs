@@ -124,6 +124,22 @@ pub struct SurfaceInput<'a> {
     pub elevator: Option<ElevatorEffect>,
 }
 
+impl<'a> SurfaceInput<'a> {
+    /// The wing of `aircraft`, which carries the pitch control `elevator` only when there is
+    /// no stabiliser (elevons).
+    pub fn wing_of(
+        aircraft: &'a Aircraft,
+        sections: &'a [SectionModel],
+        elevator: Option<ElevatorEffect>,
+    ) -> Self {
+        SurfaceInput {
+            surface: &aircraft.wing,
+            sections,
+            elevator: elevator.filter(|_| aircraft.stabiliser.is_none()),
+        }
+    }
+}
+
 /// Reference quantities for the coefficients (normally the wing's).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Reference {

@@ -16,15 +16,7 @@ impl MultiSurfaceSystem {
         elevator: Option<ElevatorEffect>,
         options: LiftingLineOptions,
     ) -> Result<Self, LiftingLineError> {
-        let mut inputs = vec![SurfaceInput {
-            surface: &aircraft.wing,
-            sections,
-            elevator: if aircraft.stabiliser.is_none() {
-                elevator
-            } else {
-                None
-            },
-        }];
+        let mut inputs = vec![SurfaceInput::wing_of(aircraft, sections, elevator)];
         if let Some(stab) = &aircraft.stabiliser {
             inputs.push(SurfaceInput {
                 surface: &stab.surface,

@@ -96,15 +96,7 @@ pub fn build_system(
         }
         None => Vec::new(),
     };
-    let mut inputs = vec![SurfaceInput {
-        surface: &aircraft.wing,
-        sections,
-        elevator: if aircraft.stabiliser.is_none() {
-            elevator
-        } else {
-            None
-        },
-    }];
+    let mut inputs = vec![SurfaceInput::wing_of(aircraft, sections, elevator)];
     if let Some(stab) = &aircraft.stabiliser {
         let eta = stab.dynamic_pressure_ratio;
         inputs.push(SurfaceInput {
