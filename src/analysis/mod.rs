@@ -433,6 +433,29 @@ fn full_stability_or_caution(
     }
 }
 
+/// Span efficiency (on the projected span) above which the wake solution is not trusted.
+/// Munk's theorem bounds a planar lifting system at 1 (the elliptic loading); the height that
+/// dihedral and a stabiliser give model aircraft adds a few percent (Kroo's nonplanar results
+/// reach about 1.1 for a height of a tenth of the span; from memory). 1.2 leaves room for
+/// those and for the lattice's discretisation.
+pub const MAX_PLAUSIBLE_SPAN_EFFICIENCY: f64 = 1.2;
+
+/// `Some` when a span efficiency over the polar's trimmed points exceeds
+/// [`MAX_PLAUSIBLE_SPAN_EFFICIENCY`] or is not finite: the greatest finite one, or `None`
+/// inside when one was not finite.
+fn implausible_span_efficiency(p: &glide::GlidePolar) -> Option<Option<f64>> {
+    let values: Vec<f64> = p
+        .points
+        .iter()
+        .filter_map(|q| q.trim.span_efficiency)
+        .collect();
+    if values.iter().any(|e| !e.is_finite()) {
+        return Some(None);
+    }
+    let worst = values.iter().copied().fold(0.0_f64, f64::max);
+    (worst > MAX_PLAUSIBLE_SPAN_EFFICIENCY).then_some(Some(worst))
+}
+
 /// The flight polar from the trimmed wing model, when asked for and the full model solved,
 /// with the glide cautions; an error when its minimum sink or best glide is not finite.
 fn flight_polar_if_asked(
@@ -469,6 +492,15 @@ fn flight_polar_if_asked(
                 || glide::glide_polar(&glide_input),
                 || glide::setting_polars(&glide_input),
             );
+            if let Some(e) = polar.as_ref().ok().and_then(implausible_span_efficiency) {
+                cautions.push(Caution::of(
+                    GlideFinding::NoFlightPolar {
+                        why: PolarMissing::ImplausibleInducedDrag { span_efficiency: e },
+                    }
+                    .into(),
+                ));
+                return Ok((None, Vec::new()));
+            }
             glide::glide_cautions(input.aircraft, &polar, cautions);
             glide::setting_cautions(input.aircraft, &settings, cautions);
             (polar.ok(), settings)

@@ -17,6 +17,13 @@ pub enum PolarMissing {
     Unstable,
     /// The polar itself failed.
     Failed(FlightPolarError),
+    /// The wake solution's span efficiency is beyond what any lifting system of these
+    /// proportions reaches: its induced drag, and every glide figure, cannot be trusted.
+    ImplausibleInducedDrag {
+        /// The greatest finite span efficiency over the polar's speeds (None when one was not
+        /// finite).
+        span_efficiency: Option<f64>,
+    },
 }
 
 /// One finding on the glide polars (speeds m/s).
@@ -106,7 +113,7 @@ impl GlideFinding {
             | PolarDragExtrapolated { .. }
             | FlapSettingsEstimated => Level::Note,
             NoFlightPolar {
-                why: PolarMissing::Failed(_),
+                why: PolarMissing::Failed(_) | PolarMissing::ImplausibleInducedDrag { .. },
             }
             | MinSinkNearStall { .. }
             | SectionSeparatesEarly { .. }

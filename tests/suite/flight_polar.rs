@@ -452,3 +452,86 @@ fn an_optimum_where_the_control_runs_out_says_which_end() {
         assert!((cl_low..=cl_high).contains(&bg.cl));
     }
 }
+
+/// An invented small canard with both surfaces flat; `canard_z` is the canard's height, mm.
+fn coplanar_canard(canard_z: &str) -> String {
+    format!(
+        r#"name = "Coplanar canard"
+[airfoils.main]
+naca = "2412"
+cl_max = 1.1
+[airfoils.fore]
+naca = "4412"
+cl_max = 1.3
+[wing]
+x = 0
+root_chord = 170
+airfoil = "main"
+[[wing.panel]]
+span = 450
+tip_chord = 120
+sweep = 5
+twist = -1
+[stabiliser]
+role = "canard"
+x = -420
+z = {canard_z}
+incidence = 2
+root_chord = 90
+airfoil = "fore"
+elevator_chord = 30
+[[stabiliser.panel]]
+span = 180
+tip_chord = 70
+[[mass]]
+name = "airframe"
+mass = 220
+x = -60
+[[mass]]
+name = "motor"
+mass = 70
+x = 200
+[[mass]]
+name = "battery"
+mass = 110
+x = -300
+[[mass]]
+name = "radio"
+mass = 30
+x = -200
+"#
+    )
+}
+
+// Munk's theorem (M. M. Munk, "The minimum induced drag of aerofoils", NACA Report 121, 1923):
+// a planar lifting system has a span efficiency of at most 1; the heights of model aircraft add
+// a few percent. A wake solution far beyond that (here a canard whose trailing vortices cross
+// the wing in its own plane) gives no glide figures and says why, rather than a glide ratio
+// that is far too good. A canard 50 mm above the wing has a plausible polar.
+#[test]
+fn an_implausible_span_efficiency_gives_no_glide_figures() {
+    let coplanar = trimline::input::parse_aircraft(&coplanar_canard("0"), "c.toml", None).unwrap();
+    let a = analyse(&coplanar, &AnalysisOptions::default()).unwrap();
+    assert!(a.glide_polar.is_none());
+    let c = a
+        .cautions
+        .iter()
+        .find(|c| c.code == "no-flight-polar")
+        .expect("a no-flight-polar caution");
+    assert!(matches!(
+        c.finding,
+        trimline::finding::Finding::Glide(trimline::finding::GlideFinding::NoFlightPolar {
+            why: trimline::finding::PolarMissing::ImplausibleInducedDrag { .. }
+        })
+    ));
+    let raised = trimline::input::parse_aircraft(&coplanar_canard("50"), "c.toml", None).unwrap();
+    let b = analyse(&raised, &AnalysisOptions::default()).unwrap();
+    let p = b.glide_polar.as_ref().expect("a glide polar");
+    for q in &p.points {
+        let e = q.trim.span_efficiency.unwrap();
+        assert!(
+            e > 0.3 && e <= trimline::analysis::MAX_PLAUSIBLE_SPAN_EFFICIENCY,
+            "{e}"
+        );
+    }
+}

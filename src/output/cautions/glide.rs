@@ -19,6 +19,20 @@ pub(super) fn message(f: &GlideFinding) -> String {
              hold a trimmed glide, so no glide figures are given."
             .to_string(),
         NoFlightPolar {
+            why: PolarMissing::ImplausibleInducedDrag { span_efficiency },
+        } => format!(
+            "The wake solution gives a span efficiency {}, beyond the about \
+             1.2 that no model's wing and stabiliser together exceed: its induced drag cannot \
+             be trusted (this happens when the stabiliser or canard lies in the wing's plane, so \
+             that their trailing vortices cross the other surface), so no sink or glide figures \
+             are given. Give the stabiliser a height (z) a few percent of the span away from the \
+             wing's.",
+            span_efficiency.map_or_else(
+                || "that is not finite".to_string(),
+                |e| format!("of {e:.2}")
+            )
+        ),
+        NoFlightPolar {
             why: PolarMissing::Failed(e),
         } => format!(
             "The glide polar could not be computed ({e}); no sink or glide figures are given."
@@ -124,7 +138,7 @@ fn control_runs_out(low_m_s: f64, high_m_s: f64, control: Control) -> String {
     format!(
         "{} of the glide range the {} cannot trim \
              within {} throws. Those speeds are marked in the glide table; least sink, best \
-             glide and the speeds to fly use only the speeds {} trims.",
+             glide and the speeds to fly use only the speeds {}.",
         speed_range(low_m_s, high_m_s),
         control_name(control),
         if control == Control::Elevons {
@@ -133,9 +147,9 @@ fn control_runs_out(low_m_s: f64, high_m_s: f64, control: Control) -> String {
             "its"
         },
         if control == Control::Elevons {
-            "they"
+            "they trim"
         } else {
-            "it"
+            "it trims"
         }
     )
 }

@@ -104,7 +104,11 @@ fn trim_load_rows(t: &mut Table, aircraft: &Aircraft, a: &Analysis, u: UnitSyste
         if let Some(e) = ft.span_efficiency {
             t.add_row(vec![
                 "span efficiency at trim".into(),
-                num(e, 3),
+                if e > crate::analysis::MAX_PLAUSIBLE_SPAN_EFFICIENCY {
+                    format!("{} (not plausible: see the cautions)", num(e, 3))
+                } else {
+                    num(e, 3)
+                },
                 String::new(),
             ]);
         }
