@@ -37,6 +37,7 @@ pub(super) fn target_speed_caution(aircraft: &Aircraft, h: &Headline, cautions: 
                 target_speed_m_s,
                 stall_speed_m_s: h.stall_speed_m_s,
                 factor: NEAR_STALL_FACTOR,
+                has_stabiliser: aircraft.stabiliser.is_some(),
             }
             .into(),
         ));

@@ -115,6 +115,9 @@ pub enum BalanceFinding {
         stall_speed_m_s: f64,
         /// The near-stall factor (1.2).
         factor: f64,
+        /// The aircraft has a stabiliser (a decalage is solved for the target); a tailless
+        /// wing gets the CG for it only.
+        has_stabiliser: bool,
     },
     /// `no-trim`: a stable aircraft finds no trim at positive lift.
     NoTrim {

@@ -238,6 +238,7 @@ fn trim_message(f: &BalanceFinding) -> String {
             target_speed_m_s,
             stall_speed_m_s,
             factor,
+            has_stabiliser,
         } => {
             let what = if target_speed_m_s < stall_speed_m_s {
                 "below the stall speed"
@@ -246,8 +247,13 @@ fn trim_message(f: &BalanceFinding) -> String {
             };
             format!(
                 "The target trim speed {target_speed_m_s:.1} m/s is {what} {stall_speed_m_s:.1} \
-                 m/s: the decalage and CG solved for it would trim the aircraft {}. Choose a \
+                 m/s: the {} solved for it would trim the aircraft {}. Choose a \
                  target of at least {:.1} m/s ({factor} times the stall speed).",
+                if has_stabiliser {
+                    "decalage and CG"
+                } else {
+                    "CG"
+                },
                 if target_speed_m_s < stall_speed_m_s {
                     "stalled"
                 } else {
