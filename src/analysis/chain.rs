@@ -303,7 +303,7 @@ fn balance_and_model_cautions(
             estimate,
             mac,
             b.mass.cg_x_m,
-            d.band.aft_x_m,
+            &d.band,
             cautions,
         );
     }

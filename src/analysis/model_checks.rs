@@ -1,7 +1,7 @@
 //! The cautions that only the full model can raise: stall order along the span, elevator
 //! authority, tail stall, tailless trim, and the full model against the closed form.
 
-use super::Headline;
+use super::{CgBand, Headline, CG_BAND_ALLOWANCE_M};
 use crate::caution::Caution;
 use crate::finding::{Control, ElevonTrim, ModelFinding, TailStall};
 use crate::model::{Aircraft, StabiliserRole};
@@ -29,24 +29,27 @@ pub(super) fn full_model_cautions(
     est: &ClassicalEstimate,
     mac_m: f64,
     cg_x_m: f64,
-    band_aft_x_m: f64,
+    band: &CgBand,
     cautions: &mut Vec<Caution>,
 ) {
-    stall_order_caution(aircraft, f, h, cautions);
+    let room_forward = cg_x_m > band.forward_x_m + CG_BAND_ALLOWANCE_M;
+    stall_order_caution(aircraft, f, h, room_forward, cautions);
     elevator_authority_caution(aircraft, f, cautions);
     tail_stall_in_range_caution(f, cautions);
     if let Some(t) = &f.tailless {
-        tailless_trim_caution(aircraft, t, cg_x_m, band_aft_x_m, cautions);
+        tailless_trim_caution(aircraft, t, cg_x_m, band.aft_x_m, cautions);
     }
     models_disagree_note(aircraft, f, est, mac_m, cautions);
 }
 
 /// The caution on which surface stalls first and where: `tail-stalls-first` (downwards at
 /// cl_min, or at cl_max), `canard-stall-order` or `tip-stall`.
+/// `room_forward`: the band leaves room to move the CG forward (a canard's remedy).
 pub(super) fn stall_order_caution(
     aircraft: &Aircraft,
     f: &trim::FullStability,
     h: &Headline,
+    room_forward: bool,
     cautions: &mut Vec<Caution>,
 ) {
     let Some(loc) = &h.stall_location else {
@@ -80,7 +83,10 @@ pub(super) fn stall_order_caution(
                 wing_stall_speed_m_s,
             })
         }
-        (0, Some(StabiliserRole::Canard)) => ModelFinding::CanardStallOrder { percent_semispan },
+        (0, Some(StabiliserRole::Canard)) => ModelFinding::CanardStallOrder {
+            percent_semispan,
+            room_forward,
+        },
         (0, _) if percent_semispan > TIP_STALL_PERCENT_SEMISPAN => {
             ModelFinding::TipStall { percent_semispan }
         }

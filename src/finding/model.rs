@@ -62,6 +62,8 @@ pub enum ModelFinding {
     CanardStallOrder {
         /// Where along the wing's semispan the stall begins, %.
         percent_semispan: f64,
+        /// The recommended band leaves room to move the CG forward.
+        room_forward: bool,
     },
     /// `tip-stall`: the wing's stall begins outboard of mid-semispan.
     TipStall {

@@ -207,12 +207,19 @@ fn geometry_footer(aircraft: &Aircraft, a: &Analysis, u: UnitSystem) -> String {
     };
     vee + &fin_footer(aircraft, a, u)
         + &match (&a.tail_volume, &aircraft.stabiliser) {
+        (Some(tv), Some(s)) if s.role == crate::model::StabiliserRole::Canard => format!(
+            "\nCanard arm {} {} ahead (MAC quarter chord to MAC quarter chord), volume coefficient {} (canard area times arm over wing area times MAC), decalage {} deg.",
+            u.length(tv.arm_m.abs(), 0),
+            u.length_unit(),
+            num(tv.coefficient.abs(), 3),
+            num(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 2)
+        ),
         (Some(tv), Some(_)) => format!(
             "\nStabiliser arm {} {} (MAC quarter chord to MAC quarter chord), volume coefficient {}, decalage {} deg.",
             u.length(tv.arm_m, 0),
             u.length_unit(),
             num(tv.coefficient, 3),
-                        num(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 2)
+            num(aircraft.decalage_rad().unwrap_or(0.0).to_degrees(), 2)
         ),
         _ => "\nNo stabiliser: tailless.".to_string(),
     }

@@ -535,3 +535,48 @@ fn an_implausible_span_efficiency_gives_no_glide_figures() {
         );
     }
 }
+
+// A canard's arm is the distance ahead of the wing, printed as such: its volume coefficient
+// S_c l_c / (S c) is positive by the canard convention (common practice), not a negative arm.
+#[test]
+fn a_canard_arm_prints_as_a_distance_ahead() {
+    let dir = crate::common::scratch_in("flight_polar", "canard_arm");
+    std::fs::write(dir.join("c.toml"), coplanar_canard("50")).unwrap();
+    let out = crate::common::run_trimline(&["check", "c.toml"], &dir);
+    let text = String::from_utf8_lossy(&out.stdout);
+    let line = text
+        .lines()
+        .find(|l| l.starts_with("Canard arm "))
+        .unwrap_or_else(|| panic!("no canard arm line in:\n{text}"));
+    assert!(line.contains(" mm ahead"), "{line}");
+    assert!(!line.contains('-'), "{line}");
+}
+
+// The canard stall-order advice does not send the CG forward when it is already at or ahead of
+// the recommended band (the two cautions would contradict each other). The coplanar canard
+// stalls its wing first at the canard's tip vortex and lies ahead of its band.
+#[test]
+fn canard_stall_order_advice_agrees_with_the_band() {
+    use trimline::caution::Caution;
+    use trimline::finding::ModelFinding;
+    let words = |room_forward| {
+        trimline::output::cautions::message(&Caution::of(
+            ModelFinding::CanardStallOrder {
+                percent_semispan: 40.0,
+                room_forward,
+            }
+            .into(),
+        ))
+    };
+    assert!(words(true).contains("or move the CG forward within the recommended band"));
+    assert!(words(false).contains("do not move it further"));
+    assert!(!words(false).contains("or move the CG forward"));
+
+    let ac = trimline::input::parse_aircraft(&coplanar_canard("0"), "c.toml", None).unwrap();
+    let a = analyse(&ac, &AnalysisOptions::default()).unwrap();
+    let forward = a.cautions.iter().any(|c| c.code == "cg-forward-of-band");
+    for c in a.cautions.iter().filter(|c| c.code == "canard-stall-order") {
+        let text = trimline::output::cautions::message(c);
+        assert_eq!(text.contains("do not move it further"), forward, "{text}");
+    }
+}

@@ -13,11 +13,19 @@ pub(super) fn message(f: &ModelFinding) -> String {
             percent_semispan,
             stall,
         } => tail_stalls_first_message(percent_semispan, stall),
-        CanardStallOrder { percent_semispan } => format!(
+        CanardStallOrder {
+            percent_semispan,
+            room_forward,
+        } => format!(
             "The wing reaches its cl_max before the canard (at {percent_semispan:.0} % of its \
              semispan): a canard aircraft must stall on the canard first so that the nose drops. \
-             Give the canard a higher loading (more incidence relative to the wing), or move the \
-             CG forward, which loads the canard more."
+             Give the canard a higher loading (more incidence relative to the wing){}",
+            if room_forward {
+                ", or move the CG forward within the recommended band, which loads the canard more."
+            } else {
+                "; the CG is already at or ahead of the recommended band, so do not move it further \
+                 forward."
+            }
         ),
         TipStall { percent_semispan } => format!(
             "Stall begins at {percent_semispan:.0} % of the semispan, outboard of mid-span: expect a \
