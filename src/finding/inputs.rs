@@ -104,6 +104,13 @@ pub enum InputFinding {
         /// Vertical gap there, m.
         gap_m: f64,
     },
+    /// `canard-wake-on-wing`: a canard nearly in the wing's plane.
+    CanardWakeOnWing {
+        /// Height of the canard's root leading edge above the wing's, m (either sign).
+        gap_m: f64,
+        /// Wing span, m.
+        span_m: f64,
+    },
     /// `wing-loading-unusual`.
     WingLoadingUnusual {
         /// kg/m^2.
@@ -184,6 +191,7 @@ impl InputFinding {
             | FinAheadOfWing { .. }
             | MarginLooksLikeAFraction { .. }
             | SurfacesOverlap { .. }
+            | CanardWakeOnWing { .. }
             | WingLoadingUnusual { .. }
             | FuselageLong { .. }
             | TailArmLong { .. }
@@ -211,6 +219,7 @@ impl InputFinding {
             StaticMarginLimitNegative { .. } => "static-margin-limit-negative",
             MarginLooksLikeAFraction { .. } => "margin-looks-like-a-fraction",
             SurfacesOverlap { .. } => "surfaces-overlap",
+            CanardWakeOnWing { .. } => "canard-wake-on-wing",
             WingLoadingUnusual { .. } => "wing-loading-unusual",
             FuselageLong { .. } | TailArmLong { .. } | AspectRatioUnusual { .. } => {
                 "proportions-unusual"

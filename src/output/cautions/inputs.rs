@@ -49,6 +49,7 @@ pub(super) fn message(f: &InputFinding) -> String {
         StaticMarginLimitNegative { .. }
         | MarginLooksLikeAFraction { .. }
         | SurfacesOverlap { .. }
+        | CanardWakeOnWing { .. }
         | WingLoadingUnusual { .. }
         | FuselageLong { .. }
         | TailArmLong { .. }
@@ -170,6 +171,14 @@ fn plausibility_message(f: &InputFinding) -> String {
             },
             1000.0 * y_m,
             1000.0 * gap_m
+        ),
+        CanardWakeOnWing { gap_m, span_m } => format!(
+            "The canard lies {:.0} mm from the wing's plane ({:.1} % of the span): its tip \
+             vortices pass through the wing, which the vortex model resolves poorly this close, \
+             so the wing's loading near them, the stall order and the induced drag are \
+             uncertain. A height difference of a few percent of the span avoids it.",
+            1000.0 * gap_m.abs(),
+            100.0 * gap_m.abs() / span_m
         ),
         WingLoadingUnusual {
             loading_kg_m2,
