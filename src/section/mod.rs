@@ -424,6 +424,18 @@ pub fn model_from_figures(
     if !cm_ac.is_finite() {
         return Err(not_finite("moment coefficient"));
     }
+    linear_outcome(airfoil, method, (alpha0, slope, cm_ac, x_ac_c), None)
+}
+
+/// The section model of `airfoil` by `method` from its linear lift curve `(alpha0_rad,
+/// slope_per_rad, cm_ac, x_ac_c)`, its stall limits from the file's cl_max (or the default,
+/// with its caution), and the viscous `polar` it came from, if any.
+fn linear_outcome(
+    airfoil: &Airfoil,
+    method: SectionMethod,
+    (alpha0, slope, cm_ac, x_ac_c): (f64, f64, f64, f64),
+    polar: Option<std::sync::Arc<polar::Polar>>,
+) -> Result<SectionOutcome, SectionError> {
     let (cl_max, cl_max_source, cautions) = resolve_cl_max(airfoil)?;
     let cl_min = cl_min_of(cl_max, slope, alpha0);
     Ok(SectionOutcome {
@@ -436,8 +448,8 @@ pub fn model_from_figures(
             cl_max,
             cl_min,
             cl_max_source,
-            reynolds_number: None,
-            polar: None,
+            reynolds_number: polar.as_ref().map(|p| p.reynolds),
+            polar,
         },
         cautions,
     })

@@ -2,8 +2,8 @@
 //! reduced to a lift curve (its linear part, the lift peak as cl_max) and the polar kept.
 
 use super::{
-    boundary_layer, build_contour, cache, cl_min_of, geometry, polar, resolve_cl_max,
-    shape_solutions, viscous, SectionError, SectionModel, SectionOptions, SectionOutcome,
+    boundary_layer, build_contour, cache, geometry, linear_outcome, polar, shape_solutions,
+    viscous, SectionError, SectionOptions, SectionOutcome,
 };
 use crate::model::{Airfoil, SectionMethod};
 
@@ -93,23 +93,12 @@ pub fn model_from_polar(
     if !(alpha0.is_finite() && cm_ac.is_finite() && x_ac_c.is_finite()) {
         return Err(not_finite("zero-lift angle or moment"));
     }
-    let (cl_max, cl_max_source, cautions) = resolve_cl_max(airfoil)?;
-    let cl_min = cl_min_of(cl_max, slope, alpha0);
-    Ok(SectionOutcome {
-        model: SectionModel {
-            method: SectionMethod::Viscous,
-            alpha_zero_lift_rad: alpha0,
-            cl_alpha_per_rad: slope,
-            cm_ac,
-            x_ac_c,
-            cl_max,
-            cl_min,
-            cl_max_source,
-            reynolds_number: Some(polar.reynolds),
-            polar: Some(polar),
-        },
-        cautions,
-    })
+    linear_outcome(
+        airfoil,
+        SectionMethod::Viscous,
+        (alpha0, slope, cm_ac, x_ac_c),
+        Some(polar),
+    )
 }
 
 /// The viscous polar of `airfoil` at `settings` (Reynolds number, N, panels) over
