@@ -33,9 +33,16 @@ fn edit_distance(a: &str, b: &str) -> usize {
     d[a.len()][b.len()]
 }
 
+/// Keys longer than this get no suggestion (the longest accepted key is far shorter).
+const MAX_SUGGESTED_KEY_CHARS: usize = 64;
+
 /// The accepted name closest to `key`, if it is close enough to be a slip of the keyboard:
 /// at most 2 edits, and fewer than half the characters of the longer name.
 pub(super) fn closest<'n>(key: &str, names: &[&'n str]) -> Option<&'n str> {
+    // No accepted name is near this long: a hostile key of a megabyte gets no table of it.
+    if key.chars().count() > MAX_SUGGESTED_KEY_CHARS {
+        return None;
+    }
     let lower = key.to_lowercase();
     names
         .iter()
@@ -149,6 +156,16 @@ impl Source<'_> {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn a_huge_key_gets_no_suggestion_and_no_huge_table() {
+        let key = "root_chord".repeat(100_000);
+        assert_eq!(closest(&key, &["root_chord", "tip_chord"]), None);
+        assert_eq!(
+            closest("root_chrd", &["root_chord", "tip_chord"]),
+            Some("root_chord")
+        );
+    }
 
     #[test]
     // Optimal string alignment distance: Damerau, F. J. (1964), "A technique for computer
